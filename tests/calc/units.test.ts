@@ -1,0 +1,122 @@
+/**
+ * `units` — dBm/mW/W, dBi, ERP↔EIRP, duty-cycle time averaging.
+ * Reproduces: the definitions (dBm = 10·log10(P/1 mW), dBi = 10·log10(G); common practice); the
+ * half-wave dipole gain 2.15 dBi ≈ 1.64 (Balanis, "Antenna Theory" — from memory; and
+ * /work/shared/reference/regulatory-limits.md §0 "EIRP = 1.64 × ERP (ERP = EIRP − 2.15 dB)");
+ * the ±5 % power-drift figures +0.212 dB / −0.223 dB of tissue-and-measurement.md §4.4.
+ */
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import {
+  dbiToLinear,
+  dbmToMw,
+  dbmToW,
+  eirpDbmToErpDbm,
+  eirpToErpW,
+  erpDbmToEirpDbm,
+  erpToEirpW,
+  linearToDbi,
+  mwToDbm,
+  timeAveragedPowerW,
+  units,
+  unitsInput,
+  wToDbm,
+} from '../../calc/em/units';
+
+const run = (raw: unknown) => units.compute(unitsInput.parse(raw));
+
+describe('units: worked values', () => {
+  it.each([
+    // definitions (common practice)
+    { input: { conversion: 'dbm-to-mw', powerDbm: 0 }, key: 'powerMw', value: 1 },
+    { input: { conversion: 'dbm-to-mw', powerDbm: 20 }, key: 'powerMw', value: 100 },
+    { input: { conversion: 'dbm-to-mw', powerDbm: -30 }, key: 'powerMw', value: 0.001 },
+    { input: { conversion: 'mw-to-dbm', powerMw: 1000 }, key: 'powerDbm', value: 30 },
+    { input: { conversion: 'dbm-to-w', powerDbm: 30 }, key: 'powerW', value: 1 },
+    { input: { conversion: 'dbm-to-w', powerDbm: 33 }, key: 'powerW', value: 1.995262315 },
+    { input: { conversion: 'w-to-dbm', powerW: 2 }, key: 'powerDbm', value: 33.010299957 },
+    { input: { conversion: 'dbi-to-linear', gainDbi: 3 }, key: 'gainLinear', value: 1.995262315 },
+    { input: { conversion: 'linear-to-dbi', gainLinear: 10 }, key: 'gainDbi', value: 10 },
+    // half-wave dipole 2.15 dBi: 10^0.215 = 1.640590 (computed from the 2.15 dB definition)
+    { input: { conversion: 'dbi-to-linear', gainDbi: 2.15 }, key: 'gainLinear', value: 1.640590 },
+    { input: { conversion: 'erp-to-eirp', erpW: 1 }, key: 'eirpW', value: 1.64059 },
+    { input: { conversion: 'eirp-to-erp', eirpW: 1.64059 }, key: 'erpW', value: 1 },
+    // duty cycle (common practice): 2 W bursts at 25 % → 0.5 W
+    { input: { conversion: 'time-averaged', peakPowerW: 2, dutyCycle: 0.25 }, key: 'timeAveragedPowerW', value: 0.5 },
+  ])('$input.conversion → $key = $value', ({ input, key, value }) => {
+    const r = run(input) as unknown as Record<string, number>;
+    expect(r[key] / value).toBeCloseTo(1, 6);
+  });
+
+  it('EIRP = 1.64 × ERP to the 3 figures regulatory-limits.md §0 prints, i.e. ERP = EIRP − 2.15 dB', () => {
+    expect(erpToEirpW(1)).toBeCloseTo(1.64, 2);
+    expect(erpDbmToEirpDbm(20)).toBe(22.15);
+    expect(eirpDbmToErpDbm(22.15)).toBeCloseTo(20, 12);
+    expect(wToDbm(erpToEirpW(0.1)) - wToDbm(0.1)).toBeCloseTo(2.15, 12);
+  });
+
+  it('±5 % power drift is +0.212 dB / −0.223 dB (tissue-and-measurement.md §4.4)', () => {
+    expect(mwToDbm(1.05)).toBeCloseTo(0.212, 3);
+    expect(mwToDbm(0.95)).toBeCloseTo(-0.223, 3);
+  });
+
+  it('the derivation states formula, units and the dipole gain for ERP/EIRP', () => {
+    const r = run({ conversion: 'erp-to-eirp', erpW: 2 });
+    expect(r.derivation.formula).toBe('EIRP = ERP · 10^(2.15/10)');
+    expect(r.derivation.inputs.erpW).toEqual({ value: 2, unit: 'W' });
+    expect(r.derivation.intermediate.halfWaveDipoleGainDbi.value).toBe(2.15);
+    expect(r.derivation.source).toMatch(/2\.15 dBi/);
+  });
+});
+
+describe('units: bad input is named', () => {
+  it('an unknown conversion lists the allowed ones', () => {
+    const bad = unitsInput.safeParse({ conversion: 'dbm-to-kw', powerDbm: 1 });
+    expect(bad.success).toBe(false);
+    expect(bad.error!.issues[0].path).toEqual(['conversion']);
+    expect(bad.error!.issues[0].message).toMatch(/dbm-to-mw/);
+  });
+
+  it.each([
+    [{ conversion: 'mw-to-dbm', powerMw: 0 }, 'powerMw'],
+    [{ conversion: 'w-to-dbm', powerW: -1 }, 'powerW'],
+    [{ conversion: 'time-averaged', peakPowerW: 1, dutyCycle: 1.2 }, 'dutyCycle'],
+    [{ conversion: 'time-averaged', peakPowerW: 1, dutyCycle: 0 }, 'dutyCycle'],
+    [{ conversion: 'dbm-to-mw' }, 'powerDbm'],
+  ])('%j is refused at %s', (input, field) => {
+    const bad = unitsInput.safeParse(input);
+    expect(bad.success).toBe(false);
+    expect(bad.error!.issues[0].path).toEqual([field]);
+  });
+});
+
+describe('units: round trips and monotonicity (fast-check)', () => {
+  const dbm = fc.double({ min: -150, max: 90, noNaN: true });
+  it('dBm → mW → dBm and dBm → W → dBm are identities; W = mW/1000', () => {
+    fc.assert(
+      fc.property(dbm, (p) => {
+        expect(mwToDbm(dbmToMw(p))).toBeCloseTo(p, 9);
+        expect(wToDbm(dbmToW(p))).toBeCloseTo(p, 9);
+        expect(dbmToW(p) / (dbmToMw(p) / 1000)).toBeCloseTo(1, 12);
+      }),
+    );
+  });
+
+  it('dBi ↔ linear and ERP ↔ EIRP invert each other; EIRP > ERP', () => {
+    fc.assert(
+      fc.property(fc.double({ min: -40, max: 40, noNaN: true }), fc.double({ min: 1e-6, max: 1e6, noNaN: true }), (g, w) => {
+        expect(linearToDbi(dbiToLinear(g))).toBeCloseTo(g, 9);
+        expect(eirpToErpW(erpToEirpW(w)) / w).toBeCloseTo(1, 12);
+        expect(erpToEirpW(w)).toBeGreaterThan(w);
+      }),
+    );
+  });
+
+  it('time-averaged power never exceeds the peak power', () => {
+    fc.assert(
+      fc.property(fc.double({ min: 0, max: 1e3, noNaN: true }), fc.double({ min: 1e-6, max: 1, noNaN: true }), (p, dc) => {
+        expect(timeAveragedPowerW(p, dc)).toBeLessThanOrEqual(p);
+      }),
+    );
+  });
+});
