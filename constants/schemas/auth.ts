@@ -1,0 +1,58 @@
+import { z } from 'zod';
+import { EMAIL_MAX, PASSWORD_MAX, PASSWORD_MIN, TOKEN_MAX } from './limits';
+import { zRole } from './roles';
+
+export const zEmail = z
+  .string({ error: 'Enter an e-mail address.' })
+  .trim()
+  .min(1, 'Enter an e-mail address.')
+  .max(EMAIL_MAX, `An e-mail address has at most ${EMAIL_MAX} characters.`)
+  .pipe(z.email('Enter a valid e-mail address, like name@example.com.'))
+  .transform((v) => v.toLowerCase());
+
+export const zLogin = z.strictObject({
+  email: zEmail,
+  password: z
+    .string({ error: 'Enter your password.' })
+    .min(1, 'Enter your password.')
+    .max(PASSWORD_MAX, `A password has at most ${PASSWORD_MAX} characters.`),
+});
+export type LoginInput = z.input<typeof zLogin>;
+
+export const zNewPassword = z
+  .string({ error: 'Choose a password.' })
+  .min(PASSWORD_MIN, `Use at least ${PASSWORD_MIN} characters.`)
+  .max(PASSWORD_MAX, `A password has at most ${PASSWORD_MAX} characters.`);
+
+/** The set-password form: the token comes from the invitation link. */
+export const zSetPasswordForm = z
+  .strictObject({
+    token: z.string().min(1, 'The link is missing its token.').max(TOKEN_MAX),
+    password: zNewPassword,
+    confirmPassword: z.string(),
+  })
+  .refine((v) => v.password === v.confirmPassword, {
+    path: ['confirmPassword'],
+    message: 'The two passwords differ.',
+  });
+export type SetPasswordFormInput = z.input<typeof zSetPasswordForm>;
+
+export const zSetPassword = z.strictObject({
+  token: z.string().min(1).max(TOKEN_MAX),
+  password: zNewPassword,
+});
+
+export const zMembershipDto = z.object({
+  organisationId: z.number(),
+  organisationName: z.string(),
+  roles: z.array(zRole),
+});
+
+export const zSessionUser = z.object({
+  id: z.number(),
+  email: z.string(),
+  name: z.string(),
+  roles: z.array(zRole),
+  organisation: z.object({ id: z.number(), name: z.string() }),
+});
+export type SessionUser = z.infer<typeof zSessionUser>;

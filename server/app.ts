@@ -1,0 +1,106 @@
+/**
+ * createApp() builds the Express app from an open database; server/start.ts calls listen.
+ * Tests drive the app directly with supertest on a fresh database.
+ */
+import fs from 'node:fs';
+import path from 'node:path';
+import { randomBytes } from 'node:crypto';
+import express, { type RequestHandler } from 'express';
+import session from 'express-session';
+import helmet from 'helmet';
+import type { DbHandle } from '../db/client';
+import type { Config } from './env';
+import type { Mailer } from './services/mailer';
+import type { AppContext } from './context';
+import { createPassport } from './auth/passport';
+import { createSessionStore } from './auth/session-store';
+import { apiNotFound, errorHandler } from './middleware/errors';
+import { forbidden } from './http-error';
+import { healthRoutes } from './routes/health';
+import { authRoutes } from './routes/auth';
+import { userRoutes } from './routes/users';
+import { outboxRoutes } from './routes/outbox';
+import { auditRoutes } from './routes/audit';
+import { calcRoutes } from './routes/calc';
+
+export const SESSION_COOKIE = 'fieldfile.sid';
+const SESSION_MAX_AGE_MS = 12 * 3600 * 1000;
+const JSON_LIMIT = '1mb';
+
+/** The session secret: from the environment, or generated once and kept in the data folder. */
+function sessionSecret(config: Config): string {
+  if (config.sessionSecret) return config.sessionSecret;
+  const file = path.join(config.dataDir, 'session-secret');
+  if (!fs.existsSync(file)) {
+    fs.mkdirSync(config.dataDir, { recursive: true });
+    fs.writeFileSync(file, randomBytes(32).toString('hex'), { mode: 0o600 });
+  }
+  return fs.readFileSync(file, 'utf8').trim();
+}
+
+/** Refuses state-changing API calls sent by another site's page (on top of SameSite=Lax). */
+const sameOriginWrites: RequestHandler = (req, _res, next) => {
+  const origin = req.get('origin');
+  if (!origin || ['GET', 'HEAD', 'OPTIONS'].includes(req.method)) return next();
+  let host: string;
+  try {
+    host = new URL(origin).host;
+  } catch {
+    return next(forbidden('Cross-site request refused.'));
+  }
+  if (host !== req.get('host')) return next(forbidden('Cross-site request refused.'));
+  next();
+};
+
+export interface CreateAppOptions {
+  handle: DbHandle;
+  config: Config;
+  mailer: Mailer;
+  /** Serve the exported web app from config.distDir (off in API tests). */
+  serveWeb?: boolean;
+}
+
+export function createApp({ handle, config, mailer, serveWeb = true }: CreateAppOptions) {
+  const ctx: AppContext = { db: handle.db, config, mailer };
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+  app.use(helmet({ contentSecurityPolicy: false, crossOriginEmbedderPolicy: false }));
+
+  const store = createSessionStore(handle.sqlite);
+  const passport = createPassport(handle.db);
+  const api = express.Router();
+  api.use(express.json({ limit: JSON_LIMIT }));
+  api.use(sameOriginWrites);
+  api.use(
+    session({
+      name: SESSION_COOKIE,
+      secret: sessionSecret(config),
+      store,
+      resave: false,
+      saveUninitialized: false,
+      rolling: true,
+      cookie: { httpOnly: true, sameSite: 'lax', secure: 'auto', maxAge: SESSION_MAX_AGE_MS },
+    }),
+  );
+  api.use(passport.session());
+  api.use('/health', healthRoutes(ctx));
+  api.use('/auth', authRoutes(ctx, passport));
+  api.use('/users', userRoutes(ctx));
+  api.use('/outbox', outboxRoutes(ctx));
+  api.use('/audit', auditRoutes(ctx));
+  api.use('/calc', calcRoutes());
+  api.use(apiNotFound);
+  api.use(errorHandler);
+  app.use('/api', api);
+
+  if (serveWeb) {
+    const index = path.join(config.distDir, 'index.html');
+    app.use(express.static(config.distDir, { extensions: ['html'], index: false, maxAge: '1h' }));
+    // Every other path is a client route: the single-page app decides what to show.
+    app.get('/{*splat}', (_req, res) => res.sendFile(index));
+  }
+  app.use(errorHandler);
+
+  return { app, close: () => store.close() };
+}

@@ -1,0 +1,10 @@
+/** What routes and services need from the running app, built once by createApp(). */
+import type { Db } from '../db/client';
+import type { Config } from './env';
+import type { Mailer } from './services/mailer';
+
+export interface AppContext {
+  db: Db;
+  config: Config;
+  mailer: Mailer;
+}

@@ -1,0 +1,84 @@
+/**
+ * The environment, parsed once. Everything has a default that runs the product on one machine
+ * with local stand-ins (SQLite file, local disk, in-process SMTP catcher).
+ */
+import path from 'node:path';
+import { z } from 'zod';
+
+const zBool = z
+  .enum(['true', 'false', '1', '0', ''])
+  .optional()
+  .transform((v) => v === 'true' || v === '1');
+
+const zEnv = z.object({
+  NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
+  PORT: z.coerce.number().int().min(0).max(65535).default(8080),
+  HOST: z.string().default('0.0.0.0'),
+  /** Holds the SQLite file, uploads and built packages. */
+  FIELDFILE_DATA_DIR: z.string().default('./data'),
+  /** Where the exported web app lives. */
+  FIELDFILE_DIST_DIR: z.string().default('./dist'),
+  /** Base URL used in e-mailed links; defaults to http://localhost:PORT. */
+  FIELDFILE_PUBLIC_URL: z.string().url().optional(),
+  FIELDFILE_SESSION_SECRET: z.string().min(16).optional(),
+  FIELDFILE_DEMO_PASSWORD: z.string().min(8).default('fieldfile-demo-2026'),
+  /** Port of the in-process SMTP catcher (used when SMTP_HOST is not set). */
+  FIELDFILE_MAIL_CATCHER_PORT: z.coerce.number().int().min(0).max(65535).default(2525),
+  SMTP_HOST: z.string().optional(),
+  SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(587),
+  SMTP_SECURE: zBool,
+  SMTP_USER: z.string().optional(),
+  SMTP_PASS: z.string().optional(),
+  MAIL_FROM: z.string().default('Fieldfile <no-reply@fieldfile.test>'),
+});
+
+export type Env = z.infer<typeof zEnv>;
+
+export interface Config {
+  env: Env['NODE_ENV'];
+  port: number;
+  host: string;
+  dataDir: string;
+  dbFile: string;
+  uploadsDir: string;
+  packagesDir: string;
+  distDir: string;
+  publicUrl: string;
+  sessionSecret?: string;
+  demoPassword: string;
+  mail: {
+    from: string;
+    catcherPort: number;
+    smtp?: { host: string; port: number; secure: boolean; user?: string; pass?: string };
+  };
+}
+
+export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
+  const parsed = zEnv.safeParse(source);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`).join('\n');
+    throw new Error(`Invalid environment:\n${lines}`);
+  }
+  const e = parsed.data;
+  const dataDir = path.resolve(e.FIELDFILE_DATA_DIR);
+  return {
+    env: e.NODE_ENV,
+    port: e.PORT,
+    host: e.HOST,
+    dataDir,
+    dbFile: path.join(dataDir, 'fieldfile.db'),
+    uploadsDir: path.join(dataDir, 'uploads'),
+    packagesDir: path.join(dataDir, 'packages'),
+    distDir: path.resolve(e.FIELDFILE_DIST_DIR),
+    publicUrl: (e.FIELDFILE_PUBLIC_URL ?? `http://localhost:${e.PORT}`).replace(/\/$/, ''),
+    sessionSecret: e.FIELDFILE_SESSION_SECRET,
+    demoPassword: e.FIELDFILE_DEMO_PASSWORD,
+    mail: {
+      from: e.MAIL_FROM,
+      catcherPort: e.FIELDFILE_MAIL_CATCHER_PORT,
+      smtp: e.SMTP_HOST
+        ? { host: e.SMTP_HOST, port: e.SMTP_PORT, secure: e.SMTP_SECURE, user: e.SMTP_USER, pass: e.SMTP_PASS }
+        : undefined,
+    },
+  };
+}

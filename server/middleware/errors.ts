@@ -1,0 +1,32 @@
+/**
+ * The one error handler, mounted last: HttpErrors keep their status and message; body-parser
+ * failures become 400s; anything else is logged and answered with a plain 500 (no stack traces).
+ */
+import type { ErrorRequestHandler, RequestHandler } from 'express';
+import { HttpError, notFound } from '../http-error';
+
+export const apiNotFound: RequestHandler = (req, _res, next) => {
+  next(notFound(`No API route ${req.method} ${req.originalUrl}.`));
+};
+
+export const errorHandler: ErrorRequestHandler = (err, _req, res, _next) => {
+  if (err instanceof HttpError) {
+    res.status(err.status).json({ error: { code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}) } });
+    return;
+  }
+  const e = err as { type?: string; status?: number; message?: string };
+  if (e?.type === 'entity.parse.failed') {
+    res.status(400).json({ error: { code: 'malformed_json', message: 'The request body is not valid JSON.' } });
+    return;
+  }
+  if (e?.type === 'entity.too.large') {
+    res.status(413).json({ error: { code: 'too_large', message: 'The request body is too large.' } });
+    return;
+  }
+  if (typeof e?.status === 'number' && e.status >= 400 && e.status < 500) {
+    res.status(e.status).json({ error: { code: 'bad_request', message: e.message ?? 'Bad request.' } });
+    return;
+  }
+  console.error('[fieldfile] unhandled error', err);
+  res.status(500).json({ error: { code: 'internal', message: 'Something went wrong on the server. Try again; if it persists, tell your admin.' } });
+};

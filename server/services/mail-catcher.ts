@@ -1,0 +1,59 @@
+/**
+ * A local SMTP server (smtp-server) that accepts every message on 127.0.0.1 and stores it in
+ * the outbox table, parsed by mailparser. It stands in for a hosted mail service out of the box.
+ */
+import { SMTPServer } from 'smtp-server';
+import { simpleParser } from 'mailparser';
+import type { AddressInfo } from 'node:net';
+import type { Db } from '../../db/client';
+import { mailMessages } from '../../db/schema';
+
+export interface MailCatcher {
+  port: number;
+  close(): Promise<void>;
+}
+
+const MAX_MESSAGE_BYTES = 10 * 1024 * 1024;
+
+function addressText(a: unknown): string {
+  if (!a) return '';
+  const list = Array.isArray(a) ? a : [a];
+  return list.map((x: { text?: string }) => x.text ?? '').join(', ');
+}
+
+export function startMailCatcher(db: Db, port: number): Promise<MailCatcher> {
+  const server = new SMTPServer({
+    authOptional: true,
+    disabledCommands: ['STARTTLS', 'AUTH'],
+    size: MAX_MESSAGE_BYTES,
+    logger: false,
+    banner: 'Fieldfile mail catcher',
+    onData(stream, _session, callback) {
+      simpleParser(stream)
+        .then((mail) => {
+          db.insert(mailMessages)
+            .values({
+              transport: 'catcher',
+              fromAddress: addressText(mail.from),
+              toAddress: addressText(mail.to),
+              subject: mail.subject ?? '(no subject)',
+              text: mail.text ?? '',
+              html: typeof mail.html === 'string' ? mail.html : null,
+            })
+            .run();
+          callback();
+        })
+        .catch((err: Error) => callback(err));
+    },
+  });
+  return new Promise((resolve, reject) => {
+    server.once('error', reject);
+    server.listen(port, '127.0.0.1', () => {
+      const actual = (server.server.address() as AddressInfo).port;
+      resolve({
+        port: actual,
+        close: () => new Promise<void>((r) => server.close(() => r())),
+      });
+    });
+  });
+}

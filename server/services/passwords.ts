@@ -1,0 +1,43 @@
+/**
+ * Password hashing with node:crypto scrypt (memory-hard, RFC 7914) at the OWASP Password Storage
+ * Cheat Sheet's minimum cost: N = 2^17, r = 8, p = 1 (128 MiB, about 0.5 s on this machine).
+ * N, r and p are stored with each hash so the cost can be raised later without invalidating
+ * existing hashes.
+ */
+import { randomBytes, scrypt as scryptCb, timingSafeEqual, type ScryptOptions } from 'node:crypto';
+
+const KEY_LENGTH = 32;
+const DEFAULT_COST = { N: 2 ** 17, r: 8, p: 1 };
+
+function scrypt(password: string, salt: Buffer, keylen: number, options: ScryptOptions): Promise<Buffer> {
+  return new Promise((resolve, reject) => {
+    scryptCb(password, salt, keylen, options, (err, key) => (err ? reject(err) : resolve(key)));
+  });
+}
+
+const maxmem = (N: number, r: number) => 128 * N * r * 2;
+
+export async function hashPassword(password: string): Promise<string> {
+  const { N, r, p } = DEFAULT_COST;
+  const salt = randomBytes(16);
+  const key = await scrypt(password, salt, KEY_LENGTH, { N, r, p, maxmem: maxmem(N, r) });
+  return `scrypt$${N}$${r}$${p}$${salt.toString('base64')}$${key.toString('base64')}`;
+}
+
+export async function verifyPassword(password: string, stored: string): Promise<boolean> {
+  const parts = stored.split('$');
+  if (parts.length !== 6 || parts[0] !== 'scrypt') return false;
+  const [N, r, p] = parts.slice(1, 4).map(Number);
+  const salt = Buffer.from(parts[4], 'base64');
+  const expected = Buffer.from(parts[5], 'base64');
+  const key = await scrypt(password, salt, expected.length, { N, r, p, maxmem: maxmem(N, r) });
+  return key.length === expected.length && timingSafeEqual(key, expected);
+}
+
+/** A hash of a random password, verified against when the e-mail is unknown so that timing
+ * does not reveal which part of a sign-in was wrong. */
+let decoyHash: Promise<string> | undefined;
+export function decoyPasswordHash(): Promise<string> {
+  decoyHash ??= hashPassword(randomBytes(16).toString('hex'));
+  return decoyHash;
+}

@@ -1,0 +1,69 @@
+/**
+ * `npm start`: build the web app if missing or stale, apply migrations, seed demo data (not in
+ * production), start the local mail catcher (unless SMTP_HOST is set), and serve the web app
+ * and the API on one port. `--dev` skips the web build (the Expo dev server serves the app).
+ */
+import fs from 'node:fs';
+import type { AddressInfo } from 'node:net';
+import { loadConfig } from './env';
+import { openDatabase } from '../db/client';
+import { applyMigrations } from '../db/migrate';
+import { createApp } from './app';
+import { createMailer } from './services/mailer';
+import { startMailCatcher, type MailCatcher } from './services/mail-catcher';
+import { buildWeb, webBuildIsStale } from './web-build';
+import { seedDemo } from '../seeds';
+import { DEMO_USERS } from '../seeds/demo-people';
+
+async function main() {
+  const dev = process.argv.includes('--dev');
+  const config = loadConfig();
+  for (const dir of [config.dataDir, config.uploadsDir, config.packagesDir]) fs.mkdirSync(dir, { recursive: true });
+
+  if (!dev && webBuildIsStale(config.distDir)) buildWeb(config.distDir);
+
+  const handle = openDatabase(config.dbFile);
+  applyMigrations(handle.db);
+
+  const seeded = config.env === 'production' ? undefined : await seedDemo(handle.db, config.demoPassword);
+
+  let catcher: MailCatcher | undefined;
+  if (!config.mail.smtp) catcher = await startMailCatcher(handle.db, config.mail.catcherPort);
+  const mailer = createMailer(config, handle.db, () => catcher?.port ?? config.mail.catcherPort);
+
+  const { app, close } = createApp({ handle, config, mailer, serveWeb: !dev });
+  const server = app.listen(config.port, config.host, () => {
+    const port = (server.address() as AddressInfo).port;
+    const url = config.publicUrl.includes(`:${config.port}`) ? config.publicUrl.replace(`:${config.port}`, `:${port}`) : config.publicUrl;
+    const lines = [
+      '',
+      `Fieldfile is running: ${url}`,
+      `  data folder: ${config.dataDir}`,
+      catcher ? `  mail: local catcher on 127.0.0.1:${catcher.port} (read it in the app: Outbox)` : `  mail: SMTP ${config.mail.smtp!.host}:${config.mail.smtp!.port}`,
+    ];
+    if (seeded) {
+      lines.push('', `Demo sign-ins (password: ${config.demoPassword}):`);
+      for (const u of DEMO_USERS) lines.push(`  ${u.email.padEnd(28)} ${u.role}`);
+    } else {
+      lines.push('', 'Production mode: no demo data. Create the first admin with `npm run create-admin`.');
+    }
+    console.log(lines.join('\n') + '\n');
+  });
+
+  const shutdown = () => {
+    server.closeAllConnections();
+    server.close(() => {
+      close();
+      void catcher?.close();
+      handle.sqlite.close();
+      process.exit(0);
+    });
+  };
+  process.on('SIGINT', shutdown);
+  process.on('SIGTERM', shutdown);
+}
+
+main().catch((err) => {
+  console.error(`[fieldfile] could not start: ${(err as Error).message}`);
+  process.exit(1);
+});

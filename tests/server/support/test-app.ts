@@ -1,0 +1,65 @@
+/**
+ * A fresh app on a fresh temporary database with migrations applied, a real SMTP catcher on a
+ * free port, and named seed helpers. Each test file gets its own.
+ */
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import request from 'supertest';
+import { openDatabase, type DbHandle } from '../../../db/client';
+import { applyMigrations } from '../../../db/migrate';
+import { createApp } from '../../../server/app';
+import { loadConfig, type Config } from '../../../server/env';
+import { createMailer } from '../../../server/services/mailer';
+import { startMailCatcher, type MailCatcher } from '../../../server/services/mail-catcher';
+import { seedDemo } from '../../../seeds';
+
+export const TEST_PASSWORD = 'test-password-123';
+
+export interface TestApp {
+  app: ReturnType<typeof createApp>['app'];
+  handle: DbHandle;
+  config: Config;
+  catcher: MailCatcher;
+  close(): Promise<void>;
+}
+
+export async function createTestApp(): Promise<TestApp> {
+  const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'fieldfile-test-'));
+  const config = loadConfig({
+    NODE_ENV: 'test',
+    FIELDFILE_DATA_DIR: dataDir,
+    FIELDFILE_DEMO_PASSWORD: TEST_PASSWORD,
+    FIELDFILE_PUBLIC_URL: 'http://fieldfile.test:8080',
+  });
+  const handle = openDatabase(path.join(dataDir, 'fieldfile.db'));
+  applyMigrations(handle.db);
+  const catcher = await startMailCatcher(handle.db, 0);
+  const mailer = createMailer(config, handle.db, () => catcher.port);
+  const { app, close } = createApp({ handle, config, mailer, serveWeb: false });
+  return {
+    app,
+    handle,
+    config,
+    catcher,
+    async close() {
+      close();
+      await catcher.close();
+      handle.sqlite.close();
+      fs.rmSync(dataDir, { recursive: true, force: true });
+    },
+  };
+}
+
+/** The demo organisation and its four users (admin@, specialist@, engineer@, approver@fieldfile.test). */
+export function seedUsers(t: TestApp) {
+  return seedDemo(t.handle.db, TEST_PASSWORD);
+}
+
+/** A supertest agent (keeps cookies) signed in as the given user. */
+export async function signIn(t: TestApp, email: string, password = TEST_PASSWORD) {
+  const agent = request.agent(t.app);
+  const res = await agent.post('/api/auth/login').send({ email, password });
+  if (res.status !== 200) throw new Error(`sign-in as ${email} failed: ${res.status} ${JSON.stringify(res.body)}`);
+  return agent;
+}

@@ -1,0 +1,12 @@
+import { defineConfig } from 'vitest/config';
+
+// Unit, calc and API tests (Node). Component tests run under jest-expo, browser tests under
+// vitest.e2e.config.mts.
+export default defineConfig({
+  test: {
+    include: ['tests/calc/**/*.test.ts', 'tests/server/**/*.test.ts', 'tests/unit/**/*.test.ts'],
+    environment: 'node',
+    pool: 'forks',
+    testTimeout: 20_000,
+  },
+});
