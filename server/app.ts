@@ -38,19 +38,35 @@ function sessionSecret(config: Config): string {
   return fs.readFileSync(file, 'utf8').trim();
 }
 
-/** Refuses state-changing API calls sent by another site's page (on top of SameSite=Lax). */
-const sameOriginWrites: RequestHandler = (req, _res, next) => {
-  const origin = req.get('origin');
-  if (!origin || ['GET', 'HEAD', 'OPTIONS'].includes(req.method)) return next();
-  let host: string;
-  try {
-    host = new URL(origin).host;
-  } catch {
-    return next(forbidden('Cross-site request refused.'));
-  }
-  if (host !== req.get('host')) return next(forbidden('Cross-site request refused.'));
-  next();
-};
+/**
+ * Refuses state-changing API calls sent by another site's page (on top of SameSite=Lax). The
+ * Expo dev server's origin (`npm run dev`) is let through, with CORS headers for it.
+ */
+function originGuard(devWebOrigin?: string): RequestHandler {
+  return (req, res, next) => {
+    const origin = req.get('origin');
+    if (origin && origin === devWebOrigin) {
+      res.set({
+        'Access-Control-Allow-Origin': origin,
+        'Access-Control-Allow-Credentials': 'true',
+        'Access-Control-Allow-Headers': 'content-type',
+        'Access-Control-Allow-Methods': 'GET,POST,PATCH,PUT,DELETE',
+        Vary: 'Origin',
+      });
+      if (req.method === 'OPTIONS') return void res.status(204).end();
+      return next();
+    }
+    if (!origin || ['GET', 'HEAD', 'OPTIONS'].includes(req.method)) return next();
+    let host: string;
+    try {
+      host = new URL(origin).host;
+    } catch {
+      return next(forbidden('Cross-site request refused.'));
+    }
+    if (host !== req.get('host')) return next(forbidden('Cross-site request refused.'));
+    next();
+  };
+}
 
 export interface CreateAppOptions {
   handle: DbHandle;
@@ -71,7 +87,7 @@ export function createApp({ handle, config, mailer, serveWeb = true }: CreateApp
   const passport = createPassport(handle.db);
   const api = express.Router();
   api.use(express.json({ limit: JSON_LIMIT }));
-  api.use(sameOriginWrites);
+  api.use(originGuard(config.devWebOrigin));
   api.use(
     session({
       name: SESSION_COOKIE,

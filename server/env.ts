@@ -20,6 +20,8 @@ const zEnv = z.object({
   FIELDFILE_DIST_DIR: z.string().default('./dist'),
   /** Base URL used in e-mailed links; defaults to http://localhost:PORT. */
   FIELDFILE_PUBLIC_URL: z.string().url().optional(),
+  /** Set by `npm run dev`: the Expo dev server's origin, allowed to call the API with cookies. */
+  FIELDFILE_DEV_WEB_ORIGIN: z.string().url().optional(),
   FIELDFILE_SESSION_SECRET: z.string().min(16).optional(),
   FIELDFILE_DEMO_PASSWORD: z.string().min(8).default('fieldfile-demo-2026'),
   /** Port of the in-process SMTP catcher (used when SMTP_HOST is not set). */
@@ -45,6 +47,7 @@ export interface Config {
   distDir: string;
   publicUrl: string;
   sessionSecret?: string;
+  devWebOrigin?: string;
   demoPassword: string;
   mail: {
     from: string;
@@ -72,6 +75,7 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
     distDir: path.resolve(e.FIELDFILE_DIST_DIR),
     publicUrl: (e.FIELDFILE_PUBLIC_URL ?? `http://localhost:${e.PORT}`).replace(/\/$/, ''),
     sessionSecret: e.FIELDFILE_SESSION_SECRET,
+    devWebOrigin: e.FIELDFILE_DEV_WEB_ORIGIN,
     demoPassword: e.FIELDFILE_DEMO_PASSWORD,
     mail: {
       from: e.MAIL_FROM,

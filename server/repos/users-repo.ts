@@ -2,7 +2,10 @@
 import { and, asc, eq } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 import { membershipRoles, memberships, organisations, users } from '../../db/schema';
-import type { Role } from '../../constants/schemas/roles';
+import { ROLES, type Role } from '../../constants/schemas/roles';
+
+/** Roles always come back in the canonical order of ROLES. */
+const byRoleOrder = (a: Role, b: Role) => ROLES.indexOf(a) - ROLES.indexOf(b);
 
 export type UserRow = typeof users.$inferSelect;
 
@@ -43,7 +46,7 @@ export function listMembershipsWithRoles(db: Db, userId: number) {
     if (r.role) m.roles.push(r.role);
     byOrg.set(r.organisationId, m);
   }
-  return [...byOrg.values()];
+  return [...byOrg.values()].map((m) => ({ ...m, roles: m.roles.sort(byRoleOrder) }));
 }
 
 /** Members of one organisation with their roles there. */
@@ -62,7 +65,7 @@ export function listOrganisationUsers(db: Db, organisationId: number) {
     if (r.role) entry.roles.push(r.role);
     byUser.set(r.user.id, entry);
   }
-  return [...byUser.values()];
+  return [...byUser.values()].map((u) => ({ ...u, roles: u.roles.sort(byRoleOrder) }));
 }
 
 export function replaceRoles(db: Db, membershipId: number, roles: readonly Role[]): void {

@@ -10,7 +10,7 @@ import { memberships, organisations, passwordTokens, users } from '../../db/sche
 import type { SessionUser } from '../../constants/schemas/auth';
 import type { CreateUserInput, UserDto } from '../../constants/schemas/users';
 import type { Role } from '../../constants/schemas/roles';
-import { ROLE_LABELS } from '../../constants/schemas/roles';
+import { ROLE_LABELS, ROLES } from '../../constants/schemas/roles';
 import { renderInvitationMail } from '../../templates/mail/invitation';
 import { conflict, forbidden, notFound, unprocessable } from '../http-error';
 import * as repo from '../repos/users-repo';
@@ -96,28 +96,35 @@ export interface CreatedUser {
  * Adds a user to the actor's organisation and e-mails an invitation link. An e-mail already in
  * the organisation is a conflict; an existing account from another organisation gets a membership.
  */
-export async function inviteUser(
+interface AddedMember {
+  user: repo.UserRow;
+  token?: string;
+  expiresAt?: Date;
+  organisationName: string;
+}
+
+/** Adds a member with roles in one transaction (with its audit record) and issues a link if needed. */
+function addMember(
   db: Db,
-  mailer: Mailer,
-  publicUrl: string,
-  actor: Actor,
+  organisationId: number,
+  actorUserId: number | null,
   input: { email: string; name: string; roles: Role[] },
-): Promise<CreatedUser> {
-  const { user, token, expiresAt, organisationName } = db.transaction((tx) => {
+): AddedMember {
+  return db.transaction((tx) => {
     let existing = repo.findUserByEmail(tx, input.email);
-    if (existing && repo.findMembership(tx, existing.id, actor.organisationId)) {
+    if (existing && repo.findMembership(tx, existing.id, organisationId)) {
       throw conflict('Someone with this e-mail is already a member.', { email: 'Someone with this e-mail is already a member.' });
     }
     if (!existing) {
       existing = tx.insert(users).values({ email: input.email, name: input.name }).returning().get();
     }
-    const membership = tx.insert(memberships).values({ userId: existing.id, organisationId: actor.organisationId }).returning().get();
+    const membership = tx.insert(memberships).values({ userId: existing.id, organisationId }).returning().get();
     repo.replaceRoles(tx, membership.id, input.roles);
-    const org = tx.select().from(organisations).where(eq(organisations.id, actor.organisationId)).get()!;
+    const org = tx.select().from(organisations).where(eq(organisations.id, organisationId)).get()!;
     const issued = existing.passwordHash === null ? issueToken(tx, existing.id, 'invitation') : undefined;
     recordAudit(tx, {
-      organisationId: actor.organisationId,
-      actorUserId: actor.id,
+      organisationId,
+      actorUserId,
       action: 'user.invite',
       targetType: 'user',
       targetId: existing.id,
@@ -125,15 +132,42 @@ export async function inviteUser(
     });
     return { user: existing, token: issued?.token, expiresAt: issued?.expiresAt, organisationName: org.name };
   });
+}
 
-  const dto = toDto(user, input.roles);
+const setPasswordLink = (publicUrl: string, token: string) => `${publicUrl}/set-password?token=${encodeURIComponent(token)}`;
+
+/** For `npm run create-admin`: adds the member and returns the set-password link instead of mailing it. */
+export function issueInvitationLink(
+  db: Db,
+  publicUrl: string,
+  organisationId: number,
+  input: { email: string; name: string; roles: Role[] },
+): string {
+  const added = addMember(db, organisationId, null, input);
+  if (!added.token) throw conflict('This account already has a password; sign in with it.');
+  return setPasswordLink(publicUrl, added.token);
+}
+
+/**
+ * Adds a user to the actor's organisation and e-mails an invitation link. An e-mail already in
+ * the organisation is a conflict; an existing account from another organisation gets a membership.
+ */
+export async function inviteUser(
+  db: Db,
+  mailer: Mailer,
+  publicUrl: string,
+  actor: Actor,
+  input: { email: string; name: string; roles: Role[] },
+): Promise<CreatedUser> {
+  const { user, token, expiresAt, organisationName } = addMember(db, actor.organisationId, actor.id, input);
+  const dto = toDto(user, [...input.roles].sort((a, b) => ROLES.indexOf(a) - ROLES.indexOf(b)));
   if (!token || !expiresAt) return { user: dto, invitation: { sent: false, error: 'The account already has a password; no invitation needed.' } };
   const mail = renderInvitationMail({
     inviteeName: input.name,
     organisationName,
     inviterName: actor.name,
     roles: input.roles.map((r) => ROLE_LABELS[r]),
-    link: `${publicUrl}/set-password?token=${encodeURIComponent(token)}`,
+    link: setPasswordLink(publicUrl, token),
     expiresAt,
   });
   try {
