@@ -59,30 +59,35 @@ export interface SimultaneousTransmissionResult {
   pairs: SplsrPair[];
 }
 
+// A top-level builder rather than a per-call closure or object spread: with 20 transmitters (190
+// pairs) those were the hot spot under tsx/esbuild (keepNames wraps every closure it creates).
+function pairOf(
+  a: string,
+  b: string,
+  pairSumWPerKg: number,
+  distanceMm: number | null,
+  splsr: number | null,
+  splsrRounded: number | null,
+  pass: boolean,
+  reason: string,
+): SplsrPair {
+  return { a, b, pairSumWPerKg, distanceMm, splsr, splsrRounded, pass, reason };
+}
+
 function pairResult(a: z.output<typeof transmitter>, b: z.output<typeof transmitter>, splsrLimit: number): SplsrPair {
   const pairSumWPerKg = a.sarWPerKg + b.sarWPerKg;
-  const base = { a: a.id, b: b.id, pairSumWPerKg };
-  if (!a.peakLocationM || !b.peakLocationM) {
+  const pa = a.peakLocationM;
+  const pb = b.peakLocationM;
+  if (!pa || !pb) {
     const missing = [a, b].filter((t) => !t.peakLocationM).map((t) => t.id);
-    return { ...base, distanceMm: null, splsr: null, splsrRounded: null, pass: false, reason: `peak location missing for ${missing.join(', ')}` };
+    return pairOf(a.id, b.id, pairSumWPerKg, null, null, null, false, `peak location missing for ${missing.join(', ')}`);
   }
-  const [ax, ay, az] = a.peakLocationM;
-  const [bx, by, bz] = b.peakLocationM;
-  const distanceMm = Math.hypot(ax - bx, ay - by, az - bz) * MM_PER_M;
-  if (distanceMm === 0) {
-    return { ...base, distanceMm, splsr: null, splsrRounded: null, pass: false, reason: 'peak locations coincide (R = 0): SPLSR unbounded' };
-  }
+  const distanceMm = Math.hypot(pa[0] - pb[0], pa[1] - pb[1], pa[2] - pb[2]) * MM_PER_M;
+  if (distanceMm === 0) return pairOf(a.id, b.id, pairSumWPerKg, distanceMm, null, null, false, 'peak locations coincide (R = 0): SPLSR unbounded');
   const splsr = pairSumWPerKg ** 1.5 / distanceMm;
   const splsrRounded = Math.round(splsr * 100) / 100;
   const pass = splsrRounded <= splsrLimit;
-  return {
-    ...base,
-    distanceMm,
-    splsr,
-    splsrRounded,
-    pass,
-    reason: `SPLSR ${splsrRounded.toFixed(2)} ${pass ? '≤' : '>'} ${splsrLimit}`,
-  };
+  return pairOf(a.id, b.id, pairSumWPerKg, distanceMm, splsr, splsrRounded, pass, `SPLSR ${splsrRounded.toFixed(2)} ${pass ? '≤' : '>'} ${splsrLimit}`);
 }
 
 export function computeSimultaneousTransmission(

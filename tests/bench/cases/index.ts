@@ -1,0 +1,6 @@
+/** Every benchmark case, in the order `npm run bench` runs them. Later issues append here. */
+import type { BenchCase } from '../harness';
+import { filingEvaluationCase } from './filing-evaluation';
+import { planeWaveProfileCase } from './plane-wave-profile';
+
+export const benchCases: BenchCase[] = [filingEvaluationCase, planeWaveProfileCase];

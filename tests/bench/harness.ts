@@ -1,0 +1,59 @@
+/**
+ * A small timing harness for `npm run bench` (tinybench is not installed): warm-up, then one
+ * process.hrtime.bigint() reading per call, reporting mean and p95 against each case's target.
+ * Speed targets live here, never in timed tests.
+ */
+
+export interface BenchCase {
+  name: string;
+  /** Target per call, ms (the case passes when p95 is under it). */
+  targetMs: number;
+  /** Builds the function to time, or returns a string saying why the case is skipped. */
+  prepare(): (() => unknown) | string;
+  /** Lines printed under the result (what was measured, what was absent). */
+  describe?(): string[];
+  warmupIterations?: number;
+  iterations?: number;
+}
+
+export interface BenchResult {
+  name: string;
+  skipped?: string;
+  iterations?: number;
+  meanMs?: number;
+  p95Ms?: number;
+  targetMs: number;
+  underTarget?: boolean;
+}
+
+function percentile(sortedMs: number[], p: number): number {
+  const rank = Math.ceil((p / 100) * sortedMs.length) - 1;
+  return sortedMs[Math.min(sortedMs.length - 1, Math.max(0, rank))];
+}
+
+export function runCase(c: BenchCase): BenchResult {
+  const fn = c.prepare();
+  if (typeof fn === 'string') return { name: c.name, skipped: fn, targetMs: c.targetMs };
+  const warmup = c.warmupIterations ?? 50;
+  const iterations = c.iterations ?? 500;
+  for (let i = 0; i < warmup; i++) fn();
+  const samplesMs = new Array<number>(iterations);
+  for (let i = 0; i < iterations; i++) {
+    const t0 = process.hrtime.bigint();
+    fn();
+    samplesMs[i] = Number(process.hrtime.bigint() - t0) / 1e6;
+  }
+  samplesMs.sort((a, b) => a - b);
+  const meanMs = samplesMs.reduce((s, x) => s + x, 0) / iterations;
+  const p95Ms = percentile(samplesMs, 95);
+  return { name: c.name, iterations, meanMs, p95Ms, targetMs: c.targetMs, underTarget: p95Ms < c.targetMs };
+}
+
+export function formatResult(r: BenchResult): string {
+  if (r.skipped) return `SKIP  ${r.name}: ${r.skipped}`;
+  const verdict = r.underTarget ? 'OK  ' : 'SLOW';
+  return (
+    `${verdict}  ${r.name}: mean ${r.meanMs!.toFixed(3)} ms, p95 ${r.p95Ms!.toFixed(3)} ms ` +
+    `(target < ${r.targetMs} ms, ${r.iterations} runs)`
+  );
+}

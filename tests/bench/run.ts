@@ -1,0 +1,21 @@
+/**
+ * `npm run bench` — times every case in tests/bench/cases against its target and prints mean and
+ * p95 per call. A benchmark, not a test: it always exits 0 unless a case throws.
+ *   npm run bench -- <filter>   runs only the cases whose name contains <filter>
+ */
+import os from 'node:os';
+import { benchCases } from './cases';
+import { formatResult, runCase } from './harness';
+
+const filter = process.argv[2];
+const cases = filter ? benchCases.filter((c) => c.name.includes(filter)) : benchCases;
+
+console.log(
+  `Node ${process.version}, ${os.cpus().length} × ${os.cpus()[0]?.model ?? 'cpu'}, load average ${os.loadavg().map((l) => l.toFixed(2)).join(' ')} ` +
+    '(figures are only comparable on an otherwise idle machine)',
+);
+for (const c of cases) {
+  const result = runCase(c);
+  console.log(formatResult(result));
+  for (const line of c.describe?.() ?? []) console.log(`      ${line}`);
+}
