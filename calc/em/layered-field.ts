@@ -155,13 +155,26 @@ export function solveLayers(frequencyHz: number, incidentPowerDensityWPerM2: num
   };
 }
 
-/** |E|² (V²/m², rms) at local depth t (m) inside a solved layer. */
+/** |E|² (V²/m², rms) at local depth t (m) inside a solved layer. Scalar arithmetic: this is the profile's inner loop. */
 export function fieldSquaredAt(layer: SolvedLayer, t: number): number {
-  const g = layer.medium.propagationConstantPerM;
-  const fwd = mul(layer.forwardAmplitude, exp(scale(g, -t)));
-  if (layer.thicknessM === null) return abs2(fwd);
-  const bwd = mul(layer.backwardAmplitude, exp(scale(g, -(layer.thicknessM - t))));
-  return abs2(add(fwd, bwd));
+  const { attenuationNpPerM: alpha, phaseRadPerM: beta } = layer.medium;
+  const A = layer.forwardAmplitude;
+  // A·e^(−γt) = A·e^(−αt)(cos βt − j sin βt)
+  const ef = Math.exp(-alpha * t);
+  const cf = Math.cos(beta * t);
+  const sf = Math.sin(beta * t);
+  let re = ef * (A.re * cf + A.im * sf);
+  let im = ef * (A.im * cf - A.re * sf);
+  if (layer.thicknessM !== null) {
+    const B = layer.backwardAmplitude;
+    const u = layer.thicknessM - t;
+    const eb = Math.exp(-alpha * u);
+    const cb = Math.cos(beta * u);
+    const sb = Math.sin(beta * u);
+    re += eb * (B.re * cb + B.im * sb);
+    im += eb * (B.im * cb - B.re * sb);
+  }
+  return re * re + im * im;
 }
 
 /** (1 − e^(−x))/x, accurate for small x and equal to 1 at x = 0. */
@@ -195,6 +208,7 @@ export function absorbedFromField(layer: SolvedLayer): number {
   const d = layer.thicknessM;
   if (d === null) {
     const alpha = layer.medium.attenuationNpPerM;
+    if (alpha === 0) return 0; // σ so small that α underflows: the power leaves through the half-space
     return (layer.conductivitySPerM * abs2(layer.forwardAmplitude)) / (2 * alpha);
   }
   return layer.conductivitySPerM * fieldSquaredIntegral(layer, d);

@@ -61,8 +61,8 @@ export function mediumProperties(
   const x = conductivitySPerM / (omega * eps);
   const root = Math.hypot(1, x);
   const k = omega * Math.sqrt((mu * eps) / 2);
-  // √(1+x²) − 1 written as x²/(√(1+x²) + 1) to avoid cancellation in nearly lossless media.
-  const alpha = k * Math.sqrt((x * x) / (root + 1));
+  // [√(1+x²) − 1]^½ written as x/√(√(1+x²) + 1): no cancellation or underflow in nearly lossless media.
+  const alpha = (k * x) / Math.sqrt(root + 1);
   const beta = k * Math.sqrt(root + 1);
   const eta = sqrt(div(complex(0, omega * mu), complex(conductivitySPerM, omega * eps)));
   return {

@@ -41,12 +41,20 @@ const tissueLayer = z.strictObject({
 const LAYER_SHAPE_MESSAGE =
   'each layer needs thicknessM (m, or null for a semi-infinite last layer) and either tissue (a tissue id) or relativePermittivity, conductivitySPerM and densityKgPerM3 — not both';
 
+/** Names the rule and the closest of the two layer shapes' own complaints. */
+function explainLayerShape(issue: { code?: string; errors?: { path: PropertyKey[]; message: string }[][] }): string {
+  const options = issue.errors ?? [];
+  if (!options.length) return LAYER_SHAPE_MESSAGE;
+  const closest = options.reduce((best, o) => (o.length < best.length ? o : best));
+  return `${LAYER_SHAPE_MESSAGE} (closest match: ${closest.map((i) => `${i.path.map(String).join('.') || 'layer'}: ${i.message}`).join('; ')})`;
+}
+
 export const planeWaveLayersInput = z
   .object({
     frequencyHz: z.number().positive().describe('Frequency, Hz'),
     incidentPowerDensityWPerM2: z.number().positive().describe('Incident plane-wave power density (rms), W/m²'),
     layers: z
-      .array(z.union([materialLayer, tissueLayer], { error: LAYER_SHAPE_MESSAGE }))
+      .array(z.union([materialLayer, tissueLayer], { error: explainLayerShape }))
       .min(1)
       .max(MAX_LAYERS)
       .describe('Layers from the surface inwards; free space lies behind a finite last layer'),
@@ -160,11 +168,14 @@ function fresnel(etaFrom: Complex, etaTo: Complex): InterfaceCoefficients {
   return { reflectionCoefficient: toJson(reflection), transmissionCoefficient: toJson(add(ONE, reflection)) };
 }
 
-/** Depth the profile covers: the finite stack, plus 3 skin depths (or a wavelength if lossless) of a semi-infinite layer and at least the 10 g cube. */
+/**
+ * Depth the profile covers: the finite stack, plus min(3 skin depths, 10 wavelengths) of a
+ * semi-infinite layer (SAR is down to e^(−6) after 3 skin depths), and at least the 10 g cube.
+ */
 function profileDepthM(solution: LayeredSolution, cube10gSideM: number): number {
   if (!solution.semiInfinite) return solution.finiteDepthM;
   const last = solution.layers[solution.layers.length - 1].medium;
-  const tail = last.attenuationNpPerM > 0 ? 3 / last.attenuationNpPerM : (2 * Math.PI) / last.phaseRadPerM;
+  const tail = Math.min(3 * last.skinDepthM, (20 * Math.PI) / last.phaseRadPerM);
   return Math.max(solution.finiteDepthM + tail, cube10gSideM);
 }
 
@@ -197,7 +208,7 @@ function planeWaveLayersParsed(input: ParsedInput): PlaneWaveLayersResult {
   const incident = input.incidentPowerDensityWPerM2;
   const last = solution.layers[solution.layers.length - 1];
   // A lossless semi-infinite last layer carries its power away: that is transmission, not absorption.
-  const losslessHalfSpace = solution.semiInfinite && last.conductivitySPerM === 0;
+  const losslessHalfSpace = solution.semiInfinite && last.medium.attenuationNpPerM === 0;
 
   const absorbedFractionByLayer = solution.layers.map((l, i) =>
     losslessHalfSpace && i === solution.layers.length - 1 ? 0 : (l.powerInWPerM2 - l.powerOutWPerM2) / incident,
