@@ -7,7 +7,7 @@ import { emCalculations } from './em';
 import { limitCalculations } from './limits';
 import { labCalculations } from './lab';
 
-export const ENGINE_VERSION = '1.0.0';
+export { ENGINE_VERSION, RULE_SET_VERSION } from './versions';
 
 const all: Calculation[] = [...emCalculations, ...limitCalculations, ...labCalculations] as Calculation[];
 
