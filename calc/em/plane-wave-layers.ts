@@ -8,7 +8,7 @@ import { z } from 'zod';
 import { CalcRangeError, defineCalculation, type Quantity } from '../types';
 import { abs2, add, div, scale, toJson, ONE, type Complex } from './complex';
 import { CONSTANTS_SOURCE, FREE_SPACE_IMPEDANCE_OHM } from './constants';
-import { absorbedFromField, solveLayers, type LayerMedium, type LayeredSolution } from './layered-field';
+import { absorbedFromField, fieldSquaredSeries, solveLayers, type LayerMedium, type LayeredSolution } from './layered-field';
 import { MEDIUM_SOURCES } from './medium';
 import { q } from './quantity';
 import { cubeAveragedSar, layerPeakSar, layerSarAt, type CubeAverage } from './sar-cube';
@@ -187,10 +187,15 @@ function sarProfile(solution: LayeredSolution, depthM: number, points: number): 
     const start = layer.startDepthM;
     if (start > depthM) return;
     const end = layer.thicknessM === null ? depthM : Math.min(start + layer.thicknessM, depthM);
+    const sarPerFieldSq = layer.conductivitySPerM / layer.densityKgPerM3;
     out.push({ depthM: start, sarWPerKg: layerSarAt(layer, 0), layerIndex });
-    for (let k = Math.floor(start / step) + 1; k * step < end && k < points; k++) {
-      const z = k * step;
-      if (z > start) out.push({ depthM: z, sarWPerKg: layerSarAt(layer, z - start), layerIndex });
+    // interior grid points k·step with start < k·step < end
+    const first = Math.floor(start / step) + 1;
+    let last = Math.min(points - 1, Math.ceil(end / step) - 1);
+    while (last >= first && last * step >= end) last--;
+    if (last >= first) {
+      const fieldSq = fieldSquaredSeries(layer, first * step - start, step, last - first + 1);
+      for (let k = first; k <= last; k++) out.push({ depthM: k * step, sarWPerKg: sarPerFieldSq * fieldSq[k - first], layerIndex });
     }
     out.push({ depthM: end, sarWPerKg: layerSarAt(layer, end - start), layerIndex });
   });
@@ -310,8 +315,8 @@ export const planeWaveLayersCalculation = defineCalculation({
     for (const key of ['1g', '10g'] as const) {
       if (r.cubes[key].extendsBeyondStack) notes.push(`The ${key} cube (side ${r.cubes[key].sideM} m) reaches past the finite stack into free space (no mass, no absorption there).`);
     }
-    return {
-      ...r,
+    // r is ours and fresh: attach the derivation instead of copying ~16 fields with a spread
+    return Object.assign(r, {
       derivation: {
         formula:
           'Z_in,i = η_i(1 + Γ_L,i e^(−2γ_i d_i))/(1 − Γ_L,i e^(−2γ_i d_i)), Γ_L,i = (Z_L − η_i)/(Z_L + η_i); Γ = (Z_in,1 − η0)/(Z_in,1 + η0); ' +
@@ -341,6 +346,6 @@ export const planeWaveLayersCalculation = defineCalculation({
         source: SOURCES.slice(0, 4).join('; '),
         notes,
       },
-    };
+    });
   },
 });
