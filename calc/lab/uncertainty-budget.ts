@@ -42,7 +42,10 @@ const component = z.object({
 });
 
 export const uncertaintyBudgetInput = z.object({
-  components: z.array(component).min(1),
+  components: z
+    .array(component)
+    .min(1)
+    .refine((list) => new Set(list.map((c) => c.name)).size === list.length, { message: 'component names must be unique' }),
   coverageFactor: z.number().positive().default(2),
   limitPct: z.number().positive().default(SAR_EXPANDED_UNCERTAINTY_LIMIT_PCT),
 });

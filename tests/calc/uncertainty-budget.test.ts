@@ -91,6 +91,11 @@ describe('uncertainty-budget', () => {
     expect(r.combinedStandardPct).toBe(6);
   });
 
+  it('rejects duplicate component names (the derivation lists components by name)', () => {
+    const c = { name: 'x', valuePct: 1, distribution: 'normal' as const, sensitivity: 1 };
+    expect(() => uncertaintyBudget({ components: [c, c] })).toThrow(/unique/);
+  });
+
   it('rejects an unknown distribution via the registry, naming the path', () => {
     const out = runCalculation('uncertainty-budget', { components: [{ name: 'x', valuePct: 1, distribution: 'gaussian', sensitivity: 1 }] });
     expect(out.ok).toBe(false);
