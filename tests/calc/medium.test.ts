@@ -89,7 +89,7 @@ describe('medium: worked values of reference §5', () => {
     expect(r.attenuationNpPerM).toBeCloseTo(alpha, 4);
   });
 
-  it('carries its derivation with units and sources', () => {
+  it('carries its derivation with units and sources (issue 3 output contract)', () => {
     const r = run({ frequencyHz: 9e8, relativePermittivity: 41.5, conductivitySPerM: 0.97 });
     expect(r.derivation.inputs.relativePermeability).toEqual({ value: 1, unit: '1' });
     expect(r.derivation.result.attenuationNpPerM.unit).toBe('Np/m');
@@ -97,7 +97,7 @@ describe('medium: worked values of reference §5', () => {
     expect(r.derivation.source).toMatch(/CODATA 2022/);
   });
 
-  it('rejects non-physical input with a message naming the field', () => {
+  it('rejects non-physical input with a message naming the field (issue 3 error contract)', () => {
     const bad = mediumInput.safeParse({ frequencyHz: 0, relativePermittivity: 1, conductivitySPerM: -1 });
     expect(bad.success).toBe(false);
     expect(bad.error!.issues.map((i) => i.path[0]).sort()).toEqual(['conductivitySPerM', 'frequencyHz']);

@@ -224,7 +224,7 @@ describe('plane-wave-layers: surface-faced cube averages', () => {
     }
   });
 
-  it('the cube mass s²·∫ρ dz equals 1 g and 10 g through a layered stack', () => {
+  it('the cube mass s²·∫ρ dz equals 1 g and 10 g through a layered stack (cube definition, IEC/IEEE 62209-1528 — from memory)', () => {
     const layers = [
       { tissue: 'skin-dry' as const, thicknessM: 0.0015 },
       { tissue: 'fat' as const, thicknessM: 0.004 },
@@ -238,7 +238,7 @@ describe('plane-wave-layers: surface-faced cube averages', () => {
     }
   });
 
-  it('averaged SAR equals the quadrature of σ|E|² over the cube depth divided by its column mass', () => {
+  it('averaged SAR equals the quadrature of σ|E|² over the cube depth divided by its column mass (independent solve above)', () => {
     const input = {
       frequencyHz: 2.45e9,
       incidentPowerDensityWPerM2: 10,
@@ -264,7 +264,7 @@ describe('plane-wave-layers: surface-faced cube averages', () => {
     expect(r.averagedSarWPerKg['10g'] / ((absorbed * incidentFieldSq) / column)).toBeCloseTo(1, 8);
   });
 
-  it('a cube larger than a finite stack is flagged and noted (free space behind has no mass)', () => {
+  it('a cube larger than a finite stack is flagged and noted (free space behind has no mass; our own convention)', () => {
     const out = planeWaveLayersCalculation.compute(
       planeWaveLayersInput.parse({ frequencyHz: 9e8, incidentPowerDensityWPerM2: 10, layers: [{ tissue: 'muscle', thicknessM: 0.005 }] }),
     );
@@ -274,7 +274,7 @@ describe('plane-wave-layers: surface-faced cube averages', () => {
   });
 });
 
-describe('plane-wave-layers: profile and report', () => {
+describe('plane-wave-layers: profile and report (issue 3 output contract)', () => {
   const input: PlaneWaveLayersInput = {
     frequencyHz: 900e6,
     incidentPowerDensityWPerM2: 10,
@@ -297,7 +297,7 @@ describe('plane-wave-layers: profile and report', () => {
     expect(planeWaveLayers({ ...input, profilePoints: 1000 }).sarProfile.length).toBeGreaterThanOrEqual(1000);
   });
 
-  it('peak SAR per layer is at least the largest of 100 000 profile points and within 1e-9 of it', () => {
+  it('peak SAR per layer is at least the largest of 100 000 profile points and within 1e-6 of it (dense-sampling cross-check)', () => {
     const r = planeWaveLayers({ ...input, frequencyHz: 5.8e9, profilePoints: 100_000 });
     r.layers.forEach((l, i) => {
       const sampled = Math.max(...r.sarProfile.filter((p) => p.layerIndex === i).map((p) => p.sarWPerKg));
@@ -336,7 +336,7 @@ describe('plane-wave-layers: profile and report', () => {
   });
 });
 
-describe('plane-wave-layers: bad input names what to fix', () => {
+describe('plane-wave-layers: bad input names what to fix (issue 3 error contract)', () => {
   it('only the last layer may be semi-infinite', () => {
     const bad = planeWaveLayersInput.safeParse({
       frequencyHz: 9e8,
@@ -359,7 +359,7 @@ describe('plane-wave-layers: bad input names what to fix', () => {
     expect(bad.error!.issues[0].message).toMatch(message);
   });
 
-  it('tissue layers outside 10 Hz–100 GHz raise a range error naming the range', () => {
+  it('tissue layers outside 10 Hz–100 GHz raise a range error naming the range (Gabriel 1996 validity range)', () => {
     const input = { frequencyHz: 2e11, incidentPowerDensityWPerM2: 1, layers: [{ tissue: 'muscle' as const, thicknessM: null }] };
     expect(() => planeWaveLayers(input)).toThrow(CalcRangeError);
     expect(() => planeWaveLayers(input)).toThrow(/layers\[0\] \(muscle\).*10 Hz to 100 GHz/);
@@ -374,7 +374,7 @@ describe('plane-wave-layers: bad input names what to fix', () => {
 
 // ---------------------------------------------------------------------------------------------
 describe('plane-wave-layers: invariants (fast-check)', () => {
-  it('agrees with the independent boundary-condition solve (Γ, fractions per layer, field profile)', () => {
+  it('agrees with the independent boundary-condition solve (Γ, fractions per layer, field profile) (Balanis ch. 5 boundary conditions)', () => {
     fc.assert(
       fc.property(scenario, (input) => {
         const r = planeWaveLayers(input);
@@ -400,7 +400,7 @@ describe('plane-wave-layers: invariants (fast-check)', () => {
     );
   });
 
-  it('energy balance: reflected + absorbed + transmitted = 1 to 1e-9, and Poynting differences match σ∫|E|²', () => {
+  it('energy balance: reflected + absorbed + transmitted = 1 to 1e-9, and Poynting differences match σ∫|E|² (Poynting theorem, Balanis ch. 1 — from memory)', () => {
     fc.assert(
       fc.property(scenario, (input) => {
         const r = planeWaveLayers(input);
@@ -414,7 +414,7 @@ describe('plane-wave-layers: invariants (fast-check)', () => {
     );
   });
 
-  it('a perfect conductor (σ = 1e14 S/m) reflects everything, alone or behind a lossless layer', () => {
+  it('a perfect conductor (σ = 1e14 S/m) reflects everything, alone or behind a lossless layer (Pozar §1.7 — from memory)', () => {
     fc.assert(
       fc.property(
         frequency,
@@ -432,7 +432,7 @@ describe('plane-wave-layers: invariants (fast-check)', () => {
     );
   });
 
-  it('a matched lossless layer (εr = 1, σ = 0: η = η0) in front does not change the reflection', () => {
+  it('a matched lossless layer (εr = 1, σ = 0: η = η0) in front does not change the reflection (Pozar §2.3, matched line — from memory)', () => {
     fc.assert(
       fc.property(scenario, fc.double({ min: 1e-4, max: 0.1, noNaN: true }), (input, d) => {
         const air = { thicknessM: d, relativePermittivity: 1, conductivitySPerM: 0, densityKgPerM3: 1.2 };
@@ -459,7 +459,7 @@ describe('plane-wave-layers: invariants (fast-check)', () => {
     );
   });
 
-  it('a lossless half-wave layer (d = nλ/2) is transparent: alone it reflects nothing, in front of a stack it leaves Γ unchanged', () => {
+  it('a lossless half-wave layer (d = nλ/2) is transparent: alone it reflects nothing, in front of a stack it leaves Γ unchanged (half-wave window, Pozar §2.3 — from memory)', () => {
     fc.assert(
       fc.property(scenario, fc.double({ min: 1.5, max: 80, noNaN: true }), fc.integer({ min: 1, max: 3 }), (input, er, n) => {
         const beta = mediumProperties(input.frequencyHz, er, 0).phaseRadPerM;

@@ -59,18 +59,18 @@ describe('tissue-properties: Gabriel 1996 values (reference §2.1)', () => {
     expect(r.densityKgPerM3).toBe(DENSITY[tissue]);
   });
 
-  it('covers the ten tissues the issue asks for, plus dura', () => {
+  it('covers the ten tissues issue 3 asks for, plus dura (reference §1.2 rows)', () => {
     expect([...TISSUE_IDS].sort()).toEqual(Object.keys(TABLE).sort());
     expect(TISSUE_IDS).toHaveLength(11);
   });
 
-  it('lists the tissue ids in the input JSON Schema (for --list)', async () => {
+  it('lists the tissue ids in the input JSON Schema (for --list; issue 3 contract)', async () => {
     const { z } = await import('zod');
     const schema = JSON.stringify(z.toJSONSchema(tissuePropertiesInput, { io: 'input' }));
     for (const id of TISSUE_IDS) expect(schema).toContain(`"${id}"`);
   });
 
-  it('the derivation names the paper and, for CSF, the Appendix C report', () => {
+  it('the derivation names the paper and, for CSF, the Appendix C report (reference §1)', () => {
     expect(run({ tissue: 'muscle', frequencyHz: 9e8 }).derivation.source).toMatch(/Phys\. Med\. Biol\. 41:2271/);
     expect(run({ tissue: 'csf', frequencyHz: 9e8 }).derivation.source).toMatch(/AL\/OE-TR-1996-0037/);
     expect(run({ tissue: 'dura', frequencyHz: 9e8 }).derivation.source).toMatch(/from memory/);
@@ -88,7 +88,7 @@ describe('tissue-properties: validity range 10 Hz–100 GHz (Gabriel 1996 abstra
     expect(run({ tissue: 'blood', frequencyHz: 100e9 }).relativePermittivity).toBeGreaterThan(0);
   });
 
-  it('an unknown tissue is refused with the list of ids', () => {
+  it('an unknown tissue is refused with the list of ids (issue 3 error contract)', () => {
     const bad = tissuePropertiesInput.safeParse({ tissue: 'liver', frequencyHz: 9e8 });
     expect(bad.success).toBe(false);
     expect(bad.error!.issues[0].path).toEqual(['tissue']);

@@ -26,24 +26,23 @@ import {
 const run = (raw: unknown) => units.compute(unitsInput.parse(raw));
 
 describe('units: worked values', () => {
+  const DEF = 'definition, common practice';
+  const DIPOLE = 'half-wave dipole 2.15 dBi: 10^0.215 = 1.640590, from the 2.15 dB definition';
   it.each([
-    // definitions (common practice)
-    { input: { conversion: 'dbm-to-mw', powerDbm: 0 }, key: 'powerMw', value: 1 },
-    { input: { conversion: 'dbm-to-mw', powerDbm: 20 }, key: 'powerMw', value: 100 },
-    { input: { conversion: 'dbm-to-mw', powerDbm: -30 }, key: 'powerMw', value: 0.001 },
-    { input: { conversion: 'mw-to-dbm', powerMw: 1000 }, key: 'powerDbm', value: 30 },
-    { input: { conversion: 'dbm-to-w', powerDbm: 30 }, key: 'powerW', value: 1 },
-    { input: { conversion: 'dbm-to-w', powerDbm: 33 }, key: 'powerW', value: 1.995262315 },
-    { input: { conversion: 'w-to-dbm', powerW: 2 }, key: 'powerDbm', value: 33.010299957 },
-    { input: { conversion: 'dbi-to-linear', gainDbi: 3 }, key: 'gainLinear', value: 1.995262315 },
-    { input: { conversion: 'linear-to-dbi', gainLinear: 10 }, key: 'gainDbi', value: 10 },
-    // half-wave dipole 2.15 dBi: 10^0.215 = 1.640590 (computed from the 2.15 dB definition)
-    { input: { conversion: 'dbi-to-linear', gainDbi: 2.15 }, key: 'gainLinear', value: 1.640590 },
-    { input: { conversion: 'erp-to-eirp', erpW: 1 }, key: 'eirpW', value: 1.64059 },
-    { input: { conversion: 'eirp-to-erp', eirpW: 1.64059 }, key: 'erpW', value: 1 },
-    // duty cycle (common practice): 2 W bursts at 25 % → 0.5 W
-    { input: { conversion: 'time-averaged', peakPowerW: 2, dutyCycle: 0.25 }, key: 'timeAveragedPowerW', value: 0.5 },
-  ])('$input.conversion → $key = $value', ({ input, key, value }) => {
+    { input: { conversion: 'dbm-to-mw', powerDbm: 0 }, key: 'powerMw', value: 1, source: DEF },
+    { input: { conversion: 'dbm-to-mw', powerDbm: 20 }, key: 'powerMw', value: 100, source: DEF },
+    { input: { conversion: 'dbm-to-mw', powerDbm: -30 }, key: 'powerMw', value: 0.001, source: DEF },
+    { input: { conversion: 'mw-to-dbm', powerMw: 1000 }, key: 'powerDbm', value: 30, source: DEF },
+    { input: { conversion: 'dbm-to-w', powerDbm: 30 }, key: 'powerW', value: 1, source: DEF },
+    { input: { conversion: 'dbm-to-w', powerDbm: 33 }, key: 'powerW', value: 1.995262315, source: DEF },
+    { input: { conversion: 'w-to-dbm', powerW: 2 }, key: 'powerDbm', value: 33.010299957, source: DEF },
+    { input: { conversion: 'dbi-to-linear', gainDbi: 3 }, key: 'gainLinear', value: 1.995262315, source: DEF },
+    { input: { conversion: 'linear-to-dbi', gainLinear: 10 }, key: 'gainDbi', value: 10, source: DEF },
+    { input: { conversion: 'dbi-to-linear', gainDbi: 2.15 }, key: 'gainLinear', value: 1.64059, source: DIPOLE },
+    { input: { conversion: 'erp-to-eirp', erpW: 1 }, key: 'eirpW', value: 1.64059, source: DIPOLE },
+    { input: { conversion: 'eirp-to-erp', eirpW: 1.64059 }, key: 'erpW', value: 1, source: DIPOLE },
+    { input: { conversion: 'time-averaged', peakPowerW: 2, dutyCycle: 0.25 }, key: 'timeAveragedPowerW', value: 0.5, source: 'P_avg = P_peak × duty cycle, common practice' },
+  ])('$input.conversion → $key = $value ($source)', ({ input, key, value }) => {
     const r = run(input) as unknown as Record<string, number>;
     expect(r[key] / value).toBeCloseTo(1, 6);
   });
@@ -60,7 +59,7 @@ describe('units: worked values', () => {
     expect(mwToDbm(0.95)).toBeCloseTo(-0.223, 3);
   });
 
-  it('the derivation states formula, units and the dipole gain for ERP/EIRP', () => {
+  it('the derivation states formula, units and the dipole gain for ERP/EIRP (issue 3 output contract)', () => {
     const r = run({ conversion: 'erp-to-eirp', erpW: 2 });
     expect(r.derivation.formula).toBe('EIRP = ERP · 10^(2.15/10)');
     expect(r.derivation.inputs.erpW).toEqual({ value: 2, unit: 'W' });
@@ -69,7 +68,7 @@ describe('units: worked values', () => {
   });
 });
 
-describe('units: bad input is named', () => {
+describe('units: bad input is named (issue 3 error contract)', () => {
   it('an unknown conversion lists the allowed ones', () => {
     const bad = unitsInput.safeParse({ conversion: 'dbm-to-kw', powerDbm: 1 });
     expect(bad.success).toBe(false);
@@ -90,7 +89,7 @@ describe('units: bad input is named', () => {
   });
 });
 
-describe('units: round trips and monotonicity (fast-check)', () => {
+describe('units: round trips and monotonicity (fast-check; follow from the definitions)', () => {
   const dbm = fc.double({ min: -150, max: 90, noNaN: true });
   it('dBm → mW → dBm and dBm → W → dBm are identities; W = mW/1000', () => {
     fc.assert(
