@@ -303,6 +303,7 @@ describe('plane-wave-layers: profile and report (issue 3 output contract)', () =
       const sampled = Math.max(...r.sarProfile.filter((p) => p.layerIndex === i).map((p) => p.sarWPerKg));
       expect(r.peakSarWPerKgByLayer[i]).toBeGreaterThanOrEqual(sampled * (1 - 1e-12));
       expect(r.peakSarWPerKgByLayer[i]).toBeLessThanOrEqual(sampled * (1 + 1e-6));
+      expect(l.peakSarWPerKg).toBe(r.peakSarWPerKgByLayer[i]);
     });
   });
 
