@@ -52,8 +52,9 @@ export function runCase(c: BenchCase): BenchResult {
 export function formatResult(r: BenchResult): string {
   if (r.skipped) return `SKIP  ${r.name}: ${r.skipped}`;
   const verdict = r.underTarget ? 'OK  ' : 'SLOW';
+  const under = (ms: number) => (ms < r.targetMs ? 'under' : 'over');
   return (
-    `${verdict}  ${r.name}: mean ${r.meanMs!.toFixed(3)} ms, p95 ${r.p95Ms!.toFixed(3)} ms ` +
-    `(target < ${r.targetMs} ms, ${r.iterations} runs)`
+    `${verdict}  ${r.name}: mean ${r.meanMs!.toFixed(3)} ms (${under(r.meanMs!)}), p95 ${r.p95Ms!.toFixed(3)} ms ` +
+    `(${under(r.p95Ms!)}); target < ${r.targetMs} ms at p95, ${r.iterations} runs`
   );
 }
