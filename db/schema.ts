@@ -4,8 +4,10 @@
  * `tablesFilter` in drizzle.config.ts).
  */
 import { sql } from 'drizzle-orm';
-import { index, integer, primaryKey, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
+import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
 import { ROLES } from '../constants/schemas/roles';
+import { DATA_STEPS, VERSION_STATES } from '../constants/schemas/filings';
+import { FCC_SAR_SCREENINGS, PRODUCT_TYPES, REGIMES, TIERS, USE_POSITION_KINDS } from '../constants/schemas/device-file';
 
 const createdAt = () =>
   text('created_at')
@@ -110,4 +112,180 @@ export const mailMessages = sqliteTable(
     html: text('html'),
   },
   (t) => [index('mail_messages_received').on(t.receivedAt)],
+);
+
+// ---------------------------------------------------------------------------------------------
+// Filings: one device, one filing, numbered versions. The wizard's data belongs to a version so
+// that a signed version stays frozen while the next one is edited.
+
+
+export const devices = sqliteTable(
+  'devices',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    organisationId: integer('organisation_id')
+      .notNull()
+      .references(() => organisations.id),
+    name: text('name').notNull(),
+    model: text('model').notNull(),
+    applicant: text('applicant').notNull(),
+    productType: text('product_type', { enum: PRODUCT_TYPES }).notNull(),
+    hardwareVersion: text('hardware_version').notNull().default(''),
+    firmwareVersion: text('firmware_version').notNull().default(''),
+    createdAt: createdAt(),
+    updatedAt: text('updated_at'),
+  },
+  (t) => [index('devices_org').on(t.organisationId)],
+);
+
+export const filings = sqliteTable(
+  'filings',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    organisationId: integer('organisation_id')
+      .notNull()
+      .references(() => organisations.id),
+    deviceId: integer('device_id')
+      .notNull()
+      .references(() => devices.id),
+    ownerUserId: integer('owner_user_id')
+      .notNull()
+      .references(() => users.id),
+    createdAt: createdAt(),
+    updatedAt: text('updated_at')
+      .notNull()
+      .default(sql`(strftime('%Y-%m-%dT%H:%M:%fZ', 'now'))`),
+  },
+  (t) => [index('filings_org_updated').on(t.organisationId, t.updatedAt)],
+);
+
+export const filingVersions = sqliteTable(
+  'filing_versions',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    filingId: integer('filing_id')
+      .notNull()
+      .references(() => filings.id, { onDelete: 'cascade' }),
+    number: integer('number').notNull(),
+    state: text('state', { enum: VERSION_STATES }).notNull().default('draft'),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex('filing_versions_filing_number').on(t.filingId, t.number)],
+);
+
+const versionRef = () =>
+  integer('version_id')
+    .notNull()
+    .references(() => filingVersions.id, { onDelete: 'cascade' });
+
+export const antennas = sqliteTable(
+  'antennas',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    versionId: versionRef(),
+    /** The user's own id for the antenna ("ANT1"), unique within a version. */
+    key: text('key').notNull(),
+    gainDbi: real('gain_dbi').notNull(),
+    location: text('location').notNull().default(''),
+    sortOrder: integer('sort_order').notNull(),
+  },
+  (t) => [uniqueIndex('antennas_version_key').on(t.versionId, t.key)],
+);
+
+export const transmitters = sqliteTable(
+  'transmitters',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    versionId: versionRef(),
+    key: text('key').notNull(),
+    technology: text('technology').notNull(),
+    band: text('band').notNull(),
+    frequencyMinHz: real('frequency_min_hz').notNull(),
+    frequencyMaxHz: real('frequency_max_hz').notNull(),
+    maxTuneUpPowerDbm: real('max_tune_up_power_dbm').notNull(),
+    dutyCycle: real('duty_cycle').notNull(),
+    antennaId: integer('antenna_id')
+      .notNull()
+      .references(() => antennas.id),
+    sortOrder: integer('sort_order').notNull(),
+  },
+  (t) => [uniqueIndex('transmitters_version_key').on(t.versionId, t.key)],
+);
+
+export const usePositions = sqliteTable(
+  'use_positions',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    versionId: versionRef(),
+    key: text('key').notNull(),
+    kind: text('kind', { enum: USE_POSITION_KINDS }).notNull(),
+    sortOrder: integer('sort_order').notNull(),
+  },
+  (t) => [uniqueIndex('use_positions_version_key').on(t.versionId, t.key)],
+);
+
+export const usePositionSeparations = sqliteTable(
+  'use_position_separations',
+  {
+    usePositionId: integer('use_position_id')
+      .notNull()
+      .references(() => usePositions.id, { onDelete: 'cascade' }),
+    antennaId: integer('antenna_id')
+      .notNull()
+      .references(() => antennas.id, { onDelete: 'cascade' }),
+    separationM: real('separation_m').notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.usePositionId, t.antennaId] })],
+);
+
+export const marketSelections = sqliteTable(
+  'market_selections',
+  {
+    versionId: versionRef(),
+    regime: text('regime', { enum: REGIMES }).notNull(),
+    tier: text('tier', { enum: TIERS }).notNull(),
+    fccSarScreening: text('fcc_sar_screening', { enum: FCC_SAR_SCREENINGS }),
+    sortOrder: integer('sort_order').notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.versionId, t.regime] })],
+);
+
+/** Transmitter combinations that can be on together (stored by transmitter key). */
+export const simultaneousGroups = sqliteTable('simultaneous_groups', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  versionId: versionRef(),
+  transmitterKeys: text('transmitter_keys', { mode: 'json' }).notNull().$type<string[]>(),
+  sortOrder: integer('sort_order').notNull(),
+});
+
+/**
+ * What the user typed in a step that does not validate yet, so a reload loses nothing. Cleared
+ * when the step saves cleanly.
+ */
+export const stepDrafts = sqliteTable(
+  'step_drafts',
+  {
+    versionId: versionRef(),
+    step: text('step', { enum: DATA_STEPS }).notNull(),
+    data: text('data', { mode: 'json' }).notNull().$type<unknown>(),
+    updatedAt: text('updated_at').notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.versionId, t.step] })],
+);
+
+/** Each distinct screening computed for a version, with the engine and rule-set versions used. */
+export const screeningResults = sqliteTable(
+  'screening_results',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    versionId: versionRef(),
+    computedAt: createdAt(),
+    engineVersion: text('engine_version').notNull(),
+    ruleSetVersion: text('rule_set_version').notNull(),
+    /** SHA-256 of the engine input, so an unchanged filing is not stored twice. */
+    inputSha256: text('input_sha256').notNull(),
+    input: text('input', { mode: 'json' }).notNull().$type<unknown>(),
+    output: text('output', { mode: 'json' }).notNull().$type<unknown>(),
+  },
+  (t) => [uniqueIndex('screening_results_version_input').on(t.versionId, t.inputSha256, t.engineVersion, t.ruleSetVersion)],
 );

@@ -9,13 +9,33 @@ import { hashPassword } from '../server/services/passwords';
 import { findMembership, replaceRoles } from '../server/repos/users-repo';
 import { recordAudit } from '../server/services/audit';
 import { DEMO_ORGANISATION, DEMO_USERS } from './demo-people';
+import { filings } from '../db/schema';
+import { zDeviceFile } from '../constants/schemas/device-file';
+import { createFiling, importDeviceFile } from '../server/services/filings-service';
+import { DEMO_DOCK_DEVICE, DEMO_TRACKER } from './demo-filing';
 
 export interface SeedResult {
   organisationId: number;
   createdUsers: string[];
+  createdFilings: number;
 }
 
 export async function seedDemo(db: Db, demoPassword: string): Promise<SeedResult> {
+  const people = await seedPeople(db, demoPassword);
+  return { ...people, createdFilings: seedFilings(db, people.organisationId) };
+}
+
+/** The demo filings, created by the demo specialist, only into an organisation that has none. */
+function seedFilings(db: Db, organisationId: number): number {
+  if (db.select({ id: filings.id }).from(filings).where(eq(filings.organisationId, organisationId)).get()) return 0;
+  const specialist = db.select().from(users).where(eq(users.email, 'specialist@fieldfile.test')).get()!;
+  const actor = { id: specialist.id, organisationId, roles: ['specialist' as const] };
+  importDeviceFile(db, actor, zDeviceFile.parse(DEMO_TRACKER));
+  createFiling(db, actor, DEMO_DOCK_DEVICE);
+  return 2;
+}
+
+async function seedPeople(db: Db, demoPassword: string) {
   const passwordHash = await hashPassword(demoPassword);
   return db.transaction((tx) => {
     let org = tx.select().from(organisations).where(eq(organisations.slug, DEMO_ORGANISATION.slug)).get();

@@ -22,6 +22,7 @@ import { userRoutes } from './routes/users';
 import { outboxRoutes } from './routes/outbox';
 import { auditRoutes } from './routes/audit';
 import { calcRoutes } from './routes/calc';
+import { filingRoutes, schemaRoutes } from './routes/filings';
 
 export const SESSION_COOKIE = 'fieldfile.sid';
 const SESSION_MAX_AGE_MS = 12 * 3600 * 1000;
@@ -106,6 +107,8 @@ export function createApp({ handle, config, mailer, serveWeb = true }: CreateApp
   api.use('/outbox', outboxRoutes(ctx));
   api.use('/audit', auditRoutes(ctx));
   api.use('/calc', calcRoutes());
+  api.use('/filings', filingRoutes(ctx));
+  api.use('/schema', schemaRoutes());
   api.use(apiNotFound);
   api.use(errorHandler);
   app.use('/api', api);

@@ -1,0 +1,134 @@
+/**
+ * Filings and the wizard's steps: states, step ids, the step schemas (built from the device
+ * file's parts, so a form and the file agree) and the shapes the API returns.
+ */
+import { z } from 'zod';
+import {
+  MAX_ANTENNAS,
+  MAX_TRANSMITTERS,
+  MAX_USE_POSITIONS,
+  REGIMES,
+  zAntenna,
+  zDeviceInfo,
+  zMarket,
+  zTransmitter,
+  zUsePosition,
+} from './device-file';
+
+export const VERSION_STATES = ['draft', 'in-review', 'changes-requested', 'signed'] as const;
+export type VersionState = (typeof VERSION_STATES)[number];
+export const VERSION_STATE_LABELS: Record<VersionState, string> = {
+  draft: 'Draft',
+  'in-review': 'In review',
+  'changes-requested': 'Changes requested',
+  signed: 'Signed',
+};
+/** States in which the wizard's data may change. */
+export const EDITABLE_STATES: readonly VersionState[] = ['draft', 'changes-requested'];
+
+/** Steps whose data the user enters (autosaved); the wizard's further steps are computed. */
+export const DATA_STEPS = ['device', 'radios', 'use-positions', 'markets'] as const;
+export type DataStep = (typeof DATA_STEPS)[number];
+export const WIZARD_STEPS = [...DATA_STEPS, 'screening'] as const;
+export type WizardStep = (typeof WIZARD_STEPS)[number];
+export const STEP_LABELS: Record<WizardStep, string> = {
+  device: 'Device',
+  radios: 'Radios',
+  'use-positions': 'Use positions',
+  markets: 'Markets',
+  screening: 'Screening',
+};
+
+const duplicateIdIssues = (items: { id: string }[], path: string, ctx: z.RefinementCtx) => {
+  const seen = new Set<string>();
+  items.forEach((item, i) => {
+    if (seen.has(item.id)) ctx.addIssue({ code: 'custom', path: [path, i, 'id'], message: `Duplicate id "${item.id}".` });
+    seen.add(item.id);
+  });
+};
+
+export const zDeviceStep = zDeviceInfo;
+export type DeviceStep = z.output<typeof zDeviceStep>;
+
+/** Antennas and transmitters are saved together: a transmitter names its antenna. */
+export const zRadiosStep = z
+  .strictObject({
+    antennas: z.array(zAntenna).max(MAX_ANTENNAS),
+    transmitters: z.array(zTransmitter).max(MAX_TRANSMITTERS),
+  })
+  .superRefine((v, ctx) => {
+    duplicateIdIssues(v.antennas, 'antennas', ctx);
+    duplicateIdIssues(v.transmitters, 'transmitters', ctx);
+    const antennaIds = new Set(v.antennas.map((a) => a.id));
+    v.transmitters.forEach((t, i) => {
+      if (!antennaIds.has(t.antennaId)) ctx.addIssue({ code: 'custom', path: ['transmitters', i, 'antennaId'], message: `Pick one of the antennas above (no antenna "${t.antennaId}").` });
+    });
+  });
+export type RadiosStep = z.output<typeof zRadiosStep>;
+export type RadiosStepInput = z.input<typeof zRadiosStep>;
+
+export const zUsePositionsStep = z
+  .strictObject({ usePositions: z.array(zUsePosition).max(MAX_USE_POSITIONS) })
+  .superRefine((v, ctx) => duplicateIdIssues(v.usePositions, 'usePositions', ctx));
+export type UsePositionsStep = z.output<typeof zUsePositionsStep>;
+export type UsePositionsStepInput = z.input<typeof zUsePositionsStep>;
+
+export const zMarketsStep = z
+  .strictObject({ markets: z.array(zMarket).max(REGIMES.length) })
+  .superRefine((v, ctx) => {
+    const seen = new Set<string>();
+    v.markets.forEach((m, i) => {
+      if (seen.has(m.regime)) ctx.addIssue({ code: 'custom', path: ['markets', i, 'regime'], message: `${m.regime} is listed twice.` });
+      seen.add(m.regime);
+    });
+  });
+export type MarketsStep = z.output<typeof zMarketsStep>;
+
+export const STEP_SCHEMAS = {
+  device: zDeviceStep,
+  radios: zRadiosStep,
+  'use-positions': zUsePositionsStep,
+  markets: zMarketsStep,
+} as const;
+
+/** Creating a filing starts from the device's identity; the rest is filled step by step. */
+export const zNewFiling = z.strictObject({ device: zDeviceInfo });
+export type NewFilingInput = z.input<typeof zNewFiling>;
+
+export const FILING_SORTS = ['updated', 'name', 'state'] as const;
+export const zFilingListQuery = z.object({
+  q: z.string().trim().max(120).optional(),
+  sort: z.enum(FILING_SORTS).default('updated'),
+});
+
+export interface StepStatus {
+  step: WizardStep;
+  complete: boolean;
+  /** What is missing or wrong, in words a user can act on. */
+  problems: string[];
+  /** Unsaved input with errors is kept as a draft until it validates. */
+  hasDraft: boolean;
+}
+
+export interface FilingSummary {
+  id: number;
+  device: { name: string; model: string; applicant: string; productType: string };
+  version: { id: number; number: number; state: VersionState };
+  markets: string[];
+  owner: { id: number; name: string };
+  updatedAt: string;
+  createdAt: string;
+}
+
+export interface FilingDetail extends FilingSummary {
+  editable: boolean;
+  steps: StepStatus[];
+  data: {
+    device: DeviceStep;
+    radios: RadiosStep;
+    'use-positions': UsePositionsStep;
+    markets: MarketsStep;
+  };
+  /** Unvalidated step input saved while it still had errors. */
+  drafts: Partial<Record<DataStep, { data: unknown; updatedAt: string }>>;
+}

@@ -1,0 +1,87 @@
+/**
+ * The demo device: a fictional rugged handheld tracker by the fictional Halden Ridge Instruments,
+ * with LTE (a low band, a band that straddles 1.5 GHz and a mid band), Wi-Fi 2.4 and 5 GHz and
+ * Bluetooth. Its filing is partly done for two markets: the use positions still lack the
+ * Bluetooth antenna's separation at the wrist strap, so the wizard shows what remains.
+ */
+import { DEVICE_FILE_FORMAT, type DeviceFileInput } from '../constants/schemas/device-file';
+
+export const DEMO_TRACKER: DeviceFileInput = {
+  format: DEVICE_FILE_FORMAT,
+  device: {
+    name: 'Trailhound TH-4 rugged tracker',
+    model: 'TH4-LW2',
+    applicant: 'Halden Ridge Instruments',
+    productType: 'tracker',
+    hardwareVersion: 'EVT3 rev C',
+    firmwareVersion: '2.4.1',
+  },
+  markets: [
+    { regime: 'fcc', tier: 'general', fccSarScreening: 'exemption' },
+    { regime: 'eu', tier: 'general' },
+  ],
+  antennas: [
+    { id: 'ANT-MAIN', gainDbi: 1.2, location: 'Top edge, behind the rubber bumper' },
+    { id: 'ANT-DIV', gainDbi: -1.5, location: 'Bottom edge, diversity receive / LTE mid band' },
+    { id: 'ANT-WLAN', gainDbi: 2.1, location: 'Back cover, upper left' },
+  ],
+  transmitters: [
+    { id: 'LTE-B12', technology: 'LTE', band: 'Band 12', frequencyMinHz: 699e6, frequencyMaxHz: 716e6, maxTuneUpPowerDbm: 24, dutyCycle: 1, antennaId: 'ANT-MAIN' },
+    { id: 'LTE-B11', technology: 'LTE', band: 'Band 11/21 (1.43–1.51 GHz)', frequencyMinHz: 1427.9e6, frequencyMaxHz: 1510.9e6, maxTuneUpPowerDbm: 23, dutyCycle: 1, antennaId: 'ANT-MAIN' },
+    { id: 'LTE-B2', technology: 'LTE', band: 'Band 2', frequencyMinHz: 1850e6, frequencyMaxHz: 1910e6, maxTuneUpPowerDbm: 23.5, dutyCycle: 1, antennaId: 'ANT-DIV' },
+    { id: 'WLAN-2G4', technology: 'Wi-Fi 802.11b/g/n', band: '2.4 GHz', frequencyMinHz: 2412e6, frequencyMaxHz: 2472e6, maxTuneUpPowerDbm: 17, dutyCycle: 0.98, antennaId: 'ANT-WLAN' },
+    { id: 'WLAN-5G', technology: 'Wi-Fi 802.11a/n/ac', band: 'U-NII-1 to U-NII-3', frequencyMinHz: 5180e6, frequencyMaxHz: 5825e6, maxTuneUpPowerDbm: 14, dutyCycle: 0.95, antennaId: 'ANT-WLAN' },
+    { id: 'BT-LE', technology: 'Bluetooth LE', band: '2.4 GHz ISM', frequencyMinHz: 2402e6, frequencyMaxHz: 2480e6, maxTuneUpPowerDbm: 4, dutyCycle: 0.35, antennaId: 'ANT-WLAN' },
+  ],
+  usePositions: [
+    {
+      id: 'belt-clip',
+      kind: 'body-worn',
+      separations: [
+        { antennaId: 'ANT-MAIN', separationM: 0.01 },
+        { antennaId: 'ANT-DIV', separationM: 0.01 },
+        { antennaId: 'ANT-WLAN', separationM: 0.012 },
+      ],
+    },
+    {
+      id: 'in-hand',
+      kind: 'extremity',
+      separations: [
+        { antennaId: 'ANT-MAIN', separationM: 0 },
+        { antennaId: 'ANT-DIV', separationM: 0.003 },
+        { antennaId: 'ANT-WLAN', separationM: 0 },
+      ],
+    },
+    {
+      id: 'wrist-strap',
+      kind: 'extremity',
+      separations: [
+        { antennaId: 'ANT-MAIN', separationM: 0.004 },
+        { antennaId: 'ANT-DIV', separationM: 0.02 },
+      ],
+    },
+    {
+      id: 'vehicle-dock',
+      kind: 'far-field',
+      separations: [
+        { antennaId: 'ANT-MAIN', separationM: 0.2 },
+        { antennaId: 'ANT-DIV', separationM: 0.2 },
+        { antennaId: 'ANT-WLAN', separationM: 0.2 },
+      ],
+    },
+  ],
+  simultaneous: [
+    ['LTE-B2', 'WLAN-2G4'],
+    ['LTE-B12', 'WLAN-5G', 'BT-LE'],
+  ],
+};
+
+/** A second, just-started filing, so the list has more than one entry. */
+export const DEMO_DOCK_DEVICE = {
+  name: 'Trailhound charging dock with LTE backhaul',
+  model: 'TH4-DK1',
+  applicant: 'Halden Ridge Instruments',
+  productType: 'iot-module' as const,
+  hardwareVersion: 'DVT1',
+  firmwareVersion: '',
+};

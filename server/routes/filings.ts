@@ -1,0 +1,89 @@
+/**
+ * Filings and the wizard: list, create, import, read, save a step (autosave), export the device
+ * file, and the screening table. Reading is open to every member; changes need the specialist role.
+ */
+import { Router, type RequestHandler } from 'express';
+import { z } from 'zod';
+import { DATA_STEPS, zFilingListQuery, zNewFiling } from '../../constants/schemas/filings';
+import { zDeviceFile } from '../../constants/schemas/device-file';
+import type { AppContext } from '../context';
+import { requireAuth, requireRole } from '../middleware/auth';
+import { parseWith } from '../middleware/validate';
+import * as filingsService from '../services/filings-service';
+import * as screeningService from '../services/screening-service';
+
+const zId = z.coerce.number({ error: 'The filing id must be a number.' }).int().positive();
+const zStep = z.enum(DATA_STEPS, { error: `The step must be one of ${DATA_STEPS.join(', ')}.` });
+
+const actorOf = (user: Express.User): filingsService.FilingActor => ({ id: user.id, organisationId: user.organisation.id, roles: user.roles });
+
+const slug = (s: string) => s.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'device';
+
+export function filingRoutes({ db }: AppContext): Router {
+  const router = Router();
+  router.use(requireAuth);
+  const specialistOnly: RequestHandler = requireRole('specialist');
+
+  router.get('/', (req, res) => {
+    const { q, sort } = parseWith(zFilingListQuery, req.query);
+    res.json({ filings: filingsService.listFilings(db, actorOf(req.user!), q, sort) });
+  });
+
+  router.post('/', specialistOnly, (req, res) => {
+    const { device } = parseWith(zNewFiling, req.body);
+    res.status(201).json({ filing: filingsService.createFiling(db, actorOf(req.user!), device) });
+  });
+
+  router.post('/import', specialistOnly, (req, res) => {
+    const parsed = zDeviceFile.safeParse(req.body);
+    if (!parsed.success) throw filingsService.deviceFileProblems(parsed.error);
+    res.status(201).json({ filing: filingsService.importDeviceFile(db, actorOf(req.user!), parsed.data) });
+  });
+
+  router.get('/:id', (req, res) => {
+    res.json({ filing: filingsService.getFiling(db, actorOf(req.user!), parseWith(zId, req.params.id)) });
+  });
+
+  router.put('/:id/steps/:step', specialistOnly, (req, res) => {
+    const result = filingsService.saveStep(db, actorOf(req.user!), parseWith(zId, req.params.id), parseWith(zStep, req.params.step), req.body);
+    if (result.saved) {
+      res.json(result);
+      return;
+    }
+    res.status(422).json({
+      error: { code: 'invalid_input', message: 'Some fields need fixing; your input is kept as a draft until they do.', fields: result.fields },
+      draftSavedAt: result.draftSavedAt,
+    });
+  });
+
+  router.get('/:id/device.json', (req, res) => {
+    const file = filingsService.exportDeviceFile(db, actorOf(req.user!), parseWith(zId, req.params.id));
+    res.attachment(`${slug(file.device.name)}-${slug(file.device.model)}.device.json`);
+    res.type('application/json').send(`${JSON.stringify(file, null, 2)}\n`);
+  });
+
+  router.get('/:id/screening', (req, res) => {
+    res.json(screeningService.screeningForFiling(db, actorOf(req.user!), parseWith(zId, req.params.id)));
+  });
+
+  router.get('/:id/screening/depth-profile', (req, res) => {
+    const query = parseWith(z.object({ transmitterId: z.string().min(1).max(40), usePositionId: z.string().min(1).max(40) }), req.query);
+    res.json(screeningService.depthProfileForFiling(db, actorOf(req.user!), parseWith(zId, req.params.id), query));
+  });
+
+  return router;
+}
+
+/** GET /api/schema/device.json: the device description file's JSON Schema, from its zod schema. */
+export function schemaRoutes(): Router {
+  const router = Router();
+  const deviceSchema = {
+    $id: 'https://fieldfile.test/schema/device.json',
+    title: 'Fieldfile device description (fieldfile.device/1)',
+    ...z.toJSONSchema(zDeviceFile, { io: 'input', unrepresentable: 'any' }),
+  };
+  router.get('/device.json', (_req, res) => {
+    res.json(deviceSchema);
+  });
+  return router;
+}

@@ -1,0 +1,233 @@
+/**
+ * Filings: create (from nothing or from a device description file), read with each step's
+ * completion, save a wizard step (autosave), and export the device file. Specialists change
+ * filings; every member of the organisation may read them. A step that does not validate is
+ * kept as a draft so a reload loses nothing, while the last valid data stays as it was.
+ */
+import type { Db } from '../../db/client';
+import {
+  DATA_STEPS,
+  EDITABLE_STATES,
+  STEP_SCHEMAS,
+  type DataStep,
+  type FilingDetail,
+  type FilingSummary,
+  type StepStatus,
+  type UsePositionsStep,
+  type VersionState,
+  VERSION_STATE_LABELS,
+  zDeviceStep,
+} from '../../constants/schemas/filings';
+import { DEVICE_FILE_FORMAT, USE_POSITION_LABELS, type DeviceFile } from '../../constants/schemas/device-file';
+import type { Role } from '../../constants/schemas/roles';
+import { conflict, forbidden, notFound, unprocessable } from '../http-error';
+import { zodFieldErrors } from '../middleware/validate';
+import * as repo from '../repos/filings-repo';
+import { recordAudit } from './audit';
+
+export interface FilingActor {
+  id: number;
+  organisationId: number;
+  roles: Role[];
+}
+
+const canEdit = (actor: FilingActor) => actor.roles.includes('specialist');
+
+function requireEditor(actor: FilingActor) {
+  if (!canEdit(actor)) throw forbidden('Only a compliance specialist can change a filing’s device data. This needs the specialist role.');
+}
+
+function loadFiling(db: Db, actor: FilingActor, filingId: number): repo.FilingRow {
+  const row = repo.findFiling(db, actor.organisationId, filingId);
+  if (!row) throw notFound('No such filing in your organisation.');
+  return row;
+}
+
+function requireEditable(row: repo.FilingRow) {
+  if (!EDITABLE_STATES.includes(row.version.state as VersionState)) {
+    throw conflict(`Version ${row.version.number} is ${VERSION_STATE_LABELS[row.version.state as VersionState].toLowerCase()}; its data can no longer change.`);
+  }
+}
+
+function toSummary(row: repo.FilingRow, markets: string[]): FilingSummary {
+  return {
+    id: row.filing.id,
+    device: { name: row.device.name, model: row.device.model, applicant: row.device.applicant, productType: row.device.productType },
+    version: { id: row.version.id, number: row.version.number, state: row.version.state as VersionState },
+    markets,
+    owner: { id: row.filing.ownerUserId, name: row.ownerName },
+    updatedAt: row.filing.updatedAt,
+    createdAt: row.filing.createdAt,
+  };
+}
+
+export function listFilings(db: Db, actor: FilingActor, q: string | undefined, sort: 'updated' | 'name' | 'state'): FilingSummary[] {
+  const rows = repo.listFilings(db, actor.organisationId, q, sort);
+  const markets = repo.marketsByVersion(db, rows.map((r) => r.version.id));
+  return rows.map((r) => toSummary(r, markets.get(r.version.id) ?? []));
+}
+
+function readData(db: Db, row: repo.FilingRow): FilingDetail['data'] {
+  const { device } = row;
+  return {
+    device: {
+      name: device.name,
+      model: device.model,
+      applicant: device.applicant,
+      productType: device.productType,
+      hardwareVersion: device.hardwareVersion,
+      firmwareVersion: device.firmwareVersion,
+    },
+    radios: repo.readRadios(db, row.version.id),
+    'use-positions': repo.readUsePositions(db, row.version.id),
+    markets: repo.readMarkets(db, row.version.id),
+  };
+}
+
+/** Each step's completion, computed from the data (never ticked by hand). */
+export function stepStatuses(data: FilingDetail['data'], draftSteps: Set<DataStep>): StepStatus[] {
+  const device: string[] = zDeviceStep.safeParse(data.device).success ? [] : ['Fill in the device name, model, applicant and product type.'];
+  const radios: string[] = [];
+  if (!data.radios.antennas.length) radios.push('Add at least one antenna.');
+  if (!data.radios.transmitters.length) radios.push('Add at least one transmitter.');
+  const positions: string[] = [];
+  if (!data['use-positions'].usePositions.length) positions.push('Add at least one use position.');
+  const usedAntennas = [...new Set(data.radios.transmitters.map((t) => t.antennaId))];
+  for (const p of data['use-positions'].usePositions) {
+    const given = new Set(p.separations.map((s) => s.antennaId));
+    const missing = usedAntennas.filter((a) => !given.has(a));
+    if (missing.length) positions.push(`“${p.id}” (${USE_POSITION_LABELS[p.kind].toLowerCase()}) has no separation for antenna ${missing.join(', ')}.`);
+  }
+  const markets: string[] = data.markets.markets.length ? [] : ['Pick at least one market.'];
+  const byStep: Record<DataStep, string[]> = { device, radios, 'use-positions': positions, markets };
+  const statuses: StepStatus[] = DATA_STEPS.map((step) => {
+    const problems = [...byStep[step]];
+    if (draftSteps.has(step)) problems.push('Some changes have errors and are not saved yet.');
+    return { step, complete: problems.length === 0, problems, hasDraft: draftSteps.has(step) };
+  });
+  const incomplete = statuses.filter((s) => !s.complete).map((s) => s.step);
+  statuses.push({
+    step: 'screening',
+    complete: incomplete.length === 0,
+    problems: incomplete.length ? [`Complete ${incomplete.join(', ')} first.`] : [],
+    hasDraft: false,
+  });
+  return statuses;
+}
+
+export function getFiling(db: Db, actor: FilingActor, filingId: number): FilingDetail {
+  const row = loadFiling(db, actor, filingId);
+  const data = readData(db, row);
+  const drafts = repo.readDrafts(db, row.version.id);
+  const markets = data.markets.markets.map((m) => m.regime);
+  return {
+    ...toSummary(row, markets),
+    editable: canEdit(actor) && EDITABLE_STATES.includes(row.version.state as VersionState),
+    steps: stepStatuses(data, new Set(drafts.map((d) => d.step))),
+    data,
+    drafts: Object.fromEntries(drafts.map((d) => [d.step, { data: d.data, updatedAt: d.updatedAt }])),
+  };
+}
+
+export function createFiling(db: Db, actor: FilingActor, device: DeviceFile['device']): FilingDetail {
+  requireEditor(actor);
+  const id = db.transaction((tx) => {
+    const dev = repo.insertDevice(tx, actor.organisationId, device);
+    const { filing } = repo.insertFiling(tx, actor.organisationId, dev.id, actor.id);
+    recordAudit(tx, { organisationId: actor.organisationId, actorUserId: actor.id, action: 'filing.create', targetType: 'filing', targetId: filing.id, details: { device: device.name, model: device.model } });
+    return filing.id;
+  });
+  return getFiling(db, actor, id);
+}
+
+/** Creates a filing from a whole device description file, in one transaction. */
+export function importDeviceFile(db: Db, actor: FilingActor, file: DeviceFile): FilingDetail {
+  requireEditor(actor);
+  const id = db.transaction((tx) => {
+    const dev = repo.insertDevice(tx, actor.organisationId, file.device);
+    const { filing, version } = repo.insertFiling(tx, actor.organisationId, dev.id, actor.id);
+    repo.writeRadios(tx, version.id, { antennas: file.antennas, transmitters: file.transmitters });
+    repo.writeUsePositions(tx, version.id, { usePositions: file.usePositions }, repo.antennaIdsByKey(tx, version.id));
+    repo.writeMarkets(tx, version.id, { markets: file.markets });
+    repo.writeSimultaneous(tx, version.id, file.simultaneous);
+    recordAudit(tx, {
+      organisationId: actor.organisationId,
+      actorUserId: actor.id,
+      action: 'filing.import',
+      targetType: 'filing',
+      targetId: filing.id,
+      details: { device: file.device.name, transmitters: file.transmitters.length, usePositions: file.usePositions.length },
+    });
+    return filing.id;
+  });
+  return getFiling(db, actor, id);
+}
+
+export function exportDeviceFile(db: Db, actor: FilingActor, filingId: number): DeviceFile {
+  const row = loadFiling(db, actor, filingId);
+  const data = readData(db, row);
+  return {
+    format: DEVICE_FILE_FORMAT,
+    device: data.device,
+    markets: data.markets.markets,
+    antennas: data.radios.antennas,
+    transmitters: data.radios.transmitters,
+    usePositions: data['use-positions'].usePositions,
+    simultaneous: repo.readSimultaneous(db, row.version.id),
+  };
+}
+
+export type SaveStepResult = { saved: true; filing: FilingDetail } | { saved: false; draftSavedAt: string; fields: Record<string, string> };
+
+/**
+ * Saves one wizard step. Valid input replaces the step's data (and clears its draft); invalid
+ * input is kept as a draft and reported field by field, and the stored data is left untouched.
+ */
+export function saveStep(db: Db, actor: FilingActor, filingId: number, step: DataStep, body: unknown): SaveStepResult {
+  requireEditor(actor);
+  const row = loadFiling(db, actor, filingId);
+  requireEditable(row);
+  const versionId = row.version.id;
+
+  const parsed = STEP_SCHEMAS[step].safeParse(body);
+  const fields = parsed.success ? {} : zodFieldErrors(parsed.error);
+  if (parsed.success && step === 'use-positions') {
+    // Separations must name antennas that exist under Radios.
+    const antennaIds = repo.antennaIdsByKey(db, versionId);
+    (parsed.data as UsePositionsStep).usePositions.forEach((p, i) =>
+      p.separations.forEach((s, j) => {
+        if (!antennaIds.has(s.antennaId)) fields[`usePositions.${i}.separations.${j}.antennaId`] = `No antenna “${s.antennaId}” under Radios.`;
+      }),
+    );
+  }
+  if (!parsed.success || Object.keys(fields).length) {
+    const draftSavedAt = db.transaction((tx) => {
+      repo.touchFiling(tx, filingId);
+      return repo.writeDraft(tx, versionId, step, body ?? null);
+    });
+    return { saved: false, draftSavedAt, fields };
+  }
+
+  db.transaction((tx) => {
+    // Autosave sends the same data often; only a real change is written and audited.
+    const changed = JSON.stringify(readData(tx, row)[step]) !== JSON.stringify(parsed.data);
+    if (changed) {
+      const data = parsed.data as never;
+      if (step === 'device') repo.updateDevice(tx, row.device.id, data);
+      if (step === 'radios') repo.writeRadios(tx, versionId, data);
+      if (step === 'use-positions') repo.writeUsePositions(tx, versionId, data, repo.antennaIdsByKey(tx, versionId));
+      if (step === 'markets') repo.writeMarkets(tx, versionId, data);
+      repo.touchFiling(tx, filingId);
+      recordAudit(tx, { organisationId: actor.organisationId, actorUserId: actor.id, action: 'filing.step-save', targetType: 'filing', targetId: filingId, details: { step, version: row.version.number } });
+    }
+    repo.clearDraft(tx, versionId, step);
+  });
+  return { saved: true, filing: getFiling(db, actor, filingId) };
+}
+
+/** The import's problems, each keyed by its JSON path, for a 422. */
+export function deviceFileProblems(error: Parameters<typeof zodFieldErrors>[0]) {
+  const fields = zodFieldErrors(error);
+  const count = Object.keys(fields).length;
+  return unprocessable(`The device file has ${count} problem${count === 1 ? '' : 's'}; nothing was created.`, fields);
+}

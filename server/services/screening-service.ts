@@ -1,0 +1,82 @@
+/**
+ * Screening of a filing's current version: the engine's `screening` calculation over the
+ * wizard's data. Each distinct result is stored with the engine and rule-set versions it was
+ * computed with, so a signed version can show exactly what it was signed on.
+ */
+import { createHash } from 'node:crypto';
+import type { Db } from '../../db/client';
+import { screeningResults } from '../../db/schema';
+import { ENGINE_VERSION, RULE_SET_VERSION } from '../../calc/versions';
+import { screeningInput, type ScreeningInput } from '../../calc/screening/input';
+import { SCREENING_CAUTIONS, screenParsed, type ScreeningOutput } from '../../calc/screening/screen';
+import { screeningDepthProfile } from '../../calc/screening';
+import { dbmToMw, dbiToLinear } from '../../calc/em/units';
+import { notFound, unprocessable } from '../http-error';
+import { getFiling, type FilingActor } from './filings-service';
+
+export interface FilingScreening extends ScreeningOutput {
+  filingId: number;
+  version: number;
+  engineVersion: string;
+  ruleSetVersion: string;
+  computedAt: string;
+  /** False while a wizard step is incomplete: the table covers only what is entered. */
+  complete: boolean;
+  cautions: string[];
+}
+
+function inputFor(detail: ReturnType<typeof getFiling>): ScreeningInput {
+  return screeningInput.parse({
+    markets: detail.data.markets.markets,
+    antennas: detail.data.radios.antennas.map((a) => ({ id: a.id, gainDbi: a.gainDbi })),
+    transmitters: detail.data.radios.transmitters,
+    usePositions: detail.data['use-positions'].usePositions,
+  });
+}
+
+export function screeningForFiling(db: Db, actor: FilingActor, filingId: number): FilingScreening {
+  const detail = getFiling(db, actor, filingId);
+  const input = inputFor(detail);
+  const output = screenParsed(input);
+  const inputSha256 = createHash('sha256').update(JSON.stringify(input)).digest('hex');
+  db.insert(screeningResults)
+    .values({ versionId: detail.version.id, engineVersion: ENGINE_VERSION, ruleSetVersion: RULE_SET_VERSION, inputSha256, input, output })
+    .onConflictDoNothing()
+    .run();
+  return {
+    ...output,
+    filingId,
+    version: detail.version.number,
+    engineVersion: ENGINE_VERSION,
+    ruleSetVersion: RULE_SET_VERSION,
+    computedAt: new Date().toISOString(),
+    complete: detail.steps.every((s) => s.complete),
+    cautions: [...SCREENING_CAUTIONS],
+  };
+}
+
+/**
+ * SAR against depth in a default head stack for one transmitter at one use position: the
+ * incident power density its EIRP would give at that distance (far-field formula — a screening
+ * estimate only), through the layered plane-wave model.
+ */
+export function depthProfileForFiling(db: Db, actor: FilingActor, filingId: number, q: { transmitterId: string; usePositionId: string }) {
+  const detail = getFiling(db, actor, filingId);
+  const tx = detail.data.radios.transmitters.find((t) => t.id === q.transmitterId);
+  const position = detail.data['use-positions'].usePositions.find((p) => p.id === q.usePositionId);
+  if (!tx || !position) throw notFound('No such transmitter or use position in this filing.');
+  const antenna = detail.data.radios.antennas.find((a) => a.id === tx.antennaId)!;
+  const separation = position.separations.find((s) => s.antennaId === tx.antennaId);
+  if (!separation) throw unprocessable(`“${position.id}” gives no separation for antenna ${tx.antennaId}; add it under Use positions.`);
+  const eirpW = (dbmToMw(tx.maxTuneUpPowerDbm) / 1000) * tx.dutyCycle * dbiToLinear(antenna.gainDbi);
+  const frequencyHz = (tx.frequencyMinHz + tx.frequencyMaxHz) / 2;
+  return {
+    transmitterId: tx.id,
+    usePositionId: position.id,
+    ...screeningDepthProfile({ frequencyHz, eirpW, separationM: separation.separationM }),
+    cautions: [
+      'A screening estimate from a plane-wave model of layered tissue; it never replaces a SAR measurement where the rules require one.',
+      ...SCREENING_CAUTIONS,
+    ],
+  };
+}

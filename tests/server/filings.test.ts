@@ -1,0 +1,231 @@
+/**
+ * Filings through the API: create, autosave steps (valid → stored, invalid → kept as a draft,
+ * stored data untouched), role checks, device file import/export, screening rows.
+ */
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { DEMO_TRACKER } from '../../seeds/demo-filing';
+import { screenDevice } from '../../calc/screening';
+import { createTestApp, seedUsers, signIn, type TestApp } from './support/test-app';
+
+let t: TestApp;
+let specialist: Awaited<ReturnType<typeof signIn>>;
+let engineer: Awaited<ReturnType<typeof signIn>>;
+let approver: Awaited<ReturnType<typeof signIn>>;
+
+beforeAll(async () => {
+  t = await createTestApp();
+  await seedUsers(t);
+  [specialist, engineer, approver] = await Promise.all([
+    signIn(t, 'specialist@fieldfile.test'),
+    signIn(t, 'engineer@fieldfile.test'),
+    signIn(t, 'approver@fieldfile.test'),
+  ]);
+});
+afterAll(() => t.close());
+
+const device = { name: 'Kittiwake K2 sensor', model: 'KW2-A', applicant: 'Halden Ridge Instruments', productType: 'iot-module' };
+
+describe('the demo seed', () => {
+  it('gives the organisation a partly finished tracker filing and a just-started one', async () => {
+    const res = await specialist.get('/api/filings');
+    expect(res.status).toBe(200);
+    const names = res.body.filings.map((f: { device: { name: string } }) => f.device.name);
+    expect(names).toContain('Trailhound TH-4 rugged tracker');
+    const tracker = res.body.filings.find((f: { device: { name: string } }) => f.device.name.startsWith('Trailhound TH-4'));
+    expect(tracker.markets).toEqual(['fcc', 'eu']);
+    const detail = (await specialist.get(`/api/filings/${tracker.id}`)).body.filing;
+    const positions = detail.steps.find((s: { step: string }) => s.step === 'use-positions');
+    expect(positions.complete).toBe(false);
+    expect(positions.problems.join(' ')).toMatch(/wrist-strap.*ANT-WLAN/);
+  });
+});
+
+describe('creating and editing a filing', () => {
+  let id: number;
+
+  it('a specialist creates a filing from the device identity', async () => {
+    const res = await specialist.post('/api/filings').send({ device });
+    expect(res.status).toBe(201);
+    id = res.body.filing.id;
+    expect(res.body.filing.version).toMatchObject({ number: 1, state: 'draft' });
+    expect(res.body.filing.steps.map((s: { step: string; complete: boolean }) => [s.step, s.complete])).toEqual([
+      ['device', true],
+      ['radios', false],
+      ['use-positions', false],
+      ['markets', false],
+      ['screening', false],
+    ]);
+  });
+
+  it('engineers and approvers read filings but cannot change device data (403)', async () => {
+    expect((await engineer.get(`/api/filings/${id}`)).status).toBe(200);
+    expect((await approver.get(`/api/filings/${id}`)).body.filing.editable).toBe(false);
+    for (const agent of [engineer, approver]) {
+      expect((await agent.post('/api/filings').send({ device })).status).toBe(403);
+      const res = await agent.put(`/api/filings/${id}/steps/device`).send({ ...device, name: 'Changed' });
+      expect(res.status).toBe(403);
+      expect(res.body.error.message).toMatch(/specialist/);
+      expect((await agent.post('/api/filings/import').send(DEMO_TRACKER)).status).toBe(403);
+    }
+    expect((await specialist.get(`/api/filings/${id}`)).body.filing.device.name).toBe(device.name);
+  });
+
+  it('saves a valid step and answers an invalid one field by field, keeping it as a draft', async () => {
+    const radios = {
+      antennas: [{ id: 'A1', gainDbi: 0, location: 'top' }],
+      transmitters: [{ id: 'LTE-B13', technology: 'LTE', band: 'Band 13', frequencyMinHz: 777e6, frequencyMaxHz: 787e6, maxTuneUpPowerDbm: 23, dutyCycle: 1, antennaId: 'A1' }],
+    };
+    const ok = await specialist.put(`/api/filings/${id}/steps/radios`).send(radios);
+    expect(ok.status).toBe(200);
+    expect(ok.body.filing.data.radios.transmitters[0].id).toBe('LTE-B13');
+
+    const bad = {
+      antennas: radios.antennas,
+      transmitters: [{ ...radios.transmitters[0], frequencyMinHz: 900e6, frequencyMaxHz: 800e6, antennaId: 'NOPE', maxTuneUpPowerDbm: 'loud' }],
+    };
+    const res = await specialist.put(`/api/filings/${id}/steps/radios`).send(bad);
+    expect(res.status).toBe(422);
+    expect(res.body.error.fields['transmitters.0.maxTuneUpPowerDbm']).toMatch(/number/);
+    expect(res.body.draftSavedAt).toBeTruthy();
+
+    const detail = (await specialist.get(`/api/filings/${id}`)).body.filing;
+    expect(detail.data.radios).toEqual(radios); // the stored data is untouched
+    expect(detail.drafts.radios.data).toEqual(bad); // what was typed survives a reload
+    expect(detail.steps.find((s: { step: string }) => s.step === 'radios').hasDraft).toBe(true);
+
+    await specialist.put(`/api/filings/${id}/steps/radios`).send(radios);
+    expect((await specialist.get(`/api/filings/${id}`)).body.filing.drafts.radios).toBeUndefined();
+  });
+
+  it('refuses a reversed band, a negative separation and an unknown antenna in a position', async () => {
+    const reversed = await specialist.put(`/api/filings/${id}/steps/radios`).send({
+      antennas: [{ id: 'A1', gainDbi: 0, location: '' }],
+      transmitters: [{ id: 'T', technology: 'LTE', band: 'x', frequencyMinHz: 2e9, frequencyMaxHz: 1e9, maxTuneUpPowerDbm: 20, dutyCycle: 1, antennaId: 'A1' }],
+    });
+    expect(reversed.body.error.fields['transmitters.0.frequencyMaxHz']).toMatch(/not be below/);
+    const positions = await specialist.put(`/api/filings/${id}/steps/use-positions`).send({
+      usePositions: [{ id: 'head', kind: 'head', separations: [{ antennaId: 'A1', separationM: -0.001 }, { antennaId: 'ZZ', separationM: 0.01 }] }],
+    });
+    expect(positions.status).toBe(422);
+    expect(positions.body.error.fields['usePositions.0.separations.0.separationM']).toMatch(/negative/);
+    expect((await specialist.get(`/api/filings/${id}`)).body.filing.steps.find((s: { step: string }) => s.step === 'radios').problems).toContain(
+      'Some changes have errors and are not saved yet.',
+    );
+    // Fixing the input clears the draft.
+    await specialist.put(`/api/filings/${id}/steps/radios`).send({
+      antennas: [{ id: 'A1', gainDbi: 0, location: 'top' }],
+      transmitters: [{ id: 'LTE-B13', technology: 'LTE', band: 'Band 13', frequencyMinHz: 777e6, frequencyMaxHz: 787e6, maxTuneUpPowerDbm: 23, dutyCycle: 1, antennaId: 'A1' }],
+    });
+  });
+
+  it('completes use positions and markets, then screens every combination', async () => {
+    const pos = await specialist.put(`/api/filings/${id}/steps/use-positions`).send({
+      usePositions: [
+        { id: 'head', kind: 'head', separations: [{ antennaId: 'A1', separationM: 0.005 }] },
+        { id: 'desk', kind: 'far-field', separations: [{ antennaId: 'A1', separationM: 0.2 }] },
+      ],
+    });
+    expect(pos.status).toBe(200);
+    const markets = await specialist.put(`/api/filings/${id}/steps/markets`).send({ markets: [{ regime: 'fcc', tier: 'general' }, { regime: 'ised', tier: 'general' }] });
+    expect(markets.status).toBe(200);
+    expect(markets.body.filing.steps.every((s: { complete: boolean }) => s.complete)).toBe(true);
+
+    const screening = await specialist.get(`/api/filings/${id}/screening`);
+    expect(screening.status).toBe(200);
+    expect(screening.body.rows).toHaveLength(1 * 2 * 2);
+    expect(screening.body.engineVersion).toBeTruthy();
+    expect(screening.body.ruleSetVersion).toBeTruthy();
+    expect(screening.body.cautions.join(' ')).toMatch(/certifying body decides/);
+    const fccHead = screening.body.rows.find((r: { regime: string; usePositionId: string }) => r.regime === 'fcc' && r.usePositionId === 'head');
+    // 23 dBm = 199.5 mW far above the §1.1307(b)(3)(i)(B) threshold at 0.5 cm → SAR evaluation.
+    expect(fccHead.result).toBe('evaluate-sar');
+    expect(fccHead.marginDb).toBeLessThan(0);
+    expect(fccHead.derivation.source).toBeTruthy();
+    expect(screening.body.summary.byRegime.fcc.combinations).toBe(2);
+  });
+
+  it('refuses to save a step of a filing in another state or that does not exist', async () => {
+    expect((await specialist.put('/api/filings/99999/steps/device').send(device)).status).toBe(404);
+    expect((await specialist.put(`/api/filings/${id}/steps/nonsense`).send({})).status).toBe(422);
+  });
+});
+
+describe('device description file', () => {
+  it('publishes its JSON Schema', async () => {
+    const res = await request(t.app).get('/api/schema/device.json');
+    expect(res.status).toBe(200);
+    expect(res.body.properties.format.const).toBe('fieldfile.device/1');
+    expect(res.body.properties.usePositions.items.properties.kind.enum).toContain('far-field');
+  });
+
+  it('imports a file and exports the same content back', async () => {
+    const res = await specialist.post('/api/filings/import').send(DEMO_TRACKER);
+    expect(res.status).toBe(201);
+    const exported = await specialist.get(`/api/filings/${res.body.filing.id}/device.json`);
+    expect(exported.status).toBe(200);
+    expect(exported.headers['content-disposition']).toMatch(/trailhound-th-4-rugged-tracker-th4-lw2\.device\.json/);
+    expect(JSON.parse(exported.text)).toEqual(DEMO_TRACKER);
+  });
+
+  it('refuses an inconsistent file with every problem at its JSON path, and creates nothing', async () => {
+    const before = (await specialist.get('/api/filings')).body.filings.length;
+    const bad = structuredClone(DEMO_TRACKER) as typeof DEMO_TRACKER & Record<string, unknown>;
+    bad.transmitters![0].antennaId = 'ANT-NOWHERE';
+    bad.transmitters![1].frequencyMinHz = 3e9;
+    bad.usePositions![0].separations[0].separationM = -0.01;
+    bad.antennas!.push({ id: 'ANT-MAIN', gainDbi: 0, location: '' });
+    const res = await specialist.post('/api/filings/import').send(bad);
+    expect(res.status).toBe(422);
+    expect(res.body.error.message).toMatch(/nothing was created/);
+    expect(res.body.error.fields).toMatchObject({
+      'transmitters.0.antennaId': expect.stringMatching(/Unknown antenna id "ANT-NOWHERE"/),
+      'transmitters.1.frequencyMaxHz': expect.stringMatching(/not be below/),
+      'usePositions.0.separations.0.separationM': expect.stringMatching(/negative/),
+      'antennas.3.id': expect.stringMatching(/Duplicate id "ANT-MAIN"/),
+    });
+    expect((await specialist.get('/api/filings')).body.filings.length).toBe(before);
+  });
+
+  it('refuses a file of another format', async () => {
+    const res = await specialist.post('/api/filings/import').send({ ...DEMO_TRACKER, format: 'something/2' });
+    expect(res.status).toBe(422);
+    expect(res.body.error.fields.format).toMatch(/fieldfile\.device\/1/);
+  });
+});
+
+describe('screening of the demo tracker', () => {
+  it('returns exactly the engine’s rows for the device file, with gaps for missing separations', async () => {
+    const filing = (await specialist.post('/api/filings/import').send(DEMO_TRACKER)).body.filing;
+    const res = await specialist.get(`/api/filings/${filing.id}/screening`);
+    const engine = screenDevice(DEMO_TRACKER as never);
+    expect(res.body.rows.map((r: { transmitterId: string; usePositionId: string; regime: string; result: string; marginDb: number }) => [r.transmitterId, r.usePositionId, r.regime, r.result, r.marginDb])).toEqual(
+      engine.rows.map((r) => [r.transmitterId, r.usePositionId, r.regime, r.result, r.marginDb]),
+    );
+    expect(res.body.gaps.map((g: { transmitterId: string; usePositionId: string }) => `${g.transmitterId}@${g.usePositionId}`).sort()).toEqual(
+      ['BT-LE@wrist-strap', 'WLAN-2G4@wrist-strap', 'WLAN-5G@wrist-strap'],
+    );
+    expect(res.body.complete).toBe(false);
+  });
+
+  it('draws SAR against depth for a transmitter at a use position', async () => {
+    const list = (await specialist.get('/api/filings?q=TH4-LW2')).body.filings;
+    const res = await specialist.get(`/api/filings/${list[0].id}/screening/depth-profile?transmitterId=WLAN-2G4&usePositionId=belt-clip`);
+    expect(res.status).toBe(200);
+    expect(res.body.cautions.join(' ')).toMatch(/never replaces a SAR measurement/);
+    const missing = await specialist.get(`/api/filings/${list[0].id}/screening/depth-profile?transmitterId=BT-LE&usePositionId=wrist-strap`);
+    expect(missing.status).toBe(422);
+  });
+});
+
+describe('the filings list', () => {
+  it('searches and sorts', async () => {
+    const all = (await specialist.get('/api/filings?sort=name')).body.filings;
+    const names = all.map((f: { device: { name: string } }) => f.device.name);
+    expect(names).toEqual([...names].sort((a, b) => (a.toLowerCase() < b.toLowerCase() ? -1 : 1)));
+    const found = (await specialist.get('/api/filings?q=kittiwake')).body.filings;
+    expect(found).toHaveLength(1);
+    expect((await specialist.get('/api/filings?q=%25')).body.filings).toHaveLength(0);
+    expect((await specialist.get('/api/filings?sort=bogus')).status).toBe(422);
+  });
+});
