@@ -8,8 +8,13 @@ export interface BenchCase {
   name: string;
   /** Target per call, ms (the case passes when p95 is under it). */
   targetMs: number;
-  /** Builds the function to time, or returns a string saying why the case is skipped. */
-  prepare(): (() => unknown) | string;
+  /**
+   * Builds the function to time, or returns a string saying why the case is skipped. The
+   * function may return a promise (an HTTP round trip, say); it is awaited inside the timing.
+   */
+  prepare(): (() => unknown) | string | Promise<(() => unknown) | string>;
+  /** Releases what prepare() set up (servers, temp folders). */
+  teardown?(): void | Promise<void>;
   /** Lines printed under the result (what was measured, what was absent). */
   describe?(): string[];
   warmupIterations?: number;
@@ -31,18 +36,25 @@ function percentile(sortedMs: number[], p: number): number {
   return sortedMs[Math.min(sortedMs.length - 1, Math.max(0, rank))];
 }
 
-export function runCase(c: BenchCase): BenchResult {
-  const fn = c.prepare();
+const isPromise = (v: unknown): v is Promise<unknown> => typeof (v as Promise<unknown> | null)?.then === 'function';
+
+export async function runCase(c: BenchCase): Promise<BenchResult> {
+  const fn = await c.prepare();
   if (typeof fn === 'string') return { name: c.name, skipped: fn, targetMs: c.targetMs };
   const warmup = c.warmupIterations ?? 50;
   const iterations = c.iterations ?? 500;
-  for (let i = 0; i < warmup; i++) fn();
+  for (let i = 0; i < warmup; i++) {
+    const r = fn();
+    if (isPromise(r)) await r;
+  }
   const samplesMs = new Array<number>(iterations);
   for (let i = 0; i < iterations; i++) {
     const t0 = process.hrtime.bigint();
-    fn();
+    const r = fn();
+    if (isPromise(r)) await r;
     samplesMs[i] = Number(process.hrtime.bigint() - t0) / 1e6;
   }
+  await c.teardown?.();
   samplesMs.sort((a, b) => a - b);
   const meanMs = samplesMs.reduce((s, x) => s + x, 0) / iterations;
   const p95Ms = percentile(samplesMs, 95);

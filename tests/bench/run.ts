@@ -14,8 +14,13 @@ console.log(
   `Node ${process.version}, ${os.cpus().length} × ${os.cpus()[0]?.model ?? 'cpu'}, load average ${os.loadavg().map((l) => l.toFixed(2)).join(' ')} ` +
     '(figures are only comparable on an otherwise idle machine)',
 );
-for (const c of cases) {
-  const result = runCase(c);
-  console.log(formatResult(result));
-  for (const line of c.describe?.() ?? []) console.log(`      ${line}`);
+async function main() {
+  for (const c of cases) {
+    const result = await runCase(c);
+    console.log(formatResult(result));
+    for (const line of c.describe?.() ?? []) console.log(`      ${line}`);
+  }
+  // The session store's cleanup timer and the mail catcher must not keep the process alive.
+  process.exit(0);
 }
+void main();

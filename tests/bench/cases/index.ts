@@ -2,5 +2,6 @@
 import type { BenchCase } from '../harness';
 import { filingEvaluationCase } from './filing-evaluation';
 import { planeWaveProfileCase } from './plane-wave-profile';
+import { screeningApiCase } from './screening-api';
 
-export const benchCases: BenchCase[] = [filingEvaluationCase, planeWaveProfileCase];
+export const benchCases: BenchCase[] = [filingEvaluationCase, planeWaveProfileCase, screeningApiCase];
