@@ -1,0 +1,3 @@
+import { FilingStepScreen } from '../../../../components/screens/filing-step-screen';
+
+export default FilingStepScreen;

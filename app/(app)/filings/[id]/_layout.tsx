@@ -1,0 +1,3 @@
+import { FilingLayout } from '../../../../components/filings/filing-layout';
+
+export default FilingLayout;

@@ -1,0 +1,3 @@
+import { FilingOverviewScreen } from '../../../../components/screens/filing-overview-screen';
+
+export default FilingOverviewScreen;

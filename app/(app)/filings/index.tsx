@@ -1,0 +1,3 @@
+import { FilingsListScreen } from '../../../components/screens/filings-list-screen';
+
+export default FilingsListScreen;

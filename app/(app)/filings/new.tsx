@@ -1,0 +1,3 @@
+import { FilingNewScreen } from '../../../components/screens/filing-new-screen';
+
+export default FilingNewScreen;

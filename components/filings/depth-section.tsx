@@ -1,0 +1,94 @@
+/**
+ * SAR against depth for a chosen transmitter and use position: the engine's plane-wave layered
+ * head model at the incident power density the transmitter would give at that distance. Always
+ * labelled a screening estimate.
+ */
+import { useState } from 'react';
+import { StyleSheet, View } from 'react-native';
+import type { FilingDetail } from '../../constants/schemas/filings';
+import { palette, space } from '../../constants/theme';
+import { useDepthProfileQuery, type ScreeningRowDto } from '../../hooks/queries/filings';
+import { useIsWide } from '../../hooks/use-is-wide';
+import { DepthProfileChart } from '../charts/depth-profile-chart';
+import { LoadFailed, Loading } from '../layout/query-states';
+import { Button } from '../ui/button';
+import { Card } from '../ui/card';
+import { Notice } from '../ui/notice';
+import { SelectField } from '../ui/select-field';
+import { Sheet } from '../ui/sheet';
+import { StatusBadge } from '../ui/status-badge';
+import { Text } from '../ui/text';
+import { formatMm, sig } from './format';
+import { DerivationBlock } from './how-computed';
+
+export function DepthSection({ filing, initial }: { filing: FilingDetail; initial: ScreeningRowDto | null }) {
+  const wide = useIsWide();
+  const txs = filing.data.radios.transmitters;
+  const positions = filing.data['use-positions'].usePositions;
+  const [txId, setTxId] = useState(initial?.transmitterId ?? txs[0]?.id ?? null);
+  const [posId, setPosId] = useState(initial?.usePositionId ?? positions[0]?.id ?? null);
+  const [showHow, setShowHow] = useState(false);
+  const profile = useDepthProfileQuery(filing.id, txId, posId);
+  const p = profile.data;
+  return (
+    <Card title="SAR against depth" aside={<StatusBadge tone="caution" icon="info" label="Screening estimate" />} testID="depth-section">
+      <Text variant="small" tone="soft">
+        The transmitter’s time-averaged EIRP gives a power density at the use position’s distance; that enters a flat skin / fat / bone / brain stack as a plane wave. It
+        shows where the power goes — it is not a SAR measurement.
+      </Text>
+      <View style={[styles.pickers, wide && styles.pickersWide]}>
+        <View style={styles.picker}>
+          <SelectField label="Transmitter" options={txs.map((t) => ({ value: t.id, label: `${t.id} — ${t.band}` }))} value={txId} onChange={setTxId} testID="depth-tx" />
+        </View>
+        <View style={styles.picker}>
+          <SelectField label="Use position" options={positions.map((u) => ({ value: u.id, label: u.id }))} value={posId} onChange={setPosId} testID="depth-position" />
+        </View>
+      </View>
+      {profile.isError ? (
+        <LoadFailed what="the depth profile" error={profile.error} />
+      ) : !p ? (
+        <Loading label="Computing the profile…" />
+      ) : (
+        <>
+          <Text variant="smallStrong" accessibilityRole="header">
+            {`Screening estimate: ${p.transmitterId} at ${p.usePositionId}`}
+          </Text>
+          <DepthProfileChart points={p.sarProfile} layers={p.stack} testID="depth-chart" />
+          <View style={styles.figures}>
+            <Fig label="Incident power density" value={`${sig(p.incidentPowerDensityWPerM2)} W/m²`} />
+            <Fig label="Distance used" value={formatMm(p.distanceUsedM)} />
+            <Fig label="SAR at the surface" value={`${sig(p.surfaceSarWPerKg)} W/kg`} />
+            <Fig label="1 g average" value={`${sig(p.averagedSarWPerKg['1g'])} W/kg`} />
+            <Fig label="10 g average" value={`${sig(p.averagedSarWPerKg['10g'])} W/kg`} />
+          </View>
+          <Button label="How computed" variant="secondary" compact icon="info" onPress={() => setShowHow(true)} style={{ alignSelf: 'flex-start' }} testID="depth-how" />
+          <Notice tone="caution">{p.cautions[0] ?? 'A screening estimate.'}</Notice>
+          <Sheet visible={showHow} onClose={() => setShowHow(false)} title="How computed: SAR against depth" subtitle={`${p.transmitterId} at ${p.usePositionId} · screening estimate`} testID="depth-how-computed">
+            <DerivationBlock d={p.derivation} />
+          </Sheet>
+        </>
+      )}
+    </Card>
+  );
+}
+
+function Fig({ label, value }: { label: string; value: string }) {
+  return (
+    <View style={styles.fig}>
+      <Text variant="small" tone="muted">
+        {label}
+      </Text>
+      <Text variant="figure" style={{ textAlign: 'left' }}>
+        {value}
+      </Text>
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  pickers: { gap: space.md },
+  pickersWide: { flexDirection: 'row' },
+  picker: { flex: 1 },
+  figures: { flexDirection: 'row', flexWrap: 'wrap', gap: space.md },
+  fig: { minWidth: 130, paddingVertical: space.xs, borderBottomWidth: 1, borderBottomColor: palette.paperDeep },
+});

@@ -1,0 +1,130 @@
+/**
+ * Rows of a step (antennas, transmitters, use positions): an editable table on a wide screen,
+ * a card per row on a phone. Adding a row is one tap; every row can be removed.
+ */
+import { Pressable, StyleSheet, View } from 'react-native';
+import { layout, palette, radii, space } from '../../constants/theme';
+import { useIsWide } from '../../hooks/use-is-wide';
+import { Icon } from '../icons';
+import { Button } from '../ui/button';
+import { Text } from '../ui/text';
+
+export interface EditColumn {
+  key: string;
+  /** Column heading (wide) and field label (phone), with its unit. */
+  label: string;
+  flex: number;
+  /** On a phone, numbers sit two to a line. */
+  half?: boolean;
+  render: (index: number, hideLabel: boolean) => React.ReactNode;
+}
+
+export function EditRows({
+  noun,
+  columns,
+  count,
+  keyOf,
+  titleOf,
+  onAdd,
+  onRemove,
+  editable,
+  testID,
+  empty,
+}: {
+  noun: string;
+  columns: EditColumn[];
+  count: number;
+  keyOf: (i: number) => string;
+  titleOf: (i: number) => string;
+  onAdd: () => void;
+  onRemove: (i: number) => void;
+  editable: boolean;
+  testID: string;
+  empty: string;
+}) {
+  const wide = useIsWide();
+  const rows = Array.from({ length: count }, (_, i) => i);
+  const remove = (i: number) =>
+    editable ? (
+      <Pressable
+        accessibilityRole="button"
+        accessibilityLabel={`Remove ${noun} ${titleOf(i)}`}
+        onPress={() => onRemove(i)}
+        testID={`${testID}-remove-${i}`}
+        style={({ pressed }) => [styles.remove, pressed && { backgroundColor: palette.failSoft }]}
+      >
+        <Icon name="cross" size={18} color={palette.fail} />
+      </Pressable>
+    ) : null;
+  return (
+    <View style={styles.wrap} testID={testID}>
+      {count === 0 ? (
+        <Text tone="muted" style={styles.empty}>
+          {empty}
+        </Text>
+      ) : wide ? (
+        <View style={styles.table} role="table">
+          <View style={[styles.tr, styles.th]} role="row">
+            {columns.map((c) => (
+              <Text key={c.key} variant="smallStrong" tone="soft" role="columnheader" style={[styles.cell, { flex: c.flex }]}>
+                {c.label}
+              </Text>
+            ))}
+            {editable ? <View style={styles.removeCol} /> : null}
+          </View>
+          {rows.map((i) => (
+            <View key={keyOf(i)} style={styles.tr} role="row" testID={`${testID}-row-${i}`}>
+              {columns.map((c) => (
+                <View key={c.key} style={[styles.cell, { flex: c.flex }]} role="cell">
+                  {c.render(i, true)}
+                </View>
+              ))}
+              {editable ? <View style={styles.removeCol}>{remove(i)}</View> : null}
+            </View>
+          ))}
+        </View>
+      ) : (
+        rows.map((i) => (
+          <View key={keyOf(i)} style={styles.card} testID={`${testID}-row-${i}`}>
+            <View style={styles.cardHead}>
+              <Text variant="label" tone="copper" style={{ flex: 1 }}>
+                {`${noun} ${i + 1}${titleOf(i) ? ` · ${titleOf(i)}` : ''}`}
+              </Text>
+              {remove(i)}
+            </View>
+            <View style={styles.cardGrid}>
+              {columns.map((c) => (
+                <View key={c.key} style={c.half ? styles.half : styles.full}>
+                  {c.render(i, false)}
+                </View>
+              ))}
+            </View>
+          </View>
+        ))
+      )}
+      {editable ? <Button label={`Add ${noun}`} icon="plus" variant="secondary" onPress={onAdd} testID={`${testID}-add`} style={styles.add} /> : null}
+    </View>
+  );
+}
+
+/** The first free "<prefix>-<n>" id. */
+export function nextId(prefix: string, taken: readonly string[]): string {
+  for (let n = 1; ; n++) if (!taken.includes(`${prefix}-${n}`)) return `${prefix}-${n}`;
+}
+
+const styles = StyleSheet.create({
+  wrap: { gap: space.md },
+  empty: { paddingVertical: space.sm },
+  table: { borderWidth: 1, borderColor: palette.line, borderRadius: radii.md, backgroundColor: palette.surface, overflow: 'hidden' },
+  tr: { flexDirection: 'row', alignItems: 'flex-start', gap: space.xs, paddingHorizontal: space.sm, paddingVertical: space.xs, borderBottomWidth: 1, borderBottomColor: palette.paperDeep },
+  th: { backgroundColor: palette.paper, alignItems: 'flex-end', paddingVertical: space.sm },
+  cell: { minWidth: 0 },
+  removeCol: { width: layout.touchMinPx, alignItems: 'center' },
+  remove: { width: layout.touchMinPx, height: layout.touchMinPx, alignItems: 'center', justifyContent: 'center', borderRadius: radii.md },
+  card: { backgroundColor: palette.surface, borderRadius: radii.lg, borderWidth: 1, borderColor: palette.line, padding: space.md, gap: space.sm },
+  cardHead: { flexDirection: 'row', alignItems: 'center', gap: space.sm, minHeight: layout.touchMinPx, marginVertical: -space.xs },
+  cardGrid: { flexDirection: 'row', flexWrap: 'wrap', gap: space.md },
+  full: { flexBasis: '100%' },
+  half: { flexBasis: '45%', flexGrow: 1 },
+  add: { alignSelf: 'flex-start' },
+});

@@ -1,0 +1,80 @@
+/**
+ * The frame of one filing: from layout.wideMinWidthPx the step list on the left and the page on
+ * the right; on a phone one page at a time (the overview is the step list's own screen).
+ */
+import { Link, Slot, usePathname } from 'expo-router';
+import { Pressable, ScrollView, StyleSheet, View } from 'react-native';
+import { WIZARD_STEPS, type WizardStep } from '../../constants/schemas/filings';
+import { palette, space } from '../../constants/theme';
+import { useFilingQuery } from '../../hooks/queries/filings';
+import { useIsWide } from '../../hooks/use-is-wide';
+import { Icon } from '../icons';
+import { LoadFailed, Loading } from '../layout/query-states';
+import { Screen } from '../layout/screen';
+import { StatusBadge } from '../ui/status-badge';
+import { Text } from '../ui/text';
+import { STATE_LOOK } from './labels';
+import { StepList } from './step-list';
+import { useFilingId } from './use-filing-id';
+
+export function activeStepOf(pathname: string): WizardStep | 'overview' {
+  const last = pathname.split('/').filter(Boolean).pop() ?? '';
+  return (WIZARD_STEPS as readonly string[]).includes(last) ? (last as WizardStep) : 'overview';
+}
+
+export function FilingLayout() {
+  const id = useFilingId();
+  const filing = useFilingQuery(id);
+  const wide = useIsWide();
+  const pathname = usePathname();
+  if (filing.isPending || filing.isError) {
+    return (
+      <Screen title="Filing" eyebrow="Filings">
+        {filing.isPending ? <Loading label="Loading the filing…" /> : <LoadFailed what="this filing" error={filing.error} onRetry={() => void filing.refetch()} />}
+      </Screen>
+    );
+  }
+  if (!wide) return <Slot />;
+  const f = filing.data;
+  const state = STATE_LOOK[f.version.state];
+  const active = activeStepOf(pathname);
+  return (
+    <View style={styles.panes}>
+      <ScrollView style={styles.left} contentContainerStyle={styles.leftContent} testID="filing-steps-pane">
+        <Link href="/filings" asChild>
+          <Pressable style={styles.back} accessibilityLabel="All filings">
+            <Icon name="chevronLeft" size={16} color={palette.inkMuted} />
+            <Text variant="small" tone="muted">
+              All filings
+            </Text>
+          </Pressable>
+        </Link>
+        <Link href={`/filings/${f.id}`} asChild>
+          <Pressable style={({ pressed }) => [styles.identity, active === 'overview' && styles.identityActive, pressed && { backgroundColor: palette.paperDeep }]} testID="step-link-overview" aria-current={active === 'overview' ? 'page' : undefined}>
+            <Text variant="heading" numberOfLines={2}>
+              {f.device.name}
+            </Text>
+            <Text variant="small" tone="soft">
+              {f.device.model} · version {f.version.number}
+            </Text>
+            <StatusBadge tone={state.tone} icon={state.icon} label={state.label} />
+          </Pressable>
+        </Link>
+        <StepList filing={f} activeStep={active} />
+      </ScrollView>
+      <View style={styles.right}>
+        <Slot />
+      </View>
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  panes: { flex: 1, flexDirection: 'row' },
+  left: { width: 300, flexGrow: 0, flexShrink: 0, backgroundColor: palette.surface, borderRightWidth: 1, borderRightColor: palette.line },
+  leftContent: { padding: space.md, paddingTop: space.xl, gap: space.md },
+  back: { flexDirection: 'row', alignItems: 'center', gap: space.xs, minHeight: 32, paddingHorizontal: space.sm },
+  identity: { gap: space.xs, padding: space.md, borderRadius: 8, borderWidth: 1, borderColor: palette.line, backgroundColor: palette.paper },
+  identityActive: { borderColor: palette.copper },
+  right: { flex: 1, minWidth: 0 },
+});

@@ -1,0 +1,48 @@
+/** Inputs bound to a step form by path; server and schema messages show under the right field. */
+import { Controller, type Control, type FieldPath, type FieldValues } from 'react-hook-form';
+import { InputBox } from '../ui/input-box';
+import { NumberField } from '../ui/number-field';
+import { SelectField } from '../ui/select-field';
+
+interface Common<T extends FieldValues> {
+  control: Control<T>;
+  name: FieldPath<T>;
+  label: string;
+  hideLabel?: boolean;
+  editable: boolean;
+  testID?: string;
+  placeholder?: string;
+}
+
+export function FormText<T extends FieldValues>({ control, name, editable, ...rest }: Common<T>) {
+  return (
+    <Controller
+      control={control}
+      name={name}
+      render={({ field, fieldState }) => <InputBox {...rest} editable={editable} value={field.value ?? ''} onChangeText={field.onChange} onBlur={field.onBlur} error={fieldState.error?.message} />}
+    />
+  );
+}
+
+/** `scale` converts the shown unit to the stored one: stored = shown × scale. */
+export function FormNumber<T extends FieldValues>({ control, name, editable, unit, scale = 1, ...rest }: Common<T> & { unit: string; scale?: number }) {
+  return (
+    <Controller
+      control={control}
+      name={name}
+      render={({ field, fieldState }) => (
+        <NumberField {...rest} unit={unit} scale={scale} editable={editable} value={field.value} onChange={field.onChange} onBlur={field.onBlur} error={fieldState.error?.message} />
+      )}
+    />
+  );
+}
+
+export function FormSelect<T extends FieldValues>({ control, name, editable, options, ...rest }: Common<T> & { options: readonly { value: string; label: string }[] }) {
+  return (
+    <Controller
+      control={control}
+      name={name}
+      render={({ field, fieldState }) => <SelectField {...rest} options={options} disabled={!editable} value={field.value} onChange={field.onChange} error={fieldState.error?.message} />}
+    />
+  );
+}

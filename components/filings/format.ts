@@ -1,0 +1,26 @@
+/** Figures as the wizard shows them: display units, sensible digits, the unit always beside. */
+
+/** 4 significant digits, without exponent noise for everyday magnitudes. */
+export function sig(x: number, digits = 4): string {
+  if (!Number.isFinite(x)) return '—';
+  if (x === 0) return '0';
+  const abs = Math.abs(x);
+  if (abs >= 1e-3 && abs < 1e7) return String(Number(x.toPrecision(digits)));
+  return x.toExponential(digits - 1).replace('e+', 'e');
+}
+
+export const formatMhz = (hz: number) => `${sig(hz / 1e6, 6)} MHz`;
+export const formatMw = (mw: number) => `${sig(mw)} mW`;
+export const formatMm = (m: number) => `${sig(m * 1000)} mm`;
+export const formatDb = (db: number | null) => (db === null ? '—' : `${db >= 0 ? '+' : '−'}${Math.abs(db).toFixed(1)} dB`);
+
+/** A derivation quantity: "1.234 W/kg", text as it is, "Hz" shown as MHz. */
+export function formatQuantity(value: number | string | boolean | null, unit: string): string {
+  if (value === null) return '—';
+  if (typeof value !== 'number') return String(value);
+  if (unit === 'Hz') return formatMhz(value);
+  if (unit === '1' || unit === 'text' || !unit) return sig(value);
+  return `${sig(value)} ${unit}`;
+}
+
+export const timeOfDay = (iso: string | Date) => new Date(iso).toLocaleTimeString('en-GB', { hour: '2-digit', minute: '2-digit' });

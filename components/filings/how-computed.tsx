@@ -1,0 +1,196 @@
+/**
+ * "How computed": one screening figure explained from the engine's own derivation — the formula,
+ * inputs with units, intermediate values, the result, the source clause, the notes, and every
+ * frequency of the band that was checked.
+ */
+import { StyleSheet, View } from 'react-native';
+import type { Derivation, Quantity } from '../../calc/types';
+import { USE_POSITION_LABELS } from '../../constants/schemas/device-file';
+import { palette, radii, space } from '../../constants/theme';
+import type { ScreeningRowDto as ScreeningRow } from '../../hooks/queries/filings';
+import { Sheet } from '../ui/sheet';
+import { StatusBadge } from '../ui/status-badge';
+import { Text } from '../ui/text';
+import { formatDb, formatMhz, formatQuantity, sig } from './format';
+import { methodShort, regimeShort, RESULT_LOOK } from './labels';
+import { FIGURE_LABELS, figureText, type FigureKey } from './screening-figures';
+
+export function HowComputedSheet({ row, figure, onClose }: { row: ScreeningRow | null; figure: FigureKey; onClose: () => void }) {
+  return (
+    <Sheet
+      visible={!!row}
+      onClose={onClose}
+      title={row ? `How computed: ${FIGURE_LABELS[figure].toLowerCase()}` : 'How computed'}
+      subtitle={row ? `${row.transmitterId} at ${row.usePositionId} (${USE_POSITION_LABELS[row.usePositionKind].toLowerCase()}) · ${regimeShort(row.regime)}, ${row.tier}` : undefined}
+      testID="how-computed"
+    >
+      {row ? <HowComputed row={row} figure={figure} /> : null}
+    </Sheet>
+  );
+}
+
+export function HowComputed({ row, figure }: { row: ScreeningRow; figure: FigureKey }) {
+  const look = RESULT_LOOK[row.result];
+  const d = row.derivation;
+  return (
+    <View style={styles.wrap}>
+      <View style={styles.headline}>
+        <Text variant="small" tone="muted">
+          {FIGURE_LABELS[figure]}
+        </Text>
+        <Text variant="title" testID="how-computed-figure">
+          {figure === 'result' ? look.label : figureText(row, figure)}
+        </Text>
+        <View style={styles.badgeRow}>
+          <StatusBadge tone={look.tone} icon={look.icon} label={look.label} />
+          <Text variant="small" tone="soft">
+            margin {formatDb(row.marginDb)} · {row.methodLabel}
+          </Text>
+        </View>
+      </View>
+      <DerivationBlock d={d} testID="how-computed-derivation" />
+      {row.ruleDerivation ? (
+        <View style={styles.section}>
+          <Text variant="label" tone="soft">
+            The rule’s own calculation
+          </Text>
+          <DerivationBlock d={row.ruleDerivation} compact />
+        </View>
+      ) : null}
+      {row.candidates.length ? (
+        <View style={styles.section} testID="how-computed-candidates">
+          <Text variant="label" tone="soft">
+            Frequencies checked in the band
+          </Text>
+          <View style={styles.table}>
+            <View style={[styles.tr, styles.th]}>
+              <Text variant="smallStrong" tone="soft" style={[styles.c, styles.num]}>
+                Frequency
+              </Text>
+              <Text variant="smallStrong" tone="soft" style={[styles.c, { flex: 1.6 }]}>
+                Rule
+              </Text>
+              <Text variant="smallStrong" tone="soft" style={[styles.c, styles.num]}>
+                Threshold
+              </Text>
+              <Text variant="smallStrong" tone="soft" style={[styles.c, styles.num]}>
+                Margin
+              </Text>
+              <Text variant="smallStrong" tone="soft" style={[styles.c, { flex: 1.1 }]}>
+                Result
+              </Text>
+            </View>
+            {row.candidates.map((c, i) => (
+              <View key={i} style={[styles.tr, c.frequencyHz === row.frequencyHz && c.marginDb === row.marginDb ? styles.worst : null]}>
+                <Text variant="figure" style={[styles.c, styles.num]}>
+                  {formatMhz(c.frequencyHz)}
+                </Text>
+                <Text variant="small" style={[styles.c, { flex: 1.6 }]}>
+                  {methodShort(c.method)}
+                  {c.note ? ` — ${c.note}` : ''}
+                </Text>
+                <Text variant="figure" style={[styles.c, styles.num]}>
+                  {c.threshold === null ? '—' : `${sig(c.threshold)} ${c.thresholdUnit ?? ''}`}
+                </Text>
+                <Text variant="figure" style={[styles.c, styles.num]}>
+                  {formatDb(c.marginDb)}
+                </Text>
+                <Text variant="small" style={[styles.c, { flex: 1.1 }]}>
+                  {RESULT_LOOK[c.result].label}
+                </Text>
+              </View>
+            ))}
+          </View>
+          <Text variant="small" tone="muted">
+            The band is judged at its most restrictive frequency (highlighted): the worst result, then the smallest margin.
+          </Text>
+        </View>
+      ) : null}
+    </View>
+  );
+}
+
+export function DerivationBlock({ d, compact, testID }: { d: Derivation; compact?: boolean; testID?: string }) {
+  return (
+    <View style={styles.wrap} testID={testID}>
+      <View style={styles.section}>
+        <Text variant="label" tone="soft">
+          Formula
+        </Text>
+        <View style={styles.formula}>
+          <Text variant="mono" testID={testID ? `${testID}-formula` : undefined}>
+            {d.formula}
+          </Text>
+        </View>
+      </View>
+      {!compact ? <Quantities title="Inputs" values={d.inputs} /> : null}
+      <Quantities title="Intermediate values" values={d.intermediate} />
+      <Quantities title="Result" values={d.result} />
+      <View style={styles.section}>
+        <Text variant="label" tone="soft">
+          Source
+        </Text>
+        <Text variant="bodyStrong" testID={testID ? `${testID}-source` : undefined}>
+          {d.source}
+        </Text>
+      </View>
+      {d.notes.length && !compact ? (
+        <View style={styles.section}>
+          <Text variant="label" tone="soft">
+            Notes
+          </Text>
+          {d.notes.map((n, i) => (
+            <Text key={i} variant="small" tone="soft">
+              • {n}
+            </Text>
+          ))}
+        </View>
+      ) : null}
+    </View>
+  );
+}
+
+function Quantities({ title, values }: { title: string; values: Record<string, Quantity> }) {
+  const entries = Object.entries(values);
+  if (!entries.length) return null;
+  return (
+    <View style={styles.section}>
+      <Text variant="label" tone="soft">
+        {title}
+      </Text>
+      <View style={styles.table}>
+        {entries.map(([name, q]) => {
+          const long = typeof q.value === 'string' && q.value.length > 40;
+          return (
+            <View key={name} style={[styles.tr, long && styles.trLong]}>
+              <Text variant="mono" tone="soft" style={[styles.c, styles.name]}>
+                {name}
+              </Text>
+              <Text variant={typeof q.value === 'number' ? 'figure' : 'small'} style={[styles.c, long ? styles.longValue : styles.value]}>
+                {formatQuantity(q.value, q.unit)}
+              </Text>
+            </View>
+          );
+        })}
+      </View>
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  wrap: { gap: space.lg },
+  headline: { gap: space.xs, paddingBottom: space.sm, borderBottomWidth: 1, borderBottomColor: palette.line },
+  badgeRow: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: space.sm },
+  section: { gap: space.xs },
+  formula: { backgroundColor: palette.paper, borderRadius: radii.md, padding: space.md, borderWidth: 1, borderColor: palette.line },
+  table: { borderWidth: 1, borderColor: palette.line, borderRadius: radii.md, overflow: 'hidden' },
+  tr: { flexDirection: 'row', gap: space.sm, paddingHorizontal: space.sm, paddingVertical: 6, borderBottomWidth: 1, borderBottomColor: palette.paperDeep, alignItems: 'baseline' },
+  trLong: { flexDirection: 'column', alignItems: 'stretch', gap: 2 },
+  th: { backgroundColor: palette.paper },
+  worst: { backgroundColor: palette.copperSoft },
+  c: { minWidth: 0 },
+  num: { flex: 1, textAlign: 'right' },
+  name: { flex: 1, fontSize: 12 },
+  value: { flex: 1, textAlign: 'right' },
+  longValue: { textAlign: 'left' },
+});

@@ -1,0 +1,279 @@
+/**
+ * Step 5, Screening: per market how many combinations are exempt or need SAR / MPE evaluation,
+ * the table of every transmitter × use position × market (a card list on a phone) where every
+ * figure opens its "how computed" panel, the SAR-against-depth estimate, and the cautions.
+ */
+import { useState } from 'react';
+import { Pressable, StyleSheet, View } from 'react-native';
+import type { ScreeningCounts } from '../../calc/screening/screen';
+import { REGIME_LABELS, USE_POSITION_LABELS, type MarketRegime } from '../../constants/schemas/device-file';
+import type { FilingDetail } from '../../constants/schemas/filings';
+import { layout, palette, radii, space } from '../../constants/theme';
+import { useScreeningQuery, type FilingScreening, type ScreeningRowDto } from '../../hooks/queries/filings';
+import { useIsWide } from '../../hooks/use-is-wide';
+import { formatDateTime } from '../format';
+import { Icon } from '../icons';
+import { LoadFailed, Loading } from '../layout/query-states';
+import { Button } from '../ui/button';
+import { Card } from '../ui/card';
+import { ChoiceChips } from '../ui/choice-chips';
+import { Notice } from '../ui/notice';
+import { StatusBadge } from '../ui/status-badge';
+import { Text } from '../ui/text';
+import { DepthSection } from './depth-section';
+import { formatDb, formatMhz, formatMm } from './format';
+import { HowComputedSheet } from './how-computed';
+import { methodShort, regimeShort, RESULT_LOOK } from './labels';
+import { evaluatedText, thresholdText, type FigureKey } from './screening-figures';
+
+type Opened = { row: ScreeningRowDto; figure: FigureKey } | null;
+
+export function ScreeningView({ filing }: { filing: FilingDetail }) {
+  const screening = useScreeningQuery(filing.id);
+  const [regime, setRegime] = useState<string>('all');
+  const [opened, setOpened] = useState<Opened>(null);
+  if (screening.isPending) return <Loading label="Screening every combination…" />;
+  if (screening.isError) return <LoadFailed what="the screening" error={screening.error} onRetry={() => void screening.refetch()} />;
+  const s = screening.data;
+  const regimes = Object.keys(s.summary.byRegime);
+  const rows = regime === 'all' ? s.rows : s.rows.filter((r) => r.regime === regime);
+  const open = (row: ScreeningRowDto, figure: FigureKey) => setOpened({ row, figure });
+  return (
+    <View style={styles.wrap} testID="screening">
+      {!s.complete ? (
+        <Notice tone="caution" title="Some steps are incomplete" testID="screening-incomplete">
+          The table covers what has been entered so far. Complete every step for a full screening.
+        </Notice>
+      ) : null}
+      <Summary s={s} />
+      {s.gaps.length ? (
+        <Notice tone="caution" title={`${s.gaps.length} combination${s.gaps.length === 1 ? '' : 's'} could not be screened`} testID="screening-gaps">
+          <View style={{ gap: 2 }}>
+            {s.gaps.map((g) => (
+              <Text key={`${g.transmitterId}-${g.usePositionId}`} variant="small">
+                {g.message}
+              </Text>
+            ))}
+          </View>
+        </Notice>
+      ) : null}
+      <Card title="Every combination" aside={<Text variant="small" tone="muted">Tap a figure to see how it was computed.</Text>}>
+        {regimes.length > 1 ? (
+          <ChoiceChips
+            label="Market"
+            hideLabel
+            choices={[{ value: 'all', label: 'All markets' }, ...regimes.map((r) => ({ value: r, label: regimeShort(r) }))]}
+            value={regime}
+            onChange={setRegime}
+            testID="screening-market"
+          />
+        ) : null}
+        {rows.length === 0 ? (
+          <Text tone="muted">Nothing to screen yet: add transmitters, use positions with separations, and at least one market.</Text>
+        ) : (
+          <ScreeningRows rows={rows} onOpen={open} />
+        )}
+      </Card>
+      {filing.data.radios.transmitters.length && filing.data['use-positions'].usePositions.length ? <DepthSection filing={filing} initial={s.rows[0] ?? null} /> : null}
+      <Notice tone="caution" title="What these results are" testID="screening-cautions">
+        <View style={{ gap: space.xxs }}>
+          {s.cautions.map((c) => (
+            <Text key={c} variant="small">
+              {c}
+            </Text>
+          ))}
+        </View>
+      </Notice>
+      <Text variant="small" tone="muted" testID="screening-versions">
+        Engine {s.engineVersion} · rule set {s.ruleSetVersion} · computed {formatDateTime(s.computedAt)} for version {s.version}
+      </Text>
+      <HowComputedSheet row={opened?.row ?? null} figure={opened?.figure ?? 'result'} onClose={() => setOpened(null)} />
+    </View>
+  );
+}
+
+function Summary({ s }: { s: FilingScreening }) {
+  const wide = useIsWide();
+  const entries = Object.entries(s.summary.byRegime) as [MarketRegime, ScreeningCounts][];
+  if (!entries.length) return <Notice tone="caution" title="No markets chosen">Pick at least one market under Markets to screen against it.</Notice>;
+  return (
+    <View style={[styles.summary, wide && styles.summaryWide]} testID="screening-summary">
+      {entries.map(([regime, c]) => (
+        <View key={regime} style={styles.summaryCard} testID={`summary-${regime}`} accessibilityLabel={`${REGIME_LABELS[regime]}: ${c.combinations} combinations, ${c.exempt} exempt, ${c.evaluateSar} need SAR, ${c.evaluateMpe} need MPE`}>
+          <Text variant="label" tone="copper">
+            {regimeShort(regime)}
+          </Text>
+          <Text variant="small" tone="soft" numberOfLines={2}>
+            {REGIME_LABELS[regime]}
+          </Text>
+          <View style={styles.counts}>
+            <Count label="Combinations" n={c.combinations} />
+            <Count label="Exempt" n={c.exempt} icon="check" color={palette.pass} />
+            <Count label="Needs SAR" n={c.evaluateSar} icon="warning" color={c.evaluateSar ? palette.caution : palette.inkMuted} />
+            <Count label="Needs MPE" n={c.evaluateMpe} icon="warning" color={c.evaluateMpe ? palette.caution : palette.inkMuted} />
+          </View>
+        </View>
+      ))}
+    </View>
+  );
+}
+
+function Count({ label, n, icon, color = palette.ink }: { label: string; n: number; icon?: 'check' | 'warning'; color?: string }) {
+  return (
+    <View style={styles.count}>
+      <Text variant="title" style={{ color, fontVariant: ['tabular-nums'] }}>
+        {n}
+      </Text>
+      <View style={styles.countLabel}>
+        {icon ? <Icon name={icon} size={13} color={color} strokeWidth={2} /> : null}
+        <Text variant="small" tone="soft">
+          {label}
+        </Text>
+      </View>
+    </View>
+  );
+}
+
+const COLUMNS: { key: FigureKey | 'tx' | 'pos' | 'market'; label: string; flex: number; numeric?: boolean }[] = [
+  { key: 'tx', label: 'Transmitter', flex: 1.1 },
+  { key: 'pos', label: 'Use position', flex: 1.2 },
+  { key: 'market', label: 'Market', flex: 0.8 },
+  { key: 'method', label: 'Method', flex: 1.5 },
+  { key: 'frequency', label: 'Frequency', flex: 1.15, numeric: true },
+  { key: 'evaluated', label: 'Evaluated', flex: 1.05, numeric: true },
+  { key: 'threshold', label: 'Threshold', flex: 1.1, numeric: true },
+  { key: 'result', label: 'Result', flex: 1.2 },
+  { key: 'margin', label: 'Margin', flex: 0.9, numeric: true },
+];
+
+function ScreeningRows({ rows, onOpen }: { rows: ScreeningRowDto[]; onOpen: (row: ScreeningRowDto, figure: FigureKey) => void }) {
+  const wide = useIsWide();
+  if (!wide) {
+    return (
+      <View style={styles.cards} role="list" testID="screening-cards">
+        {rows.map((row, i) => (
+          <RowCard key={i} row={row} index={i} onOpen={onOpen} />
+        ))}
+      </View>
+    );
+  }
+  return (
+    <View style={styles.table} role="table" testID="screening-table">
+      <View style={[styles.tr, styles.th]} role="row">
+        {COLUMNS.map((c) => (
+          <Text key={c.key} variant="smallStrong" tone="soft" role="columnheader" style={[styles.td, { flex: c.flex }, c.numeric && styles.right]}>
+            {c.label}
+          </Text>
+        ))}
+      </View>
+      {rows.map((row, i) => (
+        <View key={i} style={[styles.tr, i % 2 === 1 && styles.zebra]} role="row" testID={`screening-row-${i}`}>
+          <Text variant="smallStrong" style={[styles.td, { flex: 1.1 }]} role="cell">
+            {row.transmitterId}
+          </Text>
+          <Text variant="small" style={[styles.td, { flex: 1.2 }]} role="cell">
+            {row.usePositionId}
+            {'\n'}
+            <Text variant="small" tone="muted">
+              {formatMm(row.separationM)}
+            </Text>
+          </Text>
+          <Text variant="small" style={[styles.td, { flex: 0.8 }]} role="cell">
+            {regimeShort(row.regime)}
+          </Text>
+          <Figure flex={1.5} label={methodShort(row.method)} onPress={() => onOpen(row, 'method')} testID={`cell-${i}-method`} />
+          <Figure flex={1.15} numeric label={formatMhz(row.frequencyHz)} onPress={() => onOpen(row, 'frequency')} testID={`cell-${i}-frequency`} />
+          <Figure flex={1.05} numeric label={evaluatedText(row)} onPress={() => onOpen(row, 'evaluated')} testID={`cell-${i}-evaluated`} />
+          <Figure flex={1.1} numeric label={thresholdText(row)} onPress={() => onOpen(row, 'threshold')} testID={`cell-${i}-threshold`} />
+          <Pressable style={({ pressed }) => [styles.td, styles.cellPress, { flex: 1.2 }, pressed && styles.pressed]} onPress={() => onOpen(row, 'result')} accessibilityRole="button" accessibilityLabel={`How computed: result ${RESULT_LOOK[row.result].label}`} testID={`cell-${i}-result`}>
+            <ResultBadge row={row} />
+          </Pressable>
+          <Figure flex={0.9} numeric label={formatDb(row.marginDb)} onPress={() => onOpen(row, 'margin')} testID={`cell-${i}-margin`} />
+        </View>
+      ))}
+    </View>
+  );
+}
+
+function ResultBadge({ row }: { row: ScreeningRowDto }) {
+  const look = RESULT_LOOK[row.result];
+  return <StatusBadge tone={look.tone} icon={look.icon} label={look.label} />;
+}
+
+function Figure({ label, onPress, flex, numeric, testID }: { label: string; onPress: () => void; flex: number; numeric?: boolean; testID: string }) {
+  return (
+    <Pressable onPress={onPress} accessibilityRole="button" accessibilityLabel={`How computed: ${label}`} testID={testID} style={({ pressed }) => [styles.td, styles.cellPress, { flex }, pressed && styles.pressed]}>
+      <Text variant={numeric ? 'figure' : 'small'} style={[numeric ? styles.figure : styles.link]}>
+        {label}
+      </Text>
+    </Pressable>
+  );
+}
+
+function RowCard({ row, index, onOpen }: { row: ScreeningRowDto; index: number; onOpen: (row: ScreeningRowDto, figure: FigureKey) => void }) {
+  const items: { key: FigureKey; label: string; value: string }[] = [
+    { key: 'frequency', label: 'Frequency', value: formatMhz(row.frequencyHz) },
+    { key: 'evaluated', label: 'Evaluated', value: evaluatedText(row) },
+    { key: 'threshold', label: 'Threshold', value: thresholdText(row) },
+    { key: 'margin', label: 'Margin', value: formatDb(row.marginDb) },
+  ];
+  return (
+    <View style={styles.card} role="listitem" testID={`screening-row-${index}`}>
+      <View style={styles.cardHead}>
+        <View style={{ flex: 1, gap: 2 }}>
+          <Text variant="bodyStrong">
+            {row.transmitterId} · {regimeShort(row.regime)}
+          </Text>
+          <Text variant="small" tone="soft">
+            {row.usePositionId} — {USE_POSITION_LABELS[row.usePositionKind].toLowerCase()}, {formatMm(row.separationM)}
+          </Text>
+        </View>
+        <ResultBadge row={row} />
+      </View>
+      <Pressable onPress={() => onOpen(row, 'method')} style={({ pressed }) => [styles.methodRow, pressed && styles.pressed]} accessibilityRole="button" accessibilityLabel={`How computed: method ${row.methodLabel}`} testID={`cell-${index}-method`}>
+        <Text variant="small" tone="soft" style={{ flex: 1 }}>
+          {row.methodLabel}
+        </Text>
+      </Pressable>
+      <View style={styles.cardFigures}>
+        {items.map((it) => (
+          <Pressable key={it.key} onPress={() => onOpen(row, it.key)} style={({ pressed }) => [styles.cardFigure, pressed && styles.pressed]} accessibilityRole="button" accessibilityLabel={`How computed: ${it.label} ${it.value}`} testID={`cell-${index}-${it.key}`}>
+            <Text variant="small" tone="muted">
+              {it.label}
+            </Text>
+            <Text variant="figure" style={styles.figure}>
+              {it.value}
+            </Text>
+          </Pressable>
+        ))}
+      </View>
+      <Button label="How computed" variant="quiet" compact icon="info" onPress={() => onOpen(row, 'result')} testID={`how-${index}`} style={{ alignSelf: 'flex-start' }} />
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  wrap: { gap: space.lg },
+  summary: { gap: space.md },
+  summaryWide: { flexDirection: 'row', flexWrap: 'wrap' },
+  summaryCard: { flex: 1, minWidth: 260, backgroundColor: palette.surface, borderWidth: 1, borderColor: palette.line, borderRadius: radii.lg, padding: space.lg, gap: space.xs },
+  counts: { flexDirection: 'row', flexWrap: 'wrap', gap: space.lg, paddingTop: space.xs },
+  count: { gap: 0, minWidth: 64 },
+  countLabel: { flexDirection: 'row', alignItems: 'center', gap: 3 },
+  table: { borderWidth: 1, borderColor: palette.line, borderRadius: radii.md, overflow: 'hidden' },
+  tr: { flexDirection: 'row', alignItems: 'center', gap: space.xs, paddingHorizontal: space.sm, minHeight: layout.touchMinPx, borderBottomWidth: 1, borderBottomColor: palette.paperDeep },
+  th: { backgroundColor: palette.paper, minHeight: 36 },
+  zebra: { backgroundColor: '#FBFAF7' },
+  td: { minWidth: 0, paddingVertical: space.xs },
+  right: { textAlign: 'right' },
+  cellPress: { minHeight: layout.touchMinPx, justifyContent: 'center', borderRadius: radii.sm, paddingHorizontal: 4 },
+  pressed: { backgroundColor: palette.copperSoft },
+  figure: { fontSize: 13, textAlign: 'right', textDecorationLine: 'underline', textDecorationStyle: 'dotted', textDecorationColor: palette.inkFaint } as object,
+  link: { textDecorationLine: 'underline', textDecorationStyle: 'dotted', textDecorationColor: palette.inkFaint } as object,
+  cards: { gap: space.md },
+  card: { borderWidth: 1, borderColor: palette.line, borderRadius: radii.lg, padding: space.md, gap: space.sm, backgroundColor: palette.surface },
+  cardHead: { flexDirection: 'row', gap: space.sm, alignItems: 'flex-start' },
+  methodRow: { minHeight: 32, justifyContent: 'center', borderRadius: radii.sm },
+  cardFigures: { flexDirection: 'row', flexWrap: 'wrap', gap: space.xs },
+  cardFigure: { flexBasis: '47%', flexGrow: 1, minHeight: layout.touchMinPx, paddingVertical: space.xs, paddingHorizontal: space.sm, borderRadius: radii.md, backgroundColor: palette.paper, gap: 0 },
+});

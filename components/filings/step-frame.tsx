@@ -1,0 +1,47 @@
+/** The top of a data step: the autosave status, and why the form is read-only or started from a draft. */
+import { StyleSheet, View } from 'react-native';
+import { palette, radii, space } from '../../constants/theme';
+import type { FieldValues } from 'react-hook-form';
+import { Notice } from '../ui/notice';
+import { Text } from '../ui/text';
+import { timeOfDay } from './format';
+import { SaveIndicator } from './save-indicator';
+import type { StepForm } from './use-step-form';
+
+export function StepFrame<T extends FieldValues>({ stepForm, intro, children }: { stepForm: StepForm<T>; intro?: string; children: React.ReactNode }) {
+  const { autosave, editable, draft, form } = stepForm;
+  const status = autosave.status;
+  const onRetry = () => void autosave.saveNow();
+  const draftAt = draft?.updatedAt ?? null;
+  const rootError = form.formState.errors.root?.server?.message;
+  return (
+    <View style={styles.frame}>
+      <View style={styles.bar}>
+        {intro ? (
+          <Text variant="small" tone="soft" style={styles.intro}>
+            {intro}
+          </Text>
+        ) : null}
+        <SaveIndicator status={status} onRetry={onRetry} readOnly={!editable} />
+      </View>
+      {!editable ? (
+        <Notice tone="info" title="Read only" testID="step-read-only">
+          Only a compliance specialist changes a filing’s device data, and only while its version is a draft or has changes requested.
+        </Notice>
+      ) : null}
+      {draftAt && editable ? (
+        <Notice tone="caution" title="Started from your unsaved draft" testID="step-draft-notice">
+          {`These are the changes you made at ${timeOfDay(draftAt)}; they are not saved yet because some fields need fixing. The last saved data stays in use until they are fixed.`}
+        </Notice>
+      ) : null}
+      {rootError ? <Notice tone="error">{rootError}</Notice> : null}
+      {children}
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  frame: { gap: space.lg },
+  bar: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', justifyContent: 'space-between', gap: space.sm, paddingVertical: space.sm, paddingHorizontal: space.md, backgroundColor: palette.surface, borderRadius: radii.md, borderWidth: 1, borderColor: palette.line },
+  intro: { flex: 1, minWidth: 200 },
+});

@@ -1,0 +1,73 @@
+/** The wizard's steps with each one's completion and what is missing, in words; every step is a link. */
+import { Link } from 'expo-router';
+import { Pressable, StyleSheet, View } from 'react-native';
+import { STEP_LABELS, type FilingDetail, type WizardStep } from '../../constants/schemas/filings';
+import { layout, palette, radii, space } from '../../constants/theme';
+import { Icon, type IconName } from '../icons';
+import { Text } from '../ui/text';
+
+function stepLook(s: FilingDetail['steps'][number]): { icon: IconName; color: string; word: string } {
+  if (s.hasDraft) return { icon: 'warning', color: palette.fail, word: 'Unsaved changes' };
+  if (s.complete) return { icon: 'check', color: palette.pass, word: 'Complete' };
+  if (s.step === 'screening') return { icon: 'blocked', color: palette.inkMuted, word: 'Waiting' };
+  return { icon: 'pending', color: palette.caution, word: 'Incomplete' };
+}
+
+export function StepList({ filing, activeStep, compact }: { filing: FilingDetail; activeStep?: WizardStep | 'overview'; compact?: boolean }) {
+  return (
+    <View role="list" accessibilityLabel="Steps" style={styles.list} testID="step-list">
+      {filing.steps.map((s, i) => {
+        const look = stepLook(s);
+        const active = s.step === activeStep;
+        return (
+          <Link key={s.step} href={`/filings/${filing.id}/${s.step}`} asChild>
+            <Pressable
+              role="listitem"
+              accessibilityLabel={`Step ${i + 1}: ${STEP_LABELS[s.step]}, ${look.word}`}
+              aria-current={active ? 'step' : undefined}
+              testID={`step-link-${s.step}`}
+              style={({ pressed }) => [styles.item, active && styles.active, pressed && !active && { backgroundColor: palette.paperDeep }]}
+            >
+              <Text variant="figure" tone={active ? 'copper' : 'muted'} style={styles.number}>
+                {String(i + 1).padStart(2, '0')}
+              </Text>
+              <View style={styles.body}>
+                <View style={styles.titleRow}>
+                  <Text variant="bodyStrong" style={{ flex: 1 }}>
+                    {STEP_LABELS[s.step]}
+                  </Text>
+                  <View style={styles.state} testID={`step-state-${s.step}`}>
+                    <Icon name={look.icon} size={15} color={look.color} strokeWidth={2} />
+                    <Text variant="small" style={{ color: look.color }}>
+                      {look.word}
+                    </Text>
+                  </View>
+                </View>
+                {s.problems.length && !compact ? (
+                  <View style={styles.problems}>
+                    {s.problems.map((p) => (
+                      <Text key={p} variant="small" tone="soft">
+                        {p}
+                      </Text>
+                    ))}
+                  </View>
+                ) : null}
+              </View>
+            </Pressable>
+          </Link>
+        );
+      })}
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  list: { gap: space.xxs },
+  item: { flexDirection: 'row', gap: space.md, minHeight: layout.touchMinPx, paddingVertical: space.sm, paddingHorizontal: space.md, borderRadius: radii.md, borderLeftWidth: 3, borderLeftColor: 'transparent' },
+  active: { backgroundColor: palette.copperSoft, borderLeftColor: palette.copper },
+  number: { width: 22, textAlign: 'left', paddingTop: 1 },
+  body: { flex: 1, gap: space.xxs },
+  titleRow: { flexDirection: 'row', alignItems: 'center', gap: space.sm, flexWrap: 'wrap' },
+  state: { flexDirection: 'row', alignItems: 'center', gap: 4 },
+  problems: { gap: 2 },
+});

@@ -1,0 +1,34 @@
+/**
+ * One wizard step's form: starts from the server's draft when there is one (so a reload loses
+ * nothing), validates with the step's shared schema, and autosaves.
+ */
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useEffect, useState } from 'react';
+import { useForm, type FieldValues, type Resolver } from 'react-hook-form';
+import { STEP_SCHEMAS, type DataStep, type FilingDetail } from '../../constants/schemas/filings';
+import { useAutosave } from '../../hooks/use-autosave';
+
+export function useStepForm<T extends FieldValues>(filing: FilingDetail, step: DataStep, fromDraft: (raw: unknown, saved: T) => T) {
+  const draft = filing.drafts[step];
+  const [initial] = useState<T>(() => {
+    const saved = filing.data[step] as unknown as T;
+    return draft ? fromDraft(draft.data, saved) : saved;
+  });
+  const form = useForm<T>({
+    resolver: zodResolver(STEP_SCHEMAS[step] as never) as unknown as Resolver<T>,
+    defaultValues: initial as never,
+    mode: 'onChange',
+  });
+  const autosave = useAutosave({ form, filingId: filing.id, step, enabled: filing.editable });
+  useEffect(() => {
+    // A draft is kept because it had errors: show them at once.
+    if (draft && filing.editable) void form.trigger();
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, []);
+  return { form, autosave, draft: draft ?? null, editable: filing.editable };
+}
+export type StepForm<T extends FieldValues> = ReturnType<typeof useStepForm<T>>;
+
+/** Draft data is whatever was sent last; keep it only when it has the step's outer shape. */
+export const isObject = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
+export const arrayOf = (v: unknown): Record<string, unknown>[] => (Array.isArray(v) ? v.filter(isObject) : []);

@@ -1,0 +1,104 @@
+/**
+ * Autosave for a wizard step: every change (debounced) sends the whole step form. A valid step
+ * is saved; an invalid one is kept on the server as a draft and its field messages land on their
+ * fields (the server's dotted paths are the form's field names). A pending change is sent when
+ * the step is left.
+ */
+import { useQueryClient } from '@tanstack/react-query';
+import { useCallback, useEffect, useRef, useState } from 'react';
+import type { FieldPath, FieldValues, UseFormReturn } from 'react-hook-form';
+import type { DataStep } from '../constants/schemas/filings';
+import { asProblem } from './api-client';
+import { filingKeys, saveStep } from './queries/filings';
+
+export const AUTOSAVE_DELAY_MS = 800;
+
+export type AutosaveStatus =
+  | { kind: 'idle' }
+  | { kind: 'pending' }
+  | { kind: 'saving' }
+  | { kind: 'saved'; at: Date }
+  | { kind: 'invalid'; at: Date; problems: number }
+  | { kind: 'failed'; message: string };
+
+export function useAutosave<T extends FieldValues>({
+  form,
+  filingId,
+  step,
+  enabled,
+  toBody = (v) => v,
+  delayMs = AUTOSAVE_DELAY_MS,
+}: {
+  form: UseFormReturn<T>;
+  filingId: number;
+  step: DataStep;
+  enabled: boolean;
+  /** The request body for the form's values (most steps send them as they are). */
+  toBody?: (values: T) => unknown;
+  delayMs?: number;
+}) {
+  const queryClient = useQueryClient();
+  const [status, setStatus] = useState<AutosaveStatus>({ kind: 'idle' });
+  const lastSent = useRef(JSON.stringify(toBody(form.getValues())));
+  const timer = useRef<ReturnType<typeof setTimeout> | null>(null);
+  const mounted = useRef(true);
+  const toBodyRef = useRef(toBody);
+  toBodyRef.current = toBody;
+
+  const save = useCallback(async () => {
+    if (timer.current) clearTimeout(timer.current);
+    timer.current = null;
+    const body = toBodyRef.current(form.getValues());
+    const json = JSON.stringify(body);
+    if (json === lastSent.current) {
+      if (mounted.current) setStatus((s) => (s.kind === 'pending' ? { kind: 'idle' } : s));
+      return;
+    }
+    lastSent.current = json;
+    if (mounted.current) setStatus({ kind: 'saving' });
+    try {
+      const filing = await saveStep(filingId, step, body);
+      queryClient.setQueryData(filingKeys.detail(filingId), filing);
+      void queryClient.invalidateQueries({ queryKey: filingKeys.lists() });
+      void queryClient.invalidateQueries({ queryKey: filingKeys.screening(filingId) });
+      // Only the newest request's answer may change what the form shows.
+      if (!mounted.current || lastSent.current !== json) return;
+      form.clearErrors();
+      setStatus({ kind: 'saved', at: new Date() });
+    } catch (error) {
+      const problem = asProblem(error);
+      void queryClient.invalidateQueries({ queryKey: filingKeys.detail(filingId) });
+      if (!mounted.current || lastSent.current !== json) return;
+      if (problem.status === 422 && problem.fields) {
+        form.clearErrors();
+        const entries = Object.entries(problem.fields);
+        for (const [path, message] of entries) {
+          form.setError((path === '_' ? 'root.server' : path) as FieldPath<T>, { type: 'server', message });
+        }
+        setStatus({ kind: 'invalid', at: new Date(), problems: entries.length });
+      } else {
+        // Nothing was stored: let the next change (or "Try again") send it again.
+        lastSent.current = '';
+        setStatus({ kind: 'failed', message: problem.message });
+      }
+    }
+  }, [filingId, step, form, queryClient]);
+
+  useEffect(() => {
+    mounted.current = true;
+    if (!enabled) return;
+    const sub = form.watch(() => {
+      if (timer.current) clearTimeout(timer.current);
+      setStatus({ kind: 'pending' });
+      timer.current = setTimeout(() => void save(), delayMs);
+    });
+    return () => {
+      sub.unsubscribe();
+      mounted.current = false;
+      // Leaving the step sends what is still waiting.
+      if (timer.current) void save();
+    };
+  }, [enabled, form, save, delayMs]);
+
+  return { status, saveNow: save };
+}
