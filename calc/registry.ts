@@ -6,10 +6,11 @@ import { CalcRangeError, type CalcIssue, type Calculation } from './types';
 import { emCalculations } from './em';
 import { limitCalculations } from './limits';
 import { labCalculations } from './lab';
+import { screeningCalculations } from './screening';
 
 export { ENGINE_VERSION, RULE_SET_VERSION } from './versions';
 
-const all: Calculation[] = [...emCalculations, ...limitCalculations, ...labCalculations] as Calculation[];
+const all: Calculation[] = [...emCalculations, ...limitCalculations, ...labCalculations, ...screeningCalculations] as Calculation[];
 
 export const calculations: ReadonlyMap<string, Calculation> = new Map(all.map((c) => [c.name, c]));
 

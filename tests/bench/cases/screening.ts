@@ -17,7 +17,7 @@ const BANDS_MHZ: [number, number][] = [
   [3300, 3800], [5150, 5350], [5470, 5725], [5725, 5850], [5925, 7125],
 ];
 
-function filing(): ScreeningInputRaw {
+export function screeningBenchFiling(): ScreeningInputRaw {
   return {
     markets: [
       { regime: 'fcc', tier: 'general' },
@@ -64,7 +64,7 @@ export const screeningCase: BenchCase = {
   warmupIterations: 20,
   iterations: 200,
   prepare() {
-    const input = filing();
+    const input = screeningBenchFiling();
     const first = runCalculation('screening', input);
     if (!first.ok) return `screening refused the bench filing: ${first.error.message}`;
     const out = first.result as ReturnType<typeof screenParsed>;

@@ -1,0 +1,91 @@
+/**
+ * Input of the `screening` calculation: the parts of a device description that decide exemption —
+ * markets, antennas, transmitters and use positions. Field names match the device file
+ * ("fieldfile.device/1") so the server can pass its parts straight through; calc/ may not import
+ * that schema, so it is restated here. Unknown keys (device info, antenna location, simultaneous
+ * combinations) are accepted and ignored.
+ */
+import { z } from 'zod';
+
+export const SCREENING_REGIMES = ['fcc', 'ised', 'eu', 'icnirp-2020'] as const;
+export type ScreeningRegime = (typeof SCREENING_REGIMES)[number];
+export const SCREENING_TIERS = ['general', 'occupational'] as const;
+export type ScreeningTier = (typeof SCREENING_TIERS)[number];
+/** FCC: the §1.1307(b)(3) exemptions (default) or the legacy KDB 447498 D01 v06 §4.3.1 test exclusion. */
+export const FCC_SAR_SCREENINGS = ['exemption', 'kdb-test-exclusion'] as const;
+export type FccSarScreening = (typeof FCC_SAR_SCREENINGS)[number];
+export const USE_POSITION_KINDS = ['head', 'body-worn', 'hotspot', 'extremity', 'far-field'] as const;
+export type UsePositionKind = (typeof USE_POSITION_KINDS)[number];
+
+const id = z.string().trim().min(1, 'an id is required').max(40);
+const finite = z.number().refine(Number.isFinite, 'must be a finite number');
+
+const market = z.object({
+  regime: z.enum(SCREENING_REGIMES),
+  tier: z.enum(SCREENING_TIERS).default('general'),
+  fccSarScreening: z.enum(FCC_SAR_SCREENINGS).optional().describe('FCC only; default "exemption"'),
+});
+
+const antenna = z.object({
+  id,
+  gainDbi: finite.pipe(z.number().min(-30).max(30)).describe('Antenna gain, dBi'),
+});
+
+const transmitter = z.object({
+  id,
+  technology: z.string().optional(),
+  band: z.string().optional(),
+  frequencyMinHz: finite.pipe(z.number().positive()).describe('Lowest frequency of the band, Hz'),
+  frequencyMaxHz: finite.pipe(z.number().positive()).describe('Highest frequency of the band, Hz'),
+  maxTuneUpPowerDbm: finite.pipe(z.number().min(-30).max(60)).describe('Maximum tune-up (conducted) power, dBm'),
+  dutyCycle: finite.pipe(z.number().gt(0).max(1)).default(1).describe('Maximum transmit duty cycle, (0, 1]'),
+  antennaId: id,
+});
+
+const usePosition = z.object({
+  id,
+  kind: z.enum(USE_POSITION_KINDS),
+  separations: z.array(z.object({ antennaId: id, separationM: finite.pipe(z.number().min(0).max(10)).describe('Separation distance, m') })),
+});
+
+const duplicateIssues = (ids: string[], path: string, ctx: z.RefinementCtx) => {
+  ids.forEach((value, i) => {
+    if (ids.indexOf(value) !== i) ctx.addIssue({ code: 'custom', path: [path, i, 'id'], message: `duplicate id "${value}"` });
+  });
+};
+
+export const screeningInput = z
+  .object({
+    markets: z.array(market).max(SCREENING_REGIMES.length),
+    antennas: z.array(antenna).max(64),
+    transmitters: z.array(transmitter).max(128),
+    usePositions: z.array(usePosition).max(64),
+  })
+  .superRefine((input, ctx) => {
+    const antennaIds = new Set(input.antennas.map((a) => a.id));
+    duplicateIssues(input.antennas.map((a) => a.id), 'antennas', ctx);
+    duplicateIssues(input.transmitters.map((t) => t.id), 'transmitters', ctx);
+    duplicateIssues(input.usePositions.map((p) => p.id), 'usePositions', ctx);
+    const regimes = input.markets.map((m) => m.regime);
+    regimes.forEach((r, i) => {
+      if (regimes.indexOf(r) !== i) ctx.addIssue({ code: 'custom', path: ['markets', i, 'regime'], message: `market "${r}" is listed twice` });
+    });
+    input.transmitters.forEach((t, i) => {
+      if (t.frequencyMinHz > t.frequencyMaxHz) ctx.addIssue({ code: 'custom', path: ['transmitters', i, 'frequencyMaxHz'], message: 'frequencyMaxHz is below frequencyMinHz' });
+      if (!antennaIds.has(t.antennaId)) ctx.addIssue({ code: 'custom', path: ['transmitters', i, 'antennaId'], message: `unknown antenna id "${t.antennaId}"` });
+    });
+    input.usePositions.forEach((p, i) =>
+      p.separations.forEach((s, j) => {
+        if (!antennaIds.has(s.antennaId)) ctx.addIssue({ code: 'custom', path: ['usePositions', i, 'separations', j, 'antennaId'], message: `unknown antenna id "${s.antennaId}"` });
+        if (p.separations.findIndex((o) => o.antennaId === s.antennaId) !== j) {
+          ctx.addIssue({ code: 'custom', path: ['usePositions', i, 'separations', j, 'antennaId'], message: `antenna "${s.antennaId}" has two separations in this use position` });
+        }
+      }),
+    );
+  });
+
+export type ScreeningInput = z.output<typeof screeningInput>;
+export type ScreeningInputRaw = z.input<typeof screeningInput>;
+export type ScreeningTransmitter = ScreeningInput['transmitters'][number];
+export type ScreeningMarket = ScreeningInput['markets'][number];
+export type ScreeningUsePosition = ScreeningInput['usePositions'][number];

@@ -1,0 +1,77 @@
+/**
+ * ISED screening rules, RSS-102 Issue 5 (reference /work/shared/reference/regulatory-limits.md §6):
+ * - §2.5.1 Table 1 SAR evaluation exemption at separations ≤ 20 cm, compared with the
+ *   source-based time-averaged output power incl. tune-up, the higher of conducted power and
+ *   e.i.r.p. (reference §6.2, S); limb-worn ×2.5 for the extremity kind (M);
+ * - §2.5.2 RF exposure evaluation exemption beyond 20 cm, compared with the time-averaged
+ *   e.i.r.p. (reference §6.3, C).
+ * Issue 6 (Dec 2023) revised both tables; its values were not obtained (reference §6.6).
+ */
+import {
+  computeIsedRfExemption,
+  computeIsedSarExemption,
+  isedRfBreakpointsHz,
+  isedRfExemptionEirpW,
+  isedRfRangeHz,
+  isedSarExemptionMw,
+  isedSarRangeHz,
+  isedSarTableFrequenciesHz,
+} from '../limits/ised-exemptions';
+import { formatHz, formatM } from './format';
+import { sarOrMpe, type RuleContext, type RuleSet } from './rule-set';
+
+const TABLE_1_MAX_SEPARATION_M = 0.2;
+
+export function isedRuleSet(ctx: RuleContext): RuleSet {
+  const { separationM, powers, kind, tier } = ctx;
+  const notes: string[] = ['RSS-102 Issue 5 values; Issue 6 (Dec 2023) revised the exemption limits (not tabulated here).'];
+  if (tier === 'occupational') notes.push('The RSS-102 exemption limits are set for the general public; applying them to a controlled environment is conservative.');
+  if (separationM <= TABLE_1_MAX_SEPARATION_M) {
+    const limbWorn = kind === 'extremity';
+    const powerMw = Math.max(powers.timeAveragedPowerMw, powers.eirpMw);
+    if (kind === 'far-field') notes.push(`Far-field position at ${formatM(separationM)}: RSS-102 §2.5.1 requires the SAR exemption at separations up to 20 cm; §2.5.2 applies only beyond.`);
+    if (limbWorn) notes.push('Extremity: limb-worn device, Table 1 × 2.5 (10-g limit; reference §6.2, from memory).');
+    return {
+      notes,
+      rules: [
+        {
+          method: 'ised-sar-exemption',
+          rangeHz: isedSarRangeHz,
+          breakpointsHz: isedSarTableFrequenciesHz,
+          kind: 'power-mw',
+          evaluated: powerMw,
+          evaluatedLabel: `higher of time-averaged conducted power and e.i.r.p. (${powers.eirpMw > powers.timeAveragedPowerMw ? 'e.i.r.p.' : 'conducted power'})`,
+          failResult: 'evaluate-sar',
+          threshold: (f) => isedSarExemptionMw(f, separationM, limbWorn),
+          explain: (f) => computeIsedSarExemption({ frequencyHz: f, separationM, limbWorn, powerMw }).derivation,
+        },
+      ],
+      uncovered: {
+        result: sarOrMpe,
+        reason: (f) =>
+          f <= 6e9
+            ? `RSS-102 Table 1 has no row above 5800 MHz (${formatHz(f)}): SAR evaluation`
+            : `above 6 GHz RSS-102 assesses power density, and §2.5.2 applies only beyond 20 cm (${formatHz(f)})`,
+      },
+    };
+  }
+  const eirpW = powers.eirpMw / 1000;
+  notes.push(`Separation ${formatM(separationM)} > 20 cm: RSS-102 §2.5.2, time-averaged e.i.r.p. compared.`);
+  return {
+    notes,
+    rules: [
+      {
+        method: 'ised-rf-exemption',
+        rangeHz: isedRfRangeHz,
+        breakpointsHz: isedRfBreakpointsHz,
+        kind: 'eirp-w',
+        evaluated: eirpW,
+        evaluatedLabel: 'e.i.r.p. (time-averaged)',
+        failResult: 'evaluate-mpe',
+        threshold: (f) => isedRfExemptionEirpW(f, separationM),
+        explain: (f) => computeIsedRfExemption({ frequencyHz: f, separationM, eirpW }).derivation,
+      },
+    ],
+    uncovered: { result: () => 'evaluate-mpe', reason: (f) => `${formatHz(f)} is outside RSS-102 (3 kHz–300 GHz)` },
+  };
+}

@@ -1,0 +1,380 @@
+/**
+ * Screening of a whole device: for every transmitter × use position × market, the rule that
+ * applies, the evaluated power, the threshold at the band's most restrictive frequency, the result
+ * (exempt / evaluate SAR / evaluate MPE) and the margin in dB, each with its derivation.
+ * Combinations that cannot be screened (no separation given for the transmitter's antenna) are
+ * listed as gaps, never guessed.
+ */
+import type { Derivation, Quantity } from '../types';
+import { q } from '../em/quantity';
+import { formatHz } from './format';
+import type { ScreeningInput, ScreeningMarket, ScreeningRegime, ScreeningTransmitter, ScreeningUsePosition, UsePositionKind } from './input';
+import { evaluatedPowers, type EvaluatedPowers } from './power';
+import { fmt, METHOD_LABELS, screenBand, UNIT, type MethodId, type Probe, type ScreeningResult, type ScreeningRule, type ThresholdKind } from './rule';
+import type { RuleContext, RuleSet } from './rule-set';
+import { fccRuleSet } from './rules-fcc';
+import { isedRuleSet } from './rules-ised';
+import { euLikeRuleSet } from './rules-eu';
+
+export const SCREENING_CAUTIONS = [
+  'Screening results are estimates from the published formulas; where the rules require measurement, only an accredited laboratory’s measurement counts.',
+  'The certifying body decides; follow the applicable regulations.',
+];
+
+export interface ScreeningCandidate {
+  frequencyHz: number;
+  method: MethodId;
+  threshold: number | null;
+  thresholdUnit: string | null;
+  marginDb: number | null;
+  result: ScreeningResult;
+  note: string | null;
+}
+
+export interface ScreeningRow {
+  transmitterId: string;
+  usePositionId: string;
+  usePositionKind: UsePositionKind;
+  regime: ScreeningRegime;
+  tier: ScreeningMarket['tier'];
+  method: MethodId;
+  methodLabel: string;
+  /** The band's most restrictive frequency (the candidate reported), Hz. */
+  frequencyHz: number;
+  separationM: number;
+  /** The power the rule compares (time-averaged power, the greater of it and ERP, ERP, or EIRP), mW. */
+  evaluatedPowerMw: number;
+  evaluatedQuantity: string;
+  powers: { tuneUpPowerMw: number; timeAveragedPowerMw: number; eirpMw: number; erpMw: number };
+  thresholdMw: number | null;
+  thresholdErpW: number | null;
+  thresholdEirpW: number | null;
+  thresholdPowerDensityWPerM2: number | null;
+  evaluatedPowerDensityWPerM2: number | null;
+  result: ScreeningResult;
+  /** 10·log10(threshold / evaluated), dB (power density: limit / S); null when no threshold applies. */
+  marginDb: number | null;
+  /** KDB 447498 §4.3.2 estimated SAR of a test-excluded transmitter (highest over the band), W/kg. */
+  estimatedSarWPerKg: number | null;
+  candidates: ScreeningCandidate[];
+  derivation: Derivation;
+}
+
+export interface ScreeningGap {
+  transmitterId: string;
+  usePositionId: string;
+  message: string;
+}
+
+export interface ScreeningCounts {
+  combinations: number;
+  exempt: number;
+  evaluateSar: number;
+  evaluateMpe: number;
+  needsEvaluation: number;
+}
+
+export interface ScreeningSummary {
+  byRegime: Partial<Record<ScreeningRegime, ScreeningCounts>>;
+  total: ScreeningCounts;
+  gaps: number;
+}
+
+export interface ScreeningOutput {
+  rows: ScreeningRow[];
+  gaps: ScreeningGap[];
+  summary: ScreeningSummary;
+  derivation: Derivation;
+}
+
+function ruleSetFor(market: ScreeningMarket, ctx: RuleContext): RuleSet {
+  switch (market.regime) {
+    case 'fcc':
+      return fccRuleSet(ctx);
+    case 'ised':
+      return isedRuleSet(ctx);
+    case 'eu':
+    case 'icnirp-2020':
+      return euLikeRuleSet(market.regime, ctx);
+  }
+}
+
+const emptyCounts = (): ScreeningCounts => ({ combinations: 0, exempt: 0, evaluateSar: 0, evaluateMpe: 0, needsEvaluation: 0 });
+
+/** Counts per regime and in total. Regimes listed in `regimes` appear even with no rows. */
+export function summarizeScreening(rows: readonly Pick<ScreeningRow, 'regime' | 'result'>[], gaps: readonly unknown[] = [], regimes: readonly ScreeningRegime[] = []): ScreeningSummary {
+  const byRegime: Partial<Record<ScreeningRegime, ScreeningCounts>> = {};
+  for (const r of regimes) byRegime[r] = emptyCounts();
+  const total = emptyCounts();
+  for (const row of rows) {
+    const c = (byRegime[row.regime] ??= emptyCounts());
+    for (const counts of [c, total]) {
+      counts.combinations++;
+      if (row.result === 'exempt') counts.exempt++;
+      else {
+        counts.needsEvaluation++;
+        if (row.result === 'evaluate-sar') counts.evaluateSar++;
+        else counts.evaluateMpe++;
+      }
+    }
+  }
+  return { byRegime, total, gaps: gaps.length };
+}
+
+const THRESHOLD_FIELD: Record<ThresholdKind, 'thresholdMw' | 'thresholdErpW' | 'thresholdEirpW' | 'thresholdPowerDensityWPerM2'> = {
+  'power-mw': 'thresholdMw',
+  'erp-w': 'thresholdErpW',
+  'eirp-w': 'thresholdEirpW',
+  'power-density': 'thresholdPowerDensityWPerM2',
+};
+
+/** The compared power in mW (ERP/EIRP rules compare W; power-density rules start from the EIRP). */
+function evaluatedMw(rule: ScreeningRule, powers: EvaluatedPowers): number {
+  if (rule.kind === 'power-mw') return rule.evaluated;
+  if (rule.kind === 'erp-w') return powers.erpMw;
+  return powers.eirpMw;
+}
+
+interface Combination {
+  tx: ScreeningTransmitter;
+  position: ScreeningUsePosition;
+  market: ScreeningMarket;
+  separationM: number;
+  powers: EvaluatedPowers;
+}
+
+function rowInputs(c: Combination): Record<string, Quantity> {
+  const p = c.powers.inputs;
+  return {
+    maxTuneUpPowerDbm: p.maxTuneUpPowerDbm,
+    dutyCycle: p.dutyCycle,
+    antennaGainDbi: p.antennaGainDbi,
+    frequencyMinHz: q(c.tx.frequencyMinHz, 'Hz'),
+    frequencyMaxHz: q(c.tx.frequencyMaxHz, 'Hz'),
+    separationM: q(c.separationM, 'm'),
+    usePositionKind: q(c.position.kind, 'text'),
+    regime: q(c.market.regime, 'text'),
+    tier: q(c.market.tier, 'text'),
+  };
+}
+
+/** Copies entries onto target (spreading into a literal that then grows is slow in V8). */
+function assignAll(target: Record<string, Quantity>, ...sources: Record<string, Quantity>[]): Record<string, Quantity> {
+  for (const src of sources) for (const key in src) target[key] = src[key];
+  return target;
+}
+
+type RowVerdict = Pick<ScreeningRow, 'method' | 'methodLabel' | 'frequencyHz' | 'evaluatedPowerMw' | 'evaluatedQuantity' | 'result' | 'marginDb' | 'candidates'>;
+
+/** One literal with every field (a spread-then-extend literal is several times slower in V8, and there are 480 rows per filing). */
+function newRow(c: Combination, v: RowVerdict): ScreeningRow {
+  const { powers } = c;
+  return {
+    transmitterId: c.tx.id,
+    usePositionId: c.position.id,
+    usePositionKind: c.position.kind,
+    regime: c.market.regime,
+    tier: c.market.tier,
+    method: v.method,
+    methodLabel: v.methodLabel,
+    frequencyHz: v.frequencyHz,
+    separationM: c.separationM,
+    evaluatedPowerMw: v.evaluatedPowerMw,
+    evaluatedQuantity: v.evaluatedQuantity,
+    powers: { tuneUpPowerMw: powers.tuneUpPowerMw, timeAveragedPowerMw: powers.timeAveragedPowerMw, eirpMw: powers.eirpMw, erpMw: powers.erpMw },
+    thresholdMw: null,
+    thresholdErpW: null,
+    thresholdEirpW: null,
+    thresholdPowerDensityWPerM2: null,
+    evaluatedPowerDensityWPerM2: null,
+    result: v.result,
+    marginDb: v.marginDb,
+    estimatedSarWPerKg: null,
+    candidates: v.candidates,
+    derivation: EMPTY_DERIVATION,
+  };
+}
+
+const EMPTY_DERIVATION: Derivation = { formula: '', inputs: {}, intermediate: {}, result: {}, source: '', notes: [] };
+
+function blanketRow(c: Combination, set: RuleSet): ScreeningRow {
+  const b = set.blanket!;
+  const marginDb = 10 * Math.log10(b.thresholdMw / b.evaluatedPowerMw);
+  const d = b.derivation;
+  const row = newRow(c, {
+    method: 'fcc-1mw',
+    methodLabel: METHOD_LABELS['fcc-1mw'],
+    frequencyHz: c.tx.frequencyMinHz,
+    evaluatedPowerMw: b.evaluatedPowerMw,
+    evaluatedQuantity: 'time-averaged power',
+    result: 'exempt',
+    marginDb,
+    candidates: [],
+  });
+  row.thresholdMw = b.thresholdMw;
+  row.derivation = {
+      formula: `${c.powers.formula}; ${d.formula}`,
+      inputs: rowInputs(c),
+      intermediate: assignAll({}, c.powers.intermediate, d.intermediate),
+      result: { result: q('exempt', 'text'), thresholdMw: q(b.thresholdMw, 'mW'), marginDb: q(marginDb, 'dB') },
+      source: d.source,
+      notes: [...c.powers.notes, '§1.1307(b)(3)(i)(A) does not depend on frequency or separation: the band is not searched (frequencyHz reports its lower edge).', ...d.notes],
+  };
+  return row;
+}
+
+function bandRow(c: Combination, set: RuleSet): ScreeningRow {
+  const { rules, uncovered } = set;
+  const { probes, worst } = screenBand(c.tx.frequencyMinHz, c.tx.frequencyMaxHz, rules, uncovered);
+  const rule = worst.ruleIndex >= 0 ? rules[worst.ruleIndex] : null;
+  const method: MethodId = rule ? rule.method : 'no-applicable-rule';
+  const candidates: ScreeningCandidate[] = probes.map((p) => {
+    const r = p.ruleIndex >= 0 ? rules[p.ruleIndex] : null;
+    return {
+      frequencyHz: p.frequencyHz,
+      method: r ? r.method : 'no-applicable-rule',
+      threshold: p.threshold,
+      thresholdUnit: r && p.threshold !== null ? UNIT[r.kind] : null,
+      marginDb: p.marginDb,
+      result: p.result,
+      note: p.reason,
+    };
+  });
+  const row = newRow(c, {
+    method,
+    methodLabel: rule?.methodLabel ?? METHOD_LABELS[method],
+    frequencyHz: worst.frequencyHz,
+    evaluatedPowerMw: rule ? evaluatedMw(rule, c.powers) : c.powers.timeAveragedPowerMw,
+    evaluatedQuantity: rule ? rule.evaluatedLabel : 'time-averaged power',
+    result: worst.result,
+    marginDb: worst.marginDb,
+    candidates,
+  });
+  if (rule) {
+    if (worst.threshold !== null) row[THRESHOLD_FIELD[rule.kind]] = worst.threshold;
+    if (rule.kind === 'power-density') row.evaluatedPowerDensityWPerM2 = rule.evaluated;
+
+  }
+  if (worst.result === 'exempt') {
+    // §4.3.2: the highest estimate over the band, for the simultaneous-transmission sum.
+    for (const p of probes) {
+      const r = p.ruleIndex >= 0 ? rules[p.ruleIndex] : null;
+      if (r?.estimatedSarWPerKg) row.estimatedSarWPerKg = Math.max(row.estimatedSarWPerKg ?? 0, r.estimatedSarWPerKg(p.frequencyHz));
+    }
+  }
+  // The engine's own derivation of the threshold, merged into the row's.
+  const ruleDerivation = rule && worst.threshold !== null ? rule.explain(worst.frequencyHz) : null;
+  row.derivation = bandDerivation(c, set, row, worst, probes, ruleDerivation);
+  return row;
+}
+
+function bandDerivation(c: Combination, set: RuleSet, row: ScreeningRow, worst: Probe, probes: Probe[], rd: Derivation | null): Derivation {
+  const rule = worst.ruleIndex >= 0 ? set.rules[worst.ruleIndex] : null;
+  const unit = rule ? UNIT[rule.kind] : null;
+  const notes = [...c.powers.notes, ...set.notes];
+  notes.push(
+    c.tx.frequencyMinHz === c.tx.frequencyMaxHz
+      ? `Single frequency ${formatHz(row.frequencyHz)}.`
+      : `Band ${formatHz(c.tx.frequencyMinHz)}–${formatHz(c.tx.frequencyMaxHz)} evaluated at both edges and every breakpoint of the rule inside it; reported: ${formatHz(row.frequencyHz)}, the most restrictive (worst result, then smallest margin).`,
+  );
+  const others = new Set(probes.filter((p) => p.result !== worst.result).map((p) => p.result));
+  if (others.size) notes.push(`Other parts of the band give: ${[...others].join(', ')} (see candidates).`);
+  if (worst.reason) notes.push(`Not exempt: ${worst.reason}.`);
+  // Parts of the band under another rule (or none) that did not apply: say why, once per rule.
+  const told = new Set([worst.ruleIndex]);
+  for (const p of probes) {
+    if (!p.reason || told.has(p.ruleIndex)) continue;
+    notes.push(`Elsewhere in the band: ${p.reason}.`);
+    told.add(p.ruleIndex);
+  }
+  if (row.estimatedSarWPerKg !== null) notes.push(`Estimated SAR for simultaneous-transmission sums (KDB 447498 §4.3.2, from memory M): ${fmt(row.estimatedSarWPerKg)} W/kg.`);
+  if (rd) notes.push(...rd.notes);
+  const intermediate = assignAll({}, c.powers.intermediate);
+  intermediate.evaluatedQuantity = q(row.evaluatedQuantity, 'text');
+  if (rule) intermediate.evaluatedValue = q(rule.evaluated, unit as string);
+  intermediate.mostRestrictiveFrequencyHz = q(row.frequencyHz, 'Hz');
+  // Each candidate's threshold, margin and result are in row.candidates.
+  intermediate.candidateFrequenciesHz = q(probes.map((p) => p.frequencyHz).join(', '), 'Hz');
+  if (rd) assignAll(intermediate, rd.inputs, rd.intermediate);
+  const result = rd ? assignAll({}, rd.result) : {};
+  result.result = q(row.result, 'text');
+  if (worst.threshold !== null && rule) result.threshold = q(worst.threshold, unit as string);
+  result.marginDb = q(row.marginDb, 'dB');
+  if (row.estimatedSarWPerKg !== null) result.estimatedSarWPerKg = q(row.estimatedSarWPerKg, 'W/kg');
+  const verdict = rule && worst.threshold !== null ? `exempt if ${rule.kind === 'power-density' ? 'S ≤ S_RL' : 'evaluated ≤ threshold'}; margin = 10·log10(threshold / evaluated) dB` : 'no exemption formula applies: not exempt';
+  return {
+    formula: `${c.powers.formula}; ${rd ? rd.formula : row.methodLabel}; ${verdict}`,
+    inputs: rowInputs(c),
+    intermediate,
+    result,
+    source: rd ? rd.source : rule ? METHOD_LABELS[rule.method] : 'no rule applies (see notes)',
+    notes,
+  };
+}
+
+function gapMessage(tx: ScreeningTransmitter, position: ScreeningUsePosition): string {
+  return `Use position "${position.id}" gives no separation for antenna "${tx.antennaId}" of transmitter "${tx.id}": add one to screen this combination.`;
+}
+
+/** Screens every transmitter × use position × market of a validated input. */
+export function screenParsed(input: ScreeningInput): ScreeningOutput {
+  const gainById = new Map(input.antennas.map((a) => [a.id, a.gainDbi]));
+  const rows: ScreeningRow[] = [];
+  const gaps: ScreeningGap[] = [];
+  for (const tx of input.transmitters) {
+    const powers = evaluatedPowers(tx.maxTuneUpPowerDbm, tx.dutyCycle, gainById.get(tx.antennaId) as number);
+    for (const position of input.usePositions) {
+      const sep = position.separations.find((s) => s.antennaId === tx.antennaId);
+      if (!sep) {
+        gaps.push({ transmitterId: tx.id, usePositionId: position.id, message: gapMessage(tx, position) });
+        continue;
+      }
+      for (const market of input.markets) {
+        const c: Combination = { tx, position, market, separationM: sep.separationM, powers };
+        const set = ruleSetFor(market, {
+          powers,
+          separationM: sep.separationM,
+          kind: position.kind,
+          tier: market.tier,
+          fccSarScreening: market.fccSarScreening ?? 'exemption',
+        });
+        rows.push(set.blanket ? blanketRow(c, set) : bandRow(c, set));
+      }
+    }
+  }
+  const summary = summarizeScreening(rows, gaps, input.markets.map((m) => m.regime));
+  const notes = [...SCREENING_CAUTIONS];
+  if (!input.markets.length) notes.push('No markets selected: nothing to screen.');
+  if (gaps.length) notes.push(`${gaps.length} transmitter × use position combination(s) could not be screened (see gaps).`);
+  return {
+    rows,
+    gaps,
+    summary,
+    derivation: {
+      formula: 'for each transmitter × use position × market: the applicable exemption rule at the band’s most restrictive frequency (edges and breakpoints); result = exempt | evaluate-sar | evaluate-mpe',
+      inputs: {
+        transmitters: q(input.transmitters.length, '1'),
+        usePositions: q(input.usePositions.length, '1'),
+        markets: q(input.markets.map((m) => `${m.regime}/${m.tier}${m.regime === 'fcc' ? `/${m.fccSarScreening ?? 'exemption'}` : ''}`).join(', '), 'text'),
+      },
+      intermediate: { gaps: q(gaps.length, '1') },
+      result: {
+        combinations: q(summary.total.combinations, '1'),
+        exempt: q(summary.total.exempt, '1'),
+        evaluateSar: q(summary.total.evaluateSar, '1'),
+        evaluateMpe: q(summary.total.evaluateMpe, '1'),
+      },
+      source: SCREENING_SOURCES.join('; '),
+      notes,
+    },
+  };
+}
+
+export const SCREENING_SOURCES = [
+  '47 CFR §1.1307(b)(3)(i)(A)–(C) (FCC 19-126)',
+  'FCC KDB 447498 D01 v06 §4.3.1, §4.3.2',
+  'RSS-102 Issue 5 §2.5.1 Table 1, §2.5.2',
+  'EN 62479:2010 Annex A with 1999/519/EC Annex II, 2013/35/EU, ICNIRP 2020 Table 2',
+  '1999/519/EC Annex III (= ICNIRP 1998 Tables 6–7), ICNIRP 2020 Table 5',
+  'FCC OET Bulletin 65 (Edition 97-01) Eq. (3)',
+];
