@@ -284,8 +284,9 @@ export const screeningResults = sqliteTable(
     ruleSetVersion: text('rule_set_version').notNull(),
     /** SHA-256 of the engine input, so an unchanged filing is not stored twice. */
     inputSha256: text('input_sha256').notNull(),
-    input: text('input', { mode: 'json' }).notNull().$type<unknown>(),
-    output: text('output', { mode: 'json' }).notNull().$type<unknown>(),
+    /** JSON text, kept as text so a stored result is sent without parsing it again. */
+    input: text('input').notNull(),
+    output: text('output').notNull(),
   },
   (t) => [uniqueIndex('screening_results_version_input').on(t.versionId, t.inputSha256, t.engineVersion, t.ruleSetVersion)],
 );

@@ -63,7 +63,7 @@ export function filingRoutes({ db }: AppContext): Router {
   });
 
   router.get('/:id/screening', (req, res) => {
-    res.json(screeningService.screeningForFiling(db, actorOf(req.user!), parseWith(zId, req.params.id)));
+    res.type('application/json').send(screeningService.screeningJsonForFiling(db, actorOf(req.user!), parseWith(zId, req.params.id)));
   });
 
   router.get('/:id/screening/depth-profile', (req, res) => {

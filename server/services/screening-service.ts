@@ -4,6 +4,7 @@
  * computed with, so a signed version can show exactly what it was signed on.
  */
 import { createHash } from 'node:crypto';
+import { and, eq } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 import { screeningResults } from '../../db/schema';
 import { ENGINE_VERSION, RULE_SET_VERSION } from '../../calc/versions';
@@ -14,7 +15,7 @@ import { dbmToMw, dbiToLinear } from '../../calc/em/units';
 import { notFound, unprocessable } from '../http-error';
 import { getFiling, type FilingActor } from './filings-service';
 
-export interface FilingScreening extends ScreeningOutput {
+export interface ScreeningMeta {
   filingId: number;
   version: number;
   engineVersion: string;
@@ -25,6 +26,9 @@ export interface FilingScreening extends ScreeningOutput {
   cautions: string[];
 }
 
+/** What GET /screening sends: the meta fields plus the engine's output, one JSON object. */
+export type FilingScreening = ScreeningMeta & ScreeningOutput;
+
 function inputFor(detail: ReturnType<typeof getFiling>): ScreeningInput {
   return screeningInput.parse({
     markets: detail.data.markets.markets,
@@ -34,25 +38,46 @@ function inputFor(detail: ReturnType<typeof getFiling>): ScreeningInput {
   });
 }
 
-export function screeningForFiling(db: Db, actor: FilingActor, filingId: number): FilingScreening {
+/**
+ * The screening of a filing's current data. An unchanged filing (same input, engine and
+ * rule-set versions) is answered from the stored result without recomputing or re-parsing it:
+ * the result is JSON text, and the response is that text with the meta fields in front.
+ */
+export function screeningJsonForFiling(db: Db, actor: FilingActor, filingId: number): string {
   const detail = getFiling(db, actor, filingId);
   const input = inputFor(detail);
-  const output = screenParsed(input);
-  const inputSha256 = createHash('sha256').update(JSON.stringify(input)).digest('hex');
-  db.insert(screeningResults)
-    .values({ versionId: detail.version.id, engineVersion: ENGINE_VERSION, ruleSetVersion: RULE_SET_VERSION, inputSha256, input, output })
-    .onConflictDoNothing()
-    .run();
-  return {
-    ...output,
+  const inputJson = JSON.stringify(input);
+  const inputSha256 = createHash('sha256').update(inputJson).digest('hex');
+  const key = and(
+    eq(screeningResults.versionId, detail.version.id),
+    eq(screeningResults.inputSha256, inputSha256),
+    eq(screeningResults.engineVersion, ENGINE_VERSION),
+    eq(screeningResults.ruleSetVersion, RULE_SET_VERSION),
+  );
+  let stored = db.select({ output: screeningResults.output, computedAt: screeningResults.computedAt }).from(screeningResults).where(key).get();
+  if (!stored) {
+    const output = JSON.stringify(screenParsed(input));
+    stored = db
+      .insert(screeningResults)
+      .values({ versionId: detail.version.id, engineVersion: ENGINE_VERSION, ruleSetVersion: RULE_SET_VERSION, inputSha256, input: inputJson, output })
+      .returning({ output: screeningResults.output, computedAt: screeningResults.computedAt })
+      .get();
+  }
+  const meta: ScreeningMeta = {
     filingId,
     version: detail.version.number,
     engineVersion: ENGINE_VERSION,
     ruleSetVersion: RULE_SET_VERSION,
-    computedAt: new Date().toISOString(),
+    computedAt: stored.computedAt,
     complete: detail.steps.every((s) => s.complete),
     cautions: [...SCREENING_CAUTIONS],
   };
+  // `{...meta, ...output}` without parsing the stored output: both are JSON objects.
+  return `${JSON.stringify(meta).slice(0, -1)},${stored.output.slice(1)}`;
+}
+
+export function screeningForFiling(db: Db, actor: FilingActor, filingId: number): FilingScreening {
+  return JSON.parse(screeningJsonForFiling(db, actor, filingId)) as FilingScreening;
 }
 
 /**

@@ -2,6 +2,7 @@
 import type { BenchCase } from '../harness';
 import { filingEvaluationCase } from './filing-evaluation';
 import { planeWaveProfileCase } from './plane-wave-profile';
+import { screeningCase } from './screening';
 import { screeningApiCase } from './screening-api';
 
-export const benchCases: BenchCase[] = [filingEvaluationCase, planeWaveProfileCase, screeningApiCase];
+export const benchCases: BenchCase[] = [filingEvaluationCase, planeWaveProfileCase, screeningCase, screeningApiCase];
