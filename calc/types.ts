@@ -61,3 +61,8 @@ export interface Calculation<S extends z.ZodType = z.ZodType, O = unknown> {
 export function defineCalculation<S extends z.ZodType, O>(calc: Calculation<S, O>): Calculation<S, O> {
   return calc;
 }
+
+/** A derivation quantity; non-finite numbers become null because JSON cannot carry them. */
+export function q(value: Quantity['value'], unit: string): Quantity {
+  return { value: typeof value === 'number' && !Number.isFinite(value) ? null : value, unit };
+}

@@ -10,7 +10,7 @@ import { abs2, add, div, scale, toJson, ONE, type Complex } from './complex';
 import { CONSTANTS_SOURCE, FREE_SPACE_IMPEDANCE_OHM } from './constants';
 import { absorbedFromField, fieldSquaredSeries, solveLayers, type LayerMedium, type LayeredSolution } from './layered-field';
 import { MEDIUM_SOURCES } from './medium';
-import { q } from './quantity';
+import { q } from '../types';
 import { cubeAveragedSar, layerPeakSar, layerSarAt, type CubeAverage } from './sar-cube';
 import { assertColeColeRange, tissueDielectric, tissueIdSchema, TISSUE_SOURCES, type TissueId } from './tissue-properties';
 

@@ -15,7 +15,7 @@ import { z } from 'zod';
 import { CalcRangeError, defineCalculation } from '../types';
 import { add, complex, div, powReal, type Complex } from './complex';
 import { CONSTANTS_SOURCE, EPSILON0_F_PER_M } from './constants';
-import { q } from './quantity';
+import { q } from '../types';
 
 export const COLE_COLE_MIN_FREQUENCY_HZ = 10;
 export const COLE_COLE_MAX_FREQUENCY_HZ = 100e9;

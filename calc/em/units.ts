@@ -11,7 +11,7 @@
  */
 import { z } from 'zod';
 import { defineCalculation, type Derivation } from '../types';
-import { q } from './quantity';
+import { q } from '../types';
 
 /** Gain of a half-wave dipole over an isotropic radiator, dB (2.15 dBi; ERP ↔ EIRP). */
 export const HALF_WAVE_DIPOLE_GAIN_DBI = 2.15;

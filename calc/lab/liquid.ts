@@ -11,7 +11,7 @@
 import { z } from 'zod';
 import { CalcRangeError, defineCalculation, type WithDerivation } from '../types';
 import { plainFunction } from './plain-function';
-import { q } from './quantity';
+import { q } from '../types';
 
 /** [f MHz, εr, σ S/m] — IEEE 1528-2013 Table 3 / IEC/IEEE 62209-1528 head TSL targets [from memory]. */
 export const HEAD_TSL_TARGETS: readonly (readonly [number, number, number])[] = [

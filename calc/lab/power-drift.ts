@@ -8,7 +8,8 @@
 import { z } from 'zod';
 import { defineCalculation, type WithDerivation } from '../types';
 import { plainFunction } from './plain-function';
-import { powerRatioDb, q } from './quantity';
+import { q } from '../types';
+import { powerRatioDb } from './quantity';
 
 /** Drift tolerance, % of the start value [from memory]. */
 export const POWER_DRIFT_TOLERANCE_PCT = 5;

@@ -1,13 +1,4 @@
-/**
- * Small helpers shared by the measurement-side calculations (calc/lab/): building derivation
- * quantities and guarding values that JSON cannot carry (Infinity, NaN).
- */
-import type { Quantity } from '../types';
-
-/** A derivation quantity; non-finite numbers become null because JSON cannot carry them. */
-export function q(value: number | string | boolean | null, unit: string): Quantity {
-  return { value: typeof value === 'number' && !Number.isFinite(value) ? null : value, unit };
-}
+/** Small numeric helpers shared by the measurement-side calculations (calc/lab/). */
 
 /** Finite numbers pass through; Infinity/NaN become null (the caller adds a note saying why). */
 export function finiteOrNull(value: number): number | null {

@@ -13,7 +13,7 @@
 import { z } from 'zod';
 import { defineCalculation, type WithDerivation } from '../types';
 import { plainFunction } from './plain-function';
-import { q } from './quantity';
+import { q } from '../types';
 
 /** KDB 865664 D01 1-g thresholds, W/kg [from memory]. */
 const BASE_THRESHOLDS_W_PER_KG = { firstRepeat: 0.8, secondRepeat: 1.45, thirdRepeat: 1.5 } as const;

@@ -11,7 +11,8 @@
 import { z } from 'zod';
 import { defineCalculation, type WithDerivation } from '../types';
 import { plainFunction } from './plain-function';
-import { powerRatioDb, q } from './quantity';
+import { q } from '../types';
+import { powerRatioDb } from './quantity';
 
 export const FCC_GENERAL_1G_LIMIT_W_PER_KG = 1.6; // 47 CFR §1.1310(c)
 

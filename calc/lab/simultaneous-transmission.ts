@@ -11,7 +11,7 @@
 import { z } from 'zod';
 import { defineCalculation, type WithDerivation } from '../types';
 import { plainFunction } from './plain-function';
-import { q } from './quantity';
+import { q } from '../types';
 
 /** KDB 447498 D01 v06 §4.3.2 SPLSR limits [from memory; 10-g unsure]. */
 export const SPLSR_LIMIT = { '1g': 0.04, '10g': 0.1 } as const;

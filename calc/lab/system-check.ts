@@ -8,7 +8,7 @@
 import { z } from 'zod';
 import { defineCalculation, type WithDerivation } from '../types';
 import { plainFunction } from './plain-function';
-import { q } from './quantity';
+import { q } from '../types';
 
 /** System-check tolerance, % of target [from memory]. */
 export const SYSTEM_CHECK_TOLERANCE_PCT = 10;

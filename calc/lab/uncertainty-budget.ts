@@ -14,7 +14,8 @@
 import { z } from 'zod';
 import { defineCalculation, type WithDerivation } from '../types';
 import { plainFunction } from './plain-function';
-import { finiteOrNull, q } from './quantity';
+import { q } from '../types';
+import { finiteOrNull } from './quantity';
 
 /** Default divisors per distribution (JCGM 100:2008 §4.3.7, §4.3.9; JCGM 101 §6.4.6). */
 export const DIVISORS = {

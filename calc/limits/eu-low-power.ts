@@ -8,7 +8,7 @@
  */
 import { z } from 'zod';
 import { CalcRangeError, defineCalculation, type Derivation } from '../types';
-import { q } from '../em/quantity';
+import { q } from '../types';
 import { tiers } from './exposure-limits';
 import { sarLimit, sarRegimes, type SarLimit } from './sar-limits';
 import { formatHz, requireInRange } from './range';

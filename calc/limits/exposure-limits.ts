@@ -18,7 +18,7 @@
  */
 import { z } from 'zod';
 import { defineCalculation, type Derivation, CalcRangeError } from '../types';
-import { q } from '../em/quantity';
+import { q } from '../types';
 import { formatHz, inInterval, type Interval } from './range';
 
 export const exposureRegimes = ['fcc', 'ised', 'icnirp-1998', 'icnirp-2020'] as const;

@@ -5,7 +5,7 @@
  */
 import { z } from 'zod';
 import { defineCalculation, type Derivation, type Quantity } from '../types';
-import { q } from '../em/quantity';
+import { q } from '../types';
 import { dbiToLinear } from '../em/units';
 
 const SOURCE = 'FCC OET Bulletin 65 (Edition 97-01) Eq. (3): S = EIRP / (4πR²)';

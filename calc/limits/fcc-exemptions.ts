@@ -7,7 +7,7 @@
  */
 import { z } from 'zod';
 import { defineCalculation, type Derivation } from '../types';
-import { q } from '../em/quantity';
+import { q } from '../types';
 import { SPEED_OF_LIGHT_M_PER_S } from '../em/constants';
 import { formatHz, formatM, inInterval, requireInRange, type Interval } from './range';
 import { compareToThreshold, type Verdict } from './verdict';

@@ -10,7 +10,7 @@
  */
 import { z } from 'zod';
 import { CalcRangeError, defineCalculation, type Derivation } from '../types';
-import { q } from '../em/quantity';
+import { q } from '../types';
 import { formatM, inInterval, requireInRange, type Interval } from './range';
 import { compareToThreshold, type Verdict } from './verdict';
 

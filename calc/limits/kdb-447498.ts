@@ -12,7 +12,7 @@
  */
 import { z } from 'zod';
 import { CalcRangeError, defineCalculation, type Derivation } from '../types';
-import { q } from '../em/quantity';
+import { q } from '../types';
 import { formatM, requireInRange, type Interval } from './range';
 
 const SOURCE = 'FCC KDB 447498 D01 v06 §4.3.1';

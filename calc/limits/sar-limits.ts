@@ -11,7 +11,7 @@
  */
 import { z } from 'zod';
 import { defineCalculation, type Derivation } from '../types';
-import { q } from '../em/quantity';
+import { q } from '../types';
 import { tiers, type Tier } from './exposure-limits';
 import { requireInRange } from './range';
 

@@ -6,7 +6,7 @@
  */
 import { z } from 'zod';
 import { defineCalculation, type Derivation } from '../types';
-import { q } from '../em/quantity';
+import { q } from '../types';
 
 const SOURCE = '47 CFR §1.1307(b)(3)(ii)(B); ICNIRP 1998 / 1999/519/EC Annex IV (Σ S_i/S_L,i ≤ 1)';
 

@@ -7,7 +7,7 @@
  */
 import { z } from 'zod';
 import { defineCalculation, type Derivation } from '../types';
-import { q } from '../em/quantity';
+import { q } from '../types';
 import { planeWaveLayers, type PlaneWaveLayersResult } from '../em/plane-wave-layers';
 import { MAX_PROFILE_POINTS, MIN_PROFILE_POINTS } from '../em/plane-wave-layers';
 import { farFieldPowerDensityWPerM2 } from '../limits/far-field';

@@ -8,7 +8,7 @@
  *   ERP  = EIRP / 10^(2.15/10)            (EIRP − 2.15 dB: half-wave dipole gain, calc/em/units.ts)
  */
 import type { Quantity } from '../types';
-import { q } from '../em/quantity';
+import { q } from '../types';
 import { dbiToLinear, dbmToMw, eirpToErpW, HALF_WAVE_DIPOLE_GAIN_DBI } from '../em/units';
 
 export interface EvaluatedPowers {

@@ -6,7 +6,7 @@
  * listed as gaps, never guessed.
  */
 import type { Derivation, Quantity } from '../types';
-import { q } from '../em/quantity';
+import { q } from '../types';
 import { formatHz } from './format';
 import type { ScreeningInput, ScreeningMarket, ScreeningRegime, ScreeningTransmitter, ScreeningUsePosition, UsePositionKind } from './input';
 import { evaluatedPowers, type EvaluatedPowers } from './power';
