@@ -28,6 +28,7 @@ export function useAutosave<T extends FieldValues>({
   enabled,
   toBody = (v) => v,
   delayMs = AUTOSAVE_DELAY_MS,
+  initialStatus = { kind: 'idle' },
 }: {
   form: UseFormReturn<T>;
   filingId: number;
@@ -36,9 +37,11 @@ export function useAutosave<T extends FieldValues>({
   /** The request body for the form's values (most steps send them as they are). */
   toBody?: (values: T) => unknown;
   delayMs?: number;
+  /** E.g. "invalid" when the form starts from a draft that had errors. */
+  initialStatus?: AutosaveStatus;
 }) {
   const queryClient = useQueryClient();
-  const [status, setStatus] = useState<AutosaveStatus>({ kind: 'idle' });
+  const [status, setStatus] = useState<AutosaveStatus>(initialStatus);
   const lastSent = useRef(JSON.stringify(toBody(form.getValues())));
   const timer = useRef<ReturnType<typeof setTimeout> | null>(null);
   const mounted = useRef(true);

@@ -8,7 +8,7 @@ import { Text } from '../ui/text';
 export function BackLink({ href, label, testID }: { href: string; label: string; testID?: string }) {
   return (
     <Link href={href} asChild>
-      <Pressable style={({ pressed }) => [styles.back, pressed && { opacity: 0.7 }]} accessibilityRole="link" accessibilityLabel={label} testID={testID}>
+      <Pressable style={styles.back} accessibilityRole="link" accessibilityLabel={label} testID={testID}>
         <Icon name="chevronLeft" size={18} color={palette.copper} />
         <Text variant="smallStrong" tone="copper">
           {label}

@@ -50,7 +50,7 @@ export function FilingLayout() {
           </Pressable>
         </Link>
         <Link href={`/filings/${f.id}`} asChild>
-          <Pressable style={({ pressed }) => [styles.identity, active === 'overview' && styles.identityActive, pressed && { backgroundColor: palette.paperDeep }]} testID="step-link-overview" aria-current={active === 'overview' ? 'page' : undefined}>
+          <Pressable style={StyleSheet.flatten([styles.identity, active === 'overview' && styles.identityActive])} testID="step-link-overview" aria-current={active === 'overview' ? 'page' : undefined}>
             <Text variant="heading" numberOfLines={2}>
               {f.device.name}
             </Text>

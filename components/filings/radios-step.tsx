@@ -44,7 +44,7 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
   const transmitters = useFieldArray({ control, name: 'transmitters', keyName: 'key' });
   const antennaValues = useWatch({ control, name: 'antennas' }) ?? [];
   const transmitterValues = useWatch({ control, name: 'transmitters' }) ?? [];
-  const antennaOptions = antennaValues.filter((a) => a?.id).map((a) => ({ value: a.id, label: a.location ? `${a.id} — ${a.location}` : a.id }));
+  const antennaOptions = antennaValues.filter((a) => a?.id).map((a) => ({ value: a.id, label: a.id }));
   const common = { control, editable };
 
   const antennaColumns: EditColumn[] = [
@@ -54,16 +54,16 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
   ];
   const txColumns: EditColumn[] = [
     { key: 'id', label: 'Id', flex: 1.1, render: (i, h) => <FormText {...common} name={`transmitters.${i}.id`} label="Transmitter id" hideLabel={h} testID={`tx-${i}-id`} /> },
-    { key: 'technology', label: 'Technology', flex: 1.2, half: true, render: (i, h) => <FormText {...common} name={`transmitters.${i}.technology`} label="Technology" placeholder="e.g. LTE" hideLabel={h} testID={`tx-${i}-technology`} /> },
-    { key: 'band', label: 'Band', flex: 1.1, half: true, render: (i, h) => <FormText {...common} name={`transmitters.${i}.band`} label="Band" placeholder="e.g. Band 12" hideLabel={h} testID={`tx-${i}-band`} /> },
-    { key: 'fmin', label: 'Lowest (MHz)', flex: 1.2, half: true, render: (i, h) => <FormNumber {...common} name={`transmitters.${i}.frequencyMinHz`} label="Lowest frequency" unit="MHz" scale={1e6} hideLabel={h} testID={`tx-${i}-fmin`} /> },
-    { key: 'fmax', label: 'Highest (MHz)', flex: 1.2, half: true, render: (i, h) => <FormNumber {...common} name={`transmitters.${i}.frequencyMaxHz`} label="Highest frequency" unit="MHz" scale={1e6} hideLabel={h} testID={`tx-${i}-fmax`} /> },
-    { key: 'power', label: 'Max tune-up (dBm)', flex: 1, half: true, render: (i, h) => <FormNumber {...common} name={`transmitters.${i}.maxTuneUpPowerDbm`} label="Max tune-up power" unit="dBm" hideLabel={h} testID={`tx-${i}-power`} /> },
-    { key: 'duty', label: 'Duty cycle (%)', flex: 0.9, half: true, render: (i, h) => <FormNumber {...common} name={`transmitters.${i}.dutyCycle`} label="Duty cycle" unit="%" scale={0.01} hideLabel={h} testID={`tx-${i}-duty`} /> },
+    { key: 'technology', label: 'Technology', flex: 1.5, half: true, render: (i, h) => <FormText {...common} name={`transmitters.${i}.technology`} label="Technology" placeholder="e.g. LTE" hideLabel={h} testID={`tx-${i}-technology`} /> },
+    { key: 'band', label: 'Band', flex: 1.4, half: true, render: (i, h) => <FormText {...common} name={`transmitters.${i}.band`} label="Band" placeholder="e.g. Band 12" hideLabel={h} testID={`tx-${i}-band`} /> },
+    { key: 'fmin', label: 'Lowest (MHz)', flex: 1.1, half: true, render: (i, h) => <FormNumber {...common} name={`transmitters.${i}.frequencyMinHz`} label="Lowest frequency" unit="MHz" scale={1e6} hideLabel={h} testID={`tx-${i}-fmin`} /> },
+    { key: 'fmax', label: 'Highest (MHz)', flex: 1.1, half: true, render: (i, h) => <FormNumber {...common} name={`transmitters.${i}.frequencyMaxHz`} label="Highest frequency" unit="MHz" scale={1e6} hideLabel={h} testID={`tx-${i}-fmax`} /> },
+    { key: 'power', label: 'Tune-up (dBm)', flex: 0.9, half: true, render: (i, h) => <FormNumber {...common} name={`transmitters.${i}.maxTuneUpPowerDbm`} label="Max tune-up power" unit="dBm" hideLabel={h} testID={`tx-${i}-power`} /> },
+    { key: 'duty', label: 'Duty (%)', flex: 0.8, half: true, render: (i, h) => <FormNumber {...common} name={`transmitters.${i}.dutyCycle`} label="Duty cycle" unit="%" scale={0.01} hideLabel={h} testID={`tx-${i}-duty`} /> },
     {
       key: 'antenna',
       label: 'Antenna',
-      flex: 1.2,
+      flex: 1.1,
       render: (i, h) => <FormSelect {...common} name={`transmitters.${i}.antennaId`} label="Antenna" options={antennaOptions} placeholder="Pick an antenna" hideLabel={h} testID={`tx-${i}-antenna`} />,
     },
   ];

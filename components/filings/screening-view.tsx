@@ -138,11 +138,11 @@ const COLUMNS: { key: FigureKey | 'tx' | 'pos' | 'market'; label: string; flex: 
   { key: 'tx', label: 'Transmitter', flex: 1.1 },
   { key: 'pos', label: 'Use position', flex: 1.2 },
   { key: 'market', label: 'Market', flex: 0.8 },
-  { key: 'method', label: 'Method', flex: 1.5 },
+  { key: 'method', label: 'Method', flex: 1.4 },
   { key: 'frequency', label: 'Frequency', flex: 1.15, numeric: true },
   { key: 'evaluated', label: 'Evaluated', flex: 1.05, numeric: true },
   { key: 'threshold', label: 'Threshold', flex: 1.1, numeric: true },
-  { key: 'result', label: 'Result', flex: 1.2 },
+  { key: 'result', label: 'Result', flex: 1.35 },
   { key: 'margin', label: 'Margin', flex: 0.9, numeric: true },
 ];
 
@@ -161,7 +161,7 @@ function ScreeningRows({ rows, onOpen }: { rows: ScreeningRowDto[]; onOpen: (row
     <View style={styles.table} role="table" testID="screening-table">
       <View style={[styles.tr, styles.th]} role="row">
         {COLUMNS.map((c) => (
-          <Text key={c.key} variant="smallStrong" tone="soft" role="columnheader" style={[styles.td, { flex: c.flex }, c.numeric && styles.right]}>
+          <Text key={c.key} variant="smallStrong" tone="soft" role="columnheader" style={[styles.td, styles.thCell, { flex: c.flex }, c.numeric && styles.right]}>
             {c.label}
           </Text>
         ))}
@@ -181,11 +181,11 @@ function ScreeningRows({ rows, onOpen }: { rows: ScreeningRowDto[]; onOpen: (row
           <Text variant="small" style={[styles.td, { flex: 0.8 }]} role="cell">
             {regimeShort(row.regime)}
           </Text>
-          <Figure flex={1.5} label={methodShort(row.method)} onPress={() => onOpen(row, 'method')} testID={`cell-${i}-method`} />
+          <Figure flex={1.4} label={methodShort(row.method)} onPress={() => onOpen(row, 'method')} testID={`cell-${i}-method`} />
           <Figure flex={1.15} numeric label={formatMhz(row.frequencyHz)} onPress={() => onOpen(row, 'frequency')} testID={`cell-${i}-frequency`} />
           <Figure flex={1.05} numeric label={evaluatedText(row)} onPress={() => onOpen(row, 'evaluated')} testID={`cell-${i}-evaluated`} />
           <Figure flex={1.1} numeric label={thresholdText(row)} onPress={() => onOpen(row, 'threshold')} testID={`cell-${i}-threshold`} />
-          <Pressable style={({ pressed }) => [styles.td, styles.cellPress, { flex: 1.2 }, pressed && styles.pressed]} onPress={() => onOpen(row, 'result')} accessibilityRole="button" accessibilityLabel={`How computed: result ${RESULT_LOOK[row.result].label}`} testID={`cell-${i}-result`}>
+          <Pressable style={({ pressed }) => [styles.td, styles.cellPress, { flex: 1.35 }, pressed && styles.pressed]} onPress={() => onOpen(row, 'result')} accessibilityRole="button" accessibilityLabel={`How computed: result ${RESULT_LOOK[row.result].label}`} testID={`cell-${i}-result`}>
             <ResultBadge row={row} />
           </Pressable>
           <Figure flex={0.9} numeric label={formatDb(row.marginDb)} onPress={() => onOpen(row, 'margin')} testID={`cell-${i}-margin`} />
@@ -266,6 +266,7 @@ const styles = StyleSheet.create({
   zebra: { backgroundColor: '#FBFAF7' },
   td: { minWidth: 0, paddingVertical: space.xs },
   right: { textAlign: 'right' },
+  thCell: { paddingHorizontal: 4 },
   cellPress: { minHeight: layout.touchMinPx, justifyContent: 'center', borderRadius: radii.sm, paddingHorizontal: 4 },
   pressed: { backgroundColor: palette.copperSoft },
   figure: { fontSize: 13, textAlign: 'right', textDecorationLine: 'underline', textDecorationStyle: 'dotted', textDecorationColor: palette.inkFaint } as object,

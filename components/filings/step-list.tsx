@@ -26,7 +26,7 @@ export function StepList({ filing, activeStep, compact }: { filing: FilingDetail
               accessibilityLabel={`Step ${i + 1}: ${STEP_LABELS[s.step]}, ${look.word}`}
               aria-current={active ? 'step' : undefined}
               testID={`step-link-${s.step}`}
-              style={({ pressed }) => [styles.item, active && styles.active, pressed && !active && { backgroundColor: palette.paperDeep }]}
+              style={StyleSheet.flatten([styles.item, active && styles.active])}
             >
               <Text variant="figure" tone={active ? 'copper' : 'muted'} style={styles.number}>
                 {String(i + 1).padStart(2, '0')}

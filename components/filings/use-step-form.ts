@@ -6,7 +6,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useEffect, useState } from 'react';
 import { useForm, type FieldValues, type Resolver } from 'react-hook-form';
 import { STEP_SCHEMAS, type DataStep, type FilingDetail } from '../../constants/schemas/filings';
-import { useAutosave } from '../../hooks/use-autosave';
+import { useAutosave, type AutosaveStatus } from '../../hooks/use-autosave';
 
 export function useStepForm<T extends FieldValues>(filing: FilingDetail, step: DataStep, fromDraft: (raw: unknown, saved: T) => T) {
   const draft = filing.drafts[step];
@@ -19,7 +19,8 @@ export function useStepForm<T extends FieldValues>(filing: FilingDetail, step: D
     defaultValues: initial as never,
     mode: 'onChange',
   });
-  const autosave = useAutosave({ form, filingId: filing.id, step, enabled: filing.editable });
+  const [initialStatus] = useState<AutosaveStatus>(() => (draft ? { kind: 'invalid', at: new Date(draft.updatedAt), problems: 0 } : { kind: 'idle' }));
+  const autosave = useAutosave({ form, filingId: filing.id, step, enabled: filing.editable, initialStatus });
   useEffect(() => {
     // A draft is kept because it had errors: show them at once.
     if (draft && filing.editable) void form.trigger();

@@ -95,7 +95,7 @@ function FilingRow({ filing }: { filing: FilingSummary }) {
         role="listitem"
         accessibilityLabel={`${filing.device.name}, ${filing.device.model}, ${state.label}`}
         testID={`filing-row-${filing.id}`}
-        style={({ pressed }) => [styles.row, wide && styles.rowWide, pressed && { backgroundColor: palette.paperDeep }]}
+        style={StyleSheet.flatten([styles.row, wide && styles.rowWide])}
       >
         <View style={styles.identity}>
           <Text variant="bodyStrong">{filing.device.name}</Text>

@@ -46,7 +46,7 @@ export function InputBox({ label, hideLabel, unit, numeric, error, hint, testID,
           style={[styles.input, numeric && styles.numeric]}
           {...rest}
         />
-        {unit ? (
+        {unit && !hideLabel ? (
           <Text variant="small" tone="muted" style={styles.unit}>
             {unit}
           </Text>

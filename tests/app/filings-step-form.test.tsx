@@ -1,0 +1,76 @@
+/**
+ * A wizard step form: typing autosaves the whole step (frequencies typed in MHz, sent in Hz), and
+ * the server's field messages land inline on the field named by their dotted path.
+ */
+import { fireEvent, screen } from '@testing-library/react-native';
+import { RadiosStep } from '../../components/filings/radios-step';
+import type { FilingDetail } from '../../constants/schemas/filings';
+import { apiError, installFetchMock } from './support/fetch-mock';
+import { renderWithClient } from './support/render';
+import { byTestId, findByTestId, isReadOnly, queryByTestId } from './filings-support/by-test-id';
+
+const FILING: FilingDetail = {
+  id: 7,
+  device: { name: 'Stridebeacon wrist tag', model: 'SB-1', applicant: 'Northfold Telemetry', productType: 'wearable' },
+  version: { id: 7, number: 1, state: 'draft' },
+  markets: [],
+  owner: { id: 2, name: 'Tomas Lindqvist' },
+  updatedAt: '2026-03-01T10:00:00.000Z',
+  createdAt: '2026-03-01T10:00:00.000Z',
+  editable: true,
+  steps: [],
+  data: {
+    device: { name: 'Stridebeacon wrist tag', model: 'SB-1', applicant: 'Northfold Telemetry', productType: 'wearable', hardwareVersion: '', firmwareVersion: '' },
+    radios: {
+      antennas: [{ id: 'ANT-1', gainDbi: 2, location: '' }],
+      transmitters: [{ id: 'TX-1', technology: 'Bluetooth LE', band: '2.4 GHz ISM', frequencyMinHz: 2402e6, frequencyMaxHz: 2480e6, maxTuneUpPowerDbm: 10, dutyCycle: 0.5, antennaId: 'ANT-1' }],
+    },
+    'use-positions': { usePositions: [] },
+    markets: { markets: [] },
+  },
+  drafts: {},
+};
+
+const MESSAGE = 'The highest frequency must not be below the lowest.';
+
+// The first render of a cold run loads most of the app; small CI machines need the headroom.
+jest.setTimeout(30_000);
+
+describe('RadiosStep', () => {
+  it('shows the stored values in display units (MHz, %)', () => {
+    installFetchMock({});
+    renderWithClient(<RadiosStep filing={FILING} />);
+    expect(byTestId('tx-0-fmin').props.value).toBe('2402');
+    expect(byTestId('tx-0-duty').props.value).toBe('50');
+  });
+
+  it('autosaves in Hz and puts the server’s field error on the field it names', async () => {
+    const { calls } = installFetchMock({
+      'PUT /api/filings/7/steps/radios': { ...apiError(422, 'invalid_input', 'Some fields need fixing; your input is kept as a draft until they do.', { 'transmitters.0.frequencyMaxHz': MESSAGE }) },
+      'GET /api/filings/7': { status: 200, body: { filing: FILING } },
+    });
+    renderWithClient(<RadiosStep filing={FILING} />);
+
+    // The band's name changes: valid for the client schema, refused by this (mocked) server.
+    fireEvent.changeText(byTestId('tx-0-band'), 'ISM 2.4');
+    fireEvent.changeText(byTestId('tx-0-fmax'), '2480.5');
+
+    expect(await findByTestId('tx-0-fmax-error', 4000)).toHaveTextContent(MESSAGE);
+    expect(byTestId('save-status')).toHaveTextContent(/Not saved — fix the highlighted field/);
+    const put = calls.filter((c) => c.method === 'PUT');
+    // Debounced: two quick changes make one request, with the whole step.
+    expect(put).toHaveLength(1);
+    expect(put[0].body).toEqual({
+      antennas: [{ id: 'ANT-1', gainDbi: 2, location: '' }],
+      transmitters: [{ ...FILING.data.radios.transmitters[0], band: 'ISM 2.4', frequencyMaxHz: 2480.5e6 }],
+    });
+  });
+
+  it('is read-only with a notice when the filing is not editable', () => {
+    installFetchMock({});
+    renderWithClient(<RadiosStep filing={{ ...FILING, editable: false }} />);
+    expect(byTestId('step-read-only')).toBeTruthy();
+    expect(isReadOnly(byTestId('tx-0-id'))).toBe(true);
+    expect(queryByTestId('transmitters-add')).toBeNull();
+  });
+});
