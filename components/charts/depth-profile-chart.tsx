@@ -24,10 +24,12 @@ const LAYER_FILLS = [palette.copperSoft, palette.paper, palette.paperDeep, palet
 
 const sarTick = (v: number) => (v >= 0.01 && v < 1000 ? String(Number(v.toPrecision(2))) : v.toExponential(0).replace('e+', 'e'));
 
-export function DepthProfileChart({ points, layers, testID }: { points: DepthPoint[]; layers: DepthLayer[]; testID?: string }) {
+/** `depthLimitMm` shows only the first millimetres (the thin outer layers); the default is all of the profile. */
+export function DepthProfileChart({ points, layers, depthLimitMm, testID }: { points: DepthPoint[]; layers: DepthLayer[]; depthLimitMm?: number; testID?: string }) {
   const [width, setWidth] = useState(0);
-  const data = points.filter((p) => p.sarWPerKg > 0 && Number.isFinite(p.sarWPerKg));
-  const maxDepthMm = Math.max(...points.map((p) => p.depthM * 1000), 1);
+  const profileDepthMm = Math.max(...points.map((p) => p.depthM * 1000), 1);
+  const maxDepthMm = depthLimitMm ? Math.min(depthLimitMm, profileDepthMm) : profileDepthMm;
+  const data = points.filter((p) => p.sarWPerKg > 0 && Number.isFinite(p.sarWPerKg) && p.depthM * 1000 <= maxDepthMm + 1e-9);
   const sars = data.map((p) => p.sarWPerKg);
   const yMax = Math.max(...sars, 1e-12);
   const yMin = Math.max(Math.min(...sars, yMax), yMax / 1e6);

@@ -13,6 +13,7 @@ import { DepthProfileChart } from '../charts/depth-profile-chart';
 import { LoadFailed, Loading } from '../layout/query-states';
 import { Button } from '../ui/button';
 import { Card } from '../ui/card';
+import { ChoiceChips } from '../ui/choice-chips';
 import { Notice } from '../ui/notice';
 import { SelectField } from '../ui/select-field';
 import { Sheet } from '../ui/sheet';
@@ -21,6 +22,9 @@ import { Text } from '../ui/text';
 import { formatMm, sig } from './format';
 import { DerivationBlock } from './how-computed';
 
+/** The close-up: the default head stack's outer layers are 9 mm thick together. */
+const LAYERS_VIEW_MM = 20;
+
 export function DepthSection({ filing, initial }: { filing: FilingDetail; initial: ScreeningRowDto | null }) {
   const wide = useIsWide();
   const txs = filing.data.radios.transmitters;
@@ -28,6 +32,7 @@ export function DepthSection({ filing, initial }: { filing: FilingDetail; initia
   const [txId, setTxId] = useState(initial?.transmitterId ?? txs[0]?.id ?? null);
   const [posId, setPosId] = useState(initial?.usePositionId ?? positions[0]?.id ?? null);
   const [showHow, setShowHow] = useState(false);
+  const [depthView, setDepthView] = useState<'layers' | 'all'>('layers');
   const profile = useDepthProfileQuery(filing.id, txId, posId);
   const p = profile.data;
   return (
@@ -53,7 +58,17 @@ export function DepthSection({ filing, initial }: { filing: FilingDetail; initia
           <Text variant="smallStrong" accessibilityRole="header">
             {`Screening estimate: ${p.transmitterId} at ${p.usePositionId}`}
           </Text>
-          <DepthProfileChart points={p.sarProfile} layers={p.stack} testID="depth-chart" />
+          <ChoiceChips
+            label="Depth shown"
+            choices={[
+              { value: 'layers', label: `First ${LAYERS_VIEW_MM} mm (skin, fat, bone)` },
+              { value: 'all', label: `Whole profile (${sig(Math.max(...p.sarProfile.map((pt) => pt.depthM)) * 1000, 3)} mm)` },
+            ]}
+            value={depthView}
+            onChange={setDepthView}
+            testID="depth-view"
+          />
+          <DepthProfileChart points={p.sarProfile} layers={p.stack} depthLimitMm={depthView === 'layers' ? LAYERS_VIEW_MM : undefined} testID="depth-chart" />
           <View style={styles.figures}>
             <Fig label="Incident power density" value={`${sig(p.incidentPowerDensityWPerM2)} W/m²`} />
             <Fig label="Distance used" value={formatMm(p.distanceUsedM)} />

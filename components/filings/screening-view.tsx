@@ -136,14 +136,14 @@ function Count({ label, n, icon, color = palette.ink }: { label: string; n: numb
 
 const COLUMNS: { key: FigureKey | 'tx' | 'pos' | 'market'; label: string; flex: number; numeric?: boolean }[] = [
   { key: 'tx', label: 'Transmitter', flex: 1.1 },
-  { key: 'pos', label: 'Use position', flex: 1.2 },
+  { key: 'pos', label: 'Use position', flex: 1.1 },
   { key: 'market', label: 'Market', flex: 0.8 },
   { key: 'method', label: 'Method', flex: 1.4 },
-  { key: 'frequency', label: 'Frequency', flex: 1.15, numeric: true },
+  { key: 'frequency', label: 'Frequency', flex: 1.05, numeric: true },
   { key: 'evaluated', label: 'Evaluated', flex: 1.05, numeric: true },
   { key: 'threshold', label: 'Threshold', flex: 1.1, numeric: true },
   { key: 'result', label: 'Result', flex: 1.35 },
-  { key: 'margin', label: 'Margin', flex: 0.9, numeric: true },
+  { key: 'margin', label: 'Margin', flex: 1.05, numeric: true },
 ];
 
 function ScreeningRows({ rows, onOpen }: { rows: ScreeningRowDto[]; onOpen: (row: ScreeningRowDto, figure: FigureKey) => void }) {
@@ -171,7 +171,7 @@ function ScreeningRows({ rows, onOpen }: { rows: ScreeningRowDto[]; onOpen: (row
           <Text variant="smallStrong" style={[styles.td, { flex: 1.1 }]} role="cell">
             {row.transmitterId}
           </Text>
-          <Text variant="small" style={[styles.td, { flex: 1.2 }]} role="cell">
+          <Text variant="small" style={[styles.td, { flex: 1.1 }]} role="cell">
             {row.usePositionId}
             {'\n'}
             <Text variant="small" tone="muted">
@@ -182,13 +182,13 @@ function ScreeningRows({ rows, onOpen }: { rows: ScreeningRowDto[]; onOpen: (row
             {regimeShort(row.regime)}
           </Text>
           <Figure flex={1.4} label={methodShort(row.method)} onPress={() => onOpen(row, 'method')} testID={`cell-${i}-method`} />
-          <Figure flex={1.15} numeric label={formatMhz(row.frequencyHz)} onPress={() => onOpen(row, 'frequency')} testID={`cell-${i}-frequency`} />
+          <Figure flex={1.05} numeric label={formatMhz(row.frequencyHz)} onPress={() => onOpen(row, 'frequency')} testID={`cell-${i}-frequency`} />
           <Figure flex={1.05} numeric label={evaluatedText(row)} onPress={() => onOpen(row, 'evaluated')} testID={`cell-${i}-evaluated`} />
           <Figure flex={1.1} numeric label={thresholdText(row)} onPress={() => onOpen(row, 'threshold')} testID={`cell-${i}-threshold`} />
           <Pressable style={({ pressed }) => [styles.td, styles.cellPress, { flex: 1.35 }, pressed && styles.pressed]} onPress={() => onOpen(row, 'result')} accessibilityRole="button" accessibilityLabel={`How computed: result ${RESULT_LOOK[row.result].label}`} testID={`cell-${i}-result`}>
             <ResultBadge row={row} />
           </Pressable>
-          <Figure flex={0.9} numeric label={formatDb(row.marginDb)} onPress={() => onOpen(row, 'margin')} testID={`cell-${i}-margin`} />
+          <Figure flex={1.05} numeric label={formatDb(row.marginDb)} onPress={() => onOpen(row, 'margin')} testID={`cell-${i}-margin`} />
         </View>
       ))}
     </View>
@@ -257,8 +257,8 @@ const styles = StyleSheet.create({
   summary: { gap: space.md },
   summaryWide: { flexDirection: 'row', flexWrap: 'wrap' },
   summaryCard: { flex: 1, minWidth: 260, backgroundColor: palette.surface, borderWidth: 1, borderColor: palette.line, borderRadius: radii.lg, padding: space.lg, gap: space.xs },
-  counts: { flexDirection: 'row', flexWrap: 'wrap', gap: space.lg, paddingTop: space.xs },
-  count: { gap: 0, minWidth: 64 },
+  counts: { flexDirection: 'row', gap: space.sm, paddingTop: space.xs },
+  count: { gap: 0, flex: 1, minWidth: 0 },
   countLabel: { flexDirection: 'row', alignItems: 'center', gap: 3 },
   table: { borderWidth: 1, borderColor: palette.line, borderRadius: radii.md, overflow: 'hidden' },
   tr: { flexDirection: 'row', alignItems: 'center', gap: space.xs, paddingHorizontal: space.sm, minHeight: layout.touchMinPx, borderBottomWidth: 1, borderBottomColor: palette.paperDeep },

@@ -49,7 +49,7 @@ export function UsePositionsStep({ filing }: { filing: FilingDetail }) {
 
   const columns: EditColumn[] = [
     { key: 'id', label: 'Position id', flex: 1.2, render: (i, h) => <FormText {...common} name={`usePositions.${i}.id`} label="Position id" hideLabel={h} testID={`pos-${i}-id`} /> },
-    { key: 'kind', label: 'Kind', flex: 1.8, render: (i, h) => <FormSelect {...common} name={`usePositions.${i}.kind`} label="Kind" options={KIND_OPTIONS} hideLabel={h} testID={`pos-${i}-kind`} /> },
+    { key: 'kind', label: 'Kind', flex: 2.3, render: (i, h) => <FormSelect {...common} name={`usePositions.${i}.kind`} label="Kind" options={KIND_OPTIONS} hideLabel={h} testID={`pos-${i}-kind`} /> },
     ...antennaIds.map<EditColumn>((antennaId) => ({
       key: `sep-${antennaId}`,
       label: `${antennaId} (mm)`,

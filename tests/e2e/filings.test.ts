@@ -175,6 +175,48 @@ describe('filing wizard', () => {
     }
   });
 
+  it('imports a device file: a bad one lists every problem with its JSON path, a good one becomes a filing', async () => {
+    const s = await openBrowser(DESKTOP);
+    const { page } = s;
+    try {
+      await signIn(page, 'specialist@fieldfile.test');
+      await page.goto(`${server.baseUrl}/filings`);
+      await page.getByTestId('filings-import').click();
+      await page.getByTestId('import-json').waitFor();
+      const bad = {
+        format: 'fieldfile.device/1',
+        device: { name: 'Broken tag', model: 'BT-0', applicant: 'Northfold Telemetry', productType: 'wearable' },
+        antennas: [{ id: 'A1', gainDbi: 0 }],
+        transmitters: [{ id: 'T1', technology: 'BLE', band: 'ISM', frequencyMinHz: 2480e6, frequencyMaxHz: 2402e6, maxTuneUpPowerDbm: 4, antennaId: 'A9' }],
+        usePositions: [{ id: 'P1', kind: 'extremity', separations: [{ antennaId: 'A1', separationM: -0.001 }] }],
+      };
+      await page.getByTestId('import-json').fill(JSON.stringify(bad, null, 2));
+      await page.getByTestId('import-submit').click();
+      const problems = page.getByTestId('import-problems');
+      await problems.waitFor();
+      const text = await problems.textContent();
+      expect(text).toMatch(/The device file has \d+ problems?; nothing was created\./);
+      expect(text).toContain('transmitters.0.frequencyMaxHz');
+      expect(text).toContain('usePositions.0.separations.0.separationM');
+      await screenshot(page, 'import-problems-desktop');
+
+      // The demo tracker's own export imports as a new filing.
+      const good = await page.evaluate(async () => {
+        const list = (await (await fetch('/api/filings?sort=name')).json()) as { filings: { id: number; device: { model: string } }[] };
+        const tracker = list.filings.find((f) => f.device.model === 'TH4-LW2')!;
+        return (await fetch(`/api/filings/${tracker.id}/device.json`)).text();
+      });
+      await page.getByTestId('import-json').fill(good);
+      await page.getByTestId('import-submit').click();
+      await page.waitForURL(/\/filings\/\d+$/);
+      await page.getByTestId('filing-overview').waitFor();
+      expect(await page.getByTestId('filing-progress').textContent()).toMatch(/3 of 5 steps complete/);
+      expect(faults(s)).toEqual([]);
+    } finally {
+      await s.close();
+    }
+  });
+
   it('an engineer reads the demo filing but cannot change it', async () => {
     const s = await openBrowser(DESKTOP);
     const { page } = s;
@@ -184,7 +226,7 @@ describe('filing wizard', () => {
       await page.getByTestId('filings-list').waitFor();
       expect(await page.getByTestId('filings-new').count()).toBe(0);
       expect(await page.getByTestId('filings-import').count()).toBe(0);
-      await page.getByText('Trailhound TH-4 rugged tracker').click();
+      await page.getByText('Trailhound TH-4 rugged tracker').first().click();
       await page.getByTestId('filing-read-only').waitFor();
       await page.getByTestId('step-link-radios').click();
       await page.getByTestId('step-read-only').waitFor();
