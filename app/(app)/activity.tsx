@@ -1,0 +1,3 @@
+import { ActivityScreen } from '../../components/screens/activity-screen';
+
+export default ActivityScreen;

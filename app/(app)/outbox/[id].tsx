@@ -1,0 +1,3 @@
+import { OutboxMessageScreen } from '../../../components/screens/outbox-message-screen';
+
+export default OutboxMessageScreen;

@@ -1,0 +1,3 @@
+import { OutboxScreen } from '../../../components/screens/outbox-screen';
+
+export default OutboxScreen;

@@ -1,0 +1,3 @@
+import { ProfileScreen } from '../../components/screens/profile-screen';
+
+export default ProfileScreen;

@@ -1,0 +1,3 @@
+import { UsersScreen } from '../../components/screens/users-screen';
+
+export default UsersScreen;

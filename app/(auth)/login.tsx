@@ -1,0 +1,3 @@
+import { SignInScreen } from '../../components/screens/sign-in-screen';
+
+export default SignInScreen;

@@ -1,0 +1,64 @@
+/** Choosing a password from an invitation link, checked with the shared zSetPasswordForm. */
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useForm } from 'react-hook-form';
+import { View } from 'react-native';
+import type { z } from 'zod';
+import { zSetPasswordForm } from '../../constants/schemas/auth';
+import { PASSWORD_MIN } from '../../constants/schemas/limits';
+import { space } from '../../constants/theme';
+import { useSetPasswordMutation } from '../../hooks/queries/password-token';
+import { applyServerErrors } from '../../hooks/use-server-errors';
+import { Button } from '../ui/button';
+import { Notice } from '../ui/notice';
+import { FormTextField } from '../ui/text-field';
+
+type FormIn = z.input<typeof zSetPasswordForm>;
+type FormOut = z.output<typeof zSetPasswordForm>;
+
+export function SetPasswordForm({ token, onDone }: { token: string; onDone: (email: string) => void }) {
+  const setPassword = useSetPasswordMutation();
+  const { control, handleSubmit, setError, formState } = useForm<FormIn, unknown, FormOut>({
+    resolver: zodResolver(zSetPasswordForm),
+    defaultValues: { token, password: '', confirmPassword: '' },
+  });
+
+  const onSubmit = handleSubmit(async ({ token: t, password }) => {
+    try {
+      const result = await setPassword.mutateAsync({ token: t, password });
+      onDone(result.email);
+    } catch (error) {
+      applyServerErrors(error, setError, ['password', 'confirmPassword', 'token']);
+    }
+  });
+
+  const rootError = formState.errors.root?.server?.message ?? formState.errors.token?.message;
+  return (
+    <View style={{ gap: space.lg }} testID="set-password-form">
+      <FormTextField
+        control={control}
+        name="password"
+        label="New password"
+        hint={`At least ${PASSWORD_MIN} characters. A few unrelated words make a strong one.`}
+        testID="set-password-password"
+        autoComplete="new-password"
+        secureTextEntry
+        autoFocus
+      />
+      <FormTextField
+        control={control}
+        name="confirmPassword"
+        label="New password again"
+        testID="set-password-confirm"
+        autoComplete="new-password"
+        secureTextEntry
+        onSubmitEditing={onSubmit}
+      />
+      {rootError ? (
+        <Notice tone="error" testID="set-password-error">
+          {rootError}
+        </Notice>
+      ) : null}
+      <Button label="Set password" busyLabel="Saving…" busy={formState.isSubmitting} onPress={onSubmit} testID="set-password-submit" />
+    </View>
+  );
+}

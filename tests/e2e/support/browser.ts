@@ -1,0 +1,73 @@
+/**
+ * Debian's Chromium driven by playwright-core: a fresh profile per context, no downloaded
+ * browser, no network beyond the app under test.
+ */
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { chromium, type BrowserContext, type Page } from 'playwright-core';
+
+export const CHROMIUM_PATH = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
+export const SCREENSHOT_DIR = path.resolve(__dirname, '../../../test-output/screenshots');
+
+const ARGS = [
+  '--headless',
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-quic',
+  '--no-first-run',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--disable-sync',
+];
+
+export const PHONE = { width: 390, height: 844 } as const;
+export const DESKTOP = { width: 1440, height: 900 } as const;
+
+export interface Session {
+  context: BrowserContext;
+  page: Page;
+  /** Requests that left localhost (there should be none: fonts and code are shipped). */
+  externalRequests: string[];
+  /** Console errors and uncaught page errors. */
+  pageErrors: string[];
+  close: () => Promise<void>;
+}
+
+export async function openBrowser(viewport: { width: number; height: number }): Promise<Session> {
+  const profile = fs.mkdtempSync(path.join(os.tmpdir(), 'fieldfile-chromium-'));
+  const context = await chromium.launchPersistentContext(profile, { executablePath: CHROMIUM_PATH, args: ARGS, viewport });
+  const externalRequests: string[] = [];
+  const pageErrors: string[] = [];
+  await context.route('**/*', (route) => {
+    const url = new URL(route.request().url());
+    if (url.hostname === 'localhost' || url.hostname === '127.0.0.1' || url.protocol === 'data:') return route.continue();
+    externalRequests.push(url.href);
+    return route.abort();
+  });
+  const page = context.pages()[0] ?? (await context.newPage());
+  page.on('pageerror', (e) => pageErrors.push(e.message));
+  page.on('console', (m) => {
+    // The deliberate 401s (session check, wrong password) are answers, not faults.
+    if (m.type() === 'error' && !/status of 401|status of 403|status of 404/.test(m.text())) pageErrors.push(m.text());
+  });
+  return {
+    context,
+    page,
+    externalRequests,
+    pageErrors,
+    close: async () => {
+      await context.close();
+      fs.rmSync(profile, { recursive: true, force: true });
+    },
+  };
+}
+
+export async function screenshot(page: Page, name: string): Promise<string> {
+  fs.mkdirSync(SCREENSHOT_DIR, { recursive: true });
+  const file = path.join(SCREENSHOT_DIR, `${name}.png`);
+  // Let web fonts and the last layout pass settle, so the picture shows what a person sees.
+  await page.evaluate(() => document.fonts.ready);
+  await page.screenshot({ path: file, fullPage: true });
+  return file;
+}
