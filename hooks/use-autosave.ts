@@ -7,9 +7,10 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { useCallback, useEffect, useRef, useState } from 'react';
 import type { FieldPath, FieldValues, UseFormReturn } from 'react-hook-form';
+import { Platform } from 'react-native';
 import type { DataStep } from '../constants/schemas/filings';
 import { asProblem } from './api-client';
-import { filingKeys, saveStep } from './queries/filings';
+import { filingKeys, saveStep, stepUrl } from './queries/filings';
 
 export const AUTOSAVE_DELAY_MS = 800;
 
@@ -95,13 +96,26 @@ export function useAutosave<T extends FieldValues>({
       setStatus({ kind: 'pending' });
       timer.current = setTimeout(() => void save(), delayMs);
     });
+    // Web: a reload or a closed tab while a change waits still sends it (keepalive outlives the page).
+    const onPageHide = () => {
+      if (!timer.current) return;
+      clearTimeout(timer.current);
+      timer.current = null;
+      const body = JSON.stringify(toBodyRef.current(form.getValues()));
+      if (body === lastSent.current) return;
+      lastSent.current = body;
+      void fetch(stepUrl(filingId, step), { method: 'PUT', body, keepalive: true, credentials: 'include', headers: { 'Content-Type': 'application/json', Accept: 'application/json' } }).catch(() => undefined);
+    };
+    const web = Platform.OS === 'web' && typeof window !== 'undefined';
+    if (web) window.addEventListener('pagehide', onPageHide);
     return () => {
+      if (web) window.removeEventListener('pagehide', onPageHide);
       sub.unsubscribe();
       mounted.current = false;
       // Leaving the step sends what is still waiting.
       if (timer.current) void save();
     };
-  }, [enabled, form, save, delayMs]);
+  }, [enabled, form, save, delayMs, filingId, step]);
 
   return { status, saveNow: save };
 }

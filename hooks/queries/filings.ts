@@ -134,10 +134,15 @@ export function useImportFilingMutation() {
   });
 }
 
+const apiBase = () => (process.env.EXPO_PUBLIC_API_URL ?? '').replace(/\/$/, '');
+
 /** One step's whole form; a 422 throws an ApiProblem whose `fields` are the dotted paths. */
 export function saveStep(filingId: number, step: DataStep, body: unknown): Promise<FilingDetail> {
   return apiOrThrow(`/api/filings/${filingId}/steps/${step}`, { method: 'PUT', body, schema: zSaved }).then((d) => d.filing);
 }
+
+/** The step's save address, for the page-hide keepalive request (which cannot go through `api`). */
+export const stepUrl = (filingId: number, step: DataStep) => `${apiBase()}/api/filings/${filingId}/steps/${step}`;
 
 export function useScreeningQuery(id: number) {
   return useQuery({
@@ -163,5 +168,5 @@ export function useDepthProfileQuery(id: number, transmitterId: string | null, u
 
 /** Where the device file downloads from (same origin under `npm start`). */
 export function deviceFileUrl(id: number): string {
-  return `${(process.env.EXPO_PUBLIC_API_URL ?? '').replace(/\/$/, '')}/api/filings/${id}/device.json`;
+  return `${apiBase()}/api/filings/${id}/device.json`;
 }

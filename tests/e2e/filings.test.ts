@@ -102,6 +102,11 @@ async function buildFiling(s: Session, size: 'phone' | 'desktop', deviceName: st
   await page.getByTestId('positions-add').click();
   await page.getByTestId('positions-lacking').waitFor();
   await page.getByTestId('pos-0-sep-ANT-1').fill('4');
+  // Reload at once, before the autosave delay is over: the change is sent as the page goes.
+  await page.reload();
+  await page.getByTestId('pos-0-sep-ANT-1').waitFor();
+  expect(await page.getByTestId('pos-0-sep-ANT-1').inputValue()).toBe('4');
+  await page.getByTestId('pos-0-sep-ANT-1').fill('4.5');
   await waitSaved(page);
   expect(await page.getByTestId('positions-lacking').count()).toBe(0);
   await screenshot(page, `step-use-positions-${size}`);
@@ -134,6 +139,7 @@ async function buildFiling(s: Session, size: 'phone' | 'desktop', deviceName: st
   expect(await panel.getByTestId('how-computed-derivation-source').textContent()).toMatch(/§1\.1307\(b\)\(3\)/);
   expect(await panel.textContent()).toMatch(/Frequencies checked in the band/);
   expect(await panel.textContent()).toMatch(/2402 MHz/);
+  await page.waitForTimeout(600); // the sheet slides in
   await screenshot(page, `how-computed-${size}`);
   await page.getByTestId('how-computed-close').click();
   await panel.waitFor({ state: 'detached' });
