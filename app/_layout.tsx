@@ -3,6 +3,7 @@ import { QueryClientProvider } from '@tanstack/react-query';
 import { useFonts } from 'expo-font';
 import { Slot } from 'expo-router';
 import { useState } from 'react';
+import { StyleSheet, View } from 'react-native';
 import { SafeAreaProvider } from 'react-native-safe-area-context';
 import { Splash } from '../components/layout/splash';
 import { fonts } from '../constants/theme';
@@ -24,7 +25,15 @@ export default function RootLayout() {
   const [fontsLoaded, fontError] = useFonts(FONT_FILES);
   return (
     <SafeAreaProvider>
-      <QueryClientProvider client={queryClient}>{fontsLoaded || fontError ? <Slot /> : <Splash label="Loading Fieldfile…" />}</QueryClientProvider>
+      <QueryClientProvider client={queryClient}>
+        {/* The router must mount on the first render, or it forgets the URL it was opened at. */}
+        <Slot />
+        {fontsLoaded || fontError ? null : (
+          <View style={StyleSheet.absoluteFill}>
+            <Splash label="Loading Fieldfile…" />
+          </View>
+        )}
+      </QueryClientProvider>
     </SafeAreaProvider>
   );
 }

@@ -1,4 +1,4 @@
-/** Signed-out screens. A signed-in visitor of /login goes on to `next` (or home). */
+/** Signed-out screens. Someone already signed in who opens /login goes on to `next` (or home). */
 import { Redirect, Slot, useGlobalSearchParams, useSegments } from 'expo-router';
 import { Splash } from '../../components/layout/splash';
 import { LoadFailed } from '../../components/layout/query-states';
@@ -21,6 +21,6 @@ export default function AuthLayout() {
       </AuthShell>
     );
   }
-  if (session.data?.user && !onSetPassword) return <Redirect href={safeNextPath(next) as never} />;
+  if (session.data?.user && !session.data.justSignedIn && !onSetPassword) return <Redirect href={safeNextPath(next) as never} />;
   return <Slot />;
 }

@@ -14,7 +14,7 @@ import { FormTextField } from '../ui/text-field';
 type LoginIn = z.input<typeof zLogin>;
 type LoginOut = z.output<typeof zLogin>;
 
-export function SignInForm({ initialEmail = '' }: { initialEmail?: string }) {
+export function SignInForm({ initialEmail = '', onSignedIn }: { initialEmail?: string; onSignedIn?: () => void }) {
   const login = useLoginMutation();
   const { control, handleSubmit, setError, formState } = useForm<LoginIn, unknown, LoginOut>({
     resolver: zodResolver(zLogin),
@@ -24,6 +24,7 @@ export function SignInForm({ initialEmail = '' }: { initialEmail?: string }) {
   const onSubmit = handleSubmit(async (values) => {
     try {
       await login.mutateAsync(values);
+      onSignedIn?.();
     } catch (error) {
       applyServerErrors(error, setError, ['email', 'password']);
     }

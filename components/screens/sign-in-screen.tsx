@@ -1,6 +1,7 @@
-import { useLocalSearchParams } from 'expo-router';
+import { useLocalSearchParams, useRouter } from 'expo-router';
 import { View } from 'react-native';
 import { space } from '../../constants/theme';
+import { safeNextPath } from '../../hooks/safe-next-path';
 import { SignInForm } from '../auth/sign-in-form';
 import { AuthShell } from '../layout/auth-shell';
 import { Notice } from '../ui/notice';
@@ -10,6 +11,7 @@ const first = (v: string | string[] | undefined) => (Array.isArray(v) ? v[0] : v
 
 export function SignInScreen() {
   const params = useLocalSearchParams<{ email?: string; notice?: string; next?: string }>();
+  const router = useRouter();
   const email = first(params.email) ?? '';
   const passwordSet = first(params.notice) === 'password-set';
   const cameFromLink = !!first(params.next) && first(params.next) !== '/';
@@ -24,7 +26,7 @@ export function SignInScreen() {
           Sign in to open that page; you will land there afterwards.
         </Notice>
       ) : null}
-      <SignInForm initialEmail={email} />
+      <SignInForm initialEmail={email} onSignedIn={() => router.replace(safeNextPath(params.next) as never)} />
       <View style={{ gap: space.xs }}>
         <Text variant="small" tone="muted">
           New here? Your organisation’s admin sends you an invitation by e-mail with a link to set your password.

@@ -10,10 +10,14 @@ export const sessionKeys = {
   me: () => [...sessionKeys.all, 'me'] as const,
 };
 
-/** `signedOut` tells the layouts the user left on purpose, so no "come back to" link is kept. */
+/**
+ * `signedOut`: the user left on purpose, so no "come back to" link is kept.
+ * `justSignedIn`: the sign-in screen navigates on by itself (to `next`), not the layout.
+ */
 export interface SessionState {
   user: SessionUser | null;
   signedOut?: boolean;
+  justSignedIn?: boolean;
 }
 
 const zUserEnvelope = z.object({ user: zSessionUser });
@@ -48,7 +52,7 @@ export function useLoginMutation() {
     mutationFn: (input: LoginInput) => apiOrThrow('/api/auth/login', { method: 'POST', body: input, schema: zUserEnvelope }),
     onSuccess: ({ user }) => {
       queryClient.removeQueries({ predicate: (q) => q.queryKey[0] !== sessionKeys.all[0] });
-      queryClient.setQueryData<SessionState>(sessionKeys.me(), { user });
+      queryClient.setQueryData<SessionState>(sessionKeys.me(), { user, justSignedIn: true });
     },
   });
 }

@@ -48,8 +48,8 @@ export async function openBrowser(viewport: { width: number; height: number }): 
   const page = context.pages()[0] ?? (await context.newPage());
   page.on('pageerror', (e) => pageErrors.push(e.message));
   page.on('console', (m) => {
-    // The deliberate 401s (session check, wrong password) are answers, not faults.
-    if (m.type() === 'error' && !/status of 401|status of 403|status of 404/.test(m.text())) pageErrors.push(m.text());
+    // 4xx answers the tests provoke (no session, wrong password, duplicate invite) are not faults.
+    if (m.type() === 'error' && !/status of (401|403|404|409|422)/.test(m.text())) pageErrors.push(m.text());
   });
   return {
     context,
