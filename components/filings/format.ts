@@ -19,6 +19,8 @@ export function formatQuantity(value: number | string | boolean | null, unit: st
   if (value === null) return '—';
   if (typeof value !== 'number') return String(value);
   if (unit === 'Hz') return formatMhz(value);
+  // Separations are stored in m but entered in mm: show both.
+  if (unit === 'm' && Math.abs(value) < 1) return `${sig(value)} m (${formatMm(value)})`;
   if (unit === '1' || unit === 'text' || !unit) return sig(value);
   return `${sig(value)} ${unit}`;
 }

@@ -32,6 +32,8 @@ export function HowComputedSheet({ row, figure, onClose }: { row: ScreeningRow |
 export function HowComputed({ row, figure }: { row: ScreeningRow; figure: FigureKey }) {
   const look = RESULT_LOOK[row.result];
   const d = row.derivation;
+  // When no threshold applies, the engine's note says why (e.g. outside the formula's distance range).
+  const why = row.marginDb === null ? d.notes.find((n) => n.startsWith('Not exempt:')) : undefined;
   return (
     <View style={styles.wrap}>
       <View style={styles.headline}>
@@ -41,6 +43,11 @@ export function HowComputed({ row, figure }: { row: ScreeningRow; figure: Figure
         <Text variant="title" testID="how-computed-figure">
           {figure === 'result' ? look.label : figureText(row, figure)}
         </Text>
+        {why ? (
+          <Text variant="small" tone="soft" testID="how-computed-why">
+            {why}
+          </Text>
+        ) : null}
         <View style={styles.badgeRow}>
           <StatusBadge tone={look.tone} icon={look.icon} label={look.label} />
           <Text variant="small" tone="soft">
