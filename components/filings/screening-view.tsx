@@ -135,14 +135,14 @@ function Count({ label, n, icon, color = palette.ink }: { label: string; n: numb
 }
 
 const COLUMNS: { key: FigureKey | 'tx' | 'pos' | 'market'; label: string; flex: number; numeric?: boolean }[] = [
-  { key: 'tx', label: 'Transmitter', flex: 1.1 },
+  { key: 'tx', label: 'Transmitter', flex: 1 },
   { key: 'pos', label: 'Use position', flex: 1.1 },
   { key: 'market', label: 'Market', flex: 0.8 },
   { key: 'method', label: 'Method', flex: 1.4 },
   { key: 'frequency', label: 'Frequency', flex: 1.05, numeric: true },
   { key: 'evaluated', label: 'Evaluated', flex: 1.05, numeric: true },
   { key: 'threshold', label: 'Threshold', flex: 1.1, numeric: true },
-  { key: 'result', label: 'Result', flex: 1.35 },
+  { key: 'result', label: 'Result', flex: 1.55 },
   { key: 'margin', label: 'Margin', flex: 1.05, numeric: true },
 ];
 
@@ -168,7 +168,7 @@ function ScreeningRows({ rows, onOpen }: { rows: ScreeningRowDto[]; onOpen: (row
       </View>
       {rows.map((row, i) => (
         <View key={i} style={[styles.tr, i % 2 === 1 && styles.zebra]} role="row" testID={`screening-row-${i}`}>
-          <Text variant="smallStrong" style={[styles.td, { flex: 1.1 }]} role="cell">
+          <Text variant="smallStrong" style={[styles.td, { flex: 1 }]} role="cell">
             {row.transmitterId}
           </Text>
           <Text variant="small" style={[styles.td, { flex: 1.1 }]} role="cell">
@@ -185,7 +185,7 @@ function ScreeningRows({ rows, onOpen }: { rows: ScreeningRowDto[]; onOpen: (row
           <Figure flex={1.05} numeric label={formatMhz(row.frequencyHz)} onPress={() => onOpen(row, 'frequency')} testID={`cell-${i}-frequency`} />
           <Figure flex={1.05} numeric label={evaluatedText(row)} onPress={() => onOpen(row, 'evaluated')} testID={`cell-${i}-evaluated`} />
           <Figure flex={1.1} numeric label={thresholdText(row)} onPress={() => onOpen(row, 'threshold')} testID={`cell-${i}-threshold`} />
-          <Pressable style={({ pressed }) => [styles.td, styles.cellPress, { flex: 1.35 }, pressed && styles.pressed]} onPress={() => onOpen(row, 'result')} accessibilityRole="button" accessibilityLabel={`How computed: result ${RESULT_LOOK[row.result].label}`} testID={`cell-${i}-result`}>
+          <Pressable style={({ pressed }) => [styles.td, styles.cellPress, { flex: 1.55 }, pressed && styles.pressed]} onPress={() => onOpen(row, 'result')} accessibilityRole="button" accessibilityLabel={`How computed: result ${RESULT_LOOK[row.result].label}`} testID={`cell-${i}-result`}>
             <ResultBadge row={row} />
           </Pressable>
           <Figure flex={1.05} numeric label={formatDb(row.marginDb)} onPress={() => onOpen(row, 'margin')} testID={`cell-${i}-margin`} />
