@@ -1,6 +1,8 @@
 /**
  * The signed-in frame. Phone first: a slim top bar, the screen, and a bottom bar of icon+label
  * destinations. From layout.wideMinWidthPx: an ink sidebar beside the content.
+ * Pressables inside `Link asChild` get one flattened style object: on web the Link's slot passes
+ * neither style functions nor arrays through.
  */
 import { Link, usePathname } from 'expo-router';
 import { Pressable, StyleSheet, View } from 'react-native';
@@ -51,7 +53,7 @@ function Sidebar() {
         ))}
       </View>
       <Link href="/profile" asChild>
-        <Pressable style={({ pressed }) => [styles.sidebarUser, pressed && { backgroundColor: palette.inkRaised }]} accessibilityLabel={`Signed in as ${user.name}`}>
+        <Pressable style={styles.sidebarUser} accessibilityLabel={`Signed in as ${user.name}`}>
           <Initials name={user.name} />
           <View style={{ flex: 1 }}>
             <Text variant="smallStrong" tone="onInk" numberOfLines={1}>
@@ -74,11 +76,7 @@ function SidebarLink({ item, active }: { item: NavItem; active: boolean }) {
         testID={`nav-${item.label.toLowerCase()}`}
         accessibilityLabel={item.label}
         aria-current={active ? 'page' : undefined}
-        style={({ pressed, hovered }: { pressed: boolean; hovered?: boolean }) => [
-          styles.sidebarLink,
-          (pressed || hovered) && !active && { backgroundColor: palette.inkRaised },
-          active && styles.sidebarLinkActive,
-        ]}
+        style={StyleSheet.flatten([styles.sidebarLink, active && styles.sidebarLinkActive])}
       >
         <Icon name={item.icon} size={20} color={active ? palette.onInk : palette.onInkMuted} />
         <Text variant="bodyStrong" tone={active ? 'onInk' : 'onInkMuted'}>
@@ -116,7 +114,7 @@ function BottomBar() {
               testID={`nav-${item.label.toLowerCase()}`}
               accessibilityLabel={item.label}
               aria-current={active ? 'page' : undefined}
-              style={({ pressed }) => [styles.tab, pressed && { backgroundColor: palette.paper }]}
+              style={styles.tab}
             >
               <View style={[styles.tabMarker, active && styles.tabMarkerActive]} />
               <Icon name={item.icon} size={22} color={active ? palette.copper : palette.inkMuted} strokeWidth={active ? 2 : 1.7} />

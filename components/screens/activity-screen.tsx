@@ -22,6 +22,14 @@ const ACTION_LABELS: Record<string, string> = {
   'user.reactivate': 'Reactivated a user',
 };
 
+/** Actions without a label of their own ("filing.create") read as "Filing: create". */
+function actionLabel(action: string): string {
+  if (ACTION_LABELS[action]) return ACTION_LABELS[action];
+  const [noun = action, ...rest] = action.split('.');
+  const what = rest.join(' ').replace(/[-_]/g, ' ');
+  return `${noun.charAt(0).toUpperCase()}${noun.slice(1)}${what ? `: ${what}` : ''}`;
+}
+
 function describe(entry: AuditEntry): string {
   const d = (entry.details ?? {}) as Record<string, unknown>;
   const parts: string[] = [];
@@ -63,7 +71,7 @@ function ActivityList() {
                 </Text>
                 <View style={{ flex: 1, gap: 1 }}>
                   <Text variant="bodyStrong" tone={e.action.endsWith('failed') ? 'fail' : 'ink'}>
-                    {ACTION_LABELS[e.action] ?? e.action}
+                    {actionLabel(e.action)}
                     <Text tone="soft">{` — ${e.actorName ?? 'unknown user'}`}</Text>
                   </Text>
                   {describe(e) ? (

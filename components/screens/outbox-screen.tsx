@@ -49,7 +49,7 @@ function OutboxList() {
                 <Pressable
                   testID={`outbox-item-${m.id}`}
                   accessibilityLabel={`${m.subject}, to ${m.to}`}
-                  style={({ pressed }) => [styles.item, i > 0 && styles.itemDivider, pressed && { backgroundColor: palette.paper }]}
+                  style={StyleSheet.flatten([styles.item, i > 0 && styles.itemDivider])}
                 >
                   <View style={[styles.itemBody, wide && styles.itemBodyWide]}>
                     <View style={{ flex: 1, minWidth: 0 }}>
