@@ -3,22 +3,16 @@
  * engine's own formula, inputs and source clause. The rows come from the real engine
  * (calc/screening) for a small device, served through a mocked API.
  */
+import { fireEvent, screen } from '@testing-library/react-native';
 import { screeningInput } from '../../calc/screening/input';
 import { SCREENING_CAUTIONS, screenParsed } from '../../calc/screening/screen';
 import { ScreeningView } from '../../components/filings/screening-view';
 import type { FilingDetail } from '../../constants/schemas/filings';
 import { installFetchMock } from './support/fetch-mock';
 import { renderWithClient } from './support/render';
-import { byTestId, findByTestId, press, queryByTestId } from './filings-support/by-test-id';
 
-// d3-scale ships ESM only, which this jest config does not transform; the chart is not under test here.
+// The chart is not under test here.
 jest.mock('../../components/charts/depth-profile-chart', () => ({ DepthProfileChart: () => null }));
-// The sheet's Modal portals into document.body, which the test renderer cannot hold: render its
-// content in place (the real sheet is exercised in the browser tests).
-jest.mock('../../components/ui/sheet', () => {
-  const { View } = jest.requireActual('react-native-web');
-  return { Sheet: ({ visible, children, testID }: { visible: boolean; children: React.ReactNode; testID?: string }) => (visible ? <View testID={testID}>{children}</View> : null) };
-});
 
 const transmitters = [{ id: 'BT-LE', technology: 'Bluetooth LE', band: '2.4 GHz ISM', frequencyMinHz: 2402e6, frequencyMaxHz: 2480e6, maxTuneUpPowerDbm: 10, dutyCycle: 0.5, antennaId: 'ANT-1' }];
 const usePositions = [{ id: 'wrist', kind: 'extremity' as const, separations: [{ antennaId: 'ANT-1', separationM: 0.004 }] }];
@@ -56,21 +50,21 @@ describe('ScreeningView', () => {
     installFetchMock({ 'GET /api/filings/7/screening': { status: 200, body: SCREENING } });
     renderWithClient(<ScreeningView filing={FILING} />);
 
-    expect(await findByTestId('summary-fcc')).toHaveTextContent(/1\s*Combinations/);
-    expect(byTestId('screening-cautions')).toHaveTextContent(/accredited laboratory’s measurement counts/);
-    expect(byTestId('screening-versions')).toHaveTextContent(/Engine test-engine · rule set test-rules/);
-    expect(queryByTestId('how-computed-derivation')).toBeNull();
+    expect(await screen.findByTestId('summary-fcc')).toHaveTextContent(/1\s*Combinations/);
+    expect(screen.getByTestId('screening-cautions')).toHaveTextContent(/accredited laboratory’s measurement counts/);
+    expect(screen.getByTestId('screening-versions')).toHaveTextContent(/Engine test-engine · rule set test-rules/);
+    expect(screen.queryByTestId('how-computed-derivation')).toBeNull();
 
     const row = output.rows[0];
-    press(byTestId('cell-0-threshold'));
+    fireEvent.press(screen.getByTestId('cell-0-threshold'));
 
-    const formula = await findByTestId('how-computed-derivation-formula');
+    const formula = await screen.findByTestId('how-computed-derivation-formula');
     expect(formula).toHaveTextContent(row.derivation.formula);
-    expect(byTestId('how-computed-derivation-source')).toHaveTextContent(row.derivation.source);
+    expect(screen.getByTestId('how-computed-derivation-source')).toHaveTextContent(row.derivation.source);
     // 47 CFR §1.1307(b)(3): the rule the FCC row is screened under.
     expect(row.derivation.source).toMatch(/§1\.1307\(b\)\(3\)/);
     // The band's edges are among the frequencies checked.
-    expect(byTestId('how-computed-candidates')).toHaveTextContent(/2402 MHz/);
-    expect(byTestId('how-computed-candidates')).toHaveTextContent(/2480 MHz/);
+    expect(screen.getByTestId('how-computed-candidates')).toHaveTextContent(/2402 MHz/);
+    expect(screen.getByTestId('how-computed-candidates')).toHaveTextContent(/2480 MHz/);
   });
 });
