@@ -1,4 +1,5 @@
-/** Renders a component with a fresh QueryClient (no retries, so failures show at once). */
+/** Renders a component with a fresh QueryClient (no retries, so failures show at once; no gc
+ * timers, which would keep jest from exiting). */
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { render } from '@testing-library/react-native';
 import { SafeAreaProvider } from 'react-native-safe-area-context';
@@ -6,7 +7,7 @@ import { SafeAreaProvider } from 'react-native-safe-area-context';
 export const SAFE_AREA_METRICS = { frame: { x: 0, y: 0, width: 390, height: 844 }, insets: { top: 0, left: 0, right: 0, bottom: 0 } };
 
 export function testQueryClient(): QueryClient {
-  return new QueryClient({ defaultOptions: { queries: { retry: false, gcTime: Infinity }, mutations: { retry: false } } });
+  return new QueryClient({ defaultOptions: { queries: { retry: false, gcTime: Infinity }, mutations: { retry: false, gcTime: Infinity } } });
 }
 
 export function Providers({ client, children }: { client: QueryClient; children: React.ReactNode }) {
