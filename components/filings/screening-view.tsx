@@ -135,9 +135,9 @@ function Count({ label, n, icon, color = palette.ink }: { label: string; n: numb
 }
 
 const COLUMNS: { key: FigureKey | 'tx' | 'pos' | 'market'; label: string; flex: number; numeric?: boolean }[] = [
-  { key: 'tx', label: 'Transmitter', flex: 1 },
+  { key: 'tx', label: 'Transmitter', flex: 1.2 },
   { key: 'pos', label: 'Use position', flex: 1.1 },
-  { key: 'market', label: 'Market', flex: 0.8 },
+  { key: 'market', label: 'Market', flex: 0.7 },
   { key: 'method', label: 'Method', flex: 1.4 },
   { key: 'frequency', label: 'Frequency', flex: 1.05, numeric: true },
   { key: 'evaluated', label: 'Evaluated', flex: 1.05, numeric: true },
