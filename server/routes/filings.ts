@@ -63,7 +63,11 @@ export function filingRoutes({ db }: AppContext): Router {
   });
 
   router.get('/:id/screening', (req, res) => {
-    res.type('application/json').send(screeningService.screeningJsonForFiling(db, actorOf(req.user!), parseWith(zId, req.params.id)));
+    const acceptsGzip = req.acceptsEncodings('gzip') === 'gzip';
+    const response = screeningService.screeningResponseForFiling(db, actorOf(req.user!), parseWith(zId, req.params.id), acceptsGzip);
+    res.vary('Accept-Encoding').type('application/json');
+    if (response.encoding === 'gzip') res.set('Content-Encoding', 'gzip');
+    res.send(response.body);
   });
 
   router.get('/:id/screening/depth-profile', (req, res) => {

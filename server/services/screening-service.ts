@@ -4,6 +4,7 @@
  * computed with, so a signed version can show exactly what it was signed on.
  */
 import { createHash } from 'node:crypto';
+import { gzipSync } from 'node:zlib';
 import { and, eq } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 import { screeningResults } from '../../db/schema';
@@ -38,12 +39,27 @@ function inputFor(detail: ReturnType<typeof getFiling>): ScreeningInput {
   });
 }
 
+/** Gzipped responses of recent stored results; a result never changes once stored. */
+const GZIP_CACHE_ENTRIES = 32;
+const gzipCache = new Map<string, Buffer>();
+
+function rememberGzip(key: string, body: Buffer): Buffer {
+  gzipCache.delete(key);
+  gzipCache.set(key, body);
+  if (gzipCache.size > GZIP_CACHE_ENTRIES) gzipCache.delete(gzipCache.keys().next().value!);
+  return body;
+}
+
+export type ScreeningResponse = { encoding: 'gzip'; body: Buffer } | { encoding: 'identity'; body: string };
+
 /**
- * The screening of a filing's current data. An unchanged filing (same input, engine and
- * rule-set versions) is answered from the stored result without recomputing or re-parsing it:
- * the result is JSON text, and the response is that text with the meta fields in front.
+ * The screening of a filing's current data, as the response body. An unchanged filing (same
+ * input, engine and rule-set versions) is answered from the stored result without recomputing
+ * or re-parsing it: the result is JSON text, and the body is that text with the meta fields in
+ * front. A result is about 4 KB a row (every row carries its derivation), so clients that accept
+ * gzip get it compressed, once per stored result.
  */
-export function screeningJsonForFiling(db: Db, actor: FilingActor, filingId: number): string {
+export function screeningResponseForFiling(db: Db, actor: FilingActor, filingId: number, acceptsGzip: boolean): ScreeningResponse {
   const detail = getFiling(db, actor, filingId);
   const input = inputFor(detail);
   const inputJson = JSON.stringify(input);
@@ -54,13 +70,19 @@ export function screeningJsonForFiling(db: Db, actor: FilingActor, filingId: num
     eq(screeningResults.engineVersion, ENGINE_VERSION),
     eq(screeningResults.ruleSetVersion, RULE_SET_VERSION),
   );
-  let stored = db.select({ output: screeningResults.output, computedAt: screeningResults.computedAt }).from(screeningResults).where(key).get();
+  const complete = detail.steps.every((s) => s.complete);
+  const found = db.select({ id: screeningResults.id }).from(screeningResults).where(key).get();
+  const cacheKey = found && `${found.id}:${filingId}:${complete}`;
+  const cached = cacheKey && acceptsGzip ? gzipCache.get(cacheKey) : undefined;
+  if (cached) return { encoding: 'gzip', body: cached };
+
+  let stored = found && db.select({ id: screeningResults.id, output: screeningResults.output, computedAt: screeningResults.computedAt }).from(screeningResults).where(eq(screeningResults.id, found.id)).get();
   if (!stored) {
     const output = JSON.stringify(screenParsed(input));
     stored = db
       .insert(screeningResults)
       .values({ versionId: detail.version.id, engineVersion: ENGINE_VERSION, ruleSetVersion: RULE_SET_VERSION, inputSha256, input: inputJson, output })
-      .returning({ output: screeningResults.output, computedAt: screeningResults.computedAt })
+      .returning({ id: screeningResults.id, output: screeningResults.output, computedAt: screeningResults.computedAt })
       .get();
   }
   const meta: ScreeningMeta = {
@@ -69,15 +91,17 @@ export function screeningJsonForFiling(db: Db, actor: FilingActor, filingId: num
     engineVersion: ENGINE_VERSION,
     ruleSetVersion: RULE_SET_VERSION,
     computedAt: stored.computedAt,
-    complete: detail.steps.every((s) => s.complete),
+    complete,
     cautions: [...SCREENING_CAUTIONS],
   };
   // `{...meta, ...output}` without parsing the stored output: both are JSON objects.
-  return `${JSON.stringify(meta).slice(0, -1)},${stored.output.slice(1)}`;
+  const body = `${JSON.stringify(meta).slice(0, -1)},${stored.output.slice(1)}`;
+  if (!acceptsGzip) return { encoding: 'identity', body };
+  return { encoding: 'gzip', body: rememberGzip(`${stored.id}:${filingId}:${complete}`, gzipSync(body, { level: 6 })) };
 }
 
 export function screeningForFiling(db: Db, actor: FilingActor, filingId: number): FilingScreening {
-  return JSON.parse(screeningJsonForFiling(db, actor, filingId)) as FilingScreening;
+  return JSON.parse(screeningResponseForFiling(db, actor, filingId, false).body as string) as FilingScreening;
 }
 
 /**

@@ -206,6 +206,11 @@ describe('screening of the demo tracker', () => {
       ['BT-LE@wrist-strap', 'WLAN-2G4@wrist-strap', 'WLAN-5G@wrist-strap'],
     );
     expect(res.body.complete).toBe(false);
+    // Compressed for clients that accept gzip (supertest does), the same JSON for those that do not.
+    expect(res.headers['content-encoding']).toBe('gzip');
+    const plain = await specialist.get(`/api/filings/${filing.id}/screening`).set('Accept-Encoding', 'identity');
+    expect(plain.headers['content-encoding']).toBeUndefined();
+    expect(plain.body).toEqual(res.body);
   });
 
   it('draws SAR against depth for a transmitter at a use position', async () => {
