@@ -59,8 +59,15 @@ export function runCalculation(name: string, rawInput: unknown): CalcOutcome {
   }
 }
 
+let listing: ReturnType<typeof buildListing> | undefined;
+
 /** Name, title, sources and input JSON Schema of every calculation (for `--list` and the API). */
 export function listCalculations() {
+  listing ??= buildListing();
+  return listing;
+}
+
+function buildListing() {
   return [...calculations.values()].map((c) => ({
     name: c.name,
     title: c.title,

@@ -11,3 +11,6 @@ export const ROLE_LABELS: Record<Role, string> = {
   engineer: 'Test engineer',
   approver: 'Approver',
 };
+
+/** Roles in the canonical order of ROLES, whatever order they were given in. */
+export const sortRoles = (roles: readonly Role[]): Role[] => [...roles].sort((a, b) => ROLES.indexOf(a) - ROLES.indexOf(b));

@@ -2,10 +2,7 @@
 import { and, asc, eq } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 import { membershipRoles, memberships, organisations, users } from '../../db/schema';
-import { ROLES, type Role } from '../../constants/schemas/roles';
-
-/** Roles always come back in the canonical order of ROLES. */
-const byRoleOrder = (a: Role, b: Role) => ROLES.indexOf(a) - ROLES.indexOf(b);
+import { sortRoles, type Role } from '../../constants/schemas/roles';
 
 export type UserRow = typeof users.$inferSelect;
 
@@ -46,7 +43,7 @@ export function listMembershipsWithRoles(db: Db, userId: number) {
     if (r.role) m.roles.push(r.role);
     byOrg.set(r.organisationId, m);
   }
-  return [...byOrg.values()].map((m) => ({ ...m, roles: m.roles.sort(byRoleOrder) }));
+  return [...byOrg.values()].map((m) => ({ ...m, roles: sortRoles(m.roles) }));
 }
 
 /** Members of one organisation with their roles there. */
@@ -65,7 +62,7 @@ export function listOrganisationUsers(db: Db, organisationId: number) {
     if (r.role) entry.roles.push(r.role);
     byUser.set(r.user.id, entry);
   }
-  return [...byUser.values()].map((u) => ({ ...u, roles: u.roles.sort(byRoleOrder) }));
+  return [...byUser.values()].map((u) => ({ ...u, roles: sortRoles(u.roles) }));
 }
 
 export function replaceRoles(db: Db, membershipId: number, roles: readonly Role[]): void {

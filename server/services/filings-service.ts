@@ -67,20 +67,31 @@ export function listFilings(db: Db, actor: FilingActor, q: string | undefined, s
   return rows.map((r) => toSummary(r, markets.get(r.version.id) ?? []));
 }
 
-function readData(db: Db, row: repo.FilingRow): FilingDetail['data'] {
+function readDevice(row: repo.FilingRow): FilingDetail['data']['device'] {
   const { device } = row;
   return {
-    device: {
-      name: device.name,
-      model: device.model,
-      applicant: device.applicant,
-      productType: device.productType,
-      hardwareVersion: device.hardwareVersion,
-      firmwareVersion: device.firmwareVersion,
-    },
-    radios: repo.readRadios(db, row.version.id),
-    'use-positions': repo.readUsePositions(db, row.version.id),
-    markets: repo.readMarkets(db, row.version.id),
+    name: device.name,
+    model: device.model,
+    applicant: device.applicant,
+    productType: device.productType,
+    hardwareVersion: device.hardwareVersion,
+    firmwareVersion: device.firmwareVersion,
+  };
+}
+
+const STEP_READERS: { [S in DataStep]: (db: Db, row: repo.FilingRow) => FilingDetail['data'][S] } = {
+  device: (_db, row) => readDevice(row),
+  radios: (db, row) => repo.readRadios(db, row.version.id),
+  'use-positions': (db, row) => repo.readUsePositions(db, row.version.id),
+  markets: (db, row) => repo.readMarkets(db, row.version.id),
+};
+
+function readData(db: Db, row: repo.FilingRow): FilingDetail['data'] {
+  return {
+    device: STEP_READERS.device(db, row),
+    radios: STEP_READERS.radios(db, row),
+    'use-positions': STEP_READERS['use-positions'](db, row),
+    markets: STEP_READERS.markets(db, row),
   };
 }
 
@@ -210,7 +221,7 @@ export function saveStep(db: Db, actor: FilingActor, filingId: number, step: Dat
 
   db.transaction((tx) => {
     // Autosave sends the same data often; only a real change is written and audited.
-    const changed = JSON.stringify(readData(tx, row)[step]) !== JSON.stringify(parsed.data);
+    const changed = JSON.stringify(STEP_READERS[step](tx, row)) !== JSON.stringify(parsed.data);
     if (changed) {
       const data = parsed.data as never;
       if (step === 'device') repo.updateDevice(tx, row.device.id, data);

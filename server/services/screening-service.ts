@@ -10,7 +10,7 @@ import type { Db } from '../../db/client';
 import { screeningResults } from '../../db/schema';
 import { ENGINE_VERSION, RULE_SET_VERSION } from '../../calc/versions';
 import { screeningInput, type ScreeningInput } from '../../calc/screening/input';
-import { SCREENING_CAUTIONS, screenParsed, type ScreeningOutput } from '../../calc/screening/screen';
+import { SCREENING_CAUTIONS, screenParsed } from '../../calc/screening/screen';
 import { screeningDepthProfile } from '../../calc/screening';
 import { dbmToMw, dbiToLinear } from '../../calc/em/units';
 import { notFound, unprocessable } from '../http-error';
@@ -27,8 +27,6 @@ export interface ScreeningMeta {
   cautions: string[];
 }
 
-/** What GET /screening sends: the meta fields plus the engine's output, one JSON object. */
-export type FilingScreening = ScreeningMeta & ScreeningOutput;
 
 function inputFor(detail: ReturnType<typeof getFiling>): ScreeningInput {
   return screeningInput.parse({
@@ -98,10 +96,6 @@ export function screeningResponseForFiling(db: Db, actor: FilingActor, filingId:
   const body = `${JSON.stringify(meta).slice(0, -1)},${stored.output.slice(1)}`;
   if (!acceptsGzip) return { encoding: 'identity', body };
   return { encoding: 'gzip', body: rememberGzip(`${stored.id}:${filingId}:${complete}`, gzipSync(body, { level: 6 })) };
-}
-
-export function screeningForFiling(db: Db, actor: FilingActor, filingId: number): FilingScreening {
-  return JSON.parse(screeningResponseForFiling(db, actor, filingId, false).body as string) as FilingScreening;
 }
 
 /**

@@ -10,7 +10,7 @@ import { memberships, organisations, passwordTokens, users } from '../../db/sche
 import type { SessionUser } from '../../constants/schemas/auth';
 import type { CreateUserInput, UserDto } from '../../constants/schemas/users';
 import type { Role } from '../../constants/schemas/roles';
-import { ROLE_LABELS, ROLES } from '../../constants/schemas/roles';
+import { ROLE_LABELS, sortRoles } from '../../constants/schemas/roles';
 import { renderInvitationMail } from '../../templates/mail/invitation';
 import { conflict, forbidden, notFound, unprocessable } from '../http-error';
 import * as repo from '../repos/users-repo';
@@ -160,7 +160,7 @@ export async function inviteUser(
   input: { email: string; name: string; roles: Role[] },
 ): Promise<CreatedUser> {
   const { user, token, expiresAt, organisationName } = addMember(db, actor.organisationId, actor.id, input);
-  const dto = toDto(user, [...input.roles].sort((a, b) => ROLES.indexOf(a) - ROLES.indexOf(b)));
+  const dto = toDto(user, sortRoles(input.roles));
   if (!token || !expiresAt) return { user: dto, invitation: { sent: false, error: 'The account already has a password; no invitation needed.' } };
   const mail = renderInvitationMail({
     inviteeName: input.name,
