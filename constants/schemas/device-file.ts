@@ -146,6 +146,56 @@ export type UsePosition = z.output<typeof zUsePosition>;
 
 const duplicates = (ids: string[]) => ids.filter((id, i) => ids.indexOf(id) !== i);
 
+type Loose = Record<string, unknown>;
+const isRecord = (v: unknown): v is Loose => typeof v === 'object' && v !== null && !Array.isArray(v);
+const records = (v: unknown): Loose[] => (Array.isArray(v) ? v.map((x) => (isRecord(x) ? x : {})) : []);
+const str = (v: unknown): string | undefined => (typeof v === 'string' ? v : undefined);
+
+/** Duplicate ids and references to ids that do not exist, each at its JSON path. */
+function crossReferenceIssues(value: unknown, ctx: z.RefinementCtx) {
+  if (!isRecord(value)) return;
+  const antennas = records(value.antennas);
+  const transmitters = records(value.transmitters);
+  const usePositions = records(value.usePositions);
+  const markets = records(value.markets);
+  const antennaIds = new Set(antennas.map((a) => str(a.id)));
+  const txIds = new Set(transmitters.map((t) => str(t.id)));
+  const dup = (items: Loose[], path: string) => {
+    const ids = items.map((x) => str(x.id) ?? '');
+    for (const id of new Set(duplicates(ids))) {
+      if (id) ctx.addIssue({ code: 'custom', path: [path, ids.lastIndexOf(id), 'id'], message: `Duplicate id "${id}".` });
+    }
+  };
+  dup(antennas, 'antennas');
+  dup(transmitters, 'transmitters');
+  dup(usePositions, 'usePositions');
+  const regimes = markets.map((m) => str(m.regime) ?? '');
+  for (const regime of new Set(duplicates(regimes))) {
+    if (regime) ctx.addIssue({ code: 'custom', path: ['markets', regimes.lastIndexOf(regime), 'regime'], message: `Market "${regime}" is listed twice.` });
+  }
+  transmitters.forEach((t, i) => {
+    const ref = str(t.antennaId);
+    if (ref !== undefined && !antennaIds.has(ref)) ctx.addIssue({ code: 'custom', path: ['transmitters', i, 'antennaId'], message: `Unknown antenna id "${ref}".` });
+  });
+  usePositions.forEach((p, i) => {
+    const seen = new Set<string>();
+    records(p.separations).forEach((sep, j) => {
+      const ref = str(sep.antennaId);
+      if (ref === undefined) return;
+      if (!antennaIds.has(ref)) ctx.addIssue({ code: 'custom', path: ['usePositions', i, 'separations', j, 'antennaId'], message: `Unknown antenna id "${ref}".` });
+      if (seen.has(ref)) ctx.addIssue({ code: 'custom', path: ['usePositions', i, 'separations', j, 'antennaId'], message: `Antenna "${ref}" has two separations here.` });
+      seen.add(ref);
+    });
+  });
+  (Array.isArray(value.simultaneous) ? value.simultaneous : []).forEach((combo: unknown, i: number) => {
+    if (!Array.isArray(combo)) return;
+    combo.forEach((id: unknown, j: number) => {
+      if (typeof id === 'string' && !txIds.has(id)) ctx.addIssue({ code: 'custom', path: ['simultaneous', i, j], message: `Unknown transmitter id "${id}".` });
+    });
+    if (new Set(combo).size !== combo.length) ctx.addIssue({ code: 'custom', path: ['simultaneous', i], message: 'A combination names each transmitter once.' });
+  });
+}
+
 /** The whole file, with the cross-references checked; every problem carries its JSON path. */
 export const zDeviceFile = z
   .strictObject({
@@ -157,39 +207,8 @@ export const zDeviceFile = z
     usePositions: z.array(zUsePosition).max(MAX_USE_POSITIONS).default([]),
     simultaneous: z.array(z.array(zItemId).min(2, 'A combination names at least two transmitters.')).default([]),
   })
-  .superRefine((f, ctx) => {
-    const antennaIds = new Set(f.antennas.map((a) => a.id));
-    const txIds = new Set(f.transmitters.map((t) => t.id));
-    const dup = (list: string[], path: string) => {
-      for (const id of new Set(duplicates(list))) {
-        const index = list.lastIndexOf(id);
-        ctx.addIssue({ code: 'custom', path: [path, index, 'id'], message: `Duplicate id "${id}".` });
-      }
-    };
-    dup(f.antennas.map((a) => a.id), 'antennas');
-    dup(f.transmitters.map((t) => t.id), 'transmitters');
-    dup(f.usePositions.map((p) => p.id), 'usePositions');
-    const regimes: string[] = f.markets.map((m) => m.regime);
-    for (const regime of new Set(duplicates(regimes))) {
-      ctx.addIssue({ code: 'custom', path: ['markets', regimes.lastIndexOf(regime), 'regime'], message: `Market "${regime}" is listed twice.` });
-    }
-    f.transmitters.forEach((t, i) => {
-      if (!antennaIds.has(t.antennaId)) ctx.addIssue({ code: 'custom', path: ['transmitters', i, 'antennaId'], message: `Unknown antenna id "${t.antennaId}".` });
-    });
-    f.usePositions.forEach((p, i) => {
-      const seen = new Set<string>();
-      p.separations.forEach((s, j) => {
-        if (!antennaIds.has(s.antennaId)) ctx.addIssue({ code: 'custom', path: ['usePositions', i, 'separations', j, 'antennaId'], message: `Unknown antenna id "${s.antennaId}".` });
-        if (seen.has(s.antennaId)) ctx.addIssue({ code: 'custom', path: ['usePositions', i, 'separations', j, 'antennaId'], message: `Antenna "${s.antennaId}" has two separations here.` });
-        seen.add(s.antennaId);
-      });
-    });
-    f.simultaneous.forEach((combo, i) => {
-      combo.forEach((id, j) => {
-        if (!txIds.has(id)) ctx.addIssue({ code: 'custom', path: ['simultaneous', i, j], message: `Unknown transmitter id "${id}".` });
-      });
-      if (new Set(combo).size !== combo.length) ctx.addIssue({ code: 'custom', path: ['simultaneous', i], message: 'A combination names each transmitter once.' });
-    });
-  });
+  // Runs even when other fields already failed, so one answer lists every problem in the file;
+  // hence the defensive reads (a part that failed its own schema may still be raw input).
+  .superRefine((file, ctx) => crossReferenceIssues(file as unknown, ctx), { when: (payload) => isRecord(payload.value) });
 export type DeviceFile = z.output<typeof zDeviceFile>;
 export type DeviceFileInput = z.input<typeof zDeviceFile>;

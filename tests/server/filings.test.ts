@@ -187,6 +187,20 @@ describe('device description file', () => {
     expect((await specialist.get('/api/filings')).body.filings.length).toBe(before);
   });
 
+  it('lists reference problems together with shape problems in one answer', async () => {
+    const bad = structuredClone(DEMO_TRACKER) as typeof DEMO_TRACKER & Record<string, unknown>;
+    bad.device = { ...bad.device!, name: '' };
+    bad.transmitters![0].antennaId = 'ANT-NOWHERE';
+    bad.simultaneous = [['LTE-B2', 'TX-GHOST']];
+    const res = await specialist.post('/api/filings/import').send(bad);
+    expect(res.status).toBe(422);
+    expect(res.body.error.fields).toMatchObject({
+      'device.name': expect.stringMatching(/device name/),
+      'transmitters.0.antennaId': expect.stringMatching(/Unknown antenna id "ANT-NOWHERE"/),
+      'simultaneous.0.1': expect.stringMatching(/Unknown transmitter id "TX-GHOST"/),
+    });
+  });
+
   it('refuses a file of another format', async () => {
     const res = await specialist.post('/api/filings/import').send({ ...DEMO_TRACKER, format: 'something/2' });
     expect(res.status).toBe(422);
