@@ -12,6 +12,7 @@ import type { DbHandle } from '../db/client';
 import type { Config } from './env';
 import type { Mailer } from './services/mailer';
 import type { AppContext } from './context';
+import { createStorages, type Storages } from './storage';
 import { createPassport } from './auth/passport';
 import { createSessionStore } from './auth/session-store';
 import { apiNotFound, errorHandler } from './middleware/errors';
@@ -75,10 +76,12 @@ export interface CreateAppOptions {
   mailer: Mailer;
   /** Serve the exported web app from config.distDir (off in API tests). */
   serveWeb?: boolean;
+  /** Byte storage; defaults to local disk under config.dataDir. */
+  storage?: Storages;
 }
 
-export function createApp({ handle, config, mailer, serveWeb = true }: CreateAppOptions) {
-  const ctx: AppContext = { db: handle.db, config, mailer };
+export function createApp({ handle, config, mailer, serveWeb = true, storage = createStorages(config) }: CreateAppOptions) {
+  const ctx: AppContext = { db: handle.db, config, mailer, storage };
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');

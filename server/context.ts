@@ -2,9 +2,12 @@
 import type { Db } from '../db/client';
 import type { Config } from './env';
 import type { Mailer } from './services/mailer';
+import type { Storages } from './storage';
 
 export interface AppContext {
   db: Db;
   config: Config;
   mailer: Mailer;
+  /** Where bytes live (evidence uploads, packages); see server/storage. */
+  storage: Storages;
 }

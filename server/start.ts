@@ -13,6 +13,9 @@ import { createMailer } from './services/mailer';
 import { startMailCatcher, type MailCatcher } from './services/mail-catcher';
 import { buildWeb, webBuildIsStale } from './web-build';
 import { seedDemo } from '../seeds';
+import { createStorages } from './storage';
+import { sweepOrphans } from './storage/sweep';
+import { referenceSources } from './storage/references';
 import { DEMO_USERS } from '../seeds/demo-people';
 
 async function main() {
@@ -25,13 +28,19 @@ async function main() {
   const handle = openDatabase(config.dbFile);
   applyMigrations(handle.db);
 
+  const storage = createStorages(config);
   const seeded = config.env === 'production' ? undefined : await seedDemo(handle.db, config.demoPassword);
+  // Bytes whose row was never written (a crash between the rename and the insert) and stale
+  // temporary files; a minute's grace for another process's upload in flight.
+  const swept = await sweepOrphans(storage, handle.db, referenceSources, { minAgeMs: 60_000 });
+  const sweptCount = Object.values(swept).reduce((n, r) => n + r.removedObjects.length + r.removedTemporaryFiles, 0);
+  if (sweptCount > 0) console.log(`[fieldfile] storage sweep removed ${sweptCount} orphaned file(s)`);
 
   let catcher: MailCatcher | undefined;
   if (!config.mail.smtp) catcher = await startMailCatcher(handle.db, config.mail.catcherPort);
   const mailer = createMailer(config, handle.db, () => catcher?.port ?? config.mail.catcherPort);
 
-  const { app, close } = createApp({ handle, config, mailer, serveWeb: !dev });
+  const { app, close } = createApp({ handle, config, mailer, serveWeb: !dev, storage });
   const server = app.listen(config.port, config.host, () => {
     const port = (server.address() as AddressInfo).port;
     const url = config.publicUrl.includes(`:${config.port}`) ? config.publicUrl.replace(`:${config.port}`, `:${port}`) : config.publicUrl;
