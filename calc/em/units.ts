@@ -6,7 +6,7 @@
  *   EIRP = ERP · 10^(2.15/10) (= ERP + 2.15 dB ≈ 1.64·ERP)
  *        — ERP is referred to a half-wave dipole, whose gain is 2.15 dBi (≈ 1.64)
  *          (Balanis, "Antenna Theory", 4th ed., §4.6 half-wave dipole directivity 1.643 — from memory;
- *          the factor 1.64 is also used in 47 CFR §1.1307(b)(3)(i)(C), reference file regulatory-limits.md §0)
+ *          the factor 1.64 is also used in 47 CFR §1.1307(b)(3)(i)(C), IEEE Std 145 half-wave dipole gain)
  *   P_avg = P_peak · duty cycle            (time averaging of a pulsed/burst transmission; common practice)
  */
 import { z } from 'zod';

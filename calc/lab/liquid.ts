@@ -4,7 +4,7 @@
  *
  * Source: IEEE Std 1528-2013 Table 3 = IEC/IEEE 62209-1528:2020 head TSL target table, 300 MHz–6 GHz,
  * linear interpolation of εr and σ separately between adjacent entries (table note)
- * (tissue-and-measurement.md §4.1–4.2, status M: values from memory, verify against the standard).
+ * (IEC/IEEE 62209-1528:2020 tissue-simulating liquid targets and interpolation, values from memory, verify against the standard).
  * Tolerances (§4.3, M): ±5 % per parameter (IEEE 1528-2003/-2013, FCC KDB 865664 D01);
  * ±10 % (IEC 62209-1:2016, IEC/IEEE 62209-1528:2020, with SAR correction).
  */
@@ -101,7 +101,7 @@ export function computeLiquidTarget(input: z.output<typeof liquidTargetInput>): 
       result: { relativePermittivity: q(relativePermittivity, '1'), conductivitySPerM: q(conductivitySPerM, 'S/m') },
       source: TABLE_SOURCE,
       notes: [
-        'Target values and the interpolation rule are from memory (tissue-and-measurement.md §4.1–4.2, status M); verify against the standard.',
+        'Target values and the interpolation rule are from memory (IEC/IEEE 62209-1528:2020 tissue-simulating liquid targets and interpolation, from memory); verify against the standard.',
         'IEC/IEEE 62209-1528 extends to 4 MHz–10 GHz; entries outside 300 MHz–6 GHz are not held here.',
       ],
     },

@@ -3,7 +3,7 @@
  *
  * Source: IEEE Std 1528-2013 / IEC/IEEE 62209-1528:2020 and FCC KDB 865664 D01: drift within
  * ±5 % (= +0.212 dB / −0.223 dB), otherwise repeat or account for it in the uncertainty budget
- * (tissue-and-measurement.md §4.4, status M; regulatory-limits.md §3.4 "≈ ±0.2 dB", M — unsure).
+ * (IEC/IEEE 62209-1528:2020 system check and power drift, from memory; FCC KDB 865664 D01 v01r04 "≈ ±0.2 dB", from memory — unsure).
  */
 import { z } from 'zod';
 import { defineCalculation, type WithDerivation } from '../types';
@@ -81,7 +81,7 @@ export function computePowerDrift(input: z.output<typeof powerDriftInput>): With
       result: { driftDb: q(driftDb, 'dB'), driftPct: q(driftPct, '%'), pass: q(pass, 'boolean') },
       source: 'IEEE Std 1528-2013 / IEC/IEEE 62209-1528:2020 power drift; FCC KDB 865664 D01 (±5 %)',
       notes: [
-        'The ±5 % tolerance is from memory (tissue-and-measurement.md §4.4, status M); ±5 % is +0.212 dB / −0.223 dB, not a symmetric ±0.2 dB.',
+        'The ±5 % tolerance is from memory (IEC/IEEE 62209-1528:2020 system check and power drift, from memory); ±5 % is +0.212 dB / −0.223 dB, not a symmetric ±0.2 dB.',
         'A drift outside the tolerance means repeating the scan or accounting for it in the uncertainty budget.',
       ],
     },

@@ -2,7 +2,7 @@
  * Repeated SAR measurements: how many repeats a configuration needs.
  *
  * Source: FCC KDB 865664 D01 v01r04 §2.8.1 (clause number from memory), rule as given in
- * regulatory-limits.md §3.4 [M, from memory]:
+ * FCC KDB 865664 D01 v01r04 (from memory):
  *   1) original highest measured SAR < 0.80 W/kg → no repeat;
  *   2) ≥ 0.80 W/kg → repeat once;
  *   3) second repeat if largest/smallest of original and first repeat > 1.20, or any of them ≥ 1.45 W/kg;
@@ -148,7 +148,7 @@ export function computeRepeatMeasurements(
       },
       source: 'FCC KDB 865664 D01 v01r04 §2.8.1 repeated SAR measurements (from memory; verify against the KDB)',
       notes: [
-        'Thresholds 0.80 / 1.45 / 1.5 W/kg and ratio 1.20 are from memory (regulatory-limits.md §3.4, status M).',
+        'Thresholds 0.80 / 1.45 / 1.5 W/kg and ratio 1.20 are from memory (FCC KDB 865664 D01 v01r04, from memory).',
         ...(factor !== 1 ? [`Thresholds scaled ×${factor} for ${exposure} (KDB 865664 D01; from memory, unsure).`] : []),
         'The first value is the original highest measured SAR of the band/configuration.',
       ],

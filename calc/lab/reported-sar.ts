@@ -3,10 +3,9 @@
  * to the maximum duty cycle, and its margin to the SAR limit.
  *
  * Sources: FCC KDB 447498 D01 v06 ("reported SAR" = measured SAR scaled to the maximum tune-up
- * power, incl. tolerance) and KDB 865664 D01 v01r04 practice [from memory, reference
- * regulatory-limits.md §3.3]; duty-cycle scaling by maximum/measured duty cycle is common practice
+ * power, incl. tolerance) and KDB 865664 D01 v01r04 practice [from memory]; duty-cycle scaling by maximum/measured duty cycle is common practice
  * (KDB 248227 D01 for 802.11 uses 1/duty-cycle) [from memory]. Default limit 1.6 W/kg: 47 CFR
- * §1.1310(c) general population, 1-g (regulatory-limits.md §1.1, confirmed).
+ * §1.1310(c) general population, 1-g (confirmed).
  */
 import { z } from 'zod';
 import { defineCalculation, type WithDerivation } from '../types';

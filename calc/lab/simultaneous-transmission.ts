@@ -2,7 +2,7 @@
  * Simultaneous transmission: sum of SAR and, when the sum is over the limit, the SAR to peak
  * location separation ratio (SPLSR) of each antenna pair.
  *
- * Source: FCC KDB 447498 D01 v06 §4.3.2 (regulatory-limits.md §3.2, all rows status M, from memory):
+ * Source: FCC KDB 447498 D01 v06 §4.3.2 (all rows from memory):
  *   Σ SAR ≤ limit → no simultaneous-transmission measurement;
  *   otherwise SPLSR = (SAR₁ + SAR₂)^1.5 / R_i, SAR in W/kg, R_i the distance between the two
  *   peak-SAR locations in mm (√(Δx² + Δy² + Δz²)), rounded to two decimals, ≤ 0.04 for 1-g
@@ -108,7 +108,7 @@ export function computeSimultaneousTransmission(
   // A single transmitter over the limit has no pair to clear it.
   const pass = sumWithinLimit || (pairs.length > 0 && pairs.every((p) => p.pass));
   const notes = [
-    'Rule from KDB 447498 D01 v06 §4.3.2 as recalled (regulatory-limits.md §3.2, status M): verify before a filing.',
+    'Rule from KDB 447498 D01 v06 §4.3.2 as recalled (from memory): verify before a filing.',
     'When the sum is over the limit, every antenna pair is held to the SPLSR limit, as the reference reads the clause.',
     'SPLSR is rounded to two decimals before comparison (KDB 447498 §4.3.2, from memory).',
   ];

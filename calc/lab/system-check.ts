@@ -3,7 +3,7 @@
  *
  * Source: IEEE Std 1528-2013 / IEC/IEEE 62209-1528:2020 system check and FCC KDB 865664 D01:
  * measured 1-g / 10-g psSAR within ±10 % of the target (numerical or calibration-certificate value)
- * (tissue-and-measurement.md §4.4 and regulatory-limits.md §3.4, status M: from memory).
+ * (IEC/IEEE 62209-1528:2020 system check and power drift and FCC KDB 865664 D01 v01r04, from memory).
  */
 import { z } from 'zod';
 import { defineCalculation, type WithDerivation } from '../types';
@@ -44,7 +44,7 @@ export function computeSystemCheck(input: z.output<typeof systemCheckInput>): Wi
       result: { deviationPct: q(deviationPct, '%'), pass: q(pass, 'boolean') },
       source: 'IEEE Std 1528-2013 / IEC/IEEE 62209-1528:2020 system check; FCC KDB 865664 D01 (±10 %)',
       notes: [
-        'The ±10 % tolerance is from memory (tissue-and-measurement.md §4.4, status M).',
+        'The ±10 % tolerance is from memory (IEC/IEEE 62209-1528:2020 system check and power drift, from memory).',
         'Both values must refer to the same input power (targets are usually normalised to 1 W).',
       ],
     },

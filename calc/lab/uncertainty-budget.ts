@@ -8,7 +8,7 @@
  * u_c = √Σ(c_i·u_i)² (§5.1.2, eq. 10, uncorrelated inputs); U = k·u_c (§6.2);
  * ν_eff = u_c⁴ / Σ (c_i·u_i)⁴/ν_i (Annex G, eq. G.2b). U-shaped (arcsine) a/√2: JCGM 101:2008 §6.4.6
  * / EA-4/02, as used in IEEE 1528 / IEC/IEEE 62209-1528 SAR budgets. Clause numbers from memory
- * (tissue-and-measurement.md §4.5). Expanded-uncertainty ceiling 30 % (k = 2) for psSAR:
+ * (JCGM 100:2008 (GUM) and IEC/IEEE 62209-1528:2020 uncertainty budget). Expanded-uncertainty ceiling 30 % (k = 2) for psSAR:
  * IEEE 1528-2013 / IEC/IEEE 62209-1528 / KDB 865664 [from memory, §4.4].
  */
 import { z } from 'zod';
@@ -120,7 +120,7 @@ export function computeUncertaintyBudget(
   const withinLimit = expandedPct <= limitPct;
   notes.push(
     'GUM G.4.1: for a t-based coverage factor, truncate ν_eff to the next lower integer; this result is unrounded.',
-    'Divisor values √3, √6, √2 and the GUM clause numbers are from memory (tissue-and-measurement.md §4.5).',
+    'Divisor values √3, √6, √2 and the GUM clause numbers are from memory (JCGM 100:2008 (GUM) and IEC/IEEE 62209-1528:2020 uncertainty budget).',
   );
   if (limitPct === SAR_EXPANDED_UNCERTAINTY_LIMIT_PCT) {
     notes.push('30 % expanded-uncertainty ceiling (k = 2) per IEEE 1528-2013 / IEC/IEEE 62209-1528 / KDB 865664 is from memory.');

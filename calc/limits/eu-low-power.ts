@@ -1,10 +1,10 @@
 /**
  * EN 62479:2010 low-power exclusion: equipment whose available antenna power (or average total
  * radiated power) is at most P_max complies without further assessment, with
- * P_max = SAR_BR × m_avg (Annex A principle; reference /work/shared/reference/regulatory-limits.md
- * §7.4, values from memory M; 20 mW corroborated by EN 50371, S). Above the SAR range of 1999/519/EC
+ * P_max = SAR_BR × m_avg (Annex A principle,
+ * values from memory; 20 mW corroborated by EN 50371, secondary source). Above the SAR range of 1999/519/EC
  * and ICNIRP 1998 (10–300 GHz) the basic restriction is a power density over 20 cm², so
- * P_max = S_BR × 20 cm² (reference §7.4 last row, M). EN 62479 covers 10 MHz–300 GHz (reference §7.3).
+ * P_max = S_BR × 20 cm² (EN 62479:2010 Annex A last row, from memory). EN 62479 covers 10 MHz–300 GHz (EN 62479:2010 scope).
  */
 import { z } from 'zod';
 import { CalcRangeError, defineCalculation, type Derivation } from '../types';
@@ -27,7 +27,7 @@ export const euLowPowerExclusionInput = z.object({
 type Input = z.output<typeof euLowPowerExclusionInput>;
 
 // Power-density basic restriction above 10 GHz for 1999/519/EC and ICNIRP 1998: 10 W/m² (public),
-// 50 W/m² (occupational), over 20 cm² (reference §4.1, §7.1, §7.4).
+// 50 W/m² (occupational), over 20 cm² (ICNIRP 1998 Table 4; 1999/519/EC Annex II; EN 62479:2010 Annex A).
 const PD_BR_W_PER_M2 = { general: 10, occupational: 50 } as const;
 const PD_AREA_M2 = 20e-4;
 const PD_SOURCE = {
@@ -74,7 +74,7 @@ export function computeEuLowPowerExclusion(input: Input) {
   const r = euLowPowerExclusion(frequencyHz, regime, tier, region);
   const verdict: Partial<Verdict> = powerMw === undefined ? {} : compareToThreshold(powerMw, r.pMaxMw);
   const notes = [
-    'P_max values are from memory (reference §7.4 status M); 20 mW (2 W/kg × 10 g) is corroborated by EN 50371 (S).',
+    'P_max values are from memory (EN 62479:2010 Annex A); 20 mW (2 W/kg × 10 g) is corroborated by EN 50371 (secondary source).',
     'Compare the available antenna power or the average total radiated power.',
   ];
   if (r.sar) notes.push(...r.sar.notes);

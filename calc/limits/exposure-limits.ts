@@ -1,15 +1,15 @@
 /**
  * Field and power-density exposure limits (MPE / reference levels) against frequency.
  *
- * Tables, as transcribed in /work/shared/reference/regulatory-limits.md:
+ * Tables
  * - FCC: 47 CFR §1.1310 Table 1 — (A) occupational/controlled, (B) general population/uncontrolled
- *   (reference §1.2, status C).
+ *  .
  * - ISED: RSS-102 Issue 5 Table 4 (general public / uncontrolled) and Table 5 (controlled) =
- *   Health Canada Safety Code 6 (2015) Tables 5 and 6 (reference §6.4–6.5, status M: from memory).
+ *   Health Canada Safety Code 6 (2015) Tables 5 and 6 (RSS-102 Issue 5 Tables 4–5, from memory: from memory).
  * - ICNIRP 1998 (Health Phys. 74(4):494–522): Table 7 general public, Table 6 occupational
- *   (reference §4.2–4.3; public C, occupational partly M).
- * - ICNIRP 2020 (Health Phys. 118(5):483–524): Table 5 whole-body, 30 min (reference §5.2, status M)
- *   and Table 6 local, 6 min (reference §5.3, status C).
+ *   (ICNIRP 1998 Tables 6–7; public C, occupational partly, from memory).
+ * - ICNIRP 2020 (Health Phys. 118(5):483–524): Table 5 whole-body, 30 min (from memory)
+ *   and Table 6 local, 6 min .
  *
  * Frequencies inside the tables are in MHz (f_M) or GHz (f_G) as the source prints them; the
  * functions take Hz. A row "a – b" covers a < f ≤ b (ICNIRP 2020 prints this as "> a – b"); the
@@ -64,7 +64,7 @@ export interface AdditionalLimit {
 
 const k = (v: number, text = `${v}`): Cell => ({ at: () => v, text });
 const fn = (at: (fMHz: number) => number, text: string): Cell => ({ at, text });
-/** FCC Table 1 prints S in mW/cm²; 1 mW/cm² = 10 W/m² (reference §0). */
+/** FCC Table 1 prints S in mW/cm²; 1 mW/cm² = 10 W/m² (SI unit conversion). */
 const mwcm2 = (at: (fMHz: number) => number, text: string): Cell => ({
   at: (f) => at(f) * 10,
   text: `${text} mW/cm²`,
@@ -82,7 +82,7 @@ const SIX_MIN = k(6);
 const FCC_PLANE_WAVE = 'S is the plane-wave equivalent power density (marked * in §1.1310 Table 1).';
 const FCC_NO_FIELDS = '§1.1310 Table 1 gives no E or H limit in this range (only power density).';
 
-// 47 CFR §1.1310 Table 1 (A) — occupational/controlled exposure (reference §1.2, status C).
+// 47 CFR §1.1310 Table 1 (A) — occupational/controlled exposure.
 const fccOccupational: LimitTable = {
   source: '47 CFR §1.1310 Table 1 (A), limits for occupational/controlled exposure',
   status: 'C (regulation text)',
@@ -95,7 +95,7 @@ const fccOccupational: LimitTable = {
   ]),
 };
 
-// 47 CFR §1.1310 Table 1 (B) — general population/uncontrolled exposure (reference §1.2, status C).
+// 47 CFR §1.1310 Table 1 (B) — general population/uncontrolled exposure.
 const THIRTY_MIN = k(30);
 const fccGeneral: LimitTable = {
   source: '47 CFR §1.1310 Table 1 (B), limits for general population/uncontrolled exposure',
@@ -109,11 +109,11 @@ const fccGeneral: LimitTable = {
   ]),
 };
 
-// ICNIRP 1998: E², H², S averaged over 6 min up to 10 GHz, over 68/f_G^1.05 min above (reference §4.1–4.2, C).
+// ICNIRP 1998: E², H², S averaged over 6 min up to 10 GHz, over 68/f_G^1.05 min above (ICNIRP 1998 Tables 4 and 7).
 const icnirp1998Averaging = fn((f) => (f <= 10_000 ? 6 : 68 / (f / 1000) ** 1.05), '6 (f ≤ 10 GHz); 68/f_G^1.05 (f > 10 GHz)');
 const NO_S_1998 = 'ICNIRP 1998 gives no equivalent plane-wave power density below 10 MHz.';
 
-// ICNIRP 1998 Table 7, general public (reference §4.2, status C; = 1999/519/EC Annex III).
+// ICNIRP 1998 Table 7, general public (ICNIRP 1998 Table 7; = 1999/519/EC Annex III).
 const icnirp1998General: LimitTable = {
   averagingBreakpointsMHz: [10_000],
   source: 'ICNIRP 1998 (Health Phys. 74(4):494–522) Table 7, reference levels for general public exposure (= 1999/519/EC Annex III)',
@@ -128,8 +128,8 @@ const icnirp1998General: LimitTable = {
   ]),
 };
 
-// ICNIRP 1998 Table 6, occupational (reference §4.3: E and S secondary-confirmed, H partly from memory).
-const H_FROM_MEMORY = 'H from memory (reference §4.3 status M); E and S_eq confirmed from a secondary source.';
+// ICNIRP 1998 Table 6, occupational (E and S secondary-confirmed, H partly from memory).
+const H_FROM_MEMORY = 'H from memory (ICNIRP 1998 Table 6); E and S_eq confirmed from a secondary source.';
 const icnirp1998Occupational: LimitTable = {
   averagingBreakpointsMHz: [10_000],
   source: 'ICNIRP 1998 (Health Phys. 74(4):494–522) Table 6, reference levels for occupational exposure',
@@ -138,14 +138,14 @@ const icnirp1998Occupational: LimitTable = {
     { from: 0.1, to: 1, label: '0.065–1 MHz row (from 100 kHz)', E: k(610), H: fn((f) => 1.6 / f, '1.6/f'), S: null, averagingMin: icnirp1998Averaging, notes: [NO_S_1998, H_FROM_MEMORY] },
     { from: 1, to: 10, label: '1–10 MHz', E: fn((f) => 610 / f, '610/f'), H: fn((f) => 1.6 / f, '1.6/f'), S: null, averagingMin: icnirp1998Averaging, notes: [NO_S_1998, H_FROM_MEMORY] },
     { from: 10, to: 400, label: '10–400 MHz', E: k(61), H: k(0.16), S: k(10), averagingMin: icnirp1998Averaging, notes: [H_FROM_MEMORY] },
-    { from: 400, to: 2000, label: '400–2000 MHz', E: fn((f) => 3 * f ** 0.5, '3 f^½'), H: fn((f) => 0.008 * f ** 0.5, '0.008 f^½'), S: fn((f) => f / 40, 'f/40'), averagingMin: icnirp1998Averaging, notes: ['E and H from memory (reference §4.3 status M); S_eq confirmed from a secondary source.'] },
-    { from: 2000, to: 300_000, label: '2–300 GHz', E: k(137), H: k(0.36), S: k(50), averagingMin: icnirp1998Averaging, notes: ['E and H from memory (reference §4.3 status M); S_eq confirmed from a secondary source.'] },
+    { from: 400, to: 2000, label: '400–2000 MHz', E: fn((f) => 3 * f ** 0.5, '3 f^½'), H: fn((f) => 0.008 * f ** 0.5, '0.008 f^½'), S: fn((f) => f / 40, 'f/40'), averagingMin: icnirp1998Averaging, notes: ['E and H from memory (ICNIRP 1998 Table 6); S_eq confirmed from a secondary source.'] },
+    { from: 2000, to: 300_000, label: '2–300 GHz', E: k(137), H: k(0.36), S: k(50), averagingMin: icnirp1998Averaging, notes: ['E and H from memory (ICNIRP 1998 Table 6); S_eq confirmed from a secondary source.'] },
   ]),
 };
 
-const TABLE5_MEMORY = 'ICNIRP 2020 Table 5 values are from memory (reference §5.2 status M): verify before release.';
+const TABLE5_MEMORY = 'ICNIRP 2020 Table 5 values are from memory (ICNIRP 2020 Table 5): verify before release.';
 const NA_2020 = 'ICNIRP 2020 prints NA for this quantity in this range.';
-// ICNIRP 2020 Table 5, whole-body exposure, averaged over 30 min (reference §5.2, status M).
+// ICNIRP 2020 Table 5, whole-body exposure, averaged over 30 min (from memory).
 const icnirp2020WholeBodyOccupational: LimitTable = {
   source: 'ICNIRP 2020 (Health Phys. 118(5):483–524) Table 5, whole-body reference levels, occupational, 30 min',
   status: 'M (from memory)',
@@ -167,10 +167,10 @@ const icnirp2020WholeBodyGeneral: LimitTable = {
   ]),
 };
 
-// ICNIRP 2020 Table 6, local exposure, averaged over 6 min (reference §5.3, status C).
+// ICNIRP 2020 Table 6, local exposure, averaged over 6 min .
 // ">6 – <300 GHz" excludes 300 GHz, which has its own row.
 const lastRows = (sixTo300: Cell, at300: number) => [
-  { from: 6000, to: 300_000, interval: { min: 6000, max: 300_000, minInclusive: false, maxInclusive: false }, label: '>6–<300 GHz', E: null, H: null, S: sixTo300, averagingMin: SIX_MIN, notes: [NA_2020, 'Above 6 GHz S_inc is averaged over a 4 cm² square projected area (reference §5.3, M).'] },
+  { from: 6000, to: 300_000, interval: { min: 6000, max: 300_000, minInclusive: false, maxInclusive: false }, label: '>6–<300 GHz', E: null, H: null, S: sixTo300, averagingMin: SIX_MIN, notes: [NA_2020, 'Above 6 GHz S_inc is averaged over a 4 cm² square projected area (ICNIRP 2020 Table 6, from memory).'] },
   { from: 300_000, to: 300_000, interval: { min: 300_000, max: 300_000 }, label: '300 GHz', E: null, H: null, S: k(at300), averagingMin: SIX_MIN, notes: [NA_2020] },
 ];
 const icnirp2020LocalOccupational: LimitTable = {
@@ -196,10 +196,10 @@ const icnirp2020LocalGeneral: LimitTable = {
   ]),
 };
 
-// RSS-102 Issue 5 Tables 4/5 (= Safety Code 6 (2015) Tables 5/6), reference §6.4–6.5, status M.
+// RSS-102 Issue 5 Tables 4/5 (= Safety Code 6 (2015) Tables 5/6), RSS-102 Issue 5 Tables 4–5, from memory.
 // Averaging: 6 min up to 15 GHz, 616000/f^1.2 min above (f in MHz).
 const isedAveraging = fn((f) => (f <= 15_000 ? 6 : 616_000 / f ** 1.2), '6 (f ≤ 15 GHz); 616000/f^1.2 (f > 15 GHz)');
-const ISED_MEMORY = 'RSS-102 Issue 5 reference levels are from memory (reference §6.4–6.5 status M): verify before release.';
+const ISED_MEMORY = 'RSS-102 Issue 5 reference levels (Tables 4–5) are from memory: verify before release.';
 const NO_S_ISED = 'RSS-102 gives no power-density reference level below 10 MHz.';
 const isedGeneral: LimitTable = {
   source: 'RSS-102 Issue 5 Table 4, reference levels for the general public (uncontrolled environment) = Safety Code 6 (2015) Table 5',
@@ -329,7 +329,7 @@ export function computeExposureLimit(input: z.output<typeof exposureLimitInput>)
   ];
   if (limit.powerDensityWPerM2 !== null && limit.electricFieldVPerM === null) {
     notes.push(
-      `Plane-wave equivalent E = √(377·S) = ${Math.sqrt(377 * limit.powerDensityWPerM2).toFixed(1)} V/m (reference §0 conversion; not a tabulated limit).`,
+      `Plane-wave equivalent E = √(377·S) = ${Math.sqrt(377 * limit.powerDensityWPerM2).toFixed(1)} V/m (free-space plane-wave conversion, Z0 ≈ 377 Ω; not a tabulated limit).`,
     );
   }
   if (limit.additionalLimits.length) notes.push('additionalLimits lists limits that apply in addition at this frequency.');

@@ -1,7 +1,7 @@
 /**
  * Far-field power density and the distance at which it falls to a limit.
  * S = EIRP / (4πR²) — FCC OET Bulletin 65 (Edition 97-01) Eq. (3), in its EIRP form
- * (reference /work/shared/reference/regulatory-limits.md §0 and worked value §9 #22).
+ * (FCC OET Bulletin 65 Eq. (3)).
  */
 import { z } from 'zod';
 import { defineCalculation, type Derivation, type Quantity } from '../types';

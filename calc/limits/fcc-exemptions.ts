@@ -1,9 +1,9 @@
 /**
  * FCC single-source RF exposure exemptions, 47 CFR §1.1307(b)(3)(i) (FCC 19-126, 85 FR 18131,
- * effective May 3 2021), as transcribed in /work/shared/reference/regulatory-limits.md §2:
- * - (A) 1 mW blanket exemption (reference §2.1, wording from memory, status M);
- * - (B) SAR-based threshold P_th, 0.3–6 GHz, 0.5–40 cm (reference §2.2, status S);
- * - (C) MPE-based ERP threshold, Table 1 to §1.1307(b)(3)(i)(C), R ≥ λ/2π (reference §2.3, status S).
+ * effective May 3 2021)
+ * - (A) 1 mW blanket exemption (47 CFR §1.1307(b)(3)(i)(A), wording from memory);
+ * - (B) SAR-based threshold P_th, 0.3–6 GHz, 0.5–40 cm (47 CFR §1.1307(b)(3)(i)(B), secondary source);
+ * - (C) MPE-based ERP threshold, Table 1 to §1.1307(b)(3)(i)(C), R ≥ λ/2π (Table 1 to 47 CFR §1.1307(b)(3)(i)(C), secondary source).
  */
 import { z } from 'zod';
 import { defineCalculation, type Derivation } from '../types';
@@ -98,8 +98,8 @@ export function computeFccSarExemption(input: z.output<typeof fccSarExemptionInp
     },
     source: SAR_SOURCE,
     notes: [
-      'Compare the greater of the available maximum time-averaged power and the ERP with P_th (reference §2.2, S).',
-      'Formula transcribed from secondary sources (reference status S); checked against the published exhibit value 2.72 mW at 2.48 GHz, 0.5 cm.',
+      'Compare the greater of the available maximum time-averaged power and the ERP with P_th (47 CFR §1.1307(b)(3)(i)(B), secondary source).',
+      'Formula transcribed from secondary sources; checked against the published exhibit value 2.72 mW at 2.48 GHz, 0.5 cm.',
     ],
   };
   return { thresholdMw: p.thresholdMw, erp20cmMw: p.erp20cmMw, exponentX: p.exponentX, ...verdict, derivation };
@@ -127,8 +127,8 @@ interface MpeRow {
   erpW: (rM: number, fMHz: number) => number;
 }
 
-// Table 1 to §1.1307(b)(3)(i)(C), R in m, f in MHz (reference §2.3, S; coefficients re-derived from
-// §1.1310 Table 1(B) in reference §9: 1915.6, 3448, 3.831, 0.01277, 19.16).
+// Table 1 to §1.1307(b)(3)(i)(C), R in m, f in MHz (secondary source; coefficients re-derived from
+// §1.1310 Table 1(B), worked: 1915.6, 3448, 3.831, 0.01277, 19.16).
 const mpeRows: MpeRow[] = [
   { interval: { min: 0.3, max: 1.34 }, label: '0.3–1.34 MHz', formula: '1,920 · R²', erpW: (r) => 1920 * r ** 2 },
   { interval: { min: 1.34, max: 30, minInclusive: false }, label: '1.34–30 MHz', formula: '3,450 · R² / f²', erpW: (r, f) => (3450 * r ** 2) / f ** 2 },
@@ -195,8 +195,8 @@ export function computeFccMpeExemption(input: z.output<typeof fccMpeExemptionInp
     source: `${MPE_SOURCE}, row ${p.row.label}`,
     notes: [
       'At a shared row edge the lower row applies (the rows agree there to the printed precision).',
-      'The available maximum time-averaged power may replace ERP when the radiating structure is ≤ λ/4 or the antenna gain is below a half-wave dipole (from memory, reference §2.3 status M).',
-      'Coefficients checked by re-derivation from §1.1310 Table 1(B): S·4πR²/(4·1.64) (reference §9).',
+      'The available maximum time-averaged power may replace ERP when the radiating structure is ≤ λ/4 or the antenna gain is below a half-wave dipole (from memory, Table 1 to 47 CFR §1.1307(b)(3)(i)(C), from memory).',
+      'Coefficients checked by re-derivation from §1.1310 Table 1(B): S·4πR²/(4·1.64) (worked re-derivation).',
     ],
   };
   return { thresholdErpW: p.thresholdErpW, minimumDistanceM: p.minimumDistanceM, ...verdict, derivation };
@@ -240,7 +240,7 @@ export function computeFcc1mwExemption(input: z.output<typeof fcc1mwExemptionInp
     result: { exempt: q(verdict.exempt, '1'), thresholdMw: q(FCC_BLANKET_EXEMPTION_MW, 'mW'), marginDb: q(verdict.marginDb, 'dB') },
     source: ONE_MW_SOURCE,
     notes: [
-      'Wording of (i)(A) from memory (reference §2.1 status M): applies regardless of separation distance; medical implant devices may use only (i)(A) and (ii)(A).',
+      'Wording of (i)(A) from memory (47 CFR §1.1307(b)(3)(i)(A), from memory): applies regardless of separation distance; medical implant devices may use only (i)(A) and (ii)(A).',
     ],
   };
   return { exempt: verdict.exempt, thresholdMw: FCC_BLANKET_EXEMPTION_MW, marginDb: verdict.marginDb, condition: ONE_MW_CONDITION, derivation };

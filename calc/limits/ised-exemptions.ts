@@ -1,10 +1,10 @@
 /**
  * ISED Canada RSS-102 Issue 5 exemptions, as transcribed in
- * /work/shared/reference/regulatory-limits.md §6:
+ * RSS-102 Issue 5 (March 2015):
  * - §2.5.1 Table 1, SAR evaluation exemption limits (mW) against frequency and separation
- *   (reference §6.2; 2450 MHz at ≤5 and 10 mm confirmed S, the rest from memory M; linear
- *   interpolation between entries M; ≤5 mm column used below 5 mm S; limb-worn ×2.5 M);
- * - §2.5.2 RF exposure evaluation exemption e.i.r.p. limits, separation > 20 cm (reference §6.3, C).
+ *   (RSS-102 Issue 5 §2.5.1 Table 1; 2450 MHz at ≤5 and 10 mm confirmed (secondary source), the rest from memory; linear
+ *   interpolation between entries, from memory; ≤5 mm column used below 5 mm, secondary source; limb-worn ×2.5, from memory);
+ * - §2.5.2 RF exposure evaluation exemption e.i.r.p. limits, separation > 20 cm (RSS-102 Issue 5 §2.5.2).
  * Issue 6 (Dec 2023) revised these tables; its values were not obtained — do not use this module
  * for Issue 6 filings.
  */
@@ -26,7 +26,7 @@ export const isedSarTableSeparationsMm: readonly number[] = [5, 10, 15, 20, 25, 
 export const isedSarTableFrequenciesMHz: readonly number[] = [300, 450, 835, 1900, 2450, 3500, 5800];
 /** Table 1 frequency rows, Hz: the breakpoints of the interpolated threshold. */
 export const isedSarTableFrequenciesHz: readonly number[] = isedSarTableFrequenciesMHz.map((f) => f * 1e6);
-// Exemption limits, mW (reference §6.2).
+// Exemption limits, mW (RSS-102 Issue 5 §2.5.1 Table 1).
 const TABLE_MW: readonly (readonly number[])[] = [
   [71, 101, 132, 162, 193, 223, 254, 284, 315, 345], // ≤ 300 MHz
   [52, 70, 88, 106, 123, 141, 159, 177, 195, 213], // 450
@@ -108,13 +108,13 @@ export function computeIsedSarExemption(input: z.output<typeof isedSarExemptionI
   const t = isedSarExemption(frequencyHz, separationM, limbWorn);
   const verdict: Partial<Verdict> = powerMw === undefined ? {} : compareToThreshold(powerMw, t.thresholdMw);
   const notes = [
-    'Table 1 edges: frequencies at or below 300 MHz use the ≤ 300 MHz row; separations below 5 mm use the ≤ 5 mm column (the reference: an exhibit applies the 5 mm value, S); 50–200 mm use the ≥ 50 mm column.',
-    'Between tabulated frequencies and separations: linear interpolation in frequency and in separation (reference §6.2, from memory M).',
-    'Table values other than 2450 MHz at ≤ 5 mm (4 mW) and 10 mm (7 mW) are from memory (reference status M): verify before release.',
+    'Table 1 edges: frequencies at or below 300 MHz use the ≤ 300 MHz row; separations below 5 mm use the ≤ 5 mm column (an FCC/ISED filing exhibit applies the 5 mm value: secondary source); 50–200 mm use the ≥ 50 mm column.',
+    'Between tabulated frequencies and separations: linear interpolation in frequency and in separation (RSS-102 Issue 5 §2.5.1 Table 1, from memory).',
+    'Table values other than 2450 MHz at ≤ 5 mm (4 mW) and 10 mm (7 mW) are from memory: verify before release.',
     'Compare the source-based time-averaged output power incl. tune-up, the higher of conducted power and e.i.r.p.',
     'Issue 5 values; RSS-102 Issue 6 (Dec 2023) revised the SAR exemption limits (not tabulated here).',
   ];
-  if (limbWorn) notes.push('Limb-worn: Table 1 × 2.5 (reference §6.2, from memory M).');
+  if (limbWorn) notes.push('Limb-worn: Table 1 × 2.5 (RSS-102 Issue 5 §2.5.1 Table 1, from memory).');
   const derivation: Derivation = {
     formula: `P_th = bilinear(Table 1; f, d)${limbWorn ? ' × 2.5' : ''} between the corner entries`,
     inputs: {
@@ -159,7 +159,7 @@ interface RfRow {
   formula: string;
   eirpW: (fMHz: number) => number;
 }
-// §2.5.2 e.i.r.p. exemption limits, f in MHz (reference §6.3, C). Rows are "a ≤ f < b" as printed.
+// §2.5.2 e.i.r.p. exemption limits, f in MHz (RSS-102 Issue 5 §2.5.2). Rows are "a ≤ f < b" as printed.
 const rfRows: RfRow[] = [
   { interval: { min: 0.003, max: 20, maxInclusive: false }, label: 'f < 20 MHz', formula: '1 W', eirpW: () => 1 },
   { interval: { min: 20, max: 48, maxInclusive: false }, label: '20 MHz ≤ f < 48 MHz', formula: '4.49 / f^0.5 W', eirpW: (f) => 4.49 / f ** 0.5 },
@@ -217,7 +217,7 @@ export function computeIsedRfExemption(input: z.output<typeof isedRfExemptionInp
     source: `${RF_SOURCE}, ${row.label}`,
     notes: [
       'Compare the source-based, time-averaged maximum e.i.r.p. including tune-up tolerance.',
-      'Each limit ≈ the Table 4 general-public power density × 4π(0.2 m)² (reference §6.3 check).',
+      'Each limit ≈ the Table 4 general-public power density × 4π(0.2 m)² (RSS-102 Issue 5 §2.5.2 check).',
       'The 3 kHz–300 GHz bounds are RSS-102’s scope (from memory); the rows themselves are open-ended.',
     ],
   };

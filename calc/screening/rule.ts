@@ -56,6 +56,13 @@ export interface ScreeningRule {
   threshold(frequencyHz: number): number | NotApplicable;
   /** The engine's own derivation of the threshold at this frequency. */
   explain(frequencyHz: number): Derivation;
+  /**
+   * How the rule decides at this frequency, when it states its own precision (KDB 447498 §4.3.1
+   * rounding). Without it: exempt when evaluated ≤ threshold, unrounded, margin 10·log10(threshold / evaluated).
+   */
+  decide?(frequencyHz: number): { exempt: boolean; marginDb: number };
+  /** The comparison as the rule states it, for the derivation. */
+  comparisonRule?: string;
   /** KDB 447498 §4.3.2: the SAR an excluded transmitter is taken to contribute to simultaneous-transmission sums. */
   estimatedSarWPerKg?(frequencyHz: number): number;
 }
@@ -99,8 +106,12 @@ export function probe(rules: readonly ScreeningRule[], ruleIndex: number, freque
   const rule = rules[ruleIndex];
   const t = rule.threshold(frequencyHz);
   if (typeof t !== 'number') return { frequencyHz, ruleIndex, threshold: null, result: t.result, marginDb: null, reason: t.notApplicable };
-  const exempt = rule.evaluated <= t;
   const fail = typeof rule.failResult === 'function' ? rule.failResult(frequencyHz) : rule.failResult;
+  if (rule.decide) {
+    const d = rule.decide(frequencyHz);
+    return { frequencyHz, ruleIndex, threshold: t, result: d.exempt ? 'exempt' : fail, marginDb: d.marginDb, reason: null };
+  }
+  const exempt = rule.evaluated <= t;
   return { frequencyHz, ruleIndex, threshold: t, result: exempt ? 'exempt' : fail, marginDb: marginDb(t, rule.evaluated), reason: null };
 }
 
@@ -147,3 +158,9 @@ export const UNIT: Record<ThresholdKind, string> = { 'power-mw': 'mW', 'erp-w': 
 
 /** Four significant figures for text. */
 export const fmt = (x: number): string => `${+x.toPrecision(4)}`;
+
+/** Default comparison of a rule that states no rounding. */
+export const UNROUNDED_COMPARISON = 'compared unrounded: the rule states no rounding, so a value above the threshold by any amount is not exempt';
+
+/** Under this |margin| a one-decimal display reads ±0.0 dB: the derivation then gives the figures in full. */
+export const NEAR_THRESHOLD_DB = 0.05;

@@ -1,7 +1,7 @@
 /**
  * EU and ICNIRP 2020 screening rules:
  * - near-body positions: the EN 62479:2010 low-power exclusion P_max = SAR_BR × m_avg (Annex A
- *   principle; reference §7.4, values M) with the basic restrictions of 1999/519/EC Annex II
+ *   principle; EN 62479:2010 Annex A, values, from memory) with the basic restrictions of 1999/519/EC Annex II
  *   (general public; 2013/35/EU for workers) or ICNIRP 2020 Table 2 — 2 W/kg head/trunk → 20 mW,
  *   4 W/kg limbs → 40 mW (10 g); compared with the available antenna power (time-averaged
  *   conducted power);
@@ -45,7 +45,7 @@ function lowPowerRuleSet(regime: EuLikeRegime, ctx: RuleContext): RuleSet {
     `Body region: ${region === 'limbs' ? 'limbs (extremity position), 4 W/kg general / 20 W/kg occupational over 10 g' : 'head and trunk, 2 W/kg general / 10 W/kg occupational over 10 g'}.`,
     'Compared: available antenna power = time-averaged conducted power (the antenna gain does not enter EN 62479’s P_max).',
   ];
-  if (regime === 'icnirp-2020') notes.push('EN 62479 principle applied with the ICNIRP 2020 basic restrictions (Table 2 values from memory, reference §5.1 M).');
+  if (regime === 'icnirp-2020') notes.push('EN 62479 principle applied with the ICNIRP 2020 basic restrictions (Table 2 values from memory, ICNIRP 2020 Table 2, from memory).');
   return {
     rules: [rule],
     notes,
@@ -101,7 +101,7 @@ function referenceLevelRuleSet(regime: EuLikeRegime, ctx: RuleContext): RuleSet 
   const notes = [
     regime === 'eu'
       ? '1999/519/EC Annex III reference levels are those of ICNIRP 1998 (general public; occupational: ICNIRP 1998 Table 6, whose power densities 2013/35/EU action levels share above 2 GHz).'
-      : 'ICNIRP 2020 Table 5 whole-body reference levels (values from memory, reference §5.2 M).',
+      : 'ICNIRP 2020 Table 5 whole-body reference levels (values from memory).',
     'Margin = 10·log10(S_RL / S).',
   ];
   return {

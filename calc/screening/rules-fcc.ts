@@ -1,12 +1,13 @@
 /**
- * FCC screening rules (reference /work/shared/reference/regulatory-limits.md §2–3):
+ * FCC screening rules:
  * - 47 CFR §1.1307(b)(3)(i)(A): available maximum time-averaged power ≤ 1 mW → exempt at any
- *   distance (wording from memory, reference status M);
+ *   distance (wording from memory);
  * - §1.1307(b)(3)(i)(B): SAR-based threshold P_th for 0.3–6 GHz and 0.5–40 cm, compared with the
  *   greater of the time-averaged power and the ERP;
  * - Table 1 to §1.1307(b)(3)(i)(C): MPE-based ERP threshold, only at R ≥ λ/2π;
  * - KDB 447498 D01 v06 §4.3.1 SAR test exclusion (legacy, when the market chooses it), and the
- *   §4.3.2 estimated SAR of an excluded transmitter.
+ *   §4.3.2 estimated SAR of an excluded transmitter; the verdict is kdbTestExclusion's, at the
+ *   precision §4.3.1 states (P and d rounded to mW and mm, the ratio to one decimal).
  */
 import {
   computeFcc1mwExemption,
@@ -30,7 +31,8 @@ import {
   kdbExclusionThreshold,
   kdbRangeHz,
   kdbSeparationMm,
-  kdbTestRatio,
+  kdbTestExclusion,
+  KDB_COMPARISON_RULE,
 } from '../limits/kdb-447498';
 import { inInterval } from '../limits/range';
 import { formatHz, formatM } from './format';
@@ -113,7 +115,7 @@ function kdbRules(ctx: RuleContext): RuleSet {
   const powerMw = powers.timeAveragedPowerMw;
   const dMm = kdbSeparationMm(separationM);
   const notes = [
-    'KDB 447498 D01 v06 is the legacy procedure (superseded by §1.1307(b)(3) for filings after June 30 2022; reference §3); it is used because this market chose it, and it is not mixed with the §1.1307(b)(3) exemptions (so the 1 mW rule (i)(A) is not applied).',
+    'KDB 447498 D01 v06 is the legacy procedure (superseded by §1.1307(b)(3) for filings after June 30 2022; FCC KDB 447498 D01 v06; FCC TCB workshop, April 2022); it is used because this market chose it, and it is not mixed with the §1.1307(b)(3) exemptions (so the 1 mW rule (i)(A) is not applied).',
     `Compared: maximum time-averaged power incl. tune-up, ${powerMw.toPrecision(4)} mW. ${extremity ? 'Extremity: 10-g ratio 7.5.' : '1-g ratio 3.0.'}`,
   ];
   if (separationM < 0.005) notes.push(`Separation ${formatM(separationM)} is under 5 mm: §4.1 f) takes it as 5 mm.`);
@@ -136,23 +138,12 @@ function kdbRules(ctx: RuleContext): RuleSet {
           throw err;
         }
       },
-      explain(f) {
-        const d = computeKdbSarTestExclusion({ frequencyHz: f, separationM, extremity }).derivation;
-        const t = kdbExclusionThreshold(f, separationM, extremity);
-        const extra = ['Verdict here: unrounded P_avg ≤ P_th (conservative).'];
-        if (t.branch === 'a') {
-          const ratio = kdbTestRatio(powerMw, f, separationM);
-          const roundedExcluded = ratio <= t.ratioLimit;
-          if (roundedExcluded !== powerMw <= t.thresholdMw) {
-            extra.push(
-              `With the KDB rounding (P to ${Math.round(powerMw)} mW, d to ${dMm} mm, ratio to 1 decimal) the ratio is ${ratio.toFixed(1)} ${roundedExcluded ? '≤' : '>'} ${t.ratioLimit}: the lab may apply the rounding, which changes the verdict.`,
-            );
-          } else {
-            extra.push(`Rounded §4.3.1 ratio: ${ratio.toFixed(1)} (limit ${t.ratioLimit}).`);
-          }
-        }
-        return { ...d, notes: [...d.notes, ...extra] };
+      decide(f) {
+        const d = kdbTestExclusion(powerMw, f, separationM, extremity);
+        return { exempt: d.excluded, marginDb: d.marginDb };
       },
+      comparisonRule: KDB_COMPARISON_RULE,
+      explain: (f) => computeKdbSarTestExclusion({ frequencyHz: f, separationM, extremity, powerMw }).derivation,
       estimatedSarWPerKg: (f) => kdbEstimatedSarWPerKg(powerMw, f, separationM, extremity),
     });
   } else {

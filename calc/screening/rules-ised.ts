@@ -1,11 +1,11 @@
 /**
- * ISED screening rules, RSS-102 Issue 5 (reference /work/shared/reference/regulatory-limits.md §6):
+ * ISED screening rules, RSS-102 Issue 5:
  * - §2.5.1 Table 1 SAR evaluation exemption at separations ≤ 20 cm, compared with the
  *   source-based time-averaged output power incl. tune-up, the higher of conducted power and
- *   e.i.r.p. (reference §6.2, S); limb-worn ×2.5 for the extremity kind (M);
+ *   e.i.r.p. (RSS-102 Issue 5 §2.5.1 Table 1, secondary source); limb-worn ×2.5 for the extremity kind (from memory);
  * - §2.5.2 RF exposure evaluation exemption beyond 20 cm, compared with the time-averaged
- *   e.i.r.p. (reference §6.3, C).
- * Issue 6 (Dec 2023) revised both tables; its values were not obtained (reference §6.6).
+ *   e.i.r.p. (RSS-102 Issue 5 §2.5.2).
+ * Issue 6 (Dec 2023) revised both tables; its values were not obtained (RSS-102 Issue 6 (Dec 2023)).
  */
 import {
   computeIsedRfExemption,
@@ -18,19 +18,22 @@ import {
   isedSarTableFrequenciesHz,
 } from '../limits/ised-exemptions';
 import { formatHz, formatM } from './format';
+import { ISED_RULE_EDITION, RULE_SET_VERSION } from '../versions';
 import { sarOrMpe, type RuleContext, type RuleSet } from './rule-set';
 
 const TABLE_1_MAX_SEPARATION_M = 0.2;
 
 export function isedRuleSet(ctx: RuleContext): RuleSet {
   const { separationM, powers, kind, tier } = ctx;
-  const notes: string[] = ['RSS-102 Issue 5 values; Issue 6 (Dec 2023) revised the exemption limits (not tabulated here).'];
+  const notes: string[] = [
+    `Rests on ${ISED_RULE_EDITION}: Issue 6 (15 Dec 2023) superseded it and revised the exemption limits, which are not in this rule set (${RULE_SET_VERSION}).`,
+  ];
   if (tier === 'occupational') notes.push('The RSS-102 exemption limits are set for the general public; applying them to a controlled environment is conservative.');
   if (separationM <= TABLE_1_MAX_SEPARATION_M) {
     const limbWorn = kind === 'extremity';
     const powerMw = Math.max(powers.timeAveragedPowerMw, powers.eirpMw);
     if (kind === 'far-field') notes.push(`Far-field position at ${formatM(separationM)}: RSS-102 §2.5.1 requires the SAR exemption at separations up to 20 cm; §2.5.2 applies only beyond.`);
-    if (limbWorn) notes.push('Extremity: limb-worn device, Table 1 × 2.5 (10-g limit; reference §6.2, from memory).');
+    if (limbWorn) notes.push('Extremity: limb-worn device, Table 1 × 2.5 (10-g limit; RSS-102 Issue 5 §2.5.1 Table 1, from memory).');
     return {
       notes,
       rules: [

@@ -10,11 +10,12 @@ import { q } from '../types';
 import { formatHz } from './format';
 import type { ScreeningInput, ScreeningMarket, ScreeningRegime, ScreeningTransmitter, ScreeningUsePosition, UsePositionKind } from './input';
 import { evaluatedPowers, type EvaluatedPowers } from './power';
-import { fmt, METHOD_LABELS, screenBand, UNIT, type MethodId, type Probe, type ScreeningResult, type ScreeningRule, type ThresholdKind } from './rule';
+import { fmt, METHOD_LABELS, NEAR_THRESHOLD_DB, screenBand, UNIT, UNROUNDED_COMPARISON, type MethodId, type Probe, type ScreeningResult, type ScreeningRule, type ThresholdKind } from './rule';
 import type { RuleContext, RuleSet } from './rule-set';
 import { fccRuleSet } from './rules-fcc';
 import { isedRuleSet } from './rules-ised';
 import { euLikeRuleSet } from './rules-eu';
+import { ISED_PROVISIONAL_REASON, ruleSetWarnings, type RuleSetWarning } from '../versions';
 
 export const SCREENING_CAUTIONS = [
   'Screening results are estimates from the published formulas; where the rules require measurement, only an accredited laboratory’s measurement counts.',
@@ -56,6 +57,10 @@ export interface ScreeningRow {
   marginDb: number | null;
   /** KDB 447498 §4.3.2 estimated SAR of a test-excluded transmitter (highest over the band), W/kg. */
   estimatedSarWPerKg: number | null;
+  /** True when the result stands on a rule set known to be superseded (ISED exempt on RSS-102 Issue 5). */
+  provisional: boolean;
+  /** Why the result is provisional; null when it is not. */
+  provisionalReason: string | null;
   candidates: ScreeningCandidate[];
   derivation: Derivation;
 }
@@ -83,6 +88,8 @@ export interface ScreeningSummary {
 export interface ScreeningOutput {
   rows: ScreeningRow[];
   gaps: ScreeningGap[];
+  /** Rule-set warnings for the markets screened (e.g. Canada on RSS-102 Issue 5). */
+  warnings: RuleSetWarning[];
   summary: ScreeningSummary;
   derivation: Derivation;
 }
@@ -190,6 +197,8 @@ function newRow(c: Combination, v: RowVerdict): ScreeningRow {
     result: v.result,
     marginDb: v.marginDb,
     estimatedSarWPerKg: null,
+    provisional: false,
+    provisionalReason: null,
     candidates: v.candidates,
     derivation: EMPTY_DERIVATION,
   };
@@ -262,6 +271,10 @@ function bandRow(c: Combination, set: RuleSet): ScreeningRow {
       if (r?.estimatedSarWPerKg) row.estimatedSarWPerKg = Math.max(row.estimatedSarWPerKg ?? 0, r.estimatedSarWPerKg(p.frequencyHz));
     }
   }
+  if (c.market.regime === 'ised' && worst.result === 'exempt') {
+    row.provisional = true;
+    row.provisionalReason = ISED_PROVISIONAL_REASON;
+  }
   // The engine's own derivation of the threshold, merged into the row's.
   const ruleDerivation = rule && worst.threshold !== null ? rule.explain(worst.frequencyHz) : null;
   row.derivation = bandDerivation(c, set, row, worst, probes, ruleDerivation);
@@ -280,6 +293,7 @@ function bandDerivation(c: Combination, set: RuleSet, row: ScreeningRow, worst: 
   const others = new Set(probes.filter((p) => p.result !== worst.result).map((p) => p.result));
   if (others.size) notes.push(`Other parts of the band give: ${[...others].join(', ')} (see candidates).`);
   if (worst.reason) notes.push(`Not exempt: ${worst.reason}.`);
+  if (row.provisionalReason) notes.push(row.provisionalReason);
   // Parts of the band under another rule (or none) that did not apply: say why, once per rule.
   const told = new Set([worst.ruleIndex]);
   for (const p of probes) {
@@ -289,6 +303,14 @@ function bandDerivation(c: Combination, set: RuleSet, row: ScreeningRow, worst: 
   }
   if (row.estimatedSarWPerKg !== null) notes.push(`Estimated SAR for simultaneous-transmission sums (KDB 447498 §4.3.2, from memory M): ${fmt(row.estimatedSarWPerKg)} W/kg.`);
   if (rd) notes.push(...rd.notes);
+  if (rule && worst.threshold !== null) {
+    const comparison = rule.comparisonRule ?? UNROUNDED_COMPARISON;
+    if (worst.marginDb !== null && Math.abs(worst.marginDb) < NEAR_THRESHOLD_DB) {
+      notes.push(
+        `At the threshold: evaluated ${rule.evaluated.toPrecision(9)} ${unit} against ${worst.threshold.toPrecision(9)} ${unit}, margin ${worst.marginDb.toPrecision(3)} dB — ${comparison}; result ${worst.result}.`,
+      );
+    }
+  }
   const intermediate = assignAll({}, c.powers.intermediate);
   intermediate.evaluatedQuantity = q(row.evaluatedQuantity, 'text');
   if (rule) intermediate.evaluatedValue = q(rule.evaluated, unit as string);
@@ -301,7 +323,12 @@ function bandDerivation(c: Combination, set: RuleSet, row: ScreeningRow, worst: 
   if (worst.threshold !== null && rule) result.threshold = q(worst.threshold, unit as string);
   result.marginDb = q(row.marginDb, 'dB');
   if (row.estimatedSarWPerKg !== null) result.estimatedSarWPerKg = q(row.estimatedSarWPerKg, 'W/kg');
-  const verdict = rule && worst.threshold !== null ? `exempt if ${rule.kind === 'power-density' ? 'S ≤ S_RL' : 'evaluated ≤ threshold'}; margin = 10·log10(threshold / evaluated) dB` : 'no exemption formula applies: not exempt';
+  const verdict =
+    rule && worst.threshold !== null
+      ? rule.comparisonRule
+        ? `exempt by the ${rule.comparisonRule}; margin at that precision, dB`
+        : `exempt if ${rule.kind === 'power-density' ? 'S ≤ S_RL' : 'evaluated ≤ threshold'}, ${UNROUNDED_COMPARISON}; margin = 10·log10(threshold / evaluated) dB`
+      : 'no exemption formula applies: not exempt';
   return {
     formula: `${c.powers.formula}; ${rd ? rd.formula : row.methodLabel}; ${verdict}`,
     inputs: rowInputs(c),
@@ -346,9 +373,12 @@ export function screenParsed(input: ScreeningInput): ScreeningOutput {
   const notes = [...SCREENING_CAUTIONS];
   if (!input.markets.length) notes.push('No markets selected: nothing to screen.');
   if (gaps.length) notes.push(`${gaps.length} transmitter × use position combination(s) could not be screened (see gaps).`);
+  const warnings = ruleSetWarnings(input.markets.map((m) => m.regime));
+  for (const w of warnings) notes.push(w.message);
   return {
     rows,
     gaps,
+    warnings,
     summary,
     derivation: {
       formula: 'for each transmitter × use position × market: the applicable exemption rule at the band’s most restrictive frequency (edges and breakpoints); result = exempt | evaluate-sar | evaluate-mpe',

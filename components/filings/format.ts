@@ -12,7 +12,14 @@ export function sig(x: number, digits = 4): string {
 export const formatMhz = (hz: number) => `${sig(hz / 1e6, 6)} MHz`;
 export const formatMw = (mw: number) => `${sig(mw)} mW`;
 export const formatMm = (m: number) => `${sig(m * 1000)} mm`;
-export const formatDb = (db: number | null) => (db === null ? '—' : `${db >= 0 ? '+' : '−'}${Math.abs(db).toFixed(1)} dB`);
+/** Margin in dB, one decimal; within ±0.05 dB of the threshold, two significant digits so it never reads "−0.0 dB". */
+export function formatDb(db: number | null): string {
+  if (db === null) return '—';
+  const sign = db >= 0 ? '+' : '−';
+  const abs = Math.abs(db);
+  if (abs === 0) return '+0 dB';
+  return `${sign}${abs < 0.05 ? sig(abs, 2) : abs.toFixed(1)} dB`;
+}
 
 /** A derivation quantity: "1.234 W/kg", text as it is, "Hz" shown as MHz. */
 export function formatQuantity(value: number | string | boolean | null, unit: string): string {

@@ -48,6 +48,11 @@ export function HowComputed({ row, figure }: { row: ScreeningRow; figure: Figure
             {why}
           </Text>
         ) : null}
+        {row.provisionalReason ? (
+          <Text variant="small" tone="soft" testID="how-computed-provisional">
+            {row.provisionalReason}
+          </Text>
+        ) : null}
         <View style={styles.badgeRow}>
           <StatusBadge tone={look.tone} icon={look.icon} label={look.label} />
           <Text variant="small" tone="soft">

@@ -197,6 +197,8 @@ function ScreeningRows({ rows, onOpen }: { rows: ScreeningRowDto[]; onOpen: (row
 
 function ResultBadge({ row }: { row: ScreeningRowDto }) {
   const look = RESULT_LOOK[row.result];
+  // An exemption on a superseded rule set (ISED on RSS-102 Issue 5) is provisional: said in words.
+  if (row.provisional) return <StatusBadge tone="caution" icon="info" label={`${look.label} (provisional)`} />;
   return <StatusBadge tone={look.tone} icon={look.icon} label={look.label} />;
 }
 

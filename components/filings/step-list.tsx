@@ -52,6 +52,18 @@ export function StepList({ filing, activeStep, compact }: { filing: FilingDetail
                     ))}
                   </View>
                 ) : null}
+                {s.warnings?.length && !compact ? (
+                  <View style={styles.problems} testID={`step-warnings-${s.step}`}>
+                    {s.warnings.map((w) => (
+                      <View key={w} style={styles.state}>
+                        <Icon name="info" size={14} color={palette.caution} strokeWidth={2} />
+                        <Text variant="small" tone="soft" style={{ flex: 1 }}>
+                          {`Warning: ${w}`}
+                        </Text>
+                      </View>
+                    ))}
+                  </View>
+                ) : null}
               </View>
             </Pressable>
           </Link>

@@ -108,6 +108,8 @@ export interface StepStatus {
   problems: string[];
   /** Unsaved input with errors is kept as a draft until it validates. */
   hasDraft: boolean;
+  /** Cautions that do not block the step (e.g. Canada screened on a superseded RSS-102 issue). */
+  warnings: string[];
 }
 
 export interface FilingSummary {

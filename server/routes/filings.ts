@@ -6,6 +6,7 @@ import { Router, type RequestHandler } from 'express';
 import { z } from 'zod';
 import { DATA_STEPS, zFilingListQuery, zNewFiling } from '../../constants/schemas/filings';
 import { zDeviceFile } from '../../constants/schemas/device-file';
+import { SCREENING_REGIMES } from '../../calc/screening/input';
 import type { AppContext } from '../context';
 import { requireAuth, requireRole } from '../middleware/auth';
 import { parseWith } from '../middleware/validate';
@@ -71,7 +72,7 @@ export function filingRoutes({ db }: AppContext): Router {
   });
 
   router.get('/:id/screening/depth-profile', (req, res) => {
-    const query = parseWith(z.object({ transmitterId: z.string().min(1).max(40), usePositionId: z.string().min(1).max(40) }), req.query);
+    const query = parseWith(z.object({ transmitterId: z.string().min(1).max(40), usePositionId: z.string().min(1).max(40), regime: z.enum(SCREENING_REGIMES).optional() }), req.query);
     res.json(screeningService.depthProfileForFiling(db, actorOf(req.user!), parseWith(zId, req.params.id), query));
   });
 

@@ -21,6 +21,7 @@ import {
 import { DEVICE_FILE_FORMAT, USE_POSITION_LABELS, type DeviceFile } from '../../constants/schemas/device-file';
 import type { Role } from '../../constants/schemas/roles';
 import { conflict, forbidden, notFound, unprocessable } from '../http-error';
+import { ruleSetWarnings } from '../../calc/versions';
 import { zodFieldErrors } from '../middleware/validate';
 import * as repo from '../repos/filings-repo';
 import { recordAudit } from './audit';
@@ -111,10 +112,11 @@ export function stepStatuses(data: FilingDetail['data'], draftSteps: Set<DataSte
   }
   const markets: string[] = data.markets.markets.length ? [] : ['Pick at least one market.'];
   const byStep: Record<DataStep, string[]> = { device, radios, 'use-positions': positions, markets };
+  const ruleSet = ruleSetWarnings(data.markets.markets.map((m) => m.regime)).map((w) => w.message);
   const statuses: StepStatus[] = DATA_STEPS.map((step) => {
     const problems = [...byStep[step]];
     if (draftSteps.has(step)) problems.push('Some changes have errors and are not saved yet.');
-    return { step, complete: problems.length === 0, problems, hasDraft: draftSteps.has(step) };
+    return { step, complete: problems.length === 0, problems, hasDraft: draftSteps.has(step), warnings: step === 'markets' ? ruleSet : [] };
   });
   const incomplete = statuses.filter((s) => !s.complete).map((s) => s.step);
   statuses.push({
@@ -122,6 +124,7 @@ export function stepStatuses(data: FilingDetail['data'], draftSteps: Set<DataSte
     complete: incomplete.length === 0,
     problems: incomplete.length ? [`Complete ${incomplete.join(', ')} first.`] : [],
     hasDraft: false,
+    warnings: ruleSet,
   });
   return statuses;
 }

@@ -9,10 +9,9 @@ import { and, eq } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 import { screeningResults } from '../../db/schema';
 import { ENGINE_VERSION, RULE_SET_VERSION } from '../../calc/versions';
-import { screeningInput, type ScreeningInput } from '../../calc/screening/input';
+import { screeningInput, type ScreeningInput, type ScreeningRegime } from '../../calc/screening/input';
 import { SCREENING_CAUTIONS, screenParsed } from '../../calc/screening/screen';
 import { screeningDepthProfile } from '../../calc/screening';
-import { dbmToMw, dbiToLinear } from '../../calc/em/units';
 import { notFound, unprocessable } from '../http-error';
 import { getFiling, type FilingActor } from './filings-service';
 
@@ -99,24 +98,36 @@ export function screeningResponseForFiling(db: Db, actor: FilingActor, filingId:
 }
 
 /**
- * SAR against depth in a default head stack for one transmitter at one use position: the
- * incident power density its EIRP would give at that distance (far-field formula — a screening
- * estimate only), through the layered plane-wave model.
+ * SAR against depth in a default head stack for one transmitter at one use position, from the
+ * screening table's own figures: the row's evaluated (time-averaged) EIRP at the row's most
+ * restrictive frequency — the same engine call that builds the table, restricted to this
+ * transmitter and position. `regime` picks the market's row (default: the first market's).
  */
-export function depthProfileForFiling(db: Db, actor: FilingActor, filingId: number, q: { transmitterId: string; usePositionId: string }) {
+export function depthProfileForFiling(db: Db, actor: FilingActor, filingId: number, q: { transmitterId: string; usePositionId: string; regime?: ScreeningRegime }) {
   const detail = getFiling(db, actor, filingId);
-  const tx = detail.data.radios.transmitters.find((t) => t.id === q.transmitterId);
-  const position = detail.data['use-positions'].usePositions.find((p) => p.id === q.usePositionId);
+  const input = inputFor(detail);
+  const tx = input.transmitters.find((t) => t.id === q.transmitterId);
+  const position = input.usePositions.find((p) => p.id === q.usePositionId);
   if (!tx || !position) throw notFound('No such transmitter or use position in this filing.');
-  const antenna = detail.data.radios.antennas.find((a) => a.id === tx.antennaId)!;
-  const separation = position.separations.find((s) => s.antennaId === tx.antennaId);
-  if (!separation) throw unprocessable(`“${position.id}” gives no separation for antenna ${tx.antennaId}; add it under Use positions.`);
-  const eirpW = (dbmToMw(tx.maxTuneUpPowerDbm) / 1000) * tx.dutyCycle * dbiToLinear(antenna.gainDbi);
-  const frequencyHz = (tx.frequencyMinHz + tx.frequencyMaxHz) / 2;
+  if (!position.separations.some((s) => s.antennaId === tx.antennaId)) {
+    throw unprocessable(`“${position.id}” gives no separation for antenna ${tx.antennaId}; add it under Use positions.`);
+  }
+  const markets = q.regime ? input.markets.filter((m) => m.regime === q.regime) : input.markets;
+  if (!markets.length) {
+    throw unprocessable(q.regime ? `This filing has no ${q.regime} market; choose one of its markets.` : 'Choose a market under Markets first: the depth estimate uses the screening table’s figures.');
+  }
+  const { rows } = screenParsed({ ...input, markets: markets.slice(0, 1), transmitters: [tx], usePositions: [position] });
+  const row = rows[0];
+  const eirpW = row.powers.eirpMw / 1000;
+  const profile = screeningDepthProfile({ frequencyHz: row.frequencyHz, eirpW, separationM: row.separationM });
+  profile.derivation.notes.push(
+    `Figures from the screening table’s ${row.regime} row: time-averaged EIRP ${eirpW.toPrecision(4)} W at its most restrictive frequency ${(row.frequencyHz / 1e6).toPrecision(6)} MHz.`,
+  );
   return {
     transmitterId: tx.id,
     usePositionId: position.id,
-    ...screeningDepthProfile({ frequencyHz, eirpW, separationM: separation.separationM }),
+    basis: { regime: row.regime, frequencyHz: row.frequencyHz, eirpW, separationM: row.separationM, method: row.method },
+    ...profile,
     cautions: [
       'A screening estimate from a plane-wave model of layered tissue; it never replaces a SAR measurement where the rules require one.',
       ...SCREENING_CAUTIONS,

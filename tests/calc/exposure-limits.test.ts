@@ -1,11 +1,11 @@
 /**
- * Sources (as transcribed in /work/shared/reference/regulatory-limits.md):
- * - 47 CFR §1.1310 Table 1 (A) occupational and (B) general population (reference §1.2, C);
- * - RSS-102 Issue 5 Tables 4 and 5 = Safety Code 6 (2015) Tables 5 and 6 (reference §6.4–6.5, M;
+ * Sources:
+ * - 47 CFR §1.1310(e) Table 1 (A) occupational and (B) general population;
+ * - RSS-102 Issue 5 Tables 4 and 5 = Safety Code 6 (2015) Tables 5 and 6 (RSS-102 Issue 5 Tables 4–5,, from memory;
  *   edge consistency checked in the reference);
- * - ICNIRP 1998 Tables 6–7 (reference §4.2–4.3);
- * - ICNIRP 2020 Table 5 whole-body (reference §5.2, M) and Table 6 local (reference §5.3, C);
- * - worked values of reference §9: #9, #10 (FCC), #19 (ICNIRP 1998 900 MHz), #20 (ICNIRP 2020 local
+ * - ICNIRP 1998 Tables 6–7;
+ * - ICNIRP 2020 Table 5 whole-body (from memory) and Table 6 local;
+ * - worked values (computed with python3 from the published formulas): #9, #10 (FCC), #19 (ICNIRP 1998 900 MHz), #20 (ICNIRP 2020 local
  *   28 GHz), #21 (ICNIRP 1998 averaging at 28 GHz).
  */
 import { describe, expect, it } from 'vitest';
@@ -15,7 +15,7 @@ import { CalcRangeError } from '../../calc/types';
 import { runCalculation } from '../../calc/registry';
 
 describe('exposure-limit — FCC 47 CFR §1.1310 Table 1', () => {
-  it('reference §9 #9: 850 MHz → GP 0.5667 mW/cm² (5.667 W/m², E_eq 46.2 V/m), Occ 2.833 mW/cm²', () => {
+  it('47 CFR §1.1310 Table 1, worked: 850 MHz → GP 0.5667 mW/cm² (5.667 W/m², E_eq 46.2 V/m), Occ 2.833 mW/cm²', () => {
     const gp = computeExposureLimit({ frequencyHz: 850e6, regime: 'fcc', tier: 'general', exposure: 'whole-body' });
     expect(gp.powerDensityWPerM2).toBeCloseTo(5.667, 3);
     expect(gp.electricFieldVPerM).toBeNull();
@@ -26,7 +26,7 @@ describe('exposure-limit — FCC 47 CFR §1.1310 Table 1', () => {
     expect(exposureLimit(850e6, 'fcc', 'occupational').powerDensityWPerM2! / 10).toBeCloseTo(2.833, 3);
     expect(exposureLimit(850e6, 'fcc', 'occupational').averagingTimeS).toBe(6 * 60);
   });
-  it('reference §9 #10: 2450 MHz → GP 1.0 mW/cm² (10 W/m²), Occ 5 mW/cm²', () => {
+  it('47 CFR §1.1310 Table 1, worked: 2450 MHz → GP 1.0 mW/cm² (10 W/m²), Occ 5 mW/cm²', () => {
     expect(exposureLimit(2450e6, 'fcc', 'general').powerDensityWPerM2).toBeCloseTo(10, 6);
     expect(exposureLimit(2450e6, 'fcc', 'occupational').powerDensityWPerM2).toBeCloseTo(50, 6);
   });
@@ -54,18 +54,18 @@ describe('exposure-limit — FCC 47 CFR §1.1310 Table 1', () => {
 });
 
 describe('exposure-limit — ICNIRP 1998 Tables 6–7', () => {
-  it('reference §9 #19: public 900 MHz → 41.25 V/m, 0.111 A/m, 4.5 W/m²', () => {
+  it('ICNIRP 1998 Table 7, worked: public 900 MHz → 41.25 V/m, 0.111 A/m, 4.5 W/m²', () => {
     const r = exposureLimit(900e6, 'icnirp-1998', 'general');
     expect(r.electricFieldVPerM).toBeCloseTo(41.25, 2);
     expect(r.magneticFieldAPerM).toBeCloseTo(0.111, 3);
     expect(r.powerDensityWPerM2).toBeCloseTo(4.5, 1);
   });
-  it('reference §9 #21: averaging time at 28 GHz = 68/28^1.05 = 2.06 min; 6 min at and below 10 GHz', () => {
+  it('ICNIRP 1998 Table 7 averaging time, worked: averaging time at 28 GHz = 68/28^1.05 = 2.06 min; 6 min at and below 10 GHz', () => {
     expect(exposureLimit(28e9, 'icnirp-1998', 'general').averagingTimeS / 60).toBeCloseTo(2.06, 2);
     expect(exposureLimit(10e9, 'icnirp-1998', 'occupational').averagingTimeS).toBe(360);
     expect(exposureLimitBreakpointsHz('icnirp-1998', 'general')).toContain(10e9);
   });
-  it('reference §4.2/4.3: below 10 MHz no S_eq (null, said in notes); occupational 2–300 GHz 137 V/m, 50 W/m²', () => {
+  it('ICNIRP 1998 Tables 6–7: below 10 MHz no S_eq (null, said in notes); occupational 2–300 GHz 137 V/m, 50 W/m²', () => {
     const r = computeExposureLimit({ frequencyHz: 5e6, regime: 'icnirp-1998', tier: 'general', exposure: 'whole-body' });
     expect(r.powerDensityWPerM2).toBeNull();
     expect(r.electricFieldVPerM).toBeCloseTo(87 / Math.sqrt(5), 6);
@@ -75,7 +75,7 @@ describe('exposure-limit — ICNIRP 1998 Tables 6–7', () => {
 });
 
 describe('exposure-limit — ICNIRP 2020', () => {
-  it('reference §9 #20: local (Table 6) 28 GHz → 55/28^0.177 = 30.49 W/m² (public), 152.5 W/m² (occupational)', () => {
+  it('ICNIRP 2020 Table 6, worked: local (Table 6) 28 GHz → 55/28^0.177 = 30.49 W/m² (public), 152.5 W/m² (occupational)', () => {
     expect(exposureLimit(28e9, 'icnirp-2020', 'general', 'local').powerDensityWPerM2).toBeCloseTo(30.49, 2);
     expect(exposureLimit(28e9, 'icnirp-2020', 'occupational', 'local').powerDensityWPerM2).toBeCloseTo(152.5, 1);
   });
@@ -83,7 +83,7 @@ describe('exposure-limit — ICNIRP 2020', () => {
     expect(exposureLimit(300e9, 'icnirp-2020', 'general', 'local').powerDensityWPerM2).toBe(20);
     expect(exposureLimit(300e9, 'icnirp-2020', 'occupational', 'local').powerDensityWPerM2).toBe(100);
   });
-  it('Table 5 whole-body (from memory, reference §5.2 M): public >2–300 GHz 10 W/m² with E, H NA → null; 30 min', () => {
+  it('Table 5 whole-body (from memory): public >2–300 GHz 10 W/m² with E, H NA → null; 30 min', () => {
     const r = computeExposureLimit({ frequencyHz: 5e9, regime: 'icnirp-2020', tier: 'general', exposure: 'whole-body' });
     expect(r.powerDensityWPerM2).toBe(10);
     expect(r.electricFieldVPerM).toBeNull();
@@ -96,12 +96,12 @@ describe('exposure-limit — ICNIRP 2020', () => {
   });
 });
 
-describe('exposure-limit — RSS-102 Issue 5 Tables 4/5 (from memory, reference §6.4–6.5 M)', () => {
-  it('reference §6.4 edge checks: 0.02619·300^0.6834 = 1.291; 0.02619·6000^0.6834 = 10.00 W/m²', () => {
+describe('exposure-limit — RSS-102 Issue 5 Tables 4/5 (from memory, RSS-102 Issue 5 Tables 4–5, from memory)', () => {
+  it('RSS-102 Issue 5 Table 4 edge checks: 0.02619·300^0.6834 = 1.291; 0.02619·6000^0.6834 = 10.00 W/m²', () => {
     expect(exposureLimit(300e6, 'ised', 'general').powerDensityWPerM2).toBeCloseTo(1.291, 3);
     expect(exposureLimit(6000e6, 'ised', 'general').powerDensityWPerM2).toBeCloseTo(10.0, 2);
   });
-  it('reference §6.5 edge checks: 0.6455·100^0.5 = 6.455; 0.6455·6000^0.5 = 50.0; 44.72/20^0.5 = 10.0 W/m²', () => {
+  it('RSS-102 Issue 5 Table 5 edge checks: 0.6455·100^0.5 = 6.455; 0.6455·6000^0.5 = 50.0; 44.72/20^0.5 = 10.0 W/m²', () => {
     expect(exposureLimit(100e6, 'ised', 'occupational').powerDensityWPerM2).toBeCloseTo(6.455, 3);
     expect(exposureLimit(6000e6, 'ised', 'occupational').powerDensityWPerM2).toBeCloseTo(50.0, 1);
     expect(exposureLimit(20.0001e6, 'ised', 'occupational').powerDensityWPerM2).toBeCloseTo(10.0, 1);
@@ -114,7 +114,7 @@ describe('exposure-limit — RSS-102 Issue 5 Tables 4/5 (from memory, reference 
   });
 });
 
-// Boundaries where the source is continuous in S (reference §1.2 rows; §6.4–6.5 edge checks;
+// Boundaries where the source is continuous in S (47 CFR §1.1310(e) Table 1 rows; RSS-102 Issue 5 Tables 4–5 edge checks;
 // ICNIRP 1998 at 400 and 2000 MHz: f/200 = 2 and 10). Tolerance: the printed 3–4 figures.
 const continuousS: [(typeof exposureRegimes)[number], (typeof tiers)[number], number][] = [
   ['fcc', 'occupational', 3e6],

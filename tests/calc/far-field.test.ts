@@ -1,8 +1,7 @@
 /**
  * Sources:
- * - FCC OET Bulletin 65 (Edition 97-01) Eq. (3), S = EIRP/(4πR²) (reference
- *   /work/shared/reference/regulatory-limits.md §0);
- * - worked value of reference §9 #22: 1 W EIRP at 20 cm → 0.199 mW/cm².
+ * - FCC OET Bulletin 65 (Edition 97-01) Eq. (3), S = EIRP/(4πR²);
+ * - worked value of FCC OET Bulletin 65 Eq. (3): 1 W EIRP at 20 cm → 0.199 mW/cm².
  */
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
@@ -10,7 +9,7 @@ import { complianceDistanceM, computeComplianceDistance, computeFarFieldPowerDen
 import { runCalculation } from '../../calc/registry';
 
 describe('far-field-power-density — OET 65 Eq. (3)', () => {
-  it('reference §9 #22: 1 W EIRP at 20 cm → 0.199 mW/cm² (1.989 W/m²)', () => {
+  it('FCC OET Bulletin 65 Eq. (3), worked: 1 W EIRP at 20 cm → 0.199 mW/cm² (1.989 W/m²)', () => {
     const r = computeFarFieldPowerDensity({ eirpW: 1, distanceM: 0.2 });
     expect(r.powerDensityWPerM2 / 10).toBeCloseTo(0.199, 3);
     expect(r.derivation.source).toMatch(/OET Bulletin 65/);
@@ -26,7 +25,7 @@ describe('far-field-power-density — OET 65 Eq. (3)', () => {
 });
 
 describe('compliance-distance — OET 65 Eq. (3) solved for R', () => {
-  it('reference §9 #22 inverted: 1 W EIRP, limit 1.989 W/m² → 0.2 m; 10 W/m² (FCC GP at 2.45 GHz) → 8.92 cm', () => {
+  it('FCC OET Bulletin 65 Eq. (3), worked inverted: 1 W EIRP, limit 1.989 W/m² → 0.2 m; 10 W/m² (FCC GP at 2.45 GHz) → 8.92 cm', () => {
     expect(complianceDistanceM(1, farFieldPowerDensityWPerM2(1, 0.2))).toBeCloseTo(0.2, 12);
     expect(computeComplianceDistance({ eirpW: 1, limitWPerM2: 10 }).distanceM).toBeCloseTo(0.0892, 4);
   });

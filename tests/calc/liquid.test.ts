@@ -1,9 +1,9 @@
 /**
  * liquid-target / liquid-check — sources:
  * - Head TSL targets: IEEE Std 1528-2013 Table 3 = IEC/IEEE 62209-1528:2020 target table, as given in
- *   tissue-and-measurement.md §4.1 (status M, from memory).
+ *   IEC/IEEE 62209-1528:2020 tissue-simulating liquid targets (from memory).
  * - Linear interpolation and its worked example (1950 MHz → 40.0 / 1.40; 2200 MHz → 39.65 / 1.58 S/m):
- *   tissue-and-measurement.md §4.2 (rule M, arithmetic X).
+ *   IEC/IEEE 62209-1528:2020 interpolation rule (rule from memory; arithmetic computed).
  * - Tolerances: ±5 % IEEE 1528 / KDB 865664 D01, ±10 % IEC/IEEE 62209-1528 (§4.3, M).
  */
 import { describe, expect, it } from 'vitest';

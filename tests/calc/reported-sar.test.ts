@@ -1,9 +1,9 @@
 /**
  * reported-sar — sources:
  * - FCC KDB 447498 D01 v06 / KDB 865664 D01 v01r04: reported SAR = measured SAR scaled to the
- *   maximum tune-up power (regulatory-limits.md §3.3, from memory).
+ *   maximum tune-up power (FCC KDB 447498 D01 v06, from memory).
  * - Duty-cycle scaling maximum/measured: common practice (KDB 248227 D01 for 802.11, from memory).
- * - Default limit 1.6 W/kg: 47 CFR §1.1310(c), 1-g general population (regulatory-limits.md §1.1, confirmed).
+ * - Default limit 1.6 W/kg: 47 CFR §1.1310(c), 1-g general population (47 CFR §1.1310(a)–(c), confirmed).
  * Expected numbers are hand-computed from those formulas (10^(1/10) = 1.258925…).
  */
 import fc from 'fast-check';

@@ -1,10 +1,10 @@
 /**
- * Sources (as transcribed in /work/shared/reference/regulatory-limits.md):
- * - 47 CFR §1.1310(a)–(c) (reference §1.1, C);
- * - RSS-102 Issue 5 §4 Table 3 (reference §6.1: 1.6 W/kg S, rest M);
- * - ICNIRP 1998 basic restrictions (reference §4.1, C);
- * - ICNIRP 2020 Table 2 (reference §5.1, values M, averaging/mass S);
- * - 1999/519/EC Annex II (reference §7.1, C) and 2013/35/EU ELVs (reference §7.5, C).
+ * Sources:
+ * - 47 CFR §1.1310(a)–(c);
+ * - RSS-102 Issue 5 §4 Table 3 (1.6 W/kg from a secondary source, the rest from memory);
+ * - ICNIRP 1998 basic restrictions (ICNIRP 1998 Table 4);
+ * - ICNIRP 2020 Table 2 (values from memory, averaging time and mass from a secondary source);
+ * - 1999/519/EC Annex II and 2013/35/EU ELVs (Directive 2013/35/EU Annex III).
  */
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';

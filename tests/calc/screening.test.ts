@@ -2,9 +2,8 @@
  * Screening (calc/screening) — sources:
  * - 47 CFR §1.1307(b)(3)(i)(A)–(C) (FCC 19-126), FCC KDB 447498 D01 v06 §4.3.1–4.3.2, RSS-102 Issue 5
  *   §2.5.1 Table 1 and §2.5.2, EN 62479:2010 Annex A, 1999/519/EC Annex III (= ICNIRP 1998), ICNIRP
- *   2020 Table 5, FCC OET Bulletin 65 Eq. (3) — as transcribed in
- *   /work/shared/reference/regulatory-limits.md (section numbers below are that file's);
- * - its §9 worked values (#1–#4, #7, #11, #13, #15, #17–#19, #22), reproduced through whole-device
+ *   2020 Table 5, FCC OET Bulletin 65 Eq. (3);
+ * - worked values of those formulas (python3) (#1–#4, #7, #11, #13, #15, #17–#19, #22), reproduced through whole-device
  *   screening;
  * - hand arithmetic shown in the comments (python3 to the digits printed).
  * Each row's threshold is also checked against the engine function it comes from (calc/limits).
@@ -32,6 +31,7 @@ import {
 } from '../../calc/limits';
 import { planeWaveLayers } from '../../calc/em';
 import { runCalculation } from '../../calc/registry';
+import { RULE_SET_VERSION, ruleSetWarnings } from '../../calc/versions';
 
 const everyMarket = [
   { regime: 'fcc', tier: 'general' },
@@ -89,7 +89,7 @@ const demoKdb = screenDevice(withMarkets([{ regime: 'fcc', tier: 'general', fccS
 //   ble      0 dBm × 0.7   = 0.700 mW; EIRP = ERP·1.64 = 0.700 mW (0 dBi)
 
 describe('screening: demo device, evaluated power (tune-up × duty cycle; ERP = EIRP − 2.15 dB)', () => {
-  it('wifi-2g4: P_avg 59.941 mW, EIRP 106.592 mW, ERP 64.972 mW (hand arithmetic above; reference §0 for 2.15 dB)', () => {
+  it('wifi-2g4: P_avg 59.941 mW, EIRP 106.592 mW, ERP 64.972 mW (hand arithmetic above; IEEE Std 145-2013 half-wave dipole gain 2.15 dBi)', () => {
     const { powers } = rowOf(demo, 'wifi-2g4', 'head-5', 'fcc');
     expect(powers.tuneUpPowerMw).toBeCloseTo(63.0957, 4);
     expect(powers.timeAveragedPowerMw).toBeCloseTo(59.941, 3);
@@ -101,7 +101,7 @@ describe('screening: demo device, evaluated power (tune-up × duty cycle; ERP = 
 describe('screening: FCC §1.1307(b)(3)(i) on the demo device', () => {
   it('(B) wifi-2g4 at the head, 5 mm: most restrictive 2.472 GHz, P_th = 2.7243 mW, ERP compared (greater than P_avg)', () => {
     // ERP_20cm = 3060 mW (f ≥ 1.5 GHz); x = −log10(60/(3060·√2.472)) = 1.904094;
-    // P_th = 3060·(0.5/20)^1.904094 = 2.72426 mW (reference §9 #5 gives 2.717 at 2.48 GHz: consistent).
+    // P_th = 3060·(0.5/20)^1.904094 = 2.72426 mW (an FCC filing exhibit prints 2.72 (2.717) at 2.48 GHz: consistent).
     const row = rowOf(demo, 'wifi-2g4', 'head-5', 'fcc');
     expect(row.method).toBe('fcc-sar-exemption');
     expect(row.frequencyHz).toBe(2.472e9);
@@ -213,7 +213,7 @@ describe('screening: ISED RSS-102 Issue 5 on the demo device', () => {
     expect(row.result).toBe('evaluate-sar');
   });
 
-  it('extremity kind: limb-worn Table 1 × 2.5 (reference §6.2, from memory)', () => {
+  it('extremity kind: limb-worn Table 1 × 2.5 (RSS-102 Issue 5 §2.5.1 Table 1, from memory)', () => {
     const hand = rowOf(demo, 'ble', 'hand-3', 'ised');
     const belt = rowOf(demo, 'ble', 'belt-3', 'ised');
     expect(hand.thresholdMw).toBeCloseTo(2.5 * (belt.thresholdMw as number), 10);
@@ -320,7 +320,7 @@ describe('screening: rows, gaps and summary of the demo device', () => {
   });
 });
 
-/** Single-frequency transmitters for the reference file's worked values. */
+/** Single-frequency transmitters for the worked values of the published formulas. */
 function single(frequencyHz: number, tuneUpDbm: number, separationM: number, kind: 'head' | 'body-worn' | 'extremity' | 'far-field', market: ScreeningInputRaw['markets'][number], gainDbi = 0) {
   const out = screenDevice({
     markets: [market],
@@ -331,7 +331,75 @@ function single(frequencyHz: number, tuneUpDbm: number, separationM: number, kin
   return out.rows[0];
 }
 
-describe('screening reproduces the worked values of reference §9', () => {
+// KDB 447498 D01 v06 §4.3.1 a): "power and distance are rounded to the nearest mW and mm before
+// calculation; the result is rounded to one decimal place for comparison". 2.45 GHz, 5 mm: P_th =
+// 3.0·5/√2.45 = 9.583 mW unrounded, but 9.55 mW rounds to 10 mW → (10/5)·1.5652 = 3.13 → 3.1 > 3.0.
+describe('screening and the kdb-sar-test-exclusion calculation decide alike (§4.3.1 rounding)', () => {
+  const kdb = { regime: 'fcc', tier: 'general', fccSarScreening: 'kdb-test-exclusion' } as const;
+  const cases: [powerMw: number, frequencyHz: number, separationM: number, kind: 'head' | 'extremity'][] = [
+    [9.55, 2.45e9, 0.005, 'head'], // unrounded 9.55 < 9.583 would exempt; the rule says not excluded
+    [9.4, 2.45e9, 0.005, 'head'], // 9 mW → 2.8: excluded
+    [9.5, 2.45e9, 0.0054, 'head'], // 10 mW, 5 mm → 3.1: not excluded
+    [24.4, 2.45e9, 0.005, 'extremity'], // 24 mW → 7.5 ≤ 7.5: excluded (10-g)
+    [0.4, 2.45e9, 0.005, 'head'], // rounds to 0 mW: excluded
+    [600.4, 2.45e9, 0.1, 'head'], // b) 2): 600 mW > 595.8 mW
+    [595.4, 2.45e9, 0.1, 'head'], // b) 2): 595 mW ≤ 595.8 mW
+  ];
+  it.each(cases)('%s mW at %s Hz, %s m (%s): same verdict and margin', (powerMw, frequencyHz, separationM, kind) => {
+    const row = single(frequencyHz, 10 * Math.log10(powerMw), separationM, kind, kdb);
+    const calc = runCalculation('kdb-sar-test-exclusion', { frequencyHz, separationM, extremity: kind === 'extremity', powerMw });
+    if (!calc.ok) throw new Error('calculation failed');
+    const out = calc.result as { excluded: boolean; marginDb: number };
+    expect(row.result === 'exempt').toBe(out.excluded);
+    expect(row.marginDb).toBeCloseTo(out.marginDb, 12);
+    expect(row.derivation.formula).toMatch(/rounded to the nearest mW and mm/);
+  });
+  it('9.55 mW at 5 mm, 2.45 GHz: evaluate SAR, margin 10·log10(3.0/3.1) = −0.142 dB at the rule’s precision', () => {
+    const row = single(2.45e9, 10 * Math.log10(9.55), 0.005, 'head', kdb);
+    expect(row.result).toBe('evaluate-sar');
+    expect(row.marginDb).toBeCloseTo(10 * Math.log10(3.0 / 3.1), 9);
+  });
+});
+
+// A value at the threshold: 13.0103 dBm is 20.00004 mW; 47 CFR §1.1307(b)(3)(i)(B) states no rounding.
+describe('a comparison at the threshold says how it was made', () => {
+  it('the derivation gives the figures in full and the rule’s precision when |margin| reads ±0.0 dB', () => {
+    const fcc = { regime: 'fcc', tier: 'general' } as const;
+    const base = single(2.45e9, 20, 0.015, 'head', fcc); // P_th at 1.5 cm
+    const atDbm = 10 * Math.log10(base.thresholdMw!) + 1e-6;
+    const row = single(2.45e9, atDbm, 0.015, 'head', fcc);
+    expect(row.result).toBe('evaluate-sar');
+    expect(Math.abs(row.marginDb!)).toBeLessThan(1e-5);
+    const note = row.derivation.notes.find((n) => n.startsWith('At the threshold'));
+    expect(note).toMatch(/compared unrounded: the rule states no rounding/);
+    expect(note).toMatch(/margin -\d/);
+    expect(row.derivation.formula).toMatch(/compared unrounded/);
+  });
+});
+
+// RSS-102 Issue 6 (ISED, 15 Dec 2023) superseded Issue 5 after a one-year transition; its exemption
+// tables are not in the rule set, so ISED results say they rest on Issue 5 and exemptions are provisional.
+describe('ISED results say what they rest on', () => {
+  it('every ISED row names RSS-102 Issue 5; every ISED exemption is provisional with the reason; no other regime is', () => {
+    const isedRows = demo.rows.filter((r) => r.regime === 'ised');
+    expect(isedRows.length).toBeGreaterThan(0);
+    for (const row of isedRows) {
+      expect(row.derivation.notes.join(' ')).toMatch(/RSS-102 Issue 5/);
+      expect(row.provisional).toBe(row.result === 'exempt');
+      if (row.provisional) expect(row.provisionalReason).toMatch(/Issue 6.*not in this rule set/);
+    }
+    expect(isedRows.some((r) => r.provisional)).toBe(true);
+    expect(demo.rows.filter((r) => r.regime !== 'ised').every((r) => !r.provisional && r.provisionalReason === null)).toBe(true);
+  });
+  it('the output and the rule-set version carry the Canada warning', () => {
+    expect(RULE_SET_VERSION).toMatch(/rss102-issue5/);
+    expect(demo.warnings.map((w) => w.code)).toEqual(['ised-rss102-issue5']);
+    expect(ruleSetWarnings(['fcc', 'eu'])).toEqual([]);
+    expect(screenDevice(withMarkets([{ regime: 'fcc', tier: 'general' }])).warnings).toEqual([]);
+  });
+});
+
+describe('screening reproduces the worked values of the published formulas', () => {
   const fcc = { regime: 'fcc', tier: 'general' } as const;
   const kdb = { regime: 'fcc', tier: 'general', fccSarScreening: 'kdb-test-exclusion' } as const;
   it('#1–#4 FCC P_th: 2.744 mW (2.45 GHz, 0.5 cm), 43.72 mW (0.835 GHz, 1.5 cm), 39.71 mW (5.8 GHz, 2.5 cm), 3060 mW (1.9 GHz, 30 cm)', () => {
@@ -361,7 +429,7 @@ describe('screening reproduces the worked values of reference §9', () => {
     expect(r.thresholdEirpW).toBe(isedRfExemptionEirpW(2.45e9, 0.5));
     expect(single(5.8e9, 20, 0.5, 'far-field', ised).thresholdEirpW).toBeCloseTo(4.889, 3);
   });
-  it('RSS-102 Table 1 at 2450 MHz: 4 mW at ≤ 5 mm, 7 mW at 10 mm (reference §6.2, the confirmed cells)', () => {
+  it('RSS-102 Table 1 at 2450 MHz: 4 mW at ≤ 5 mm, 7 mW at 10 mm (RSS-102 Issue 5 §2.5.1 Table 1, the confirmed cells)', () => {
     const ised = { regime: 'ised', tier: 'general' } as const;
     expect(single(2.45e9, 0, 0.005, 'head', ised).thresholdMw).toBe(4);
     expect(single(2.45e9, 0, 0.01, 'head', ised).thresholdMw).toBe(7);
@@ -440,7 +508,7 @@ describe('screening-depth-profile: SAR against depth in the default head stack (
     expect(DEFAULT_HEAD_STACK.map((l) => l.tissue)).toEqual(['skin-dry', 'fat', 'bone-cortical', 'brain-grey-matter']);
     expect(DEFAULT_HEAD_STACK[DEFAULT_HEAD_STACK.length - 1].thicknessM).toBeNull();
   });
-  it('incident S = EIRP/(4πR²): 1 W at 20 cm = 1.989 W/m² (reference §9 #22), and the profile is plane-wave-layers at that S', () => {
+  it('incident S = EIRP/(4πR²): 1 W at 20 cm = 1.989 W/m² (FCC OET Bulletin 65 Eq. (3), worked), and the profile is plane-wave-layers at that S', () => {
     const p = screeningDepthProfile({ frequencyHz: 2.45e9, eirpW: 1, separationM: 0.2 });
     expect(p.incidentPowerDensityWPerM2).toBeCloseTo(1.989, 3);
     expect(p.estimate).toBe('screening');

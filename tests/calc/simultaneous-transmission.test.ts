@@ -1,7 +1,6 @@
 /**
- * simultaneous-transmission — source: FCC KDB 447498 D01 v06 §4.3.2 (regulatory-limits.md §3.2,
- * status M, from memory): Σ SAR ≤ limit; else SPLSR = (SAR₁+SAR₂)^1.5 / R_i, R_i in mm, rounded to
- * two decimals, ≤ 0.04 (1-g), ≤ 0.10 (10-g, unsure). Worked value: regulatory-limits.md §9 row 16
+ * simultaneous-transmission — source: FCC KDB 447498 D01 v06 §4.3.2 (from memory): Σ SAR ≤ limit; else SPLSR = (SAR₁+SAR₂)^1.5 / R_i, R_i in mm, rounded to
+ * two decimals, ≤ 0.04 (1-g), ≤ 0.10 (10-g, unsure). Worked value: KDB 447498 §4.3.2 SPLSR, worked (from memory)
  * (SAR 1.2 + 0.6 W/kg: 0.060 at 40 mm, 0.037 at 65 mm).
  */
 import { describe, expect, it } from 'vitest';
@@ -26,7 +25,7 @@ describe('simultaneous-transmission (KDB 447498 D01 v06 §4.3.2, from memory)', 
     expect(r.pairs).toEqual([]);
   });
 
-  it('reference §9 row 16: 1.2 + 0.6 W/kg at 40 mm → SPLSR 0.060 > 0.04, measurement required', () => {
+  it('KDB 447498 D01 v06 §4.3.2 SPLSR (from memory), worked: 1.2 + 0.6 W/kg at 40 mm → SPLSR 0.060 > 0.04, measurement required', () => {
     const r = simultaneousTransmission({ limitWPerKg: 1.6, transmitters: pair(0.04) });
     expect(r.sumWPerKg).toBeCloseTo(1.8, 12);
     expect(r.pairs).toHaveLength(1);
@@ -38,7 +37,7 @@ describe('simultaneous-transmission (KDB 447498 D01 v06 §4.3.2, from memory)', 
     expect(r.measurementRequired).toBe(true);
   });
 
-  it('reference §9 row 16: same pair at 65 mm → SPLSR 0.037 ≤ 0.04, excluded', () => {
+  it('KDB 447498 D01 v06 §4.3.2 SPLSR (from memory), worked: same pair at 65 mm → SPLSR 0.037 ≤ 0.04, excluded', () => {
     const r = simultaneousTransmission({ limitWPerKg: 1.6, transmitters: pair(0.065) });
     expect(r.pairs[0].splsr).toBeCloseTo(0.0372, 4);
     expect(r.pairs[0].splsrRounded).toBe(0.04);

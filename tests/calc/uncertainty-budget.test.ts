@@ -2,7 +2,7 @@
  * uncertainty-budget — sources:
  * - JCGM 100:2008 (GUM): divisors rectangular √3 (§4.3.7), triangular √6 (§4.3.9), u_c = √Σ(c_i u_i)²
  *   (§5.1.2), Welch–Satterthwaite ν_eff (Annex G, eq. G.2b). Clause numbers from memory
- *   (tissue-and-measurement.md §4.5).
+ *   (JCGM 100:2008 (GUM) and IEC/IEEE 62209-1528:2020 uncertainty budget).
  * - U-shaped √2: JCGM 101:2008 §6.4.6 / EA-4/02 (from memory).
  * - Worked example: JCGM 100:2008 Annex H.1 (end-gauge calibration), Table H.1 — contributions
  *   u(l_s) = 25 nm (ν 18), u(d) = 9.7 nm (ν 25.6), δα 0.58e-6 °C⁻¹ × c 5e6 nm·°C (ν 50),

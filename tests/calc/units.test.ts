@@ -1,9 +1,9 @@
 /**
  * `units` — dBm/mW/W, dBi, ERP↔EIRP, duty-cycle time averaging.
  * Reproduces: the definitions (dBm = 10·log10(P/1 mW), dBi = 10·log10(G); common practice); the
- * half-wave dipole gain 2.15 dBi ≈ 1.64 (Balanis, "Antenna Theory" — from memory; and
- * /work/shared/reference/regulatory-limits.md §0 "EIRP = 1.64 × ERP (ERP = EIRP − 2.15 dB)");
- * the ±5 % power-drift figures +0.212 dB / −0.223 dB of tissue-and-measurement.md §4.4.
+ * half-wave dipole gain 2.15 dBi ≈ 1.64 (Balanis, "Antenna Theory" — from memory;
+ * also Table 1 to 47 CFR §1.1307(b)(3)(i)(C): EIRP = 1.64 × ERP);
+ * the ±5 % power-drift figures +0.212 dB / −0.223 dB of a ±5 % drift, worked: 10·log10(1.05), 10·log10(0.95).
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
@@ -47,14 +47,14 @@ describe('units: worked values', () => {
     expect(r[key] / value).toBeCloseTo(1, 6);
   });
 
-  it('EIRP = 1.64 × ERP to the 3 figures regulatory-limits.md §0 prints, i.e. ERP = EIRP − 2.15 dB', () => {
+  it('EIRP = 1.64 × ERP to the 3 figures Table 1 to 47 CFR §1.1307(b)(3)(i)(C) uses, i.e. ERP = EIRP − 2.15 dB', () => {
     expect(erpToEirpW(1)).toBeCloseTo(1.64, 2);
     expect(erpDbmToEirpDbm(20)).toBe(22.15);
     expect(eirpDbmToErpDbm(22.15)).toBeCloseTo(20, 12);
     expect(wToDbm(erpToEirpW(0.1)) - wToDbm(0.1)).toBeCloseTo(2.15, 12);
   });
 
-  it('±5 % power drift is +0.212 dB / −0.223 dB (tissue-and-measurement.md §4.4)', () => {
+  it('±5 % power drift is +0.212 dB / −0.223 dB (IEC/IEEE 62209-1528:2020 system check and power drift)', () => {
     expect(mwToDbm(1.05)).toBeCloseTo(0.212, 3);
     expect(mwToDbm(0.95)).toBeCloseTo(-0.223, 3);
   });

@@ -1,7 +1,6 @@
 /**
  * The calculation registry over HTTP answers exactly as the CLI does. Reference value: 47 CFR
- * §1.1307(b)(3)(i)(B) at 2.48 GHz and 0.5 cm gives P_th ≈ 2.72 mW (the published exhibit value
- * in ../shared/reference/regulatory-limits.md §2.2).
+ * §1.1307(b)(3)(i)(B) at 2.48 GHz and 0.5 cm gives P_th ≈ 2.72 mW (the value printed in an FCC filing exhibit).
  */
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';

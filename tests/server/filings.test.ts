@@ -130,10 +130,16 @@ describe('creating and editing a filing', () => {
     const markets = await specialist.put(`/api/filings/${id}/steps/markets`).send({ markets: [{ regime: 'fcc', tier: 'general' }, { regime: 'ised', tier: 'general' }] });
     expect(markets.status).toBe(200);
     expect(markets.body.filing.steps.every((s: { complete: boolean }) => s.complete)).toBe(true);
+    // Canada: a warning in the filing's checks (it does not block), naming the superseded RSS-102 issue.
+    const marketsStep = markets.body.filing.steps.find((s: { step: string }) => s.step === 'markets');
+    expect(marketsStep.warnings.join(' ')).toMatch(/RSS-102 Issue 5.*Issue 6/);
+    expect(markets.body.filing.steps.find((s: { step: string }) => s.step === 'radios').warnings).toEqual([]);
 
     const screening = await specialist.get(`/api/filings/${id}/screening`);
     expect(screening.status).toBe(200);
     expect(screening.body.rows).toHaveLength(1 * 2 * 2);
+    expect(screening.body.ruleSetVersion).toMatch(/rss102-issue5/);
+    expect(screening.body.warnings.map((w: { code: string }) => w.code)).toEqual(['ised-rss102-issue5']);
     expect(screening.body.engineVersion).toBeTruthy();
     expect(screening.body.ruleSetVersion).toBeTruthy();
     expect(screening.body.cautions.join(' ')).toMatch(/certifying body decides/);
@@ -232,6 +238,15 @@ describe('screening of the demo tracker', () => {
     const res = await specialist.get(`/api/filings/${list[0].id}/screening/depth-profile?transmitterId=WLAN-2G4&usePositionId=belt-clip`);
     expect(res.status).toBe(200);
     expect(res.body.cautions.join(' ')).toMatch(/never replaces a SAR measurement/);
+    // The chart uses the table's figures: the row's EIRP at the row's most restrictive frequency.
+    const table = (await specialist.get(`/api/filings/${list[0].id}/screening`)).body;
+    const row = table.rows.find((r: { transmitterId: string; usePositionId: string }) => r.transmitterId === 'WLAN-2G4' && r.usePositionId === 'belt-clip');
+    expect(res.body.basis).toMatchObject({ regime: row.regime, frequencyHz: row.frequencyHz, eirpW: row.powers.eirpMw / 1000, separationM: row.separationM });
+    expect(res.body.derivation.inputs.frequencyHz.value).toBe(row.frequencyHz);
+    const ised = await specialist.get(`/api/filings/${list[0].id}/screening/depth-profile?transmitterId=WLAN-2G4&usePositionId=belt-clip&regime=ised`);
+    const isedRow = table.rows.find((r: { transmitterId: string; usePositionId: string; regime: string }) => r.transmitterId === 'WLAN-2G4' && r.usePositionId === 'belt-clip' && r.regime === 'ised');
+    if (isedRow) expect(ised.body.basis.frequencyHz).toBe(isedRow.frequencyHz);
+    else expect(ised.status).toBe(422);
     const missing = await specialist.get(`/api/filings/${list[0].id}/screening/depth-profile?transmitterId=BT-LE&usePositionId=wrist-strap`);
     expect(missing.status).toBe(422);
   });

@@ -1,0 +1,64 @@
+/**
+ * Fixed inputs whose full engine outputs are stored beside this file (outputs.json) and guarded by
+ * tests/calc/golden.test.ts. The devices are fictional; they are chosen to reach every screening
+ * rule and branch: FCC (A)/(B)/(C) and the KDB 447498 §4.3.1 a)/b)/c) branches with their rounding,
+ * RSS-102 §2.5.1/§2.5.2, EN 62479 / 1999/519/EC / ICNIRP 2020, bands across rule edges, contact and
+ * far-field positions. Change them only together with a regenerated outputs.json.
+ */
+import type { ScreeningInputRaw } from '../../../calc/screening';
+
+const all = [
+  { regime: 'fcc', tier: 'general' },
+  { regime: 'ised', tier: 'general' },
+  { regime: 'eu', tier: 'general' },
+  { regime: 'icnirp-2020', tier: 'general' },
+] as const;
+
+const antennas = [
+  { id: 'ant-a', gainDbi: -1.5 },
+  { id: 'ant-b', gainDbi: 2.5 },
+];
+const transmitters: ScreeningInputRaw['transmitters'] = [
+  { id: 'nfc', frequencyMinHz: 13.56e6, frequencyMaxHz: 13.56e6, maxTuneUpPowerDbm: 20, dutyCycle: 1, antennaId: 'ant-a' },
+  { id: 'lte-low', frequencyMinHz: 699e6, frequencyMaxHz: 787e6, maxTuneUpPowerDbm: 24, dutyCycle: 1, antennaId: 'ant-a' },
+  { id: 'lte-mid', frequencyMinHz: 1427.9e6, frequencyMaxHz: 1785e6, maxTuneUpPowerDbm: 23.5, dutyCycle: 1, antennaId: 'ant-a' },
+  { id: 'wifi-2g4', frequencyMinHz: 2412e6, frequencyMaxHz: 2472e6, maxTuneUpPowerDbm: 9.8, dutyCycle: 1, antennaId: 'ant-b' },
+  { id: 'ble', frequencyMinHz: 2402e6, frequencyMaxHz: 2480e6, maxTuneUpPowerDbm: 0, dutyCycle: 0.7, antennaId: 'ant-b' },
+  { id: 'mmw', frequencyMinHz: 27.5e9, frequencyMaxHz: 28.35e9, maxTuneUpPowerDbm: 10, dutyCycle: 0.5, antennaId: 'ant-b' },
+];
+const both = (separationM: number) => [
+  { antennaId: 'ant-a', separationM },
+  { antennaId: 'ant-b', separationM },
+];
+const usePositions: ScreeningInputRaw['usePositions'] = [
+  { id: 'body-5', kind: 'body-worn', separations: both(0.005) },
+  { id: 'hand-3', kind: 'extremity', separations: both(0.003) },
+  { id: 'lap-100', kind: 'body-worn', separations: both(0.1) },
+  { id: 'desk-300', kind: 'far-field', separations: both(0.3) },
+];
+
+export const GOLDEN_SCREENING: Record<string, ScreeningInputRaw> = {
+  'every-market': { markets: [...all], antennas, transmitters, usePositions },
+  'fcc-kdb-occupational': {
+    markets: [
+      { regime: 'fcc', tier: 'general', fccSarScreening: 'kdb-test-exclusion' },
+      { regime: 'eu', tier: 'occupational' },
+    ],
+    antennas,
+    transmitters,
+    usePositions,
+  },
+  // 9.55 mW at 5 mm, 2.45 GHz: the §4.3.1 rounding decides (10 mW → ratio 3.1 > 3.0).
+  'kdb-rounding': {
+    markets: [{ regime: 'fcc', tier: 'general', fccSarScreening: 'kdb-test-exclusion' }],
+    antennas: [{ id: 'a', gainDbi: 0 }],
+    transmitters: [{ id: 't', frequencyMinHz: 2.45e9, frequencyMaxHz: 2.45e9, maxTuneUpPowerDbm: 10 * Math.log10(9.55), dutyCycle: 1, antennaId: 'a' }],
+    usePositions: [{ id: 'p', kind: 'head', separations: [{ antennaId: 'a', separationM: 0.005 }] }],
+  },
+};
+
+/** Depth profiles (calc/screening/depth-profile.ts) at fixed figures. */
+export const GOLDEN_DEPTH = {
+  'wifi-5mm': { frequencyHz: 2.45e9, eirpW: 0.0178, separationM: 0.005 },
+  'lte-20mm': { frequencyHz: 835e6, eirpW: 0.2, separationM: 0.02 },
+};
