@@ -48,6 +48,12 @@ export const memberships = sqliteTable(
     organisationId: integer('organisation_id')
       .notNull()
       .references(() => organisations.id, { onDelete: 'cascade' }),
+    /** The person's name as this organisation knows it; each organisation keeps its own. */
+    name: text('name').notNull().default(''),
+    /** Deactivation is per organisation: another organisation's membership is untouched. */
+    active: integer('active', { mode: 'boolean' }).notNull().default(true),
+    /** Null until the invitee sets their password or accepts the invitation. */
+    acceptedAt: text('accepted_at'),
     createdAt: createdAt(),
   },
   (t) => [uniqueIndex('memberships_user_org_unique').on(t.userId, t.organisationId)],
@@ -74,6 +80,8 @@ export const passwordTokens = sqliteTable(
       .references(() => users.id, { onDelete: 'cascade' }),
     tokenSha256: text('token_sha256').notNull(),
     purpose: text('purpose', { enum: ['invitation', 'reset'] }).notNull(),
+    /** For an invitation: the organisation whose membership the link accepts. */
+    organisationId: integer('organisation_id').references(() => organisations.id, { onDelete: 'cascade' }),
     expiresAt: text('expires_at').notNull(),
     usedAt: text('used_at'),
     createdAt: createdAt(),
@@ -98,11 +106,16 @@ export const auditLog = sqliteTable(
   (t) => [index('audit_log_org_at').on(t.organisationId, t.at)],
 );
 
-/** The mail outbox: every message the local SMTP catcher received, or that was relayed. */
+/**
+ * The mail outbox: every message the local SMTP catcher received. Each row belongs to the
+ * organisation that sent it (null: mail about an account, e.g. a password reset, shown to no
+ * organisation). With real SMTP nothing is kept.
+ */
 export const mailMessages = sqliteTable(
   'mail_messages',
   {
     id: integer('id').primaryKey({ autoIncrement: true }),
+    organisationId: integer('organisation_id').references(() => organisations.id, { onDelete: 'cascade' }),
     receivedAt: createdAt(),
     transport: text('transport', { enum: ['catcher', 'smtp'] }).notNull(),
     fromAddress: text('from_address').notNull(),
@@ -111,7 +124,7 @@ export const mailMessages = sqliteTable(
     text: text('text').notNull(),
     html: text('html'),
   },
-  (t) => [index('mail_messages_received').on(t.receivedAt)],
+  (t) => [index('mail_messages_received').on(t.receivedAt), index('mail_messages_org').on(t.organisationId, t.id)],
 );
 
 // ---------------------------------------------------------------------------------------------

@@ -4,9 +4,8 @@
  */
 import { eq } from 'drizzle-orm';
 import type { Db } from '../db/client';
-import { memberships, organisations, users } from '../db/schema';
 import { hashPassword } from '../server/services/passwords';
-import { findMembership, replaceRoles } from '../server/repos/users-repo';
+import * as usersRepo from '../server/repos/users-repo';
 import { recordAudit } from '../server/services/audit';
 import { DEMO_ORGANISATION, DEMO_USERS } from './demo-people';
 import { filings } from '../db/schema';
@@ -28,7 +27,7 @@ export async function seedDemo(db: Db, demoPassword: string): Promise<SeedResult
 /** The demo filings, created by the demo specialist, only into an organisation that has none. */
 function seedFilings(db: Db, organisationId: number): number {
   if (db.select({ id: filings.id }).from(filings).where(eq(filings.organisationId, organisationId)).get()) return 0;
-  const specialist = db.select().from(users).where(eq(users.email, 'specialist@fieldfile.test')).get()!;
+  const specialist = usersRepo.findUserByEmail(db, 'specialist@fieldfile.test')!;
   const actor = { id: specialist.id, organisationId, roles: ['specialist' as const] };
   importDeviceFile(db, actor, zDeviceFile.parse(DEMO_TRACKER));
   createFiling(db, actor, DEMO_DOCK_DEVICE);
@@ -38,18 +37,17 @@ function seedFilings(db: Db, organisationId: number): number {
 async function seedPeople(db: Db, demoPassword: string) {
   const passwordHash = await hashPassword(demoPassword);
   return db.transaction((tx) => {
-    let org = tx.select().from(organisations).where(eq(organisations.slug, DEMO_ORGANISATION.slug)).get();
-    org ??= tx.insert(organisations).values(DEMO_ORGANISATION).returning().get();
+    const org = usersRepo.findOrganisationBySlug(tx, DEMO_ORGANISATION.slug) ?? usersRepo.insertOrganisation(tx, DEMO_ORGANISATION);
     const createdUsers: string[] = [];
     for (const person of DEMO_USERS) {
-      let user = tx.select().from(users).where(eq(users.email, person.email)).get();
+      let user = usersRepo.findUserByEmail(tx, person.email);
       if (!user) {
-        user = tx.insert(users).values({ email: person.email, name: person.name, passwordHash }).returning().get();
+        user = usersRepo.insertUser(tx, { email: person.email, name: person.name, passwordHash });
         createdUsers.push(person.email);
       }
-      if (!findMembership(tx, user.id, org.id)) {
-        const m = tx.insert(memberships).values({ userId: user.id, organisationId: org.id }).returning().get();
-        replaceRoles(tx, m.id, [person.role]);
+      if (!usersRepo.findMembership(tx, user.id, org.id)) {
+        const m = usersRepo.insertMembership(tx, { userId: user.id, organisationId: org.id, name: person.name, acceptedAt: new Date().toISOString() });
+        usersRepo.replaceRoles(tx, m.id, [person.role]);
       }
     }
     if (createdUsers.length) {

@@ -38,7 +38,7 @@ async function main() {
 
   let catcher: MailCatcher | undefined;
   if (!config.mail.smtp) catcher = await startMailCatcher(handle.db, config.mail.catcherPort);
-  const mailer = createMailer(config, handle.db, () => catcher?.port ?? config.mail.catcherPort);
+  const mailer = createMailer(config, () => catcher?.port ?? config.mail.catcherPort);
 
   const { app, close } = createApp({ handle, config, mailer, serveWeb: !dev, storage });
   const server = app.listen(config.port, config.host, () => {

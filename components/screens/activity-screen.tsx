@@ -17,6 +17,8 @@ const ACTION_LABELS: Record<string, string> = {
   'auth.sign-out': 'Signed out',
   'auth.password-set': 'Set a password',
   'user.invite': 'Invited a user',
+  'user.invite-resend': 'Sent an invitation again',
+  'user.join': 'Joined the organisation',
   'user.update': 'Changed a user',
   'user.deactivate': 'Deactivated a user',
   'user.reactivate': 'Reactivated a user',

@@ -1,10 +1,14 @@
-/** Opened from an invitation mail: says who the link is for, then sets their password. */
+/**
+ * Opened from an invitation mail: says who the link is for, then sets their password, or, for an
+ * existing account invited into another organisation, accepts with the account's password.
+ */
 import { Link, useLocalSearchParams, useRouter } from 'expo-router';
 import { View } from 'react-native';
 import { space } from '../../constants/theme';
 import { asProblem } from '../../hooks/api-client';
 import { usePasswordTokenQuery } from '../../hooks/queries/password-token';
 import { useLogoutMutation, useSessionQuery } from '../../hooks/queries/session';
+import { AcceptInvitationForm } from '../auth/accept-invitation-form';
 import { SetPasswordForm } from '../auth/set-password-form';
 import { AuthShell } from '../layout/auth-shell';
 import { LoadFailed, Loading } from '../layout/query-states';
@@ -22,6 +26,8 @@ export function SetPasswordScreen() {
   const signedInAs = session.data?.user;
 
   const done = (email: string) => router.replace({ pathname: '/login', params: { email, notice: 'password-set' } });
+  const joined = (email: string) => router.replace({ pathname: '/login', params: { email, notice: 'invitation-accepted' } });
+  const joining = owner.data?.existingAccount === true;
 
   let body: React.ReactNode;
   if (!token) {
@@ -51,19 +57,19 @@ export function SetPasswordScreen() {
     body = (
       <>
         <View style={{ gap: space.xxs }} testID="set-password-owner">
-          <Text tone="soft">This password is for</Text>
+          <Text tone="soft">{joining ? `Join ${owner.data.organisationName ?? 'the organisation'} as` : 'This password is for'}</Text>
           <Text variant="heading">{owner.data.name}</Text>
           <Text variant="mono" tone="soft">
             {owner.data.email}
           </Text>
         </View>
-        <SetPasswordForm token={token} onDone={done} />
+        {joining ? <AcceptInvitationForm token={token} onDone={joined} /> : <SetPasswordForm token={token} onDone={done} />}
       </>
     );
   }
 
   return (
-    <AuthShell title="Set your password">
+    <AuthShell title={joining ? 'Accept the invitation' : 'Set your password'}>
       {body}
       <Link href="/login" style={{ alignSelf: 'flex-start' }}>
         <Text variant="smallStrong" tone="copper">

@@ -13,13 +13,14 @@ export function SignInScreen() {
   const params = useLocalSearchParams<{ email?: string; notice?: string; next?: string }>();
   const router = useRouter();
   const email = first(params.email) ?? '';
-  const passwordSet = first(params.notice) === 'password-set';
+  const notice = first(params.notice);
+  const passwordSet = notice === 'password-set' || notice === 'invitation-accepted';
   const cameFromLink = !!first(params.next) && first(params.next) !== '/';
   return (
     <AuthShell title="Sign in">
       {passwordSet ? (
-        <Notice tone="success" title="Password set" testID="password-set-notice">
-          {`Sign in as ${email || 'yourself'} with your new password.`}
+        <Notice tone="success" title={notice === 'password-set' ? 'Password set' : 'Invitation accepted'} testID="password-set-notice">
+          {notice === 'password-set' ? `Sign in as ${email || 'yourself'} with your new password.` : `Sign in as ${email || 'yourself'} with your password.`}
         </Notice>
       ) : cameFromLink ? (
         <Notice tone="info" testID="sign-in-needed-notice">

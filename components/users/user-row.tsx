@@ -6,7 +6,7 @@ import { ROLE_LABELS } from '../../constants/schemas/roles';
 import { zUpdateUser, type UserDto } from '../../constants/schemas/users';
 import { palette, space } from '../../constants/theme';
 import { asProblem } from '../../hooks/api-client';
-import { useUpdateUserMutation } from '../../hooks/queries/users';
+import { useResendInvitationMutation, useUpdateUserMutation } from '../../hooks/queries/users';
 import { useIsWide } from '../../hooks/use-is-wide';
 import { Button } from '../ui/button';
 import { Notice } from '../ui/notice';
@@ -25,6 +25,7 @@ export function userState(user: UserDto) {
 export function UserRow({ user, isSelf }: { user: UserDto; isSelf: boolean }) {
   const wide = useIsWide();
   const update = useUpdateUserMutation();
+  const resend = useResendInvitationMutation();
   const [mode, setMode] = useState<Mode>('view');
   const [roles, setRoles] = useState<Role[]>(user.roles);
   const [rolesError, setRolesError] = useState<string | undefined>();
@@ -67,6 +68,9 @@ export function UserRow({ user, isSelf }: { user: UserDto; isSelf: boolean }) {
       {mode === 'view' ? (
         <View style={styles.actions}>
           <Button label="Change roles" variant="secondary" compact onPress={() => { setRoles(user.roles); setMode('roles'); }} testID={`user-edit-roles-${slug}`} />
+          {user.invitationPending && user.active ? (
+            <Button label="Send invitation again" variant="quiet" compact busy={resend.isPending} onPress={() => resend.mutate(user.id)} testID={`user-resend-${slug}`} />
+          ) : null}
           {isSelf ? null : user.active ? (
             <Button label="Deactivate" variant="quiet" compact onPress={() => setMode('confirm-deactivate')} testID={`user-deactivate-${slug}`} />
           ) : (
@@ -99,6 +103,12 @@ export function UserRow({ user, isSelf }: { user: UserDto; isSelf: boolean }) {
       ) : null}
 
       {update.isError ? <Notice tone="error">{asProblem(update.error).message}</Notice> : null}
+      {resend.isError ? <Notice tone="error">{asProblem(resend.error).message}</Notice> : null}
+      {resend.data ? (
+        <Notice tone={resend.data.invitation.sent ? 'info' : 'error'} testID={`user-resent-${slug}`}>
+          {resend.data.invitation.sent ? `A new invitation went to ${user.email}; the earlier link no longer works.` : resend.data.invitation.error}
+        </Notice>
+      ) : null}
     </View>
   );
 }

@@ -42,6 +42,12 @@ export const zSetPassword = z.strictObject({
   password: zNewPassword,
 });
 
+/** Joining another organisation with an existing account: its own password confirms it. */
+export const zAcceptInvitation = z.strictObject({
+  token: z.string().min(1).max(TOKEN_MAX),
+  password: zLogin.shape.password,
+});
+
 export const zMembershipDto = z.object({
   organisationId: z.number(),
   organisationName: z.string(),

@@ -8,7 +8,13 @@ export const passwordTokenKeys = {
   detail: (token: string) => [...passwordTokenKeys.all, token] as const,
 };
 
-const zTokenOwner = z.object({ email: z.string(), name: z.string() });
+const zTokenOwner = z.object({
+  email: z.string(),
+  name: z.string(),
+  /** The link joins an existing account to an organisation: confirm with its password. */
+  existingAccount: z.boolean().default(false),
+  organisationName: z.string().optional(),
+});
 const zPasswordSet = z.object({ email: z.string() });
 
 export function usePasswordTokenQuery(token: string) {
@@ -24,5 +30,12 @@ export function useSetPasswordMutation() {
   return useMutation({
     mutationFn: (input: { token: string; password: string }) =>
       apiOrThrow('/api/auth/set-password', { method: 'POST', body: input, schema: zPasswordSet }),
+  });
+}
+
+export function useAcceptInvitationMutation() {
+  return useMutation({
+    mutationFn: (input: { token: string; password: string }) =>
+      apiOrThrow('/api/auth/accept-invitation', { method: 'POST', body: input, schema: zPasswordSet }),
   });
 }

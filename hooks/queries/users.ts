@@ -49,3 +49,16 @@ export function useUpdateUserMutation() {
     },
   });
 }
+
+/** A fresh invitation link for someone who has not joined yet (the old link stops working). */
+export function useResendInvitationMutation() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (id: number) => apiOrThrow(`/api/users/${id}/invitation`, { method: 'POST', body: {}, schema: zInvited }),
+    onSuccess: () => {
+      void queryClient.invalidateQueries({ queryKey: userKeys.all });
+      void queryClient.invalidateQueries({ queryKey: outboxKeys.all });
+      void queryClient.invalidateQueries({ queryKey: auditKeys.all });
+    },
+  });
+}

@@ -4,7 +4,7 @@
  */
 import type { RequestHandler } from 'express';
 import type { z } from 'zod';
-import { unprocessable } from '../http-error';
+import { notFound, unprocessable } from '../http-error';
 
 export function zodFieldErrors(error: z.ZodError): Record<string, string> {
   const fields: Record<string, string> = {};
@@ -37,4 +37,17 @@ export function validateBody<S extends z.ZodType>(schema: S): RequestHandler {
     req.body = parseWith(schema, req.body ?? {});
     next();
   };
+}
+
+/** Ids in paths are plain decimal integers: `0x1`, `1e0`, ` 1` or `01` name nothing (404). */
+const ID_PATTERN = /^[1-9][0-9]{0,14}$/;
+
+/** For `router.param('id', strictId)`: a route's id that is not a plain decimal integer is a 404. */
+export const strictId = (req: unknown, _res: unknown, next: (err?: unknown) => void, value: unknown) => {
+  next(typeof value === 'string' && ID_PATTERN.test(value) ? undefined : notFound('Not found: the id in the address is not a plain number.'));
+};
+
+export function parseIdParam(raw: unknown, notFoundMessage = 'Not found.'): number {
+  if (typeof raw !== 'string' || !ID_PATTERN.test(raw)) throw notFound(notFoundMessage);
+  return Number(raw);
 }

@@ -12,7 +12,7 @@ import {
   transmitters,
   usePositions,
   usePositionSeparations,
-  users,
+  memberships,
 } from '../../db/schema';
 import type { DataStep, MarketsStep, RadiosStep, UsePositionsStep } from '../../constants/schemas/filings';
 import type { DeviceInfo } from '../../constants/schemas/device-file';
@@ -23,7 +23,7 @@ const summaryColumns = {
   filing: filings,
   device: devices,
   version: filingVersions,
-  ownerName: users.name,
+  ownerName: sql<string>`coalesce(${memberships.name}, '')`,
 };
 
 function summaryQuery(db: Db) {
@@ -32,7 +32,8 @@ function summaryQuery(db: Db) {
     .from(filings)
     .innerJoin(devices, eq(devices.id, filings.deviceId))
     .innerJoin(filingVersions, and(eq(filingVersions.filingId, filings.id), eq(filingVersions.number, latestVersion)))
-    .innerJoin(users, eq(users.id, filings.ownerUserId));
+    // The owner's name as the filing's organisation knows it.
+    .leftJoin(memberships, and(eq(memberships.userId, filings.ownerUserId), eq(memberships.organisationId, filings.organisationId)));
 }
 
 export type FilingRow = NonNullable<ReturnType<typeof findFiling>>;

@@ -1,12 +1,12 @@
 /** Sign-in, sign-out, the current user, and setting a password from an invitation link. */
 import { Router, type Request } from 'express';
 import type { Passport } from '../auth/passport';
-import { zLogin, zSetPassword } from '../../constants/schemas/auth';
+import { zAcceptInvitation, zLogin, zSetPassword } from '../../constants/schemas/auth';
 import type { AppContext } from '../context';
 import { notFound, unauthorized } from '../http-error';
 import { requireAuth } from '../middleware/auth';
 import { parseWith, validateBody } from '../middleware/validate';
-import { describePasswordToken, setPasswordWithToken } from '../services/users-service';
+import { acceptInvitation, describePasswordToken, setPasswordWithToken } from '../services/users-service';
 import { recordAudit } from '../services/audit';
 
 const loginAsync = (req: Request, user: Express.User) =>
@@ -50,6 +50,11 @@ export function authRoutes({ db }: AppContext, passport: Passport): Router {
     const input = parseWith(zSetPassword, req.body);
     const { email } = await setPasswordWithToken(db, input.token, input.password);
     res.json({ email });
+  });
+
+  router.post('/accept-invitation', async (req, res) => {
+    const input = parseWith(zAcceptInvitation, req.body);
+    res.json(await acceptInvitation(db, input.token, input.password));
   });
 
   return router;

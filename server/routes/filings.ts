@@ -9,7 +9,7 @@ import { zDeviceFile } from '../../constants/schemas/device-file';
 import { SCREENING_REGIMES } from '../../calc/screening/input';
 import type { AppContext } from '../context';
 import { requireAuth, requireRole } from '../middleware/auth';
-import { parseWith } from '../middleware/validate';
+import { parseWith, strictId } from '../middleware/validate';
 import * as filingsService from '../services/filings-service';
 import * as screeningService from '../services/screening-service';
 
@@ -23,6 +23,7 @@ const slug = (s: string) => s.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(
 export function filingRoutes({ db }: AppContext): Router {
   const router = Router();
   router.use(requireAuth);
+  router.param('id', strictId);
   const specialistOnly: RequestHandler = requireRole('specialist');
 
   router.get('/', (req, res) => {

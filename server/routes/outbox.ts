@@ -1,16 +1,17 @@
-/** The mail outbox, for admins: what Fieldfile sent (or what the local catcher received). */
+/**
+ * The mail outbox, for admins: what the local mail catcher received for their organisation.
+ * With real SMTP there is no outbox (mail is not kept), and these routes answer 404.
+ */
 import { Router } from 'express';
-import { desc, eq } from 'drizzle-orm';
-import { z } from 'zod';
-import { mailMessages } from '../../db/schema';
 import type { AppContext } from '../context';
 import { notFound } from '../http-error';
 import { requireRole } from '../middleware/auth';
-import { parseWith } from '../middleware/validate';
+import { parseIdParam } from '../middleware/validate';
+import { findOrganisationMail, listOrganisationMail, type MailRow } from '../repos/mail-repo';
 
 const LIST_LIMIT = 200;
 
-const toDto = (m: typeof mailMessages.$inferSelect) => ({
+const toDto = (m: MailRow) => ({
   id: m.id,
   receivedAt: m.receivedAt,
   from: m.fromAddress,
@@ -20,16 +21,17 @@ const toDto = (m: typeof mailMessages.$inferSelect) => ({
   html: m.html,
 });
 
-export function outboxRoutes({ db }: AppContext): Router {
+export function outboxRoutes({ db, config }: AppContext): Router {
   const router = Router();
   router.use(requireRole('admin'));
-  router.get('/', (_req, res) => {
-    const rows = db.select().from(mailMessages).orderBy(desc(mailMessages.id)).limit(LIST_LIMIT).all();
-    res.json({ messages: rows.map(toDto) });
+  router.use((_req, _res, next) => {
+    next(config.mail.smtp ? notFound('There is no outbox: mail goes out through the configured SMTP server and is not kept.') : undefined);
+  });
+  router.get('/', (req, res) => {
+    res.json({ messages: listOrganisationMail(db, req.user!.organisation.id, LIST_LIMIT).map(toDto) });
   });
   router.get('/:id', (req, res) => {
-    const id = parseWith(z.coerce.number().int().positive(), req.params.id);
-    const row = db.select().from(mailMessages).where(eq(mailMessages.id, id)).get();
+    const row = findOrganisationMail(db, req.user!.organisation.id, parseIdParam(req.params.id, 'No such message.'));
     if (!row) throw notFound('No such message.');
     res.json({ message: toDto(row) });
   });

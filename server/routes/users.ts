@@ -1,19 +1,17 @@
-/** Organisation users, for admins: list, invite, change roles or name, deactivate. */
+/** Organisation users, for admins: list, invite, resend an invitation, change roles or name, deactivate. */
 import { Router } from 'express';
-import { z } from 'zod';
 import { zCreateUser, zUpdateUser } from '../../constants/schemas/users';
 import type { AppContext } from '../context';
 import { requireRole } from '../middleware/auth';
-import { parseWith, validateBody } from '../middleware/validate';
-import { inviteUser, listUsers, updateUser, type Actor } from '../services/users-service';
-
-const zId = z.coerce.number().int().positive();
+import { parseIdParam, strictId, validateBody } from '../middleware/validate';
+import { inviteUser, listUsers, resendInvitation, updateUser, type Actor } from '../services/users-service';
 
 const actorOf = (user: Express.User): Actor => ({ id: user.id, name: user.name, organisationId: user.organisation.id });
 
 export function userRoutes({ db, mailer, config }: AppContext): Router {
   const router = Router();
   router.use(requireRole('admin'));
+  router.param('id', strictId);
 
   router.get('/', (req, res) => {
     res.json({ users: listUsers(db, req.user!.organisation.id) });
@@ -24,9 +22,12 @@ export function userRoutes({ db, mailer, config }: AppContext): Router {
     res.status(201).json(created);
   });
 
+  router.post('/:id/invitation', async (req, res) => {
+    res.json(await resendInvitation(db, mailer, config.publicUrl, actorOf(req.user!), parseIdParam(req.params.id)));
+  });
+
   router.patch('/:id', validateBody(zUpdateUser), (req, res) => {
-    const id = parseWith(zId, req.params.id);
-    res.json({ user: updateUser(db, actorOf(req.user!), id, req.body) });
+    res.json({ user: updateUser(db, actorOf(req.user!), parseIdParam(req.params.id), req.body) });
   });
 
   return router;

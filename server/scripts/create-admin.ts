@@ -7,12 +7,11 @@
 import fs from 'node:fs';
 import { createInterface } from 'node:readline/promises';
 import { parseArgs } from 'node:util';
-import { eq } from 'drizzle-orm';
 import { z } from 'zod';
 import { loadConfig } from '../env';
 import { openDatabase } from '../../db/client';
 import { applyMigrations } from '../../db/migrate';
-import { organisations } from '../../db/schema';
+import { findOrganisationBySlug, insertOrganisation } from '../repos/users-repo';
 import { zCreateUser } from '../../constants/schemas/users';
 import { issueInvitationLink } from '../services/users-service';
 
@@ -45,9 +44,7 @@ async function main() {
   const handle = openDatabase(config.dbFile);
   applyMigrations(handle.db);
   const slug = slugify(orgParsed.data);
-  const org =
-    handle.db.select().from(organisations).where(eq(organisations.slug, slug)).get() ??
-    handle.db.insert(organisations).values({ name: orgParsed.data, slug }).returning().get();
+  const org = findOrganisationBySlug(handle.db, slug) ?? insertOrganisation(handle.db, { name: orgParsed.data, slug });
   try {
     const link = issueInvitationLink(handle.db, config.publicUrl, org.id, userParsed.data);
     console.log(`\nAdmin ${userParsed.data.email} added to ${org.name}.\nSet the password within 7 days here:\n  ${link}\n`);

@@ -1,6 +1,6 @@
 /** Appends to the audit trail. Rows are never updated or deleted (the migration's triggers refuse it). */
-import { auditLog } from '../../db/schema';
 import type { Db } from '../../db/client';
+import { insertAudit } from '../repos/audit-repo';
 
 export interface AuditEntry {
   organisationId?: number | null;
@@ -12,14 +12,12 @@ export interface AuditEntry {
 }
 
 export function recordAudit(db: Db, entry: AuditEntry): void {
-  db.insert(auditLog)
-    .values({
-      organisationId: entry.organisationId ?? null,
-      actorUserId: entry.actorUserId ?? null,
-      action: entry.action,
-      targetType: entry.targetType ?? null,
-      targetId: entry.targetId === undefined ? null : String(entry.targetId),
-      details: entry.details ?? null,
-    })
-    .run();
+  insertAudit(db, {
+    organisationId: entry.organisationId ?? null,
+    actorUserId: entry.actorUserId ?? null,
+    action: entry.action,
+    targetType: entry.targetType ?? null,
+    targetId: entry.targetId === undefined ? null : String(entry.targetId),
+    details: entry.details ?? null,
+  });
 }

@@ -1,12 +1,14 @@
 /**
  * A local SMTP server (smtp-server) that accepts every message on 127.0.0.1 and stores it in
- * the outbox table, parsed by mailparser. It stands in for a hosted mail service out of the box.
+ * the outbox table, parsed by mailparser, under the organisation named in its header. It stands
+ * in for a hosted mail service out of the box.
  */
 import { SMTPServer } from 'smtp-server';
 import { simpleParser } from 'mailparser';
 import type { AddressInfo } from 'node:net';
 import type { Db } from '../../db/client';
-import { mailMessages } from '../../db/schema';
+import { insertMail } from '../repos/mail-repo';
+import { ORGANISATION_HEADER } from './mailer';
 
 export interface MailCatcher {
   port: number;
@@ -31,16 +33,16 @@ export function startMailCatcher(db: Db, port: number): Promise<MailCatcher> {
     onData(stream, _session, callback) {
       simpleParser(stream)
         .then((mail) => {
-          db.insert(mailMessages)
-            .values({
-              transport: 'catcher',
-              fromAddress: addressText(mail.from),
-              toAddress: addressText(mail.to),
-              subject: mail.subject ?? '(no subject)',
-              text: mail.text ?? '',
-              html: typeof mail.html === 'string' ? mail.html : null,
-            })
-            .run();
+          const org = Number(mail.headers.get(ORGANISATION_HEADER));
+          insertMail(db, {
+            organisationId: Number.isInteger(org) && org > 0 ? org : null,
+            transport: 'catcher',
+            fromAddress: addressText(mail.from),
+            toAddress: addressText(mail.to),
+            subject: mail.subject ?? '(no subject)',
+            text: mail.text ?? '',
+            html: typeof mail.html === 'string' ? mail.html : null,
+          });
           callback();
         })
         .catch((err: Error) => callback(err));

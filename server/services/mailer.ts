@@ -1,11 +1,9 @@
 /**
  * Outgoing mail through nodemailer. By default it goes to the in-process SMTP catcher
- * (server/services/mail-catcher.ts), which stores every message in the outbox; with SMTP_HOST
- * set it goes to that server and a copy is recorded in the outbox.
+ * (server/services/mail-catcher.ts), which keeps every message in its organisation's outbox;
+ * with SMTP_HOST set it goes to that server and nothing is kept (there is no outbox then).
  */
 import nodemailer from 'nodemailer';
-import type { Db } from '../../db/client';
-import { mailMessages } from '../../db/schema';
 import type { Config } from '../env';
 
 export interface OutgoingMail {
@@ -13,16 +11,22 @@ export interface OutgoingMail {
   subject: string;
   text: string;
   html?: string;
+  /** The organisation the mail is sent for; its admins see it in their outbox. Omit for mail
+   * about an account itself (a password reset), which no organisation sees. */
+  organisationId?: number;
 }
 
 export interface Mailer {
   send(mail: OutgoingMail): Promise<void>;
 }
 
-export function createMailer(config: Config, db: Db, catcherPort: () => number): Mailer {
+/** Header that tells the local catcher which organisation's outbox a message belongs to. */
+export const ORGANISATION_HEADER = 'x-fieldfile-organisation';
+
+export function createMailer(config: Config, catcherPort: () => number): Mailer {
   const smtp = config.mail.smtp;
   return {
-    async send(mail) {
+    async send({ organisationId, ...mail }) {
       const transport = smtp
         ? nodemailer.createTransport({
             host: smtp.host,
@@ -31,15 +35,12 @@ export function createMailer(config: Config, db: Db, catcherPort: () => number):
             auth: smtp.user ? { user: smtp.user, pass: smtp.pass ?? '' } : undefined,
           })
         : nodemailer.createTransport({ host: '127.0.0.1', port: catcherPort(), secure: false, ignoreTLS: true });
+      // Only the local catcher reads the header; real recipients never see an organisation id.
+      const headers = !smtp && organisationId !== undefined ? { [ORGANISATION_HEADER]: String(organisationId) } : undefined;
       try {
-        await transport.sendMail({ from: config.mail.from, ...mail });
+        await transport.sendMail({ from: config.mail.from, ...mail, headers });
       } finally {
         transport.close();
-      }
-      if (smtp) {
-        db.insert(mailMessages)
-          .values({ transport: 'smtp', fromAddress: config.mail.from, toAddress: mail.to, subject: mail.subject, text: mail.text, html: mail.html ?? null })
-          .run();
       }
     },
   };

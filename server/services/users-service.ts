@@ -2,13 +2,16 @@
  * Users of an organisation: sign-in checks, invitations, role changes, deactivation and
  * setting a password from a one-time link. Every change is written to the audit trail in the
  * same transaction, so a change never lands without its record.
+ *
+ * Organisations are sealed from each other: a person's name, active state and roles live on the
+ * membership, so an admin changes only their own organisation's view of someone. Inviting an
+ * e-mail that already has an account answers exactly as for a new one (nothing about the account
+ * is revealed) and mails an invitation that the person accepts with their own password.
  */
 import { createHash, randomBytes } from 'node:crypto';
-import { and, eq, isNull } from 'drizzle-orm';
 import type { Db } from '../../db/client';
-import { memberships, organisations, passwordTokens, users } from '../../db/schema';
 import type { SessionUser } from '../../constants/schemas/auth';
-import type { CreateUserInput, UserDto } from '../../constants/schemas/users';
+import type { UserDto } from '../../constants/schemas/users';
 import type { Role } from '../../constants/schemas/roles';
 import { ROLE_LABELS, sortRoles } from '../../constants/schemas/roles';
 import { renderInvitationMail } from '../../templates/mail/invitation';
@@ -20,7 +23,6 @@ import { decoyPasswordHash, hashPassword, verifyPassword } from './passwords';
 
 export const INVITATION_TTL_MS = 7 * 24 * 3600 * 1000;
 
-const nowIso = () => new Date().toISOString();
 const sha256 = (s: string) => createHash('sha256').update(s).digest('hex');
 
 export interface Actor {
@@ -29,16 +31,18 @@ export interface Actor {
   organisationId: number;
 }
 
-function toDto(user: repo.UserRow, roles: Role[]): UserDto {
+function toDto(user: repo.UserRow, membership: repo.MembershipRow, roles: Role[]): UserDto {
+  const pending = membership.acceptedAt === null;
   return {
     id: user.id,
     email: user.email,
-    name: user.name,
+    name: membership.name,
     roles,
-    active: user.active,
-    invitationPending: user.passwordHash === null,
-    createdAt: user.createdAt,
-    lastSignInAt: user.lastSignInAt,
+    active: membership.active,
+    invitationPending: pending,
+    createdAt: membership.createdAt,
+    // Until the person joins, nothing about their account shows.
+    lastSignInAt: pending ? null : user.lastSignInAt,
   };
 }
 
@@ -46,13 +50,13 @@ function toDto(user: repo.UserRow, roles: Role[]): UserDto {
 export function loadSessionUser(db: Db, userId: number, organisationId?: number): SessionUser | undefined {
   const user = repo.findUserById(db, userId);
   if (!user || !user.active) return undefined;
-  const all = repo.listMembershipsWithRoles(db, userId);
-  const m = organisationId === undefined ? all[0] : all.find((x) => x.organisationId === organisationId);
+  const usable = repo.listMembershipsWithRoles(db, userId).filter((m) => m.active && m.acceptedAt !== null);
+  const m = organisationId === undefined ? usable[0] : usable.find((x) => x.organisationId === organisationId);
   if (!m) return undefined;
   return {
     id: user.id,
     email: user.email,
-    name: user.name,
+    name: m.name,
     roles: m.roles,
     organisation: { id: m.organisationId, name: m.organisationName },
   };
@@ -65,25 +69,24 @@ export async function checkCredentials(db: Db, email: string, password: string):
   const user = repo.findUserByEmail(db, email.trim().toLowerCase());
   const hash = user?.passwordHash ?? (await decoyPasswordHash());
   const matches = await verifyPassword(password, hash);
-  if (!user || !user.passwordHash || !matches || !user.active) {
+  const sessionUser = user && user.passwordHash && matches ? loadSessionUser(db, user.id) : undefined;
+  if (!user || !sessionUser) {
     recordAudit(db, { actorUserId: user?.id ?? null, action: 'auth.sign-in-failed', details: { email: email.slice(0, 254) } });
     return { ok: false };
   }
-  const sessionUser = loadSessionUser(db, user.id);
-  if (!sessionUser) return { ok: false };
-  db.update(users).set({ lastSignInAt: nowIso() }).where(eq(users.id, user.id)).run();
+  repo.touchLastSignIn(db, user.id);
   recordAudit(db, { organisationId: sessionUser.organisation.id, actorUserId: user.id, action: 'auth.sign-in' });
   return { ok: true, user: sessionUser };
 }
 
 export function listUsers(db: Db, organisationId: number): UserDto[] {
-  return repo.listOrganisationUsers(db, organisationId).map((u) => toDto(u.user, u.roles));
+  return repo.listOrganisationUsers(db, organisationId).map((u) => toDto(u.user, u.membership, u.roles));
 }
 
-function issueToken(db: Db, userId: number, purpose: 'invitation' | 'reset'): { token: string; expiresAt: Date } {
+function issueToken(db: Db, userId: number, purpose: 'invitation' | 'reset', organisationId: number | null): { token: string; expiresAt: Date } {
   const token = randomBytes(32).toString('base64url');
   const expiresAt = new Date(Date.now() + INVITATION_TTL_MS);
-  db.insert(passwordTokens).values({ userId, tokenSha256: sha256(token), purpose, expiresAt: expiresAt.toISOString() }).run();
+  repo.insertPasswordToken(db, { userId, tokenSha256: sha256(token), purpose, organisationId, expiresAt: expiresAt.toISOString() });
   return { token, expiresAt };
 }
 
@@ -92,99 +95,93 @@ export interface CreatedUser {
   invitation: { sent: boolean; error?: string };
 }
 
-/**
- * Adds a user to the actor's organisation and e-mails an invitation link. An e-mail already in
- * the organisation is a conflict; an existing account from another organisation gets a membership.
- */
-interface AddedMember {
-  user: repo.UserRow;
-  token?: string;
-  expiresAt?: Date;
+interface Invitation {
+  dto: UserDto;
+  token: string;
+  expiresAt: Date;
   organisationName: string;
+  /** The account already had a password: the link accepts the invitation instead of setting one. */
+  existingAccount: boolean;
 }
 
-/** Adds a member with roles in one transaction (with its audit record) and issues a link if needed. */
-function addMember(
-  db: Db,
-  organisationId: number,
-  actorUserId: number | null,
-  input: { email: string; name: string; roles: Role[] },
-): AddedMember {
+/** Adds a pending member with roles in one transaction (with its audit record) and issues a link. */
+function addMember(db: Db, organisationId: number, actorUserId: number | null, input: { email: string; name: string; roles: Role[] }): Invitation {
   return db.transaction((tx) => {
-    let existing = repo.findUserByEmail(tx, input.email);
-    if (existing && repo.findMembership(tx, existing.id, organisationId)) {
+    let user = repo.findUserByEmail(tx, input.email);
+    if (user && repo.findMembership(tx, user.id, organisationId)) {
       throw conflict('Someone with this e-mail is already a member.', { email: 'Someone with this e-mail is already a member.' });
     }
-    if (!existing) {
-      existing = tx.insert(users).values({ email: input.email, name: input.name }).returning().get();
-    }
-    const membership = tx.insert(memberships).values({ userId: existing.id, organisationId }).returning().get();
+    user ??= repo.insertUser(tx, { email: input.email, name: input.name });
+    const membership = repo.insertMembership(tx, { userId: user.id, organisationId, name: input.name });
     repo.replaceRoles(tx, membership.id, input.roles);
-    const org = tx.select().from(organisations).where(eq(organisations.id, organisationId)).get()!;
-    const issued = existing.passwordHash === null ? issueToken(tx, existing.id, 'invitation') : undefined;
+    const org = repo.findOrganisation(tx, organisationId)!;
+    const { token, expiresAt } = issueToken(tx, user.id, 'invitation', organisationId);
     recordAudit(tx, {
       organisationId,
       actorUserId,
       action: 'user.invite',
       targetType: 'user',
-      targetId: existing.id,
+      targetId: user.id,
       details: { email: input.email, name: input.name, roles: input.roles },
     });
-    return { user: existing, token: issued?.token, expiresAt: issued?.expiresAt, organisationName: org.name };
+    return { dto: toDto(user, membership, sortRoles(input.roles)), token, expiresAt, organisationName: org.name, existingAccount: user.passwordHash !== null };
   });
 }
 
-const setPasswordLink = (publicUrl: string, token: string) => `${publicUrl}/set-password?token=${encodeURIComponent(token)}`;
+const invitationLink = (publicUrl: string, token: string) => `${publicUrl}/set-password?token=${encodeURIComponent(token)}`;
 
 /** For `npm run create-admin`: adds the member and returns the set-password link instead of mailing it. */
-export function issueInvitationLink(
-  db: Db,
-  publicUrl: string,
-  organisationId: number,
-  input: { email: string; name: string; roles: Role[] },
-): string {
-  const added = addMember(db, organisationId, null, input);
-  if (!added.token) throw conflict('This account already has a password; sign in with it.');
-  return setPasswordLink(publicUrl, added.token);
+export function issueInvitationLink(db: Db, publicUrl: string, organisationId: number, input: { email: string; name: string; roles: Role[] }): string {
+  return invitationLink(publicUrl, addMember(db, organisationId, null, input).token);
 }
 
-/**
- * Adds a user to the actor's organisation and e-mails an invitation link. An e-mail already in
- * the organisation is a conflict; an existing account from another organisation gets a membership.
- */
-export async function inviteUser(
-  db: Db,
-  mailer: Mailer,
-  publicUrl: string,
-  actor: Actor,
-  input: { email: string; name: string; roles: Role[] },
-): Promise<CreatedUser> {
-  const { user, token, expiresAt, organisationName } = addMember(db, actor.organisationId, actor.id, input);
-  const dto = toDto(user, sortRoles(input.roles));
-  if (!token || !expiresAt) return { user: dto, invitation: { sent: false, error: 'The account already has a password; no invitation needed.' } };
+async function mailInvitation(mailer: Mailer, publicUrl: string, actor: Actor, email: string, roles: Role[], inv: Invitation): Promise<CreatedUser['invitation']> {
   const mail = renderInvitationMail({
-    inviteeName: input.name,
-    organisationName,
+    inviteeName: inv.dto.name,
+    organisationName: inv.organisationName,
     inviterName: actor.name,
-    roles: input.roles.map((r) => ROLE_LABELS[r]),
-    link: setPasswordLink(publicUrl, token),
-    expiresAt,
+    roles: roles.map((r) => ROLE_LABELS[r]),
+    link: invitationLink(publicUrl, inv.token),
+    expiresAt: inv.expiresAt,
+    existingAccount: inv.existingAccount,
   });
   try {
-    await mailer.send({ to: input.email, ...mail });
-    return { user: dto, invitation: { sent: true } };
+    await mailer.send({ to: email, organisationId: actor.organisationId, ...mail });
+    return { sent: true };
   } catch (err) {
     console.error('[fieldfile] invitation mail failed', err);
-    return { user: dto, invitation: { sent: false, error: 'The user was added but the invitation mail could not be sent. Check the mail settings.' } };
+    return { sent: false, error: 'The user was added but the invitation mail could not be sent. Check the mail settings, then resend it.' };
   }
 }
 
-export function updateUser(
-  db: Db,
-  actor: Actor,
-  userId: number,
-  changes: { name?: string; roles?: Role[]; active?: boolean },
-): UserDto {
+/**
+ * Adds a person to the actor's organisation and e-mails an invitation link. An e-mail already in
+ * the organisation is a conflict; for anyone else the answer is the same whether or not they
+ * already have an account.
+ */
+export async function inviteUser(db: Db, mailer: Mailer, publicUrl: string, actor: Actor, input: { email: string; name: string; roles: Role[] }): Promise<CreatedUser> {
+  const inv = addMember(db, actor.organisationId, actor.id, input);
+  return { user: inv.dto, invitation: await mailInvitation(mailer, publicUrl, actor, input.email, input.roles, inv) };
+}
+
+/** Sends a fresh invitation to a member who has not joined yet (expired link, failed mail); the old link stops working. */
+export async function resendInvitation(db: Db, mailer: Mailer, publicUrl: string, actor: Actor, userId: number): Promise<CreatedUser> {
+  const inv = db.transaction((tx): Invitation & { email: string; roles: Role[] } => {
+    const user = repo.findUserById(tx, userId);
+    const membership = user && repo.findMembership(tx, userId, actor.organisationId);
+    if (!user || !membership) throw notFound('No such user in your organisation.');
+    if (membership.acceptedAt !== null) throw conflict('This person has already joined; there is no invitation to resend.');
+    repo.retirePasswordTokens(tx, userId, 'invitation', actor.organisationId);
+    const { token, expiresAt } = issueToken(tx, userId, 'invitation', actor.organisationId);
+    const roles = repo.listRoles(tx, membership.id);
+    recordAudit(tx, { organisationId: actor.organisationId, actorUserId: actor.id, action: 'user.invite-resend', targetType: 'user', targetId: userId });
+    const org = repo.findOrganisation(tx, actor.organisationId)!;
+    return { dto: toDto(user, membership, roles), token, expiresAt, organisationName: org.name, existingAccount: user.passwordHash !== null, email: user.email, roles };
+  });
+  return { user: inv.dto, invitation: await mailInvitation(mailer, publicUrl, actor, inv.email, inv.roles, inv) };
+}
+
+export function updateUser(db: Db, actor: Actor, userId: number, changes: { name?: string; roles?: Role[]; active?: boolean }): UserDto {
   return db.transaction((tx) => {
     const user = repo.findUserById(tx, userId);
     const membership = user && repo.findMembership(tx, userId, actor.organisationId);
@@ -192,10 +189,8 @@ export function updateUser(
     if (userId === actor.id && (changes.active === false || (changes.roles && !changes.roles.includes('admin')))) {
       throw forbidden('You cannot deactivate yourself or remove your own admin role; ask another admin.');
     }
-    const patch: Partial<typeof users.$inferInsert> = { updatedAt: nowIso() };
-    if (changes.name !== undefined) patch.name = changes.name;
-    if (changes.active !== undefined) patch.active = changes.active;
-    tx.update(users).set(patch).where(eq(users.id, userId)).run();
+    // Only this organisation's membership changes: the account and other memberships are untouched.
+    repo.updateMembership(tx, membership.id, { name: changes.name, active: changes.active });
     if (changes.roles) repo.replaceRoles(tx, membership.id, changes.roles);
     recordAudit(tx, {
       organisationId: actor.organisationId,
@@ -205,41 +200,76 @@ export function updateUser(
       targetId: userId,
       details: changes,
     });
-    const roles = repo.listMembershipsWithRoles(tx, userId).find((m) => m.organisationId === actor.organisationId)?.roles ?? [];
-    return toDto(repo.findUserById(tx, userId)!, roles);
+    return toDto(user, repo.findMembership(tx, userId, actor.organisationId)!, repo.listRoles(tx, membership.id));
   });
 }
 
 function findLiveToken(db: Db, token: string) {
-  const row = db
-    .select()
-    .from(passwordTokens)
-    .where(and(eq(passwordTokens.tokenSha256, sha256(token)), isNull(passwordTokens.usedAt)))
-    .get();
+  const row = repo.findUnusedPasswordToken(db, sha256(token));
   if (!row || new Date(row.expiresAt).getTime() < Date.now()) return undefined;
   return row;
 }
 
-/** Who a set-password link is for, so the screen can greet them; undefined if used or expired. */
-export function describePasswordToken(db: Db, token: string): { email: string; name: string } | undefined {
+export interface TokenOwner {
+  email: string;
+  name: string;
+  /** True when the link accepts an invitation into an existing account (no new password). */
+  existingAccount: boolean;
+  organisationName?: string;
+}
+
+/** Who a link is for, so the screen can greet them; undefined if used or expired. */
+export function describePasswordToken(db: Db, token: string): TokenOwner | undefined {
   const row = findLiveToken(db, token);
   const user = row && repo.findUserById(db, row.userId);
-  return user && user.active ? { email: user.email, name: user.name } : undefined;
+  if (!row || !user || !user.active) return undefined;
+  const membership = row.organisationId !== null ? repo.findMembership(db, user.id, row.organisationId) : undefined;
+  const org = row.organisationId !== null ? repo.findOrganisation(db, row.organisationId) : undefined;
+  return {
+    email: user.email,
+    name: membership?.name ?? user.name,
+    existingAccount: row.purpose === 'invitation' && user.passwordHash !== null,
+    ...(org ? { organisationName: org.name } : {}),
+  };
 }
+
+const deadLink = () =>
+  unprocessable('This link has expired or was already used. Ask your admin for a new invitation.', { token: 'This link has expired or was already used.' });
 
 export async function setPasswordWithToken(db: Db, token: string, password: string): Promise<{ email: string }> {
   const hash = await hashPassword(password);
   return db.transaction((tx) => {
     const row = findLiveToken(tx, token);
     const user = row && repo.findUserById(tx, row.userId);
-    if (!row || !user || !user.active) {
-      throw unprocessable('This link has expired or was already used. Ask your admin for a new invitation.', {
-        token: 'This link has expired or was already used.',
-      });
-    }
-    tx.update(users).set({ passwordHash: hash, updatedAt: nowIso() }).where(eq(users.id, user.id)).run();
-    tx.update(passwordTokens).set({ usedAt: nowIso() }).where(eq(passwordTokens.id, row.id)).run();
-    recordAudit(tx, { actorUserId: user.id, action: 'auth.set-password', targetType: 'user', targetId: user.id, details: { purpose: row.purpose } });
+    if (!row || !user || !user.active) throw deadLink();
+    // An invitation into an existing account never replaces its password (see acceptInvitation).
+    if (row.purpose === 'invitation' && user.passwordHash !== null) throw deadLink();
+    repo.setPasswordHash(tx, user.id, hash);
+    repo.markPasswordTokenUsed(tx, row.id);
+    if (row.purpose === 'invitation') repo.acceptPendingMemberships(tx, user.id, row.organisationId);
+    recordAudit(tx, {
+      organisationId: row.organisationId,
+      actorUserId: user.id,
+      action: 'auth.set-password',
+      targetType: 'user',
+      targetId: user.id,
+      details: { purpose: row.purpose },
+    });
+    return { email: user.email };
+  });
+}
+
+/** An existing account joins the organisation that invited it, confirmed with its own password. */
+export async function acceptInvitation(db: Db, token: string, password: string): Promise<{ email: string }> {
+  const row = findLiveToken(db, token);
+  const user = row && repo.findUserById(db, row.userId);
+  if (!row || !user || !user.active || row.purpose !== 'invitation' || row.organisationId === null || !user.passwordHash) throw deadLink();
+  if (!(await verifyPassword(password, user.passwordHash))) throw unprocessable('That is not the password of this account.', { password: 'That is not the password of this account.' });
+  return db.transaction((tx) => {
+    if (!findLiveToken(tx, token)) throw deadLink();
+    repo.markPasswordTokenUsed(tx, row.id);
+    repo.acceptPendingMemberships(tx, user.id, row.organisationId);
+    recordAudit(tx, { organisationId: row.organisationId, actorUserId: user.id, action: 'user.join', targetType: 'user', targetId: user.id });
     return { email: user.email };
   });
 }

@@ -1,6 +1,7 @@
 /**
  * The invitation e-mail: produced when an admin adds a user; carries the one-time link to set a
- * password. Data: the invitee's name, the organisation, who invited them, the link and its expiry.
+ * password, or, for someone who already has a Fieldfile account, to accept with that account.
+ * Data: the invitee's name, the organisation, who invited them, the link and its expiry.
  */
 export interface InvitationMailData {
   inviteeName: string;
@@ -9,6 +10,8 @@ export interface InvitationMailData {
   roles: string[];
   link: string;
   expiresAt: Date;
+  /** The address already has an account: the link joins it to the organisation. */
+  existingAccount?: boolean;
 }
 
 const escapeHtml = (s: string) =>
@@ -22,7 +25,10 @@ export function renderInvitationMail(d: InvitationMailData) {
     '',
     `${d.inviterName} added you to ${d.organisationName} on Fieldfile as: ${d.roles.join(', ')}.`,
     '',
-    'Choose your password here (the link works once and expires ' + expires + '):',
+    (d.existingAccount ? 'Accept with your existing Fieldfile password here' : 'Choose your password here') +
+      ' (the link works once and expires ' +
+      expires +
+      '):',
     d.link,
     '',
     'If you did not expect this, ignore this message.',
@@ -31,7 +37,7 @@ export function renderInvitationMail(d: InvitationMailData) {
   const html = `<!doctype html><html><body style="font-family:sans-serif;color:#1c2b36">
 <p>Hello ${escapeHtml(d.inviteeName)},</p>
 <p>${escapeHtml(d.inviterName)} added you to <strong>${escapeHtml(d.organisationName)}</strong> on Fieldfile as: ${escapeHtml(d.roles.join(', '))}.</p>
-<p><a href="${escapeHtml(d.link)}">Choose your password</a> — the link works once and expires ${escapeHtml(expires)}.</p>
+<p><a href="${escapeHtml(d.link)}">${d.existingAccount ? 'Accept the invitation' : 'Choose your password'}</a> — the link works once and expires ${escapeHtml(expires)}.</p>
 <p style="color:#5b6670">If you did not expect this, ignore this message.</p>
 </body></html>`;
   return { subject, text, html };

@@ -106,7 +106,7 @@ describe('GET /api/auth/me and sign-out', () => {
     const login = await request(t.app).post('/api/auth/login').send({ email: 'engineer@fieldfile.test', password: TEST_PASSWORD });
     const setCookie = String(login.headers['set-cookie']).split(';')[0];
     // A second app on the same SQLite file and data folder (same session secret) = a restart.
-    const restarted = createApp({ handle: t.handle, config: t.config, mailer: createMailer(t.config, t.handle.db, () => t.catcher.port), serveWeb: false });
+    const restarted = createApp({ handle: t.handle, config: t.config, mailer: createMailer(t.config, () => t.catcher.port), serveWeb: false });
     const me = await request(restarted.app).get('/api/auth/me').set('cookie', setCookie);
     restarted.close();
     expect(me.status).toBe(200);

@@ -42,7 +42,7 @@ describe('users', () => {
     expect((await request(t.app).post('/api/auth/login').send({ email: 'ada.nwosu@fieldfile.test', password: 'whatever-long-pass' })).status).toBe(401);
 
     const who = await request(t.app).get(`/api/auth/password-token/${encodeURIComponent(token)}`);
-    expect(who.body).toEqual({ email: 'ada.nwosu@fieldfile.test', name: 'Ada Nwosu' });
+    expect(who.body).toEqual({ email: 'ada.nwosu@fieldfile.test', name: 'Ada Nwosu', existingAccount: false, organisationName: 'Halden Ridge Instruments' });
 
     const short = await request(t.app).post('/api/auth/set-password').send({ token, password: 'short' });
     expect(short.status).toBe(422);
@@ -106,9 +106,9 @@ describe('users', () => {
     expect((await admin.patch(`/api/users/${me.id}`).send({ roles: ['engineer'] })).status).toBe(403);
   });
 
-  it('404s for a user outside the organisation and 422s for a bad id', async () => {
+  it('404s for a user outside the organisation or an id that is not a plain number, 422s for an empty change', async () => {
     expect((await admin.patch('/api/users/99999').send({ name: 'X' })).status).toBe(404);
-    expect((await admin.patch('/api/users/abc').send({ name: 'X' })).status).toBe(422);
+    for (const bad of ['abc', '0x1', '1e0', '01', '-1']) expect((await admin.patch(`/api/users/${bad}`).send({ name: 'X' })).status).toBe(404);
     expect((await admin.patch('/api/users/1').send({})).status).toBe(422);
   });
 });

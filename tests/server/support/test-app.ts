@@ -13,6 +13,10 @@ import { loadConfig, type Config } from '../../../server/env';
 import { createMailer } from '../../../server/services/mailer';
 import { startMailCatcher, type MailCatcher } from '../../../server/services/mail-catcher';
 import { seedDemo } from '../../../seeds';
+import { DEMO_DOCK_DEVICE } from '../../../seeds/demo-filing';
+import * as usersRepo from '../../../server/repos/users-repo';
+import { createFiling } from '../../../server/services/filings-service';
+import { hashPassword } from '../../../server/services/passwords';
 
 export const TEST_PASSWORD = 'test-password-123';
 
@@ -35,7 +39,7 @@ export async function createTestApp(): Promise<TestApp> {
   const handle = openDatabase(path.join(dataDir, 'fieldfile.db'));
   applyMigrations(handle.db);
   const catcher = await startMailCatcher(handle.db, 0);
-  const mailer = createMailer(config, handle.db, () => catcher.port);
+  const mailer = createMailer(config, () => catcher.port);
   const { app, close } = createApp({ handle, config, mailer, serveWeb: false });
   return {
     app,
@@ -62,4 +66,28 @@ export async function signIn(t: TestApp, email: string, password = TEST_PASSWORD
   const res = await agent.post('/api/auth/login').send({ email, password });
   if (res.status !== 200) throw new Error(`sign-in as ${email} failed: ${res.status} ${JSON.stringify(res.body)}`);
   return agent;
+}
+
+/** A second, fictional organisation with its own admin and specialist and one filing, to prove organisations are sealed. */
+export const OTHER_ORG = {
+  name: 'Kestrel Bay Radio',
+  slug: 'kestrel-bay',
+  admin: { email: 'admin@kestrel.test', name: 'Ines Duarte' },
+  specialist: { email: 'specialist@kestrel.test', name: 'Olu Bakare' },
+};
+
+export async function seedOtherOrganisation(t: TestApp): Promise<{ organisationId: number; filingId: number }> {
+  const passwordHash = await hashPassword(TEST_PASSWORD);
+  const db = t.handle.db;
+  const org = usersRepo.insertOrganisation(db, { name: OTHER_ORG.name, slug: OTHER_ORG.slug });
+  const ids: Record<'admin' | 'specialist', number> = { admin: 0, specialist: 0 };
+  for (const role of ['admin', 'specialist'] as const) {
+    const person = OTHER_ORG[role];
+    const user = usersRepo.insertUser(db, { ...person, passwordHash });
+    const m = usersRepo.insertMembership(db, { userId: user.id, organisationId: org.id, name: person.name, acceptedAt: new Date().toISOString() });
+    usersRepo.replaceRoles(db, m.id, [role]);
+    ids[role] = user.id;
+  }
+  const filing = createFiling(db, { id: ids.specialist, organisationId: org.id, roles: ['specialist'] }, DEMO_DOCK_DEVICE);
+  return { organisationId: org.id, filingId: filing.id };
 }

@@ -1,0 +1,148 @@
+/**
+ * The role matrix: every API route × every kind of caller, with the status each must get. The
+ * routes come from the app's own route table, so adding a route without its row here fails.
+ *
+ * Callers: nobody signed in; the demo organisation's admin, specialist, engineer and approver;
+ * and a second organisation's admin and specialist, who must not reach the first one's data
+ * (404: they cannot even learn that it exists). Path parameters name the demo organisation's
+ * resources. Bodies are empty unless a row gives one, so an allowed caller mostly sees the
+ * validation answer (422) and nothing is changed.
+ *
+ * Adding a route: add its row (and `params`/`body` if the defaults below do not fit).
+ */
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { apiRouteTable } from './support/route-table';
+import { createTestApp, OTHER_ORG, seedOtherOrganisation, seedUsers, signIn, type TestApp } from './support/test-app';
+
+const CALLERS = ['anon', 'admin', 'specialist', 'engineer', 'approver', 'otherAdmin', 'otherSpecialist'] as const;
+type Caller = (typeof CALLERS)[number];
+type Expected = Record<Caller, number>;
+
+interface Fixture {
+  filingId: number;
+  engineerUserId: number;
+  mailId: number;
+}
+
+interface Row {
+  expect: Expected;
+  /** Path parameters beyond the defaults (see paramsFor). */
+  params?: (fx: Fixture) => Record<string, string | number>;
+  body?: unknown;
+  query?: Record<string, string>;
+  /** Sign in afresh for this request (the route ends the session). */
+  freshSession?: boolean;
+}
+
+/** Everyone, signed in or not, gets the same status. */
+const everyone = (status: number): Expected => ({ anon: status, admin: status, specialist: status, engineer: status, approver: status, otherAdmin: status, otherSpecialist: status });
+/** Every signed-in caller gets `status`, nobody signed in gets 401. */
+const signedIn = (status: number): Expected => ({ ...everyone(status), anon: 401 });
+/** The demo organisation's data: its members get `status`, the other organisation 404. */
+const ownOrganisation = (status: number): Expected => ({ ...signedIn(status), otherAdmin: 404, otherSpecialist: 404 });
+/** Only one role may: the others get 403 (the role check comes before any lookup). */
+const onlyRole = (role: 'admin' | 'specialist', status: number, otherOrg = 403): Expected => ({
+  anon: 401,
+  admin: role === 'admin' ? status : 403,
+  specialist: role === 'specialist' ? status : 403,
+  engineer: 403,
+  approver: 403,
+  otherAdmin: role === 'admin' ? otherOrg : 403,
+  otherSpecialist: role === 'specialist' ? otherOrg : 403,
+});
+
+export const MATRIX: Record<string, Row> = {
+  'GET /api/health': { expect: everyone(200) },
+  'GET /api/schema/device.json': { expect: everyone(200) },
+
+  'POST /api/auth/login': { expect: everyone(422) },
+  'POST /api/auth/logout': { expect: everyone(204), freshSession: true },
+  'GET /api/auth/me': { expect: signedIn(200) },
+  'GET /api/auth/password-token/:token': { expect: everyone(404) },
+  'POST /api/auth/set-password': { expect: everyone(422) },
+  'POST /api/auth/accept-invitation': { expect: everyone(422) },
+
+  'GET /api/users': { expect: onlyRole('admin', 200, 200) },
+  'POST /api/users': { expect: onlyRole('admin', 422, 422) },
+  'PATCH /api/users/:id': { expect: onlyRole('admin', 200, 404), params: (fx) => ({ id: fx.engineerUserId }), body: { roles: ['engineer'] } },
+  'POST /api/users/:id/invitation': { expect: onlyRole('admin', 409, 404), params: (fx) => ({ id: fx.engineerUserId }) },
+  'GET /api/outbox': { expect: onlyRole('admin', 200, 200) },
+  'GET /api/outbox/:id': { expect: onlyRole('admin', 200, 404), params: (fx) => ({ id: fx.mailId }) },
+  'GET /api/audit': { expect: onlyRole('admin', 200, 200) },
+
+  'GET /api/calc': { expect: signedIn(200) },
+  'POST /api/calc/:name': { expect: signedIn(422) },
+
+  'GET /api/filings': { expect: signedIn(200) },
+  'POST /api/filings': { expect: onlyRole('specialist', 422, 422) },
+  'POST /api/filings/import': { expect: onlyRole('specialist', 422, 422) },
+  'GET /api/filings/:id': { expect: ownOrganisation(200) },
+  'PUT /api/filings/:id/steps/:step': { expect: onlyRole('specialist', 422, 404) },
+  'GET /api/filings/:id/device.json': { expect: ownOrganisation(200) },
+  'GET /api/filings/:id/screening': { expect: ownOrganisation(200) },
+  'GET /api/filings/:id/screening/depth-profile': { expect: ownOrganisation(404), query: { transmitterId: 'NO-SUCH-TX', usePositionId: 'NO-SUCH-POS' } },
+};
+
+/** Defaults for path parameters; a row's `params` overrides them. */
+const paramsFor = (fx: Fixture): Record<string, string | number> => ({
+  id: fx.filingId,
+  step: 'device',
+  name: 'fcc-sar-exemption',
+  token: 'no-such-token',
+});
+
+let t: TestApp;
+let fx: Fixture;
+const EMAILS: Record<Exclude<Caller, 'anon'>, string> = {
+  admin: 'admin@fieldfile.test',
+  specialist: 'specialist@fieldfile.test',
+  engineer: 'engineer@fieldfile.test',
+  approver: 'approver@fieldfile.test',
+  otherAdmin: OTHER_ORG.admin.email,
+  otherSpecialist: OTHER_ORG.specialist.email,
+};
+const agents = new Map<Caller, ReturnType<typeof request.agent>>();
+
+beforeAll(async () => {
+  t = await createTestApp();
+  await seedUsers(t);
+  await seedOtherOrganisation(t);
+  for (const caller of CALLERS) agents.set(caller, caller === 'anon' ? request.agent(t.app) : await signIn(t, EMAILS[caller]));
+  const admin = agents.get('admin')!;
+  const users = (await admin.get('/api/users')).body.users as { id: number; email: string }[];
+  // One mail in the demo organisation's outbox, for the message route.
+  await admin.post('/api/users').send({ email: 'matrix.invitee@fieldfile.test', name: 'Matrix Invitee', roles: ['engineer'] });
+  const filings = (await agents.get('specialist')!.get('/api/filings')).body.filings as { id: number }[];
+  fx = {
+    filingId: filings[0].id,
+    engineerUserId: users.find((u) => u.email === 'engineer@fieldfile.test')!.id,
+    mailId: (await admin.get('/api/outbox')).body.messages[0].id,
+  };
+}, 120_000);
+afterAll(() => t.close());
+
+describe('role matrix', () => {
+  it('has exactly one row for every API route', async () => {
+    const routes = apiRouteTable(t.app);
+    const rows = Object.keys(MATRIX).sort();
+    expect(routes.filter((r) => !rows.includes(r)), 'routes without a row in the role matrix').toEqual([]);
+    expect(rows.filter((r) => !routes.includes(r)), 'rows for routes that do not exist').toEqual([]);
+  });
+
+  it.each(Object.entries(MATRIX))('%s', async (key, row) => {
+    const [method, pattern] = key.split(' ');
+    const params = { ...paramsFor(fx), ...row.params?.(fx) };
+    const url = pattern.replace(/:(\w+)/g, (_m, name: string) => encodeURIComponent(String(params[name])));
+    const actual: Partial<Expected> = {};
+    for (const caller of CALLERS) {
+      const agent = row.freshSession && caller !== 'anon' ? await signIn(t, EMAILS[caller]) : agents.get(caller)!;
+      let req = agent[method.toLowerCase() as 'get' | 'post' | 'put' | 'patch' | 'delete'](url);
+      if (row.query) req = req.query(row.query);
+      if (method !== 'GET') req = req.send((row.body ?? {}) as object);
+      const res = await req;
+      actual[caller] = res.status;
+    }
+    expect(actual).toEqual(row.expect);
+  }, 60_000);
+});
