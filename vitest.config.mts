@@ -8,5 +8,7 @@ export default defineConfig({
     environment: 'node',
     pool: 'forks',
     testTimeout: 20_000,
+    // Seeding hashes passwords (scrypt, about 0.5 s each); on a busy machine that takes a while.
+    hookTimeout: 60_000,
   },
 });
