@@ -17,6 +17,7 @@ import { createPassport } from './auth/passport';
 import { createSessionStore } from './auth/session-store';
 import { apiNotFound, errorHandler } from './middleware/errors';
 import { forbidden } from './http-error';
+import { setPasswordHashCost } from './services/passwords';
 import { healthRoutes } from './routes/health';
 import { authRoutes } from './routes/auth';
 import { userRoutes } from './routes/users';

@@ -23,6 +23,8 @@ const zEnv = z.object({
   /** Set by `npm run dev`: the Expo dev server's origin, allowed to call the API with cookies. */
   FIELDFILE_DEV_WEB_ORIGIN: z.string().url().optional(),
   FIELDFILE_SESSION_SECRET: z.string().min(16).optional(),
+  /** log2 of scrypt's N for new password hashes; below 17 only for tests. */
+  FIELDFILE_SCRYPT_LOG2N: z.coerce.number().int().min(10).max(20).default(17),
   FIELDFILE_DEMO_PASSWORD: z.string().min(8).default('fieldfile-demo-2026'),
   /** Port of the in-process SMTP catcher (used when SMTP_HOST is not set). */
   FIELDFILE_MAIL_CATCHER_PORT: z.coerce.number().int().min(0).max(65535).default(2525),
@@ -49,6 +51,7 @@ export interface Config {
   sessionSecret?: string;
   devWebOrigin?: string;
   demoPassword: string;
+  scryptLog2N: number;
   mail: {
     from: string;
     catcherPort: number;
@@ -77,6 +80,7 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
     sessionSecret: e.FIELDFILE_SESSION_SECRET,
     devWebOrigin: e.FIELDFILE_DEV_WEB_ORIGIN,
     demoPassword: e.FIELDFILE_DEMO_PASSWORD,
+    scryptLog2N: e.FIELDFILE_SCRYPT_LOG2N,
     mail: {
       from: e.MAIL_FROM,
       catcherPort: e.FIELDFILE_MAIL_CATCHER_PORT,

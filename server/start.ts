@@ -10,6 +10,7 @@ import { openDatabase } from '../db/client';
 import { applyMigrations } from '../db/migrate';
 import { createApp } from './app';
 import { createMailer } from './services/mailer';
+import { setPasswordHashCost } from './services/passwords';
 import { startMailCatcher, type MailCatcher } from './services/mail-catcher';
 import { buildWeb, webBuildIsStale } from './web-build';
 import { seedDemo } from '../seeds';
@@ -21,6 +22,7 @@ import { DEMO_USERS } from '../seeds/demo-people';
 async function main() {
   const dev = process.argv.includes('--dev');
   const config = loadConfig();
+  setPasswordHashCost(config.scryptLog2N);
   for (const dir of [config.dataDir, config.uploadsDir, config.packagesDir]) fs.mkdirSync(dir, { recursive: true });
 
   if (!dev && webBuildIsStale(config.distDir)) buildWeb(config.distDir);

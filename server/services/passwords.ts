@@ -8,6 +8,16 @@ import { randomBytes, scrypt as scryptCb, timingSafeEqual, type ScryptOptions } 
 
 const KEY_LENGTH = 32;
 const DEFAULT_COST = { N: 2 ** 17, r: 8, p: 1 };
+let cost = DEFAULT_COST;
+
+/**
+ * Tests run with a cheaper N (FIELDFILE_SCRYPT_LOG2N, see server/env.ts) so that a suite full of
+ * sign-ins does not starve a shared machine; production keeps the default. Existing hashes carry
+ * their own cost and verify either way.
+ */
+export function setPasswordHashCost(log2N: number): void {
+  cost = { ...DEFAULT_COST, N: 2 ** log2N };
+}
 
 function scrypt(password: string, salt: Buffer, keylen: number, options: ScryptOptions): Promise<Buffer> {
   return new Promise((resolve, reject) => {
@@ -18,7 +28,7 @@ function scrypt(password: string, salt: Buffer, keylen: number, options: ScryptO
 const maxmem = (N: number, r: number) => 128 * N * r * 2;
 
 export async function hashPassword(password: string): Promise<string> {
-  const { N, r, p } = DEFAULT_COST;
+  const { N, r, p } = cost;
   const salt = randomBytes(16);
   const key = await scrypt(password, salt, KEY_LENGTH, { N, r, p, maxmem: maxmem(N, r) });
   return `scrypt$${N}$${r}$${p}$${salt.toString('base64')}$${key.toString('base64')}`;

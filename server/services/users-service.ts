@@ -236,14 +236,20 @@ export function describePasswordToken(db: Db, token: string): TokenOwner | undef
 const deadLink = () =>
   unprocessable('This link has expired or was already used. Ask your admin for a new invitation.', { token: 'This link has expired or was already used.' });
 
+function liveTokenForNewPassword(db: Db, token: string) {
+  const row = findLiveToken(db, token);
+  const user = row && repo.findUserById(db, row.userId);
+  if (!row || !user || !user.active) throw deadLink();
+  // An invitation into an existing account never replaces its password (see acceptInvitation).
+  if (row.purpose === 'invitation' && user.passwordHash !== null) throw deadLink();
+  return { row, user };
+}
+
 export async function setPasswordWithToken(db: Db, token: string, password: string): Promise<{ email: string }> {
+  liveTokenForNewPassword(db, token); // refuse a dead link before spending a hash on it
   const hash = await hashPassword(password);
   return db.transaction((tx) => {
-    const row = findLiveToken(tx, token);
-    const user = row && repo.findUserById(tx, row.userId);
-    if (!row || !user || !user.active) throw deadLink();
-    // An invitation into an existing account never replaces its password (see acceptInvitation).
-    if (row.purpose === 'invitation' && user.passwordHash !== null) throw deadLink();
+    const { row, user } = liveTokenForNewPassword(tx, token);
     repo.setPasswordHash(tx, user.id, hash);
     repo.markPasswordTokenUsed(tx, row.id);
     if (row.purpose === 'invitation') repo.acceptPendingMemberships(tx, user.id, row.organisationId);

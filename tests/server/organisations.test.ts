@@ -106,7 +106,7 @@ describe('inviting someone who already has an account', () => {
     const listed = (await adminB.get('/api/users')).body.users.find((u: { id: number }) => u.id === specialistId);
     expect(listed.invitationPending).toBe(false);
     expect((await request(t.app).post('/api/auth/accept-invitation').send({ token, password: TEST_PASSWORD })).status).toBe(422);
-  });
+  }, 60_000);
 });
 
 describe('resending an invitation', () => {
@@ -127,5 +127,5 @@ describe('resending an invitation', () => {
     expect((await adminA.post(`/api/users/${first.body.user.id}/invitation`).send({})).status).toBe(409);
     // Another organisation cannot resend (or learn about) this person's invitation.
     expect((await adminB.post(`/api/users/${first.body.user.id}/invitation`).send({})).status).toBe(404);
-  });
+  }, 60_000);
 });

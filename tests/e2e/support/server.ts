@@ -61,6 +61,7 @@ export async function startServer(): Promise<RunningServer> {
       FIELDFILE_DATA_DIR: dataDir,
       FIELDFILE_PUBLIC_URL: baseUrl,
       FIELDFILE_MAIL_CATCHER_PORT: '0',
+      FIELDFILE_SCRYPT_LOG2N: '14',
     },
     stdio: ['ignore', 'pipe', 'pipe'],
   });

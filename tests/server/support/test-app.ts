@@ -35,6 +35,7 @@ export async function createTestApp(): Promise<TestApp> {
     FIELDFILE_DATA_DIR: dataDir,
     FIELDFILE_DEMO_PASSWORD: TEST_PASSWORD,
     FIELDFILE_PUBLIC_URL: 'http://fieldfile.test:8080',
+    FIELDFILE_SCRYPT_LOG2N: '14',
   });
   const handle = openDatabase(path.join(dataDir, 'fieldfile.db'));
   applyMigrations(handle.db);
