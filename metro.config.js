@@ -1,9 +1,11 @@
-// Metro config: Expo's defaults plus one redirect that keeps zod's unused locales out of the
+// Metro config: Expo's defaults, WOFF2 as an asset type, and one redirect that keeps zod's unused locales out of the
 // web bundle (see constants/zod-locales.js).
 const path = require('node:path');
 const { getDefaultConfig } = require('expo/metro-config');
 
 const config = getDefaultConfig(__dirname);
+// The shipped fonts are WOFF2 (assets/fonts).
+config.resolver.assetExts = [...config.resolver.assetExts, 'woff2'];
 
 const ZOD_DIR = `${path.sep}node_modules${path.sep}zod${path.sep}`;
 const ZOD_LOCALES_INDEX = /^\.\.\/locales\/index\.c?js$/;

@@ -5,20 +5,22 @@ import { Slot } from 'expo-router';
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { SafeAreaProvider } from 'react-native-safe-area-context';
+import { installGlobalWebStyle } from '../components/layout/global-web-style';
 import { Splash } from '../components/layout/splash';
 import { fonts } from '../constants/theme';
 import { createQueryClient } from '../hooks/queries/query-client';
 
 export { ErrorScreen as ErrorBoundary } from '../components/layout/error-screen';
 
+// WOFF2, Latin subset, only the weights the theme uses (licences beside them in assets/fonts).
 const FONT_FILES = {
-  [fonts.regular]: require('../assets/fonts/IBMPlexSans_400Regular.ttf'),
-  [fonts.medium]: require('../assets/fonts/IBMPlexSans_500Medium.ttf'),
-  [fonts.semibold]: require('../assets/fonts/IBMPlexSans_600SemiBold.ttf'),
-  [fonts.bold]: require('../assets/fonts/IBMPlexSans_700Bold.ttf'),
-  [fonts.mono]: require('../assets/fonts/IBMPlexMono_400Regular.ttf'),
-  [fonts.monoMedium]: require('../assets/fonts/IBMPlexMono_500Medium.ttf'),
+  [fonts.regular]: require('../assets/fonts/AtkinsonHyperlegibleNext-400.woff2'),
+  [fonts.medium]: require('../assets/fonts/AtkinsonHyperlegibleNext-500.woff2'),
+  [fonts.semibold]: require('../assets/fonts/AtkinsonHyperlegibleNext-600.woff2'),
+  [fonts.mono]: require('../assets/fonts/AtkinsonHyperlegibleMono-400.woff2'),
 };
+
+installGlobalWebStyle();
 
 export default function RootLayout() {
   const [queryClient] = useState(createQueryClient);

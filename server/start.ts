@@ -50,7 +50,7 @@ async function main() {
       '',
       `Fieldfile is running: ${url}`,
       `  data folder: ${config.dataDir}`,
-      catcher ? `  mail: local catcher on 127.0.0.1:${catcher.port} (read it in the app: Outbox)` : `  mail: SMTP ${config.mail.smtp!.host}:${config.mail.smtp!.port}`,
+      catcher ? `  mail: local catcher on 127.0.0.1:${catcher.port} (read it in the app: Sent mail)` : `  mail: SMTP ${config.mail.smtp!.host}:${config.mail.smtp!.port}`,
     ];
     if (seeded) {
       lines.push('', `Demo sign-ins (password: ${config.demoPassword}):`);

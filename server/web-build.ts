@@ -35,6 +35,12 @@ export function buildWeb(distDir: string): void {
     { cwd: ROOT, stdio: 'inherit', env: { ...process.env, CI: '1', EXPO_NO_TELEMETRY: '1', EXPO_OFFLINE: '1' } },
   );
   if (result.status !== 0) throw new Error(`expo export failed (exit ${result.status}); see the output above.`);
+  // The fonts' licences travel with the fonts (SIL OFL 1.1 asks for it).
+  const licences = path.join(distDir, 'licences');
+  fs.mkdirSync(licences, { recursive: true });
+  for (const f of fs.readdirSync(path.join(ROOT, 'assets', 'fonts')).filter((n) => n.endsWith('.txt'))) {
+    fs.copyFileSync(path.join(ROOT, 'assets', 'fonts', f), path.join(licences, f));
+  }
   fs.writeFileSync(path.join(distDir, STAMP), new Date().toISOString());
   console.log(`[fieldfile] web app built in ${((Date.now() - started) / 1000).toFixed(1)} s`);
 }

@@ -1,4 +1,4 @@
-/** The Fieldfile wordmark: the mark beside the name, set in Plex Sans. */
+/** The Fieldfile wordmark: the mark beside the name, set in Atkinson Hyperlegible Next. */
 import { StyleSheet, Text, View } from 'react-native';
 import { fonts, palette } from '../../constants/theme';
 import { Mark, type BrandTone } from './mark';

@@ -20,7 +20,7 @@ export interface DepthLayer {
 
 const HEIGHT = 280;
 const M = { top: 34, right: 16, bottom: 44, left: 64 };
-const LAYER_FILLS = [palette.copperSoft, palette.paper, palette.paperDeep, palette.surface];
+const LAYER_FILLS = [palette.accentSoft, palette.paper, palette.paperDeep, palette.surface];
 
 const sarTick = (v: number) => (v >= 0.01 && v < 1000 ? String(Number(v.toPrecision(2))) : v.toExponential(0).replace('e+', 'e'));
 
@@ -89,7 +89,7 @@ export function DepthProfileChart({ points, layers, depthLimitMm, testID }: { po
           ))}
           <Line x1={M.left} x2={width - M.right} y1={HEIGHT - M.bottom} y2={HEIGHT - M.bottom} stroke={palette.inkMuted} />
           <Line x1={M.left} x2={M.left} y1={M.top} y2={HEIGHT - M.bottom} stroke={palette.inkMuted} />
-          {path ? <Path d={path} stroke={palette.copper} strokeWidth={2.2} fill="none" /> : null}
+          {path ? <Path d={path} stroke={palette.accent} strokeWidth={2.2} fill="none" /> : null}
           <SvgText x={(M.left + width - M.right) / 2} y={HEIGHT - 8} fontSize={12} fontFamily={fonts.regular} fill={palette.inkSoft} textAnchor="middle">
             Depth below the skin surface (mm)
           </SvgText>

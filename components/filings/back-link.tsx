@@ -9,8 +9,8 @@ export function BackLink({ href, label, testID }: { href: string; label: string;
   return (
     <Link href={href} asChild>
       <Pressable style={styles.back} accessibilityRole="link" accessibilityLabel={label} testID={testID}>
-        <Icon name="chevronLeft" size={18} color={palette.copper} />
-        <Text variant="smallStrong" tone="copper">
+        <Icon name="chevronLeft" size={18} color={palette.accent} />
+        <Text variant="smallStrong" tone="accent">
           {label}
         </Text>
       </Pressable>

@@ -87,7 +87,7 @@ export function EditRows({
         rows.map((i) => (
           <View key={keyOf(i)} style={styles.card} testID={`${testID}-row-${i}`}>
             <View style={styles.cardHead}>
-              <Text variant="label" tone="copper" style={{ flex: 1 }}>
+              <Text variant="label" tone="accent" style={{ flex: 1 }}>
                 {`${noun} ${i + 1}${titleOf(i) ? ` · ${titleOf(i)}` : ''}`}
               </Text>
               {remove(i)}

@@ -75,6 +75,6 @@ const styles = StyleSheet.create({
   leftContent: { padding: space.md, paddingTop: space.xl, gap: space.md },
   back: { flexDirection: 'row', alignItems: 'center', gap: space.xs, minHeight: 32, paddingHorizontal: space.sm },
   identity: { gap: space.xs, padding: space.md, borderRadius: 8, borderWidth: 1, borderColor: palette.line, backgroundColor: palette.paper },
-  identityActive: { borderColor: palette.copper },
+  identityActive: { borderColor: palette.accent },
   right: { flex: 1, minWidth: 0 },
 });

@@ -199,7 +199,7 @@ const styles = StyleSheet.create({
   tr: { flexDirection: 'row', gap: space.sm, paddingHorizontal: space.sm, paddingVertical: 6, borderBottomWidth: 1, borderBottomColor: palette.paperDeep, alignItems: 'baseline' },
   trLong: { flexDirection: 'column', alignItems: 'stretch', gap: 2 },
   th: { backgroundColor: palette.paper },
-  worst: { backgroundColor: palette.copperSoft },
+  worst: { backgroundColor: palette.accentSoft },
   c: { minWidth: 0 },
   num: { flex: 1, textAlign: 'right' },
   name: { flex: 1, fontSize: 12 },

@@ -35,7 +35,7 @@ export function SaveIndicator({ status, onRetry, readOnly }: { status: AutosaveS
     case 'saving':
       body = (
         <>
-          <ActivityIndicator size="small" color={palette.copper} />
+          <ActivityIndicator size="small" color={palette.accent} />
           <Text variant="small" tone="soft">
             Saving…
           </Text>

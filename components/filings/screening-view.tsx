@@ -100,7 +100,7 @@ function Summary({ s }: { s: FilingScreening }) {
     <View style={[styles.summary, wide && styles.summaryWide]} testID="screening-summary">
       {entries.map(([regime, c]) => (
         <View key={regime} style={styles.summaryCard} testID={`summary-${regime}`} accessibilityLabel={`${REGIME_LABELS[regime]}: ${c.combinations} combinations, ${c.exempt} exempt, ${c.evaluateSar} need SAR, ${c.evaluateMpe} need MPE`}>
-          <Text variant="label" tone="copper">
+          <Text variant="label" tone="accent">
             {regimeShort(regime)}
           </Text>
           <Text variant="small" tone="soft" numberOfLines={2}>
@@ -270,7 +270,7 @@ const styles = StyleSheet.create({
   right: { textAlign: 'right' },
   thCell: { paddingHorizontal: 4 },
   cellPress: { minHeight: layout.touchMinPx, justifyContent: 'center', borderRadius: radii.sm, paddingHorizontal: 4 },
-  pressed: { backgroundColor: palette.copperSoft },
+  pressed: { backgroundColor: palette.accentSoft },
   figure: { fontSize: 13, textAlign: 'right', textDecorationLine: 'underline', textDecorationStyle: 'dotted', textDecorationColor: palette.inkFaint } as object,
   link: { textDecorationLine: 'underline', textDecorationStyle: 'dotted', textDecorationColor: palette.inkFaint } as object,
   cards: { gap: space.md },

@@ -28,9 +28,11 @@ export function StepList({ filing, activeStep, compact }: { filing: FilingDetail
               testID={`step-link-${s.step}`}
               style={StyleSheet.flatten([styles.item, active && styles.active])}
             >
-              <Text variant="figure" tone={active ? 'copper' : 'muted'} style={styles.number}>
-                {String(i + 1).padStart(2, '0')}
-              </Text>
+              <View style={[styles.number, active && styles.numberActive]}>
+                <Text variant="smallStrong" style={[styles.numberText, { color: active ? palette.onInk : palette.inkSoft }]}>
+                  {i + 1}
+                </Text>
+              </View>
               <View style={styles.body}>
                 <View style={styles.titleRow}>
                   <Text variant="bodyStrong" style={{ flex: 1 }}>
@@ -76,8 +78,10 @@ export function StepList({ filing, activeStep, compact }: { filing: FilingDetail
 const styles = StyleSheet.create({
   list: { gap: space.xxs },
   item: { flexDirection: 'row', gap: space.md, minHeight: layout.touchMinPx, paddingVertical: space.sm, paddingHorizontal: space.md, borderRadius: radii.md, borderLeftWidth: 3, borderLeftColor: 'transparent' },
-  active: { backgroundColor: palette.copperSoft, borderLeftColor: palette.copper },
-  number: { width: 22, textAlign: 'left', paddingTop: 1 },
+  active: { backgroundColor: palette.accentSoft, borderLeftColor: palette.accent },
+  number: { width: 24, height: 24, borderRadius: 12, borderWidth: 1, borderColor: palette.lineStrong, alignItems: 'center', justifyContent: 'center', marginTop: 0 },
+  numberActive: { backgroundColor: palette.accent, borderColor: palette.accent },
+  numberText: { fontVariant: ['tabular-nums'] },
   body: { flex: 1, gap: space.xxs },
   titleRow: { flexDirection: 'row', alignItems: 'center', gap: space.sm, flexWrap: 'wrap' },
   state: { flexDirection: 'row', alignItems: 'center', gap: 4 },

@@ -1,6 +1,6 @@
 /**
  * The signed-in frame. Phone first: a slim top bar, the screen, and a bottom bar of icon+label
- * destinations. From layout.wideMinWidthPx: an ink sidebar beside the content.
+ * destinations. From layout.wideMinWidthPx: a paper sidebar beside the content.
  * Pressables inside `Link asChild` get one flattened style object: on web the Link's slot passes
  * neither style functions nor arrays through.
  */
@@ -42,8 +42,8 @@ function Sidebar() {
   return (
     <View style={styles.sidebar} role="navigation" aria-label="Main" testID="sidebar">
       <View style={styles.sidebarBrand}>
-        <Wordmark size={30} tone="onInk" />
-        <Text variant="small" tone="onInkMuted" numberOfLines={2}>
+        <Wordmark size={30} />
+        <Text variant="small" tone="muted" numberOfLines={2}>
           {user.organisation.name}
         </Text>
       </View>
@@ -56,10 +56,10 @@ function Sidebar() {
         <Pressable style={styles.sidebarUser} accessibilityLabel={`Signed in as ${user.name}`}>
           <Initials name={user.name} />
           <View style={{ flex: 1 }}>
-            <Text variant="smallStrong" tone="onInk" numberOfLines={1}>
+            <Text variant="smallStrong" numberOfLines={1}>
               {user.name}
             </Text>
-            <Text variant="small" tone="onInkMuted" numberOfLines={1}>
+            <Text variant="small" tone="muted" numberOfLines={1}>
               {user.roles.map((r) => ROLE_LABELS[r]).join(', ')}
             </Text>
           </View>
@@ -73,13 +73,13 @@ function SidebarLink({ item, active }: { item: NavItem; active: boolean }) {
   return (
     <Link href={item.href} asChild>
       <Pressable
-        testID={`nav-${item.label.toLowerCase()}`}
+        testID={`nav-${item.id}`}
         accessibilityLabel={item.label}
         aria-current={active ? 'page' : undefined}
         style={StyleSheet.flatten([styles.sidebarLink, active && styles.sidebarLinkActive])}
       >
-        <Icon name={item.icon} size={20} color={active ? palette.onInk : palette.onInkMuted} />
-        <Text variant="bodyStrong" tone={active ? 'onInk' : 'onInkMuted'}>
+        <Icon name={item.icon} size={20} color={active ? palette.accent : palette.inkMuted} strokeWidth={active ? 2 : 1.7} />
+        <Text variant="bodyStrong" tone={active ? 'ink' : 'soft'}>
           {item.label}
         </Text>
       </Pressable>
@@ -111,13 +111,13 @@ function BottomBar() {
         return (
           <Link key={item.href} href={item.href} asChild>
             <Pressable
-              testID={`nav-${item.label.toLowerCase()}`}
+              testID={`nav-${item.id}`}
               accessibilityLabel={item.label}
               aria-current={active ? 'page' : undefined}
               style={styles.tab}
             >
               <View style={[styles.tabMarker, active && styles.tabMarkerActive]} />
-              <Icon name={item.icon} size={22} color={active ? palette.copper : palette.inkMuted} strokeWidth={active ? 2 : 1.7} />
+              <Icon name={item.icon} size={22} color={active ? palette.accent : palette.inkMuted} strokeWidth={active ? 2 : 1.7} />
               <Text variant="small" style={[styles.tabLabel, { color: active ? palette.ink : palette.inkMuted }]} numberOfLines={1}>
                 {item.label}
               </Text>
@@ -149,18 +149,18 @@ const styles = StyleSheet.create({
   wide: { flex: 1, flexDirection: 'row', backgroundColor: palette.paper },
   narrow: { flex: 1, backgroundColor: palette.paper },
   main: { flex: 1, minWidth: 0 },
-  sidebar: { width: layout.sidebarWidthPx, backgroundColor: palette.ink, paddingHorizontal: space.md, paddingVertical: space.xl, gap: space.xl },
+  sidebar: { width: layout.sidebarWidthPx, backgroundColor: palette.paperDeep, borderRightWidth: 1, borderRightColor: palette.line, paddingHorizontal: space.md, paddingVertical: space.xl, gap: space.xl },
   sidebarBrand: { paddingHorizontal: space.sm, gap: space.sm },
   sidebarNav: { gap: space.xxs, flex: 1 },
   sidebarLink: { flexDirection: 'row', alignItems: 'center', gap: space.md, minHeight: layout.touchMinPx, paddingHorizontal: space.md, borderRadius: radii.md, borderLeftWidth: 3, borderLeftColor: 'transparent' },
-  sidebarLinkActive: { backgroundColor: palette.inkRaised, borderLeftColor: palette.copper },
-  sidebarUser: { flexDirection: 'row', alignItems: 'center', gap: space.sm, padding: space.sm, borderRadius: radii.md, borderTopWidth: 1, borderTopColor: palette.inkRaised },
+  sidebarLinkActive: { backgroundColor: palette.surface, borderLeftColor: palette.accent },
+  sidebarUser: { flexDirection: 'row', alignItems: 'center', gap: space.sm, padding: space.sm, borderRadius: radii.md, borderTopWidth: 1, borderTopColor: palette.line },
   topBar: { flexDirection: 'row', alignItems: 'center', justifyContent: 'space-between', gap: space.md, paddingHorizontal: space.lg, paddingBottom: space.sm, backgroundColor: palette.surface, borderBottomWidth: 1, borderBottomColor: palette.line },
   topOrg: { flexShrink: 1, textAlign: 'right' },
   bottomBar: { flexDirection: 'row', backgroundColor: palette.surface, borderTopWidth: 1, borderTopColor: palette.line },
   tab: { flex: 1, alignItems: 'center', justifyContent: 'center', gap: 2, minHeight: layout.bottomBarHeightPx, paddingBottom: space.xs },
   tabMarker: { position: 'absolute', top: 0, height: 3, width: 28, borderBottomLeftRadius: 3, borderBottomRightRadius: 3, backgroundColor: 'transparent' },
-  tabMarkerActive: { backgroundColor: palette.copper },
+  tabMarkerActive: { backgroundColor: palette.accent },
   tabLabel: { fontSize: 12, lineHeight: 16 },
-  initials: { backgroundColor: palette.copperSoft, alignItems: 'center', justifyContent: 'center' },
+  initials: { backgroundColor: palette.accentSoft, alignItems: 'center', justifyContent: 'center' },
 });

@@ -4,17 +4,19 @@ import type { IconName } from '../icons';
 
 export interface NavItem {
   href: '/filings' | '/users' | '/outbox' | '/activity' | '/profile';
+  /** Stable id for tests (`nav-<id>`), independent of the wording. */
+  id: 'filings' | 'people' | 'outbox' | 'activity' | 'profile';
   label: string;
   icon: IconName;
   adminOnly: boolean;
 }
 
 export const NAV_ITEMS: readonly NavItem[] = [
-  { href: '/filings', label: 'Filings', icon: 'filings', adminOnly: false },
-  { href: '/users', label: 'People', icon: 'people', adminOnly: true },
-  { href: '/outbox', label: 'Outbox', icon: 'outbox', adminOnly: true },
-  { href: '/activity', label: 'Activity', icon: 'activity', adminOnly: true },
-  { href: '/profile', label: 'Profile', icon: 'profile', adminOnly: false },
+  { href: '/filings', id: 'filings', label: 'Filings', icon: 'filings', adminOnly: false },
+  { href: '/users', id: 'people', label: 'People', icon: 'people', adminOnly: true },
+  { href: '/outbox', id: 'outbox', label: 'Sent mail', icon: 'outbox', adminOnly: true },
+  { href: '/activity', id: 'activity', label: 'Activity', icon: 'activity', adminOnly: true },
+  { href: '/profile', id: 'profile', label: 'Profile', icon: 'profile', adminOnly: false },
 ];
 
 export function navItemsFor(user: SessionUser): NavItem[] {

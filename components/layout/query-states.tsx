@@ -9,7 +9,7 @@ import { Text } from '../ui/text';
 export function Loading({ label = 'Loading…' }: { label?: string }) {
   return (
     <View style={styles.loading} accessibilityRole="progressbar" accessibilityLabel={label}>
-      <ActivityIndicator color={palette.copper} />
+      <ActivityIndicator color={palette.accent} />
       <Text tone="muted">{label}</Text>
     </View>
   );

@@ -27,7 +27,7 @@ export function Screen({
         <View style={styles.header}>
           <View style={styles.headings}>
             {eyebrow ? (
-              <Text variant="label" tone="copper">
+              <Text variant="label" tone="accent">
                 {eyebrow}
               </Text>
             ) : null}

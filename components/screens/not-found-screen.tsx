@@ -7,7 +7,7 @@ export function NotFoundScreen() {
   return (
     <AuthShell title="No such page" intro={`Fieldfile has no page at ${pathname}. It may have moved, or the link was cut short.`}>
       <Link href="/filings" testID="not-found-home">
-        <Text variant="bodyStrong" tone="copper">
+        <Text variant="bodyStrong" tone="accent">
           Go to your filings
         </Text>
       </Link>

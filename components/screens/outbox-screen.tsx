@@ -1,4 +1,4 @@
-/** Outbox (admin): every mail Fieldfile sent, newest first; open one to read it. */
+/** Sent mail (admin): every mail Fieldfile sent, newest first, with its opening lines; open one to see it rendered. */
 import { Link } from 'expo-router';
 import { Pressable, StyleSheet, View } from 'react-native';
 import { layout, palette, space } from '../../constants/theme';
@@ -15,7 +15,7 @@ import { Text } from '../ui/text';
 
 export function OutboxScreen() {
   return (
-    <RequireRole role="admin" title="Outbox">
+    <RequireRole role="admin" title="Sent mail">
       <OutboxList />
     </RequireRole>
   );
@@ -28,15 +28,15 @@ function OutboxList() {
   return (
     <Screen
       eyebrow={me.organisation.name}
-      title="Outbox"
-      subtitle="Mail Fieldfile has sent: invitations now, review requests and signed packages later."
+      title="Sent mail"
+      subtitle="Every message Fieldfile has sent, as the recipient sees it."
       testID="outbox-screen"
     >
       <Card>
         {messages.isPending ? (
           <Loading label="Loading mail…" />
         ) : messages.isError ? (
-          <LoadFailed what="the outbox" error={messages.error} onRetry={() => void messages.refetch()} />
+          <LoadFailed what="the sent mail" error={messages.error} onRetry={() => void messages.refetch()} />
         ) : messages.data.length === 0 ? (
           <View style={styles.empty}>
             <Icon name="outbox" size={28} color={palette.inkFaint} />
@@ -56,8 +56,11 @@ function OutboxList() {
                       <Text variant="bodyStrong" numberOfLines={1}>
                         {m.subject}
                       </Text>
-                      <Text variant="mono" tone="soft" numberOfLines={1}>
-                        to {m.to}
+                      <Text variant="small" tone="soft" numberOfLines={1}>
+                        To {m.to}
+                      </Text>
+                      <Text variant="small" tone="muted" numberOfLines={2} testID={`outbox-snippet-${m.id}`}>
+                        {snippet(m.text)}
                       </Text>
                     </View>
                     <Text variant="small" tone="muted">
@@ -73,6 +76,13 @@ function OutboxList() {
       </Card>
     </Screen>
   );
+}
+
+/** The message's first words, without the greeting line, for the list. */
+function snippet(text: string): string {
+  const lines = text.split(/\r?\n/).map((l) => l.trim()).filter(Boolean);
+  const body = /^(hello|hi|dear)\b/i.test(lines[0] ?? '') ? lines.slice(1) : lines;
+  return body.join(' ').slice(0, 180);
 }
 
 const styles = StyleSheet.create({

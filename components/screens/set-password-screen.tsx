@@ -72,7 +72,7 @@ export function SetPasswordScreen() {
     <AuthShell title={joining ? 'Accept the invitation' : 'Set your password'}>
       {body}
       <Link href="/login" style={{ alignSelf: 'flex-start' }}>
-        <Text variant="smallStrong" tone="copper">
+        <Text variant="smallStrong" tone="accent">
           Back to sign in
         </Text>
       </Link>

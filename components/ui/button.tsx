@@ -7,7 +7,7 @@ import { Text } from './text';
 type Variant = 'primary' | 'secondary' | 'danger' | 'quiet';
 
 const look: Record<Variant, { bg: string; bgPressed: string; fg: string; border: string }> = {
-  primary: { bg: palette.ink, bgPressed: palette.inkRaised, fg: palette.onInk, border: palette.ink },
+  primary: { bg: palette.accent, bgPressed: palette.accentStrong, fg: palette.onInk, border: palette.accent },
   secondary: { bg: palette.surface, bgPressed: palette.paperDeep, fg: palette.ink, border: palette.lineStrong },
   danger: { bg: palette.fail, bgPressed: '#8A2F28', fg: '#FFFFFF', border: palette.fail },
   quiet: { bg: 'transparent', bgPressed: palette.paperDeep, fg: palette.ink, border: 'transparent' },

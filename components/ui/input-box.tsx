@@ -77,9 +77,9 @@ const styles = StyleSheet.create({
     gap: space.xs,
   },
   input: { flex: 1, minWidth: 0, paddingVertical: space.sm, fontFamily: fonts.regular, fontSize: 15, color: palette.ink, outlineStyle: 'none' } as object,
-  numeric: { fontFamily: fonts.mono, textAlign: 'right' },
+  numeric: { textAlign: 'right', fontVariant: ['tabular-nums'] },
   unit: { flexShrink: 0 },
-  focused: { borderColor: palette.copper },
+  focused: { borderColor: palette.accent },
   invalid: { borderColor: palette.fail },
   readOnly: { backgroundColor: palette.paper },
 });

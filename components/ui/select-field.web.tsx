@@ -55,7 +55,7 @@ const styles = StyleSheet.create({
     fontSize: 15,
     color: palette.ink,
   } as object,
-  focused: { borderColor: palette.copper, outlineColor: palette.copper } as object,
+  focused: { borderColor: palette.accent, outlineColor: palette.accent } as object,
   invalid: { borderColor: palette.fail },
   readOnly: { backgroundColor: palette.paper },
 });

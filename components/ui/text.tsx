@@ -3,7 +3,7 @@ import { Text as RNText, type TextProps } from 'react-native';
 import { palette, type as typeScale } from '../../constants/theme';
 
 type Variant = keyof typeof typeScale;
-type Tone = 'ink' | 'soft' | 'muted' | 'pass' | 'fail' | 'caution' | 'copper' | 'onInk' | 'onInkMuted';
+type Tone = 'ink' | 'soft' | 'muted' | 'pass' | 'fail' | 'caution' | 'accent' | 'copper' | 'onInk' | 'onInkMuted';
 
 const toneColor: Record<Tone, string> = {
   ink: palette.ink,
@@ -12,7 +12,9 @@ const toneColor: Record<Tone, string> = {
   pass: palette.pass,
   fail: palette.fail,
   caution: palette.caution,
-  copper: palette.copper,
+  accent: palette.accent,
+  /** @deprecated Use 'accent'. */
+  copper: palette.accent,
   onInk: palette.onInk,
   onInkMuted: palette.onInkMuted,
 };

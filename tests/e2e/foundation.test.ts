@@ -65,9 +65,15 @@ describe.each(SIZES)('at %s size', (size, viewport) => {
     await page.goto(`${server.baseUrl}/`);
     await page.waitForURL(/\/login$/);
     await page.getByTestId('sign-in-form').waitFor();
-    expect(await loadedFonts(page)).toEqual(expect.arrayContaining(['PlexSans-Regular', 'PlexSans-Medium', 'PlexSans-SemiBold']));
+    expect(await loadedFonts(page)).toEqual(expect.arrayContaining(['Atkinson-Regular', 'Atkinson-Medium', 'Atkinson-SemiBold']));
     const heading = page.getByRole('heading', { name: 'Sign in' });
-    await expect(heading.evaluate((el) => getComputedStyle(el).fontFamily)).resolves.toMatch(/^"?PlexSans-SemiBold/);
+    await expect(heading.evaluate((el) => getComputedStyle(el).fontFamily)).resolves.toMatch(/^"?Atkinson-SemiBold/);
+    // The shipped fonts are WOFF2 files from our own origin.
+    const fontFiles = await page.evaluate(() => performance.getEntriesByType('resource').map((e) => e.name).filter((n) => /\.(woff2|ttf|otf)\b/.test(n)));
+    expect(fontFiles.length).toBeGreaterThan(0);
+    for (const f of fontFiles) expect(f).toMatch(/\.woff2\b/);
+    const licence = await fetch(`${server.baseUrl}/licences/OFL-AtkinsonHyperlegibleNext.txt`);
+    await expect(licence.text()).resolves.toContain('SIL Open Font License, Version 1.1');
     await screenshot(page, `sign-in-${size}`);
 
     for (const user of DEMO) {
@@ -170,12 +176,17 @@ describe.each(SIZES)('at %s size', (size, viewport) => {
     await admin.page.waitForURL(/\/outbox$/);
     const item = admin.page.locator('[data-testid^="outbox-item-"]', { hasText: invitee.email }).first();
     await item.waitFor();
+    await expect(admin.page.getByRole('heading', { name: 'Sent mail' }).isVisible()).resolves.toBe(true);
     await screenshot(admin.page, `outbox-${size}`);
     await item.click();
     await admin.page.waitForURL(/\/outbox\/\d+$/);
     const link = admin.page.getByTestId('outbox-message-link');
     await link.waitFor();
     await expect(admin.page.getByTestId('outbox-message-body').textContent()).resolves.toContain(`Hello ${invitee.name}`);
+    // The HTML part is rendered (not shown as source) in a frame that runs no scripts.
+    const htmlFrame = admin.page.getByTestId('outbox-message-html');
+    await expect(htmlFrame.getAttribute('sandbox')).resolves.not.toContain('allow-scripts');
+    await expect(admin.page.frameLocator('[data-testid="outbox-message-html"]').locator('body').textContent()).resolves.toContain(invitee.name);
     await screenshot(admin.page, `outbox-message-${size}`);
     const href = await link.getAttribute('href');
     expect(href).toMatch(new RegExp(`^${server.baseUrl}/set-password\\?token=[\\w%-]+$`));
