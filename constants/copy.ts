@@ -7,9 +7,9 @@ export const CAUTION_TEXT =
 
 /** What each role will do in Fieldfile, in the user's words (DESIGN.md §2). */
 export const ROLE_ABILITIES: Record<Role, string> = {
-  admin: 'Manage the organisation’s people and their roles; read the audit trail and the mail outbox.',
-  specialist: 'Create filings, work through each step, ask for review and answer change requests.',
-  engineer: 'Enter and import measurements, upload evidence and fix failing checks.',
-  approver: 'Review a filing version, request changes, or sign it by re-entering your password.',
+  admin: 'Invite people, change their roles or deactivate them; read the activity record and the sent mail.',
+  specialist: 'Create filings and fill in each step: device, radios, use positions, markets.',
+  engineer: 'Read every filing and its screening; work on the lab steps a filing opens to engineers.',
+  approver: 'Read every filing and its screening; review and sign the versions sent for approval.',
 };
 

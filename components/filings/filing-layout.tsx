@@ -6,11 +6,13 @@ import { Link, Slot, usePathname } from 'expo-router';
 import { Pressable, ScrollView, StyleSheet, View } from 'react-native';
 import { WIZARD_STEPS, type WizardStep } from '../../constants/schemas/filings';
 import { palette, space } from '../../constants/theme';
+import { asProblem } from '../../hooks/api-client';
 import { useFilingQuery } from '../../hooks/queries/filings';
 import { useIsWide } from '../../hooks/use-is-wide';
 import { Icon } from '../icons';
 import { LoadFailed, Loading } from '../layout/query-states';
 import { Screen } from '../layout/screen';
+import { Notice } from '../ui/notice';
 import { StatusBadge } from '../ui/status-badge';
 import { Text } from '../ui/text';
 import { STATE_LOOK } from './labels';
@@ -27,6 +29,22 @@ export function FilingLayout() {
   const filing = useFilingQuery(id);
   const wide = useIsWide();
   const pathname = usePathname();
+  // A malformed id never fetches (the query stays pending), so it is "not found" at once.
+  if (!Number.isInteger(id) || id <= 0 || (filing.isError && asProblem(filing.error).status === 404)) {
+    return (
+      <Screen title="Filing not found" eyebrow="Filings" testID="filing-not-found">
+        <Notice tone="error">There is no filing at this address, or it is not shared with you. Check the link, or open it from the list.</Notice>
+        <Link href="/filings" asChild>
+          <Pressable style={styles.back} accessibilityRole="link">
+            <Icon name="chevronLeft" size={16} color={palette.accent} />
+            <Text variant="smallStrong" tone="accent">
+              All filings
+            </Text>
+          </Pressable>
+        </Link>
+      </Screen>
+    );
+  }
   if (filing.isPending || filing.isError) {
     return (
       <Screen title="Filing" eyebrow="Filings">

@@ -8,7 +8,7 @@ import { StyleSheet, TextInput, View } from 'react-native';
 import { DEVICE_FILE_FORMAT } from '../../constants/schemas/device-file';
 import { fonts, palette, radii, space } from '../../constants/theme';
 import { asProblem, type ApiProblem } from '../../hooks/api-client';
-import { useImportFilingMutation } from '../../hooks/queries/filings';
+import { useFilingsQuery, useImportFilingMutation } from '../../hooks/queries/filings';
 import { Button } from '../ui/button';
 import { Notice } from '../ui/notice';
 import { Text } from '../ui/text';
@@ -20,6 +20,9 @@ export function ImportDeviceFile() {
   const [text, setText] = useState('');
   const [fileName, setFileName] = useState<string | null>(null);
   const [parseError, setParseError] = useState<string | null>(null);
+  /** A filing for the same model already exists: say so once; the second press imports anyway. */
+  const [duplicateOf, setDuplicateOf] = useState<{ name: string; model: string; id: number } | null>(null);
+  const existing = useFilingsQuery('', 'updated');
   const problem: ApiProblem | null = importFile.isError ? asProblem(importFile.error) : null;
 
   const submit = () => {
@@ -30,6 +33,12 @@ export function ImportDeviceFile() {
       json = JSON.parse(text);
     } catch (e) {
       setParseError(`This is not JSON: ${(e as Error).message}`);
+      return;
+    }
+    const device = (json as { device?: { name?: unknown; model?: unknown } } | null)?.device;
+    const same = existing.data?.find((f) => typeof device?.model === 'string' && f.device.model.trim().toLowerCase() === device.model.trim().toLowerCase());
+    if (same && duplicateOf?.id !== same.id) {
+      setDuplicateOf({ name: same.device.name, model: same.device.model, id: same.id });
       return;
     }
     importFile.mutate(json, { onSuccess: (filing) => router.replace(`/filings/${filing.id}`) });
@@ -46,6 +55,7 @@ export function ImportDeviceFile() {
           setFileName(name);
           setText(content);
           setParseError(null);
+          setDuplicateOf(null);
           importFile.reset();
         }}
       />
@@ -58,7 +68,10 @@ export function ImportDeviceFile() {
         accessibilityLabel="Device file JSON"
         multiline
         value={text}
-        onChangeText={setText}
+        onChangeText={(t) => {
+          setText(t);
+          setDuplicateOf(null);
+        }}
         placeholder={`{ "format": "${DEVICE_FILE_FORMAT}", "device": { … } }`}
         placeholderTextColor={palette.inkFaint}
         style={styles.json}
@@ -67,6 +80,11 @@ export function ImportDeviceFile() {
         autoCapitalize="none"
         spellCheck={false}
       />
+      {duplicateOf ? (
+        <Notice tone="caution" title="This device may already have a filing" testID="import-duplicate">
+          {`“${duplicateOf.name}” (model ${duplicateOf.model}) is already a filing. Importing creates a second, separate filing; to change the existing one, open it instead. Press Import again to create the second filing.`}
+        </Notice>
+      ) : null}
       {parseError ? <Notice tone="error" title="Nothing was imported">{parseError}</Notice> : null}
       {problem ? (
         <Notice tone="error" title={problem.message} testID="import-problems">
@@ -86,7 +104,7 @@ export function ImportDeviceFile() {
           ) : null}
         </Notice>
       ) : null}
-      <Button label="Import and create filing" icon="plus" onPress={submit} disabled={!text.trim()} busy={importFile.isPending} busyLabel="Importing…" testID="import-submit" style={{ alignSelf: 'flex-start' }} />
+      <Button label={duplicateOf ? 'Import as a second filing' : 'Import and create filing'} icon="plus" onPress={submit} disabled={!text.trim()} busy={importFile.isPending} busyLabel="Importing…" testID="import-submit" style={{ alignSelf: 'flex-start' }} />
     </View>
   );
 }

@@ -6,10 +6,15 @@ import { layout, palette, radii, space } from '../../constants/theme';
 import { Icon, type IconName } from '../icons';
 import { Text } from '../ui/text';
 
-function stepLook(s: FilingDetail['steps'][number]): { icon: IconName; color: string; word: string } {
+/** Screening shows a table as soon as one transmitter, one use position and one market exist. */
+const canScreenSome = (d: FilingDetail['data']) => d.radios.transmitters.length > 0 && d['use-positions'].usePositions.length > 0 && d.markets.markets.length > 0;
+
+function stepLook(s: FilingDetail['steps'][number], filing: FilingDetail): { icon: IconName; color: string; word: string } {
   if (s.hasDraft) return { icon: 'warning', color: palette.fail, word: 'Unsaved changes' };
   if (s.complete) return { icon: 'check', color: palette.pass, word: 'Complete' };
-  if (s.step === 'screening') return { icon: 'blocked', color: palette.inkMuted, word: 'Waiting' };
+  if (s.step === 'screening') {
+    return canScreenSome(filing.data) ? { icon: 'pending', color: palette.caution, word: 'Partial' } : { icon: 'blocked', color: palette.inkMuted, word: 'Needs earlier steps' };
+  }
   return { icon: 'pending', color: palette.caution, word: 'Incomplete' };
 }
 
@@ -17,7 +22,7 @@ export function StepList({ filing, activeStep, compact }: { filing: FilingDetail
   return (
     <View role="list" accessibilityLabel="Steps" style={styles.list} testID="step-list">
       {filing.steps.map((s, i) => {
-        const look = stepLook(s);
+        const look = stepLook(s, filing);
         const active = s.step === activeStep;
         return (
           <Link key={s.step} href={`/filings/${filing.id}/${s.step}`} asChild>

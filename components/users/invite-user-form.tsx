@@ -80,7 +80,7 @@ export function InviteUserForm({ onInvited }: { onInvited?: (result: InviteResul
       {last ? (
         last.invitation.sent ? (
           <Notice tone="success" title="Invitation sent" testID="invite-sent">
-            {`${last.user.name} (${last.user.email}) has a link to set a password. The mail is in the Outbox.`}
+            {`${last.user.name} (${last.user.email}) has a link to set a password. The mail is under Sent mail.`}
           </Notice>
         ) : (
           <Notice tone="caution" title={`${last.user.name} was added, but no invitation went out`} testID="invite-not-sent">

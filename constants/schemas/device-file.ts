@@ -80,14 +80,14 @@ export const zDeviceInfo = z.strictObject({
   name: text('device name'),
   model: text('model number'),
   applicant: text('applicant'),
-  productType: z.enum(PRODUCT_TYPES, { error: `Pick a product type (${PRODUCT_TYPES.join(', ')}).` }),
+  productType: z.enum(PRODUCT_TYPES, { error: 'Pick a product type.' }),
   hardwareVersion: optionalText('hardware version'),
   firmwareVersion: optionalText('firmware version'),
 });
 export type DeviceInfo = z.output<typeof zDeviceInfo>;
 
 export const zMarket = z.strictObject({
-  regime: z.enum(REGIMES, { error: `Pick a rule set (${REGIMES.join(', ')}).` }),
+  regime: z.enum(REGIMES, { error: 'Pick a market.' }),
   tier: z.enum(TIERS, { error: 'Pick general population or occupational.' }).default('general'),
   /** FCC only: how SAR screening is done. Default: the §1.1307(b)(3) exemptions. */
   fccSarScreening: z.enum(FCC_SAR_SCREENINGS).optional(),
@@ -106,8 +106,8 @@ const zFrequencyHz = (label: string) =>
   finite(label).pipe(
     z
       .number()
-      .min(FREQUENCY_MIN_HZ, `The ${label} must be at least 100 kHz (100000 Hz).`)
-      .max(FREQUENCY_MAX_HZ, `The ${label} must be at most 300 GHz (3e11 Hz).`),
+      .min(FREQUENCY_MIN_HZ, `The ${label} must be at least 100 kHz (0.1 MHz).`)
+      .max(FREQUENCY_MAX_HZ, `The ${label} must be at most 300 GHz (300 000 MHz).`),
   );
 
 export const zTransmitter = z
@@ -121,7 +121,7 @@ export const zTransmitter = z
       z.number().min(POWER_MIN_DBM, `Tune-up power must be at least ${POWER_MIN_DBM} dBm.`).max(POWER_MAX_DBM, `Tune-up power must be at most ${POWER_MAX_DBM} dBm.`),
     ),
     /** Maximum transmit duty cycle, 0 < d ≤ 1 (1 = continuous). */
-    dutyCycle: finite('duty cycle').pipe(z.number().gt(0, 'Duty cycle must be above 0.').max(1, 'Duty cycle must be at most 1 (100 %).')).default(1),
+    dutyCycle: finite('duty cycle').pipe(z.number().gt(0, 'Duty cycle must be above 0 %.').max(1, 'Duty cycle must be at most 100 %.')).default(1),
     antennaId: zItemId,
   })
   .refine((t) => t.frequencyMinHz <= t.frequencyMaxHz, {

@@ -15,6 +15,7 @@ import {
   type StepStatus,
   type UsePositionsStep,
   type VersionState,
+  STEP_LABELS,
   VERSION_STATE_LABELS,
   zDeviceStep,
 } from '../../constants/schemas/filings';
@@ -122,7 +123,7 @@ export function stepStatuses(data: FilingDetail['data'], draftSteps: Set<DataSte
   statuses.push({
     step: 'screening',
     complete: incomplete.length === 0,
-    problems: incomplete.length ? [`Complete ${incomplete.join(', ')} first.`] : [],
+    problems: incomplete.length ? [`Finish ${incomplete.map((s) => STEP_LABELS[s]).join(', ')} to screen every combination.`] : [],
     hasDraft: false,
     warnings: ruleSet,
   });

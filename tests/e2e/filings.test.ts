@@ -244,7 +244,16 @@ describe('filing wizard', () => {
       // The screening is open to read, with its gaps named.
       await page.getByTestId('step-link-screening').click();
       await page.getByTestId('screening-gaps').waitFor();
+      // A table is shown, so the step list says the screening is partial, in words.
+      await expect(page.getByTestId('step-state-screening').textContent()).resolves.toBe('Partial');
+      await expect(page.getByTestId('step-list').textContent()).resolves.toContain('Finish Use positions to screen every combination.');
       await screenshot(page, 'step-screening-demo-desktop');
+      // An address that is no filing says so instead of loading for ever.
+      for (const bad of ['abc', '999999']) {
+        await page.goto(`${server.baseUrl}/filings/${bad}`);
+        await page.getByTestId('filing-not-found').waitFor();
+      }
+      await screenshot(page, 'filing-not-found-desktop');
     } finally {
       await s.close();
     }
