@@ -214,6 +214,11 @@ describe('filing wizard', () => {
       });
       await page.getByTestId('import-json').fill(good);
       await page.getByTestId('import-submit').click();
+      // The model already has a filing: a warning first, nothing created; a second press imports.
+      await page.getByTestId('import-duplicate').waitFor();
+      expect(await page.getByTestId('import-duplicate').textContent()).toMatch(/TH4-LW2.*already a filing/);
+      expect(new URL(page.url()).pathname).toBe('/filings/new');
+      await page.getByTestId('import-submit').click();
       await page.waitForURL(/\/filings\/\d+$/);
       await page.getByTestId('filing-overview').waitFor();
       expect(await page.getByTestId('filing-progress').textContent()).toMatch(/3 of 5 steps complete/);
