@@ -17,6 +17,7 @@ import { createPassport } from './auth/passport';
 import { createSessionStore } from './auth/session-store';
 import { apiNotFound, errorHandler } from './middleware/errors';
 import { forbidden } from './http-error';
+import { noteInvalidUtf8, refuseMalformedJson, requireJsonBody } from './middleware/body-guards';
 import { setPasswordHashCost } from './services/passwords';
 import { healthRoutes } from './routes/health';
 import { authRoutes } from './routes/auth';
@@ -27,7 +28,10 @@ import { calcRoutes } from './routes/calc';
 import { filingRoutes, schemaRoutes } from './routes/filings';
 
 export const SESSION_COOKIE = 'fieldfile.sid';
+/** Idle lifetime: each request extends the cookie (rolling). */
 const SESSION_MAX_AGE_MS = 12 * 3600 * 1000;
+/** Absolute lifetime: a session ends this long after sign-in however busy it was. */
+export const SESSION_ABSOLUTE_MS = 7 * 24 * 3600 * 1000;
 const JSON_LIMIT = '1mb';
 
 /** The session secret: from the environment, or generated once and kept in the data folder. */
@@ -71,6 +75,21 @@ function originGuard(devWebOrigin?: string): RequestHandler {
   };
 }
 
+declare module 'express-session' {
+  interface SessionData {
+    /** When the user signed in (ms since epoch), for the absolute lifetime. */
+    signedInAt?: number;
+  }
+}
+
+/** A signed-in session older than SESSION_ABSOLUTE_MS is signed out; the request goes on anonymous. */
+const endSessionsPastAbsoluteLifetime: RequestHandler = (req, _res, next) => {
+  if (!req.user) return next();
+  const started = req.session.signedInAt;
+  if (typeof started === 'number' && Date.now() - started <= SESSION_ABSOLUTE_MS) return next();
+  req.logout((err) => next(err));
+};
+
 export interface CreateAppOptions {
   handle: DbHandle;
   config: Config;
@@ -85,13 +104,40 @@ export function createApp({ handle, config, mailer, serveWeb = true, storage = c
   const ctx: AppContext = { db: handle.db, config, mailer, storage };
   const app = express();
   app.disable('x-powered-by');
-  app.set('trust proxy', 'loopback');
-  app.use(helmet({ contentSecurityPolicy: false, crossOriginEmbedderPolicy: false }));
+  app.set('trust proxy', config.trustProxy);
+  app.use(
+    helmet({
+      // The exported web app: one script file from /_expo, an inline reset <style> plus the
+      // styles react-native-web inserts at run time, fonts and images from /assets.
+      contentSecurityPolicy: {
+        useDefaults: false,
+        directives: {
+          defaultSrc: ["'self'"],
+          scriptSrc: ["'self'"],
+          styleSrc: ["'self'", "'unsafe-inline'"],
+          imgSrc: ["'self'", 'data:', 'blob:'],
+          fontSrc: ["'self'", 'data:'],
+          connectSrc: ["'self'"],
+          objectSrc: ["'none'"],
+          baseUri: ["'self'"],
+          formAction: ["'self'"],
+          frameAncestors: ["'none'"],
+        },
+      },
+      crossOriginEmbedderPolicy: false,
+    }),
+  );
 
   const store = createSessionStore(handle.sqlite);
   const passport = createPassport(handle.db);
   const api = express.Router();
-  api.use(express.json({ limit: JSON_LIMIT }));
+  api.use((_req, res, next) => {
+    res.set('Cache-Control', 'no-store');
+    next();
+  });
+  api.use(requireJsonBody);
+  api.use(express.json({ limit: JSON_LIMIT, verify: noteInvalidUtf8 }));
+  api.use(refuseMalformedJson);
   api.use(originGuard(config.devWebOrigin));
   api.use(
     session({
@@ -105,6 +151,7 @@ export function createApp({ handle, config, mailer, serveWeb = true, storage = c
     }),
   );
   api.use(passport.session());
+  api.use(endSessionsPastAbsoluteLifetime);
   api.use('/health', healthRoutes(ctx));
   api.use('/auth', authRoutes(ctx, passport));
   api.use('/users', userRoutes(ctx));

@@ -13,7 +13,20 @@ const zBool = z
 const zEnv = z.object({
   NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
   PORT: z.coerce.number().int().min(0).max(65535).default(8080),
-  HOST: z.string().default('0.0.0.0'),
+  /** Loopback by default: a deployment chooses to listen wider (HOST=0.0.0.0). */
+  HOST: z.string().default('127.0.0.1'),
+  /**
+   * Demo people and filings: "1" seeds them, "0" never; unset seeds them only on a loopback bind
+   * outside production, so a server reachable from the network never has the published password.
+   */
+  FIELDFILE_DEMO: z.enum(['0', '1']).optional(),
+  /**
+   * Express "trust proxy": which proxy may tell the client's address and protocol (X-Forwarded-*).
+   * "loopback" (default) trusts a proxy on this machine; a number trusts that many hops; "false"
+   * none; otherwise a comma-separated list of addresses or subnets. Behind a TLS proxy this
+   * makes cookies Secure.
+   */
+  FIELDFILE_TRUST_PROXY: z.string().default('loopback'),
   /** Holds the SQLite file, uploads and built packages. */
   FIELDFILE_DATA_DIR: z.string().default('./data'),
   /** Where the exported web app lives. */
@@ -51,6 +64,8 @@ export interface Config {
   sessionSecret?: string;
   devWebOrigin?: string;
   demoPassword: string;
+  demo: { seed: boolean; reason: string };
+  trustProxy: boolean | number | string;
   scryptLog2N: number;
   mail: {
     from: string;
@@ -80,6 +95,8 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
     sessionSecret: e.FIELDFILE_SESSION_SECRET,
     devWebOrigin: e.FIELDFILE_DEV_WEB_ORIGIN,
     demoPassword: e.FIELDFILE_DEMO_PASSWORD,
+    demo: demoDecision(e),
+    trustProxy: parseTrustProxy(e.FIELDFILE_TRUST_PROXY),
     scryptLog2N: e.FIELDFILE_SCRYPT_LOG2N,
     mail: {
       from: e.MAIL_FROM,
@@ -89,4 +106,22 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
         : undefined,
     },
   };
+}
+
+const LOOPBACK_HOSTS = new Set(['127.0.0.1', '::1', 'localhost']);
+
+/** Whether the demo data is seeded, and why (printed at start). */
+function demoDecision(e: Env): { seed: boolean; reason: string } {
+  if (e.FIELDFILE_DEMO === '1') return { seed: true, reason: 'FIELDFILE_DEMO=1' };
+  if (e.FIELDFILE_DEMO === '0') return { seed: false, reason: 'FIELDFILE_DEMO=0' };
+  if (e.NODE_ENV === 'production') return { seed: false, reason: 'NODE_ENV=production' };
+  if (LOOPBACK_HOSTS.has(e.HOST) || e.HOST.startsWith('127.')) return { seed: true, reason: `loopback bind ${e.HOST}` };
+  return { seed: false, reason: `HOST=${e.HOST} is reachable from the network (set FIELDFILE_DEMO=1 to seed anyway)` };
+}
+
+function parseTrustProxy(v: string): boolean | number | string {
+  if (v === 'false' || v === '0') return false;
+  if (v === 'true') return true;
+  if (/^\d+$/.test(v)) return Number(v);
+  return v;
 }

@@ -31,7 +31,7 @@ async function main() {
   applyMigrations(handle.db);
 
   const storage = createStorages(config);
-  const seeded = config.env === 'production' ? undefined : await seedDemo(handle.db, config.demoPassword);
+  const seeded = config.demo.seed ? await seedDemo(handle.db, config.demoPassword) : undefined;
   // Bytes whose row was never written (a crash between the rename and the insert) and stale
   // temporary files; a minute's grace for another process's upload in flight.
   const swept = await sweepOrphans(storage, handle.db, referenceSources, { minAgeMs: 60_000 });
@@ -53,10 +53,10 @@ async function main() {
       catcher ? `  mail: local catcher on 127.0.0.1:${catcher.port} (read it in the app: Sent mail)` : `  mail: SMTP ${config.mail.smtp!.host}:${config.mail.smtp!.port}`,
     ];
     if (seeded) {
-      lines.push('', `Demo sign-ins (password: ${config.demoPassword}):`);
+      lines.push('', `Demo data: on (${config.demo.reason}). Demo sign-ins (password: ${config.demoPassword}):`);
       for (const u of DEMO_USERS) lines.push(`  ${u.email.padEnd(28)} ${u.role}`);
     } else {
-      lines.push('', 'Production mode: no demo data. Create the first admin with `npm run create-admin`.');
+      lines.push('', `Demo data: off (${config.demo.reason}). Create the first admin with \`npm run create-admin\`.`);
     }
     console.log(lines.join('\n') + '\n');
   });

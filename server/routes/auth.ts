@@ -20,7 +20,10 @@ export function authRoutes({ db }: AppContext, passport: Passport): Router {
       if (err) return next(err);
       if (!user) return next(unauthorized('The e-mail or password is not right.'));
       // passport ≥ 0.6 regenerates the session inside req.login (no session fixation).
-      loginAsync(req, user).then(() => res.json({ user }), next);
+      loginAsync(req, user).then(() => {
+        req.session.signedInAt = Date.now();
+        res.json({ user });
+      }, next);
     })(req, res, next);
   });
 
