@@ -57,7 +57,7 @@ describe('users', () => {
     const login = await request(t.app).post('/api/auth/login').send({ email: 'ada.nwosu@fieldfile.test', password: 'a-long-enough-password' });
     expect(login.status).toBe(200);
     expect(login.body.user.roles).toEqual(['engineer', 'approver']);
-  });
+  }, 60_000);
 
   it('refuses a duplicate e-mail with a field message and writes nothing', async () => {
     const before = (await admin.get('/api/users')).body.users.length;
