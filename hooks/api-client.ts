@@ -4,6 +4,7 @@
  */
 import type { z } from 'zod';
 import type { ApiErrorBody } from '../constants/schemas/errors';
+import { markSessionExpired } from './connection-recovery';
 
 /** '' means same origin (npm start); `npm run dev` sets it to the API's own port. */
 const API_BASE = (process.env.EXPO_PUBLIC_API_URL ?? '').replace(/\/$/, '');
@@ -87,6 +88,8 @@ export async function api<S extends z.ZodType | undefined = undefined>(
   }
 
   if (!response.ok) {
+    // A signed-in request refused for want of a session: the session ended mid-work.
+    if (response.status === 401 && !path.startsWith('/api/auth/')) markSessionExpired();
     if (isErrorBody(json)) {
       const { code, message, fields } = json.error;
       return { ok: false, problem: new ApiProblem({ status: response.status, code: code || 'error', message, fields }) };

@@ -10,6 +10,7 @@ import type { FieldPath, FieldValues, UseFormReturn } from 'react-hook-form';
 import { Platform } from 'react-native';
 import type { DataStep } from '../constants/schemas/filings';
 import { asProblem } from './api-client';
+import { whenBackOnline, whenSignedInAgain } from './connection-recovery';
 import { filingKeys, saveStep, stepUrl } from './queries/filings';
 
 export const AUTOSAVE_DELAY_MS = 800;
@@ -20,7 +21,9 @@ export type AutosaveStatus =
   | { kind: 'saving' }
   | { kind: 'saved'; at: Date }
   | { kind: 'invalid'; at: Date; problems: number }
-  | { kind: 'failed'; message: string };
+  | { kind: 'failed'; message: string }
+  /** Not sent yet for a passing reason; kept, and sent by itself when it passes. */
+  | { kind: 'waiting'; reason: 'signed-out' | 'offline' };
 
 export function useAutosave<T extends FieldValues>({
   form,
@@ -46,6 +49,7 @@ export function useAutosave<T extends FieldValues>({
   const lastSent = useRef(JSON.stringify(toBody(form.getValues())));
   const timer = useRef<ReturnType<typeof setTimeout> | null>(null);
   const mounted = useRef(true);
+  const cancelResend = useRef<(() => void) | null>(null);
   const toBodyRef = useRef(toBody);
   toBodyRef.current = toBody;
 
@@ -80,6 +84,13 @@ export function useAutosave<T extends FieldValues>({
           form.setError((path === '_' ? 'root.server' : path) as FieldPath<T>, { type: 'server', message });
         }
         setStatus({ kind: 'invalid', at: new Date(), problems: entries.length });
+      } else if (problem.status === 401 || problem.status === 0) {
+        // Session ended or offline: keep the change and send it again by itself.
+        lastSent.current = '';
+        setStatus({ kind: 'waiting', reason: problem.status === 401 ? 'signed-out' : 'offline' });
+        cancelResend.current?.();
+        const resend = () => void save();
+        cancelResend.current = problem.status === 401 ? whenSignedInAgain(resend) : whenBackOnline(resend);
       } else {
         // Nothing was stored: let the next change (or "Try again") send it again.
         lastSent.current = '';
@@ -112,6 +123,7 @@ export function useAutosave<T extends FieldValues>({
       if (web) window.removeEventListener('pagehide', onPageHide);
       sub.unsubscribe();
       mounted.current = false;
+      cancelResend.current?.();
       // Leaving the step sends what is still waiting.
       if (timer.current) void save();
     };

@@ -14,8 +14,8 @@ import { FormTextField } from '../ui/text-field';
 type LoginIn = z.input<typeof zLogin>;
 type LoginOut = z.output<typeof zLogin>;
 
-export function SignInForm({ initialEmail = '', onSignedIn }: { initialEmail?: string; onSignedIn?: () => void }) {
-  const login = useLoginMutation();
+export function SignInForm({ initialEmail = '', onSignedIn, keepScreen }: { initialEmail?: string; onSignedIn?: () => void; keepScreen?: boolean }) {
+  const login = useLoginMutation({ keepScreen });
   const { control, handleSubmit, setError, formState } = useForm<LoginIn, unknown, LoginOut>({
     resolver: zodResolver(zLogin),
     defaultValues: { email: initialEmail, password: '' },

@@ -55,7 +55,7 @@ export function DepthProfileChart({ points, layers, depthLimitMm, testID }: { po
   const xTicks = x.ticks(6);
 
   return (
-    <View onLayout={(e) => setWidth(e.nativeEvent.layout.width)} style={{ width: '100%', height: HEIGHT }} testID={testID} accessibilityLabel={`SAR against depth, ${layers.map((l) => l.name).join(', ')}`}>
+    <View onLayout={(e) => setWidth(e.nativeEvent.layout.width)} style={{ width: '100%', height: HEIGHT }} testID={testID} role="img" accessibilityLabel={`SAR against depth, ${layers.map((l) => l.name).join(', ')}`}>
       {width > 0 ? (
         <Svg width={width} height={HEIGHT}>
           {bands.map((b, i) => (

@@ -6,6 +6,7 @@ import { space } from '../../constants/theme';
 import { useIsWide } from '../../hooks/use-is-wide';
 import { ChoiceChips } from '../ui/choice-chips';
 import { InputBox } from '../ui/input-box';
+import { ReadValue } from '../ui/read-value';
 
 const TEXT_FIELDS = [
   { key: 'name', label: 'Device name', placeholder: 'e.g. Trailhound TH-4 rugged tracker' },
@@ -17,7 +18,8 @@ const TEXT_FIELDS = [
 
 const PRODUCT_CHOICES = PRODUCT_TYPES.map((value) => ({ value, label: PRODUCT_TYPE_LABELS[value] }));
 
-export function DeviceFields<T extends FieldValues>({ control, prefix = '', editable = true, testIDPrefix = 'device' }: { control: Control<T>; prefix?: '' | 'device.'; editable?: boolean; testIDPrefix?: string }) {
+/** `onSubmit`: Enter in a text field submits (the new-filing form; autosaved steps have nothing to submit). */
+export function DeviceFields<T extends FieldValues>({ control, prefix = '', editable = true, testIDPrefix = 'device', onSubmit }: { control: Control<T>; prefix?: '' | 'device.'; editable?: boolean; testIDPrefix?: string; onSubmit?: () => void }) {
   const wide = useIsWide();
   const name = (key: string) => `${prefix}${key}` as FieldPath<T>;
   return (
@@ -28,8 +30,12 @@ export function DeviceFields<T extends FieldValues>({ control, prefix = '', edit
             <Controller
               control={control}
               name={name(f.key)}
-              render={({ field, fieldState }) => (
+              render={({ field, fieldState }) => !editable ? (
+                <ReadValue label={f.label} value={field.value ?? ''} testID={`${testIDPrefix}-${f.key}`} />
+              ) : (
                 <InputBox
+                  ref={field.ref}
+                  onSubmitEditing={onSubmit}
                   label={f.label}
                   placeholder={f.placeholder}
                   value={field.value ?? ''}

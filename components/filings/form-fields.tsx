@@ -1,6 +1,11 @@
-/** Inputs bound to a step form by path; server and schema messages show under the right field. */
+/**
+ * Inputs bound to a step form by path; server and schema messages show under the right field.
+ * Read-only (engineer, approver, a signed version): the value as plain text, numbers with their unit.
+ */
 import { Controller, type Control, type FieldPath, type FieldValues } from 'react-hook-form';
 import { InputBox } from '../ui/input-box';
+import { toDisplay } from '../ui/number-field';
+import { ReadValue } from '../ui/read-value';
 import { NumberField } from '../ui/number-field';
 import { SelectField } from '../ui/select-field';
 
@@ -19,7 +24,7 @@ export function FormText<T extends FieldValues>({ control, name, editable, ...re
     <Controller
       control={control}
       name={name}
-      render={({ field, fieldState }) => <InputBox {...rest} editable={editable} value={field.value ?? ''} onChangeText={field.onChange} onBlur={field.onBlur} error={fieldState.error?.message} />}
+      render={({ field, fieldState }) => editable ? <InputBox {...rest} ref={field.ref} editable={editable} value={field.value ?? ''} onChangeText={field.onChange} onBlur={field.onBlur} error={fieldState.error?.message} /> : <ReadValue label={rest.label} hideLabel={rest.hideLabel} value={field.value ?? ''} testID={rest.testID} />}
     />
   );
 }
@@ -30,8 +35,10 @@ export function FormNumber<T extends FieldValues>({ control, name, editable, uni
     <Controller
       control={control}
       name={name}
-      render={({ field, fieldState }) => (
-        <NumberField {...rest} unit={unit} scale={scale} editable={editable} value={field.value} onChange={field.onChange} onBlur={field.onBlur} error={fieldState.error?.message} />
+      render={({ field, fieldState }) => !editable ? (
+        <ReadValue label={rest.label} hideLabel={rest.hideLabel} value={toDisplay(field.value, scale)} unit={unit} numeric testID={rest.testID} />
+      ) : (
+        <NumberField {...rest} ref={field.ref} unit={unit} scale={scale} editable={editable} value={field.value} onChange={field.onChange} onBlur={field.onBlur} error={fieldState.error?.message} />
       )}
     />
   );
@@ -42,7 +49,7 @@ export function FormSelect<T extends FieldValues>({ control, name, editable, opt
     <Controller
       control={control}
       name={name}
-      render={({ field, fieldState }) => <SelectField {...rest} options={options} disabled={!editable} value={field.value} onChange={field.onChange} error={fieldState.error?.message} />}
+      render={({ field, fieldState }) => !editable ? <ReadValue label={rest.label} hideLabel={rest.hideLabel} value={options.find((o) => o.value === field.value)?.label ?? field.value ?? ''} testID={rest.testID} /> : <SelectField {...rest} options={options} disabled={!editable} value={field.value} onChange={field.onChange} error={fieldState.error?.message} />}
     />
   );
 }

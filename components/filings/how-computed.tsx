@@ -1,7 +1,8 @@
 /**
- * "How computed": one screening figure explained from the engine's own derivation — the formula,
- * inputs with units, intermediate values, the result, the source clause, the notes, and every
- * frequency of the band that was checked.
+ * "How computed": the tapped figure explained from the engine's own derivation, in the reader's
+ * words — first the quantities behind that figure, then the formula as the standard writes it,
+ * every input with its symbol, unit and where it came from, the steps between, the result, the
+ * source with its edition, the notes, and every frequency of the band that was checked.
  */
 import { StyleSheet, View } from 'react-native';
 import type { Derivation, Quantity } from '../../calc/types';
@@ -13,6 +14,7 @@ import { StatusBadge } from '../ui/status-badge';
 import { Text } from '../ui/text';
 import { formatDb, formatMhz, formatQuantity, sig } from './format';
 import { methodShort, regimeShort, RESULT_LOOK } from './labels';
+import { FIGURE_QUANTITIES, quantityWords, valueWords } from './quantity-words';
 import { FIGURE_LABELS, figureText, type FigureKey } from './screening-figures';
 
 export function HowComputedSheet({ row, figure, onClose }: { row: ScreeningRow | null; figure: FigureKey; onClose: () => void }) {
@@ -60,6 +62,7 @@ export function HowComputed({ row, figure }: { row: ScreeningRow; figure: Figure
           </Text>
         </View>
       </View>
+      <FigureQuantities d={d} figure={figure} />
       <DerivationBlock d={d} testID="how-computed-derivation" />
       {row.ruleDerivation ? (
         <View style={styles.section}>
@@ -162,24 +165,41 @@ export function DerivationBlock({ d, compact, testID }: { d: Derivation; compact
   );
 }
 
-function Quantities({ title, values }: { title: string; values: Record<string, Quantity> }) {
+/** The quantities behind the tapped figure, gathered from wherever the derivation lists them. */
+function FigureQuantities({ d, figure }: { d: Derivation; figure: FigureKey }) {
+  const all: Record<string, Quantity> = { ...d.inputs, ...d.intermediate, ...d.result };
+  const picked = Object.fromEntries((FIGURE_QUANTITIES[figure] ?? []).filter((k) => k in all).map((k) => [k, all[k]!]));
+  return <Quantities title={`Behind the ${FIGURE_LABELS[figure].toLowerCase()}`} values={picked} testID="how-computed-figure-quantities" />;
+}
+
+function Quantities({ title, values, testID }: { title: string; values: Record<string, Quantity>; testID?: string }) {
   const entries = Object.entries(values);
   if (!entries.length) return null;
   return (
-    <View style={styles.section}>
+    <View style={styles.section} testID={testID}>
       <Text variant="label" tone="soft">
         {title}
       </Text>
       <View style={styles.table}>
         {entries.map(([name, q]) => {
-          const long = typeof q.value === 'string' && q.value.length > 40;
+          const words = quantityWords(name);
+          const text = valueWords(name, q.value) ?? formatQuantity(q.value, q.unit);
+          const long = text.length > 40;
           return (
             <View key={name} style={[styles.tr, long && styles.trLong]}>
-              <Text variant="mono" tone="soft" style={[styles.c, styles.name]}>
-                {name}
-              </Text>
+              <View style={[styles.c, styles.name]}>
+                <Text variant="small">
+                  {words.label}
+                  {words.symbol ? <Text variant="small" tone="muted">{`  ${words.symbol}`}</Text> : null}
+                </Text>
+                {words.origin ? (
+                  <Text variant="small" tone="muted">
+                    {words.origin}
+                  </Text>
+                ) : null}
+              </View>
               <Text variant={typeof q.value === 'number' ? 'figure' : 'small'} style={[styles.c, long ? styles.longValue : styles.value]}>
-                {formatQuantity(q.value, q.unit)}
+                {text}
               </Text>
             </View>
           );
@@ -202,7 +222,7 @@ const styles = StyleSheet.create({
   worst: { backgroundColor: palette.accentSoft },
   c: { minWidth: 0 },
   num: { flex: 1, textAlign: 'right' },
-  name: { flex: 1, fontSize: 12 },
+  name: { flex: 1.4, gap: 1 },
   value: { flex: 1, textAlign: 'right' },
   longValue: { textAlign: 'left' },
 });

@@ -35,7 +35,7 @@ export function SaveIndicator({ status, onRetry, readOnly }: { status: AutosaveS
     case 'saving':
       body = (
         <>
-          <ActivityIndicator size="small" color={palette.accent} />
+          <ActivityIndicator size="small" color={palette.accent} accessibilityLabel="Saving" />
           <Text variant="small" tone="soft">
             Saving…
           </Text>
@@ -58,6 +58,16 @@ export function SaveIndicator({ status, onRetry, readOnly }: { status: AutosaveS
           <Icon name="warning" size={16} color={palette.fail} strokeWidth={2} />
           <Text variant="smallStrong" tone="fail" style={styles.shrink}>
             Not saved — fix the highlighted field{status.problems === 1 ? '' : 's'} (draft kept {time(status.at)})
+          </Text>
+        </>
+      );
+      break;
+    case 'waiting':
+      body = (
+        <>
+          <Icon name="pending" size={16} color={palette.caution} strokeWidth={2} />
+          <Text variant="smallStrong" tone="caution" style={styles.shrink}>
+            {status.reason === 'signed-out' ? 'Kept here — saves once you have signed in again' : 'Offline — kept here, saves when the connection is back'}
           </Text>
         </>
       );

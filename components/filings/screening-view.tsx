@@ -2,9 +2,12 @@
  * Step 5, Screening: per market how many combinations are exempt or need SAR / MPE evaluation,
  * the table of every transmitter × use position × market (a card list on a phone) where every
  * figure opens its "how computed" panel, the SAR-against-depth estimate, and the cautions.
+ * At scale: filters by result, market, transmitter and use position (a summary count sets them
+ * with one tap), rows drawn a page at a time so the first ones appear at once, and the table
+ * (as filtered) downloads as CSV.
  */
 import { useState } from 'react';
-import { Pressable, StyleSheet, View } from 'react-native';
+import { Platform, Pressable, StyleSheet, View } from 'react-native';
 import type { ScreeningCounts } from '../../calc/screening/screen';
 import { REGIME_LABELS, USE_POSITION_LABELS, type MarketRegime } from '../../constants/schemas/device-file';
 import type { FilingDetail } from '../../constants/schemas/filings';
@@ -17,6 +20,7 @@ import { LoadFailed, Loading } from '../layout/query-states';
 import { Button } from '../ui/button';
 import { Card } from '../ui/card';
 import { ChoiceChips } from '../ui/choice-chips';
+import { SelectField } from '../ui/select-field';
 import { Notice } from '../ui/notice';
 import { StatusBadge } from '../ui/status-badge';
 import { Text } from '../ui/text';
@@ -25,18 +29,29 @@ import { formatDb, formatMhz, formatMm } from './format';
 import { HowComputedSheet } from './how-computed';
 import { methodShort, regimeShort, RESULT_LOOK } from './labels';
 import { evaluatedText, thresholdText, type FigureKey } from './screening-figures';
+import { ALL, filterRows, isFiltered, NO_FILTER, screeningCsv, type ScreeningFilter } from './screening-filter';
+
+/** Rows drawn at first and with each "show more": enough to fill a wide screen, few enough to appear at once on a phone. */
+export const ROWS_PAGE = 40;
 
 type Opened = { row: ScreeningRowDto; figure: FigureKey } | null;
 
 export function ScreeningView({ filing }: { filing: FilingDetail }) {
   const screening = useScreeningQuery(filing.id);
-  const [regime, setRegime] = useState<string>('all');
+  const [filter, setFilter] = useState<ScreeningFilter>(NO_FILTER);
+  const [shown, setShown] = useState(ROWS_PAGE);
   const [opened, setOpened] = useState<Opened>(null);
+  const refine = (next: Partial<ScreeningFilter>) => {
+    setFilter((f) => ({ ...f, ...next }));
+    setShown(ROWS_PAGE);
+  };
   if (screening.isPending) return <Loading label="Screening every combination…" />;
   if (screening.isError) return <LoadFailed what="the screening" error={screening.error} onRetry={() => void screening.refetch()} />;
   const s = screening.data;
   const regimes = Object.keys(s.summary.byRegime);
-  const rows = regime === 'all' ? s.rows : s.rows.filter((r) => r.regime === regime);
+  const rows = filterRows(s.rows, filter);
+  const transmitterIds = [...new Set(s.rows.map((r) => r.transmitterId))];
+  const positionIds = [...new Set(s.rows.map((r) => r.usePositionId))];
   const open = (row: ScreeningRowDto, figure: FigureKey) => setOpened({ row, figure });
   return (
     <View style={styles.wrap} testID="screening">
@@ -45,7 +60,7 @@ export function ScreeningView({ filing }: { filing: FilingDetail }) {
           The table covers what has been entered so far. Complete every step for a full screening.
         </Notice>
       ) : null}
-      <Summary s={s} />
+      <Summary s={s} onPick={(regime, result) => refine({ regime, result, transmitterId: ALL, usePositionId: ALL })} active={filter} />
       {s.gaps.length ? (
         <Notice tone="caution" title={`${s.gaps.length} combination${s.gaps.length === 1 ? '' : 's'} could not be screened`} testID="screening-gaps">
           <View style={{ gap: 2 }}>
@@ -58,21 +73,52 @@ export function ScreeningView({ filing }: { filing: FilingDetail }) {
         </Notice>
       ) : null}
       <Card title="Every combination" aside={<Text variant="small" tone="muted">Tap a figure to see how it was computed.</Text>}>
-        {regimes.length > 1 ? (
+        <View style={styles.filters} testID="screening-filters">
+          {regimes.length > 1 ? (
+            <ChoiceChips
+              label="Market"
+              choices={[{ value: ALL, label: 'All markets' }, ...regimes.map((r) => ({ value: r, label: regimeShort(r) }))]}
+              value={filter.regime}
+              onChange={(regime) => refine({ regime })}
+              testID="screening-market"
+            />
+          ) : null}
           <ChoiceChips
-            label="Market"
-            hideLabel
-            choices={[{ value: 'all', label: 'All markets' }, ...regimes.map((r) => ({ value: r, label: regimeShort(r) }))]}
-            value={regime}
-            onChange={setRegime}
-            testID="screening-market"
+            label="Result"
+            choices={[{ value: ALL, label: 'Any result' }, ...(['exempt', 'evaluate-sar', 'evaluate-mpe'] as const).map((r) => ({ value: r, label: RESULT_LOOK[r].label }))]}
+            value={filter.result}
+            onChange={(result) => refine({ result: result as ScreeningFilter['result'] })}
+            testID="screening-result"
           />
-        ) : null}
-        {rows.length === 0 ? (
+          <View style={styles.selects}>
+            <View style={styles.select}>
+              <SelectField label="Transmitter" options={[{ value: ALL, label: 'Every transmitter' }, ...transmitterIds.map((t) => ({ value: t, label: t }))]} value={filter.transmitterId} onChange={(transmitterId) => refine({ transmitterId })} testID="screening-transmitter" />
+            </View>
+            <View style={styles.select}>
+              <SelectField label="Use position" options={[{ value: ALL, label: 'Every use position' }, ...positionIds.map((p) => ({ value: p, label: p }))]} value={filter.usePositionId} onChange={(usePositionId) => refine({ usePositionId })} testID="screening-position" />
+            </View>
+          </View>
+          <View style={styles.filterBar}>
+            <Text variant="small" tone="soft" testID="screening-shown" accessibilityLiveRegion="polite">
+              {isFiltered(filter) ? `${rows.length} of ${s.rows.length} combinations match` : `${s.rows.length} combinations`}
+            </Text>
+            {isFiltered(filter) ? <Button label="Clear filters" variant="quiet" compact onPress={() => refine(NO_FILTER)} testID="screening-clear" /> : null}
+            {Platform.OS === 'web' && rows.length ? <Button label="Download CSV" variant="secondary" compact icon="link" onPress={() => downloadCsv(rows, filing.device.name)} testID="screening-csv" /> : null}
+          </View>
+        </View>
+        {s.rows.length === 0 ? (
           <Text tone="muted">Nothing to screen yet: add transmitters, use positions with separations, and at least one market.</Text>
+        ) : rows.length === 0 ? (
+          <Text tone="muted">No combination matches these filters.</Text>
         ) : (
-          <ScreeningRows rows={rows} onOpen={open} />
+          <>
+            <ScreeningRows rows={rows.slice(0, shown)} onOpen={open} />
+            {rows.length > shown ? (
+              <Button label={`Show ${Math.min(ROWS_PAGE, rows.length - shown)} more (${rows.length - shown} not shown)`} variant="secondary" onPress={() => setShown((n) => n + ROWS_PAGE)} testID="screening-more" style={{ alignSelf: 'flex-start' }} />
+            ) : null}
+          </>
         )}
+        <View nativeID="after-screening-table" />
       </Card>
       {filing.data.radios.transmitters.length && filing.data['use-positions'].usePositions.length ? <DepthSection filing={filing} initial={s.rows[0] ?? null} /> : null}
       <Notice tone="caution" title="What these results are" testID="screening-cautions">
@@ -92,7 +138,20 @@ export function ScreeningView({ filing }: { filing: FilingDetail }) {
   );
 }
 
-function Summary({ s }: { s: FilingScreening }) {
+/** Web: the filtered table as a CSV file named after the device. */
+function downloadCsv(rows: ScreeningRowDto[], deviceName: string) {
+  if (typeof document === 'undefined') return;
+  const url = URL.createObjectURL(new Blob([screeningCsv(rows)], { type: 'text/csv;charset=utf-8' }));
+  const a = document.createElement('a');
+  a.href = url;
+  a.download = `${deviceName.replace(/[^\w.-]+/g, '-').replace(/^-|-$/g, '') || 'filing'}-screening.csv`;
+  document.body.appendChild(a);
+  a.click();
+  a.remove();
+  setTimeout(() => URL.revokeObjectURL(url), 1000);
+}
+
+function Summary({ s, onPick, active }: { s: FilingScreening; onPick: (regime: string, result: ScreeningFilter['result']) => void; active: ScreeningFilter }) {
   const wide = useIsWide();
   const entries = Object.entries(s.summary.byRegime) as [MarketRegime, ScreeningCounts][];
   if (!entries.length) return <Notice tone="caution" title="No markets chosen">Pick at least one market under Markets to screen against it.</Notice>;
@@ -107,10 +166,26 @@ function Summary({ s }: { s: FilingScreening }) {
             {REGIME_LABELS[regime]}
           </Text>
           <View style={styles.counts}>
-            <Count label="Combinations" n={c.combinations} />
-            <Count label="Exempt" n={c.exempt} icon="check" color={palette.pass} />
-            <Count label="Needs SAR" n={c.evaluateSar} icon="warning" color={c.evaluateSar ? palette.caution : palette.inkMuted} />
-            <Count label="Needs MPE" n={c.evaluateMpe} icon="warning" color={c.evaluateMpe ? palette.caution : palette.inkMuted} />
+            {(
+              [
+                ['Combinations', c.combinations, ALL, undefined, palette.ink],
+                ['Exempt', c.exempt, 'exempt', 'check', palette.pass],
+                ['Needs SAR', c.evaluateSar, 'evaluate-sar', 'warning', c.evaluateSar ? palette.caution : palette.inkMuted],
+                ['Needs MPE', c.evaluateMpe, 'evaluate-mpe', 'warning', c.evaluateMpe ? palette.caution : palette.inkMuted],
+              ] as const
+            ).map(([label, n, result, icon, color]) => (
+              <Count
+                key={label}
+                label={label}
+                n={n}
+                icon={icon}
+                color={color}
+                selected={active.regime === regime && active.result === result}
+                onPress={() => onPick(regime, result)}
+                testID={`summary-${regime}-${result}`}
+                a11y={`Show ${label.toLowerCase()} for ${regimeShort(regime)}: ${n}`}
+              />
+            ))}
           </View>
         </View>
       ))}
@@ -118,9 +193,9 @@ function Summary({ s }: { s: FilingScreening }) {
   );
 }
 
-function Count({ label, n, icon, color = palette.ink }: { label: string; n: number; icon?: 'check' | 'warning'; color?: string }) {
+function Count({ label, n, icon, color = palette.ink, selected, onPress, testID, a11y }: { label: string; n: number; icon?: 'check' | 'warning'; color?: string; selected: boolean; onPress: () => void; testID: string; a11y: string }) {
   return (
-    <View style={styles.count}>
+    <Pressable style={({ pressed }) => [styles.count, selected && styles.countOn, pressed && styles.pressed]} onPress={onPress} accessibilityRole="button" accessibilityLabel={a11y} aria-pressed={selected} testID={testID}>
       <Text variant="title" style={{ color, fontVariant: ['tabular-nums'] }}>
         {n}
       </Text>
@@ -130,7 +205,7 @@ function Count({ label, n, icon, color = palette.ink }: { label: string; n: numb
           {label}
         </Text>
       </View>
-    </View>
+    </Pressable>
   );
 }
 
@@ -168,17 +243,17 @@ function ScreeningRows({ rows, onOpen }: { rows: ScreeningRowDto[]; onOpen: (row
       </View>
       {rows.map((row, i) => (
         <View key={i} style={[styles.tr, i % 2 === 1 && styles.zebra]} role="row" testID={`screening-row-${i}`}>
-          <Text variant="smallStrong" style={[styles.td, { flex: 1 }]} role="cell">
+          <Text variant="smallStrong" style={[styles.td, styles.cellPad, { flex: COLUMNS[0]!.flex }]} role="cell">
             {row.transmitterId}
           </Text>
-          <Text variant="small" style={[styles.td, { flex: 1.1 }]} role="cell">
+          <Text variant="small" style={[styles.td, styles.cellPad, { flex: COLUMNS[1]!.flex }]} role="cell">
             {row.usePositionId}
             {'\n'}
             <Text variant="small" tone="muted">
               {formatMm(row.separationM)}
             </Text>
           </Text>
-          <Text variant="small" style={[styles.td, { flex: 0.8 }]} role="cell">
+          <Text variant="small" style={[styles.td, styles.cellPad, { flex: COLUMNS[2]!.flex }]} role="cell">
             {regimeShort(row.regime)}
           </Text>
           <Figure flex={1.4} label={methodShort(row.method)} onPress={() => onOpen(row, 'method')} testID={`cell-${i}-method`} />
@@ -258,9 +333,15 @@ const styles = StyleSheet.create({
   wrap: { gap: space.lg },
   summary: { gap: space.md },
   summaryWide: { flexDirection: 'row', flexWrap: 'wrap' },
-  summaryCard: { flex: 1, minWidth: 260, backgroundColor: palette.surface, borderWidth: 1, borderColor: palette.line, borderRadius: radii.lg, padding: space.lg, gap: space.xs },
-  counts: { flexDirection: 'row', gap: space.sm, paddingTop: space.xs },
-  count: { gap: 0, flex: 1, minWidth: 0 },
+  summaryCard: { flexGrow: 1, flexBasis: 300, minWidth: 0, backgroundColor: palette.surface, borderWidth: 1, borderColor: palette.line, borderRadius: radii.lg, padding: space.lg, gap: space.xs },
+  counts: { flexDirection: 'row', flexWrap: 'wrap', gap: space.xs, paddingTop: space.xs },
+  count: { gap: 0, flexGrow: 1, flexBasis: 88, minWidth: 0, minHeight: layout.touchMinPx, paddingHorizontal: space.xs, paddingVertical: 2, borderRadius: radii.md, borderWidth: 1, borderColor: 'transparent' },
+  countOn: { borderColor: palette.accent, backgroundColor: palette.accentSoft },
+  filters: { gap: space.md },
+  selects: { flexDirection: 'row', flexWrap: 'wrap', gap: space.md },
+  select: { flexGrow: 1, flexBasis: 200 },
+  filterBar: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: space.sm },
+  cellPad: { paddingHorizontal: 4 },
   countLabel: { flexDirection: 'row', alignItems: 'center', gap: 3 },
   table: { borderWidth: 1, borderColor: palette.line, borderRadius: radii.md, overflow: 'hidden' },
   tr: { flexDirection: 'row', alignItems: 'center', gap: space.xs, paddingHorizontal: space.sm, minHeight: layout.touchMinPx, borderBottomWidth: 1, borderBottomColor: palette.paperDeep },

@@ -11,7 +11,9 @@ import { ROLE_LABELS } from '../../constants/schemas/roles';
 import { layout, palette, radii, space } from '../../constants/theme';
 import { useCurrentUser } from '../../hooks/queries/session';
 import { useIsWide } from '../../hooks/use-is-wide';
+import { SessionSheet } from '../auth/session-sheet';
 import { Wordmark } from '../brand/wordmark';
+import { SkipLink } from './skip-link';
 import { Icon } from '../icons';
 import { Text } from '../ui/text';
 import { isActive, navItemsFor, type NavItem } from './nav-items';
@@ -20,18 +22,22 @@ export function AppShell({ children }: { children: React.ReactNode }) {
   const wide = useIsWide();
   return wide ? (
     <View style={styles.wide}>
+      <SkipLink />
       <Sidebar />
-      <View style={styles.main} role="main">
+      <View style={styles.main} role="main" nativeID="main-content">
         {children}
       </View>
+      <SessionSheet />
     </View>
   ) : (
     <View style={styles.narrow}>
+      <SkipLink />
       <TopBar />
-      <View style={styles.main} role="main">
+      <View style={styles.main} role="main" nativeID="main-content">
         {children}
       </View>
       <BottomBar />
+      <SessionSheet />
     </View>
   );
 }

@@ -2,12 +2,14 @@
 import { ScrollView, StyleSheet, View } from 'react-native';
 import { layout, palette, radii, shadow, space } from '../../constants/theme';
 import { useIsWide } from '../../hooks/use-is-wide';
+import { usePageTitle } from '../../hooks/use-page-title';
 import { Wordmark } from '../brand/wordmark';
 import { Text } from '../ui/text';
 import { CautionNote } from './caution-note';
 
 export function AuthShell({ title, intro, children }: { title: string; intro?: React.ReactNode; children: React.ReactNode }) {
   const wide = useIsWide();
+  usePageTitle(title);
   return (
     <ScrollView style={styles.page} contentContainerStyle={[styles.content, wide && styles.contentWide]}>
       <View style={styles.column}>

@@ -9,7 +9,7 @@ import { Text } from '../ui/text';
 export function Loading({ label = 'Loading…' }: { label?: string }) {
   return (
     <View style={styles.loading} accessibilityRole="progressbar" accessibilityLabel={label}>
-      <ActivityIndicator color={palette.accent} />
+      <ActivityIndicator color={palette.accent} accessibilityLabel={label} />
       <Text tone="muted">{label}</Text>
     </View>
   );

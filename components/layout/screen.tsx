@@ -2,6 +2,7 @@
 import { ScrollView, StyleSheet, View } from 'react-native';
 import { layout, palette, space } from '../../constants/theme';
 import { useIsWide } from '../../hooks/use-is-wide';
+import { usePageTitle } from '../../hooks/use-page-title';
 import { Text } from '../ui/text';
 import { CautionNote } from './caution-note';
 
@@ -12,8 +13,11 @@ export function Screen({
   actions,
   children,
   testID,
+  pageTitle,
 }: {
   title: string;
+  /** The browser tab's title (before "· Fieldfile"); the heading when not given. */
+  pageTitle?: string;
   eyebrow?: string;
   subtitle?: string;
   actions?: React.ReactNode;
@@ -21,6 +25,7 @@ export function Screen({
   testID?: string;
 }) {
   const wide = useIsWide();
+  usePageTitle(pageTitle ?? title);
   return (
     <ScrollView style={styles.scroll} contentContainerStyle={[styles.content, wide ? styles.contentWide : styles.contentNarrow]} testID={testID}>
       <View style={styles.column}>

@@ -9,7 +9,7 @@ export function Splash({ label = 'Checking your session…' }: { label?: string 
     <View style={styles.page} accessibilityRole="progressbar" accessibilityLabel={label} testID="splash">
       <Mark size={44} />
       <View style={styles.row}>
-        <ActivityIndicator color={palette.accent} size="small" />
+        <ActivityIndicator color={palette.accent} size="small" accessibilityLabel="Loading" />
         <Text tone="muted">{label}</Text>
       </View>
     </View>

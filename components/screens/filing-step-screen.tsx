@@ -38,7 +38,7 @@ export function FilingStepScreen() {
   }
   const index = WIZARD_STEPS.indexOf(step);
   return (
-    <Screen eyebrow={`Step ${index + 1} of ${WIZARD_STEPS.length} · ${f.device.name}`} title={STEP_LABELS[step]} testID={`step-screen-${step}`}>
+    <Screen eyebrow={`Step ${index + 1} of ${WIZARD_STEPS.length} · ${f.device.name}`} title={STEP_LABELS[step]} pageTitle={`${STEP_LABELS[step]} · ${f.device.name}`} testID={`step-screen-${step}`}>
       {!wide ? <BackLink href={`/filings/${f.id}`} label="All steps" testID="back-to-steps" /> : null}
       <StepBody key={`${f.id}-${step}`} filing={f} step={step} />
       <StepNav filing={f} index={index} />

@@ -1,10 +1,11 @@
 /** /filings: the organisation's filings with state, markets, last change and owner; search and sort. */
-import { Link, useRouter } from 'expo-router';
+import { Link, useLocalSearchParams, useRouter } from 'expo-router';
 import { useEffect, useState } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
 import { PRODUCT_TYPE_LABELS } from '../../constants/schemas/device-file';
 import type { FilingSummary } from '../../constants/schemas/filings';
 import { layout, palette, radii, space } from '../../constants/theme';
+import { FILING_SORTS } from '../../constants/schemas/filings';
 import { useFilingsQuery, type FilingSort } from '../../hooks/queries/filings';
 import { hasRole, useCurrentUser } from '../../hooks/queries/session';
 import { useIsWide } from '../../hooks/use-is-wide';
@@ -30,13 +31,17 @@ export function FilingsListScreen() {
   const user = useCurrentUser();
   const router = useRouter();
   const canCreate = hasRole(user, 'specialist');
-  const [search, setSearch] = useState('');
-  const [q, setQ] = useState('');
-  const [sort, setSort] = useState<FilingSort>('updated');
+  const params = useLocalSearchParams<{ q?: string; sort?: string }>();
+  const q = typeof params.q === 'string' ? params.q : '';
+  const sort: FilingSort = (FILING_SORTS as readonly string[]).includes(params.sort ?? '') ? (params.sort as FilingSort) : 'updated';
+  const [search, setSearch] = useState(q);
+  const setSort = (next: FilingSort) => router.setParams({ sort: next === 'updated' ? undefined : next });
   useEffect(() => {
-    const t = setTimeout(() => setQ(search), 250);
+    const t = setTimeout(() => {
+      if (search !== q) router.setParams({ q: search.trim() ? search : undefined });
+    }, 250);
     return () => clearTimeout(t);
-  }, [search]);
+  }, [search, q, router]);
   const filings = useFilingsQuery(q, sort);
 
   return (

@@ -41,7 +41,7 @@ export function Button({ label, variant = 'primary', icon, busy, busyLabel, comp
       {...rest}
     >
       <View style={styles.inner}>
-        {busy ? <ActivityIndicator size="small" color={l.fg} /> : icon ? <Icon name={icon} size={18} color={l.fg} /> : null}
+        {busy ? <ActivityIndicator size="small" color={l.fg} accessibilityLabel={busyLabel ?? label} /> : icon ? <Icon name={icon} size={18} color={l.fg} /> : null}
         <Text variant="bodyStrong" style={{ color: l.fg }}>
           {busy && busyLabel ? busyLabel : label}
         </Text>

@@ -2,6 +2,7 @@
 import { Pressable, StyleSheet, View } from 'react-native';
 import Svg, { Path } from 'react-native-svg';
 import { layout, palette, radii, space } from '../../constants/theme';
+import { keyProps } from './keyboard';
 import { Text } from './text';
 
 export function Checkbox({
@@ -27,6 +28,12 @@ export function Checkbox({
       aria-checked={checked}
       disabled={disabled}
       onPress={() => onChange(!checked)}
+      {...keyProps((e) => {
+        if (e.key === ' ') {
+          e.preventDefault();
+          if (!disabled) onChange(!checked);
+        }
+      })}
       testID={testID}
       style={({ pressed }) => [styles.row, pressed && styles.pressed]}
     >

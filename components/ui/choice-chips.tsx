@@ -1,8 +1,13 @@
-/** Pick one of a few options: chips with radio semantics, each a 44 px touch target. */
+/**
+ * Pick one of a few options: chips with radio semantics, each a 44 px touch target. Keyboard as
+ * a radio group: one tab stop (the chosen chip, else the first), Space picks, arrow keys move and pick.
+ */
+import { useRef } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
 import { layout, palette, radii, space } from '../../constants/theme';
 import { Icon } from '../icons';
 import { FieldError } from './field-error';
+import { keyProps } from './keyboard';
 import { Text } from './text';
 
 export interface Choice<V extends string> {
@@ -29,6 +34,13 @@ export function ChoiceChips<V extends string>({
   error?: string;
   testID?: string;
 }) {
+  const refs = useRef<(View | null)[]>([]);
+  const tabStop = Math.max(0, choices.findIndex((c) => c.value === value));
+  const move = (from: number, step: number) => {
+    const to = (from + step + choices.length) % choices.length;
+    onChange(choices[to]!.value);
+    (refs.current[to] as unknown as { focus?: () => void } | null)?.focus?.();
+  };
   return (
     <View style={styles.field}>
       {hideLabel ? null : (
@@ -37,11 +49,23 @@ export function ChoiceChips<V extends string>({
         </Text>
       )}
       <View role="radiogroup" accessibilityLabel={label} style={styles.row}>
-        {choices.map((c) => {
+        {choices.map((c, i) => {
           const on = c.value === value;
           return (
             <Pressable
               key={c.value}
+              ref={(el) => {
+                refs.current[i] = el;
+              }}
+              tabIndex={disabled ? -1 : i === tabStop ? 0 : -1}
+              {...keyProps((e) => {
+                if (disabled) return;
+                if (e.key === ' ') onChange(c.value);
+                else if (e.key === 'ArrowRight' || e.key === 'ArrowDown') move(i, 1);
+                else if (e.key === 'ArrowLeft' || e.key === 'ArrowUp') move(i, -1);
+                else return;
+                e.preventDefault();
+              })}
               accessibilityRole="radio"
               accessibilityLabel={c.label}
               accessibilityState={{ checked: on, disabled: !!disabled }}

@@ -2,7 +2,7 @@
  * A compact input: optional visible label (tables label their columns instead), an optional unit
  * shown inside the box, right-aligned figures, and its error underneath. 44 px tall at least.
  */
-import { useState } from 'react';
+import { useState, type Ref } from 'react';
 import { StyleSheet, TextInput, View, type TextInputProps } from 'react-native';
 import { fonts, layout, palette, radii, space } from '../../constants/theme';
 import { FieldError } from './field-error';
@@ -16,9 +16,11 @@ export interface InputBoxProps extends Omit<TextInputProps, 'style'> {
   numeric?: boolean;
   error?: string;
   hint?: string;
+  /** The form library's ref, so it can move focus to the first field in error. */
+  ref?: Ref<TextInput>;
 }
 
-export function InputBox({ label, hideLabel, unit, numeric, error, hint, testID, editable = true, onFocus, onBlur, ...rest }: InputBoxProps) {
+export function InputBox({ label, hideLabel, unit, numeric, error, hint, testID, editable = true, onFocus, onBlur, ref, ...rest }: InputBoxProps) {
   const [focused, setFocused] = useState(false);
   return (
     <View style={styles.field}>
@@ -29,6 +31,7 @@ export function InputBox({ label, hideLabel, unit, numeric, error, hint, testID,
       )}
       <View style={[styles.box, focused && styles.focused, !!error && styles.invalid, !editable && styles.readOnly]}>
         <TextInput
+          ref={ref}
           accessibilityLabel={unit ? `${label} (${unit})` : label}
           aria-invalid={!!error}
           placeholderTextColor={palette.inkFaint}

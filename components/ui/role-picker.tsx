@@ -22,7 +22,7 @@ export function RolePicker({
 }) {
   const toggle = (role: Role, on: boolean) => onChange(on ? ROLES.filter((r) => r === role || value.includes(r)) : value.filter((r) => r !== role));
   return (
-    <View role="list" accessibilityLabel="Roles" style={{ gap: space.xxs }}>
+    <View role="group" accessibilityLabel="Roles" style={{ gap: space.xxs }}>
       {ROLES.map((role) => (
         <Checkbox
           key={role}

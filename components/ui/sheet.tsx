@@ -8,12 +8,13 @@ import { useIsWide } from '../../hooks/use-is-wide';
 import { Icon } from '../icons';
 import { Text } from './text';
 
-export function Sheet({ title, subtitle, visible, onClose, children, testID }: { title: string; subtitle?: string; visible: boolean; onClose: () => void; children: React.ReactNode; testID?: string }) {
+/** Without `onClose` the sheet cannot be dismissed (it waits for what it asks). */
+export function Sheet({ title, subtitle, visible, onClose, children, testID }: { title: string; subtitle?: string; visible: boolean; onClose?: () => void; children: React.ReactNode; testID?: string }) {
   const wide = useIsWide();
   return (
-    <Modal visible={visible} transparent animationType={wide ? 'fade' : 'slide'} onRequestClose={onClose}>
+    <Modal visible={visible} transparent animationType={wide ? 'fade' : 'slide'} onRequestClose={onClose ?? (() => undefined)}>
       <View style={[styles.backdrop, wide ? styles.backdropWide : styles.backdropNarrow]}>
-        <Pressable style={StyleSheet.absoluteFill} accessibilityLabel="Close" onPress={onClose} />
+        {onClose ? <Pressable style={StyleSheet.absoluteFill} accessibilityLabel="Close" onPress={onClose} /> : null}
         <View style={[styles.panel, wide ? styles.panelWide : styles.panelNarrow]} role="dialog" aria-modal accessibilityLabel={title} testID={testID}>
           <View style={styles.head}>
             <View style={{ flex: 1, gap: 2 }}>
@@ -26,9 +27,11 @@ export function Sheet({ title, subtitle, visible, onClose, children, testID }: {
                 </Text>
               ) : null}
             </View>
+            {onClose ? (
             <Pressable onPress={onClose} accessibilityRole="button" accessibilityLabel="Close" testID={testID ? `${testID}-close` : undefined} style={({ pressed }) => [styles.close, pressed && { backgroundColor: palette.paperDeep }]}>
               <Icon name="cross" size={20} />
             </Pressable>
+            ) : null}
           </View>
           <ScrollView contentContainerStyle={styles.body}>{children}</ScrollView>
         </View>

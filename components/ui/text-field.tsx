@@ -14,8 +14,8 @@ export function FormTextField<T extends FieldValues>({
     <Controller
       control={control}
       name={name}
-      render={({ field: { value, onChange, onBlur }, fieldState }) => (
-        <TextField {...field} value={value ?? ''} onChangeText={onChange} onBlur={onBlur} error={fieldState.error?.message} />
+      render={({ field: { value, onChange, onBlur, ref }, fieldState }) => (
+        <TextField {...field} ref={ref} value={value ?? ''} onChangeText={onChange} onBlur={onBlur} error={fieldState.error?.message} />
       )}
     />
   );

@@ -46,7 +46,7 @@ export function InviteUserForm({ onInvited }: { onInvited?: (result: InviteResul
     <View style={{ gap: space.lg }} testID="invite-form">
       <View style={[styles.fields, wide && styles.fieldsWide]}>
         <View style={styles.field}>
-          <FormTextField control={control} name="name" label="Name" testID="invite-name" autoComplete="off" />
+          <FormTextField control={control} name="name" label="Name" testID="invite-name" autoComplete="off" onSubmitEditing={() => void onSubmit()} />
         </View>
         <View style={styles.field}>
           <FormTextField
@@ -59,6 +59,7 @@ export function InviteUserForm({ onInvited }: { onInvited?: (result: InviteResul
             autoCapitalize="none"
             autoCorrect={false}
             autoComplete="off"
+            onSubmitEditing={() => void onSubmit()}
           />
         </View>
       </View>

@@ -46,11 +46,17 @@ export function hasRole(user: SessionUser | null | undefined, role: Role): boole
   return !!user?.roles.includes(role);
 }
 
-export function useLoginMutation() {
+/** `keepScreen`: signing in again over the current screen (session sheet); the same person keeps every loaded screen. */
+export function useLoginMutation({ keepScreen = false }: { keepScreen?: boolean } = {}) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (input: LoginInput) => apiOrThrow('/api/auth/login', { method: 'POST', body: input, schema: zUserEnvelope }),
     onSuccess: ({ user }) => {
+      const before = queryClient.getQueryData<SessionState>(sessionKeys.me())?.user;
+      if (keepScreen && before?.id === user.id) {
+        queryClient.setQueryData<SessionState>(sessionKeys.me(), { user });
+        return;
+      }
       queryClient.removeQueries({ predicate: (q) => q.queryKey[0] !== sessionKeys.all[0] });
       queryClient.setQueryData<SessionState>(sessionKeys.me(), { user, justSignedIn: true });
     },

@@ -69,7 +69,10 @@ describe('RadiosStep', () => {
     installFetchMock({});
     renderWithClient(<RadiosStep filing={{ ...FILING, editable: false }} />);
     expect(screen.getByTestId('step-read-only')).toBeTruthy();
-    expect(screen.getByTestId('tx-0-id').props.editable).toBe(false);
+    // Plain text, not a greyed-out input: the value with its unit where it has one.
+    expect(screen.getByTestId('tx-0-id')).toHaveTextContent('TX-1');
+    expect(screen.getByTestId('tx-0-id').props.editable).toBeUndefined();
+    expect(screen.getByTestId('tx-0-power')).toHaveTextContent(/^-?\d+(\.\d+)? dBm$/);
     expect(screen.queryByTestId('transmitters-add')).toBeNull();
   });
 });

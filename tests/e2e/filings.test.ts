@@ -241,8 +241,10 @@ describe('filing wizard', () => {
       await page.getByTestId('filing-read-only').waitFor();
       await page.getByTestId('step-link-radios').click();
       await page.getByTestId('step-read-only').waitFor();
-      expect(await page.getByTestId('tx-0-id').inputValue()).toBe('LTE-B12');
-      expect(await page.getByTestId('tx-0-id').isEditable()).toBe(false);
+      // Values as plain text in the table, not greyed-out inputs.
+      expect(await page.getByTestId('tx-0-id').textContent()).toBe('LTE-B12');
+      expect(await page.getByTestId('tx-0-power').textContent()).toMatch(/^\d+(\.\d+)? dBm$/);
+      expect(await page.locator('[data-testid="step-screen-radios"] input').count()).toBe(0);
       expect(await page.getByTestId('transmitters-add').count()).toBe(0);
       expect(await page.getByTestId('save-status').textContent()).toBe('Read only');
       await screenshot(page, 'step-radios-read-only-desktop');

@@ -1,0 +1,63 @@
+/**
+ * Filtering the screening table (pure, so it is tested without a screen): by result, market,
+ * transmitter and use position; "all" lets everything through. And the table as CSV, one line
+ * per combination, figures in the units shown.
+ */
+import type { ScreeningResult } from '../../calc/screening/rule';
+import type { ScreeningRowDto } from '../../hooks/queries/filings';
+import { USE_POSITION_LABELS } from '../../constants/schemas/device-file';
+import { methodShort, regimeShort, RESULT_LOOK } from './labels';
+import { evaluatedText, thresholdText } from './screening-figures';
+
+export const ALL = 'all';
+
+export interface ScreeningFilter {
+  result: ScreeningResult | typeof ALL;
+  regime: string;
+  transmitterId: string;
+  usePositionId: string;
+}
+
+export const NO_FILTER: ScreeningFilter = { result: ALL, regime: ALL, transmitterId: ALL, usePositionId: ALL };
+
+export function filterRows(rows: readonly ScreeningRowDto[], f: ScreeningFilter): ScreeningRowDto[] {
+  return rows.filter(
+    (r) =>
+      (f.result === ALL || r.result === f.result) &&
+      (f.regime === ALL || r.regime === f.regime) &&
+      (f.transmitterId === ALL || r.transmitterId === f.transmitterId) &&
+      (f.usePositionId === ALL || r.usePositionId === f.usePositionId),
+  );
+}
+
+export const isFiltered = (f: ScreeningFilter) => f.result !== ALL || f.regime !== ALL || f.transmitterId !== ALL || f.usePositionId !== ALL;
+
+const cell = (v: string | number | null) => {
+  const s = v === null ? '' : String(v);
+  return /[",\n;]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
+};
+
+/** RFC 4180 CSV of the rows as shown (after filtering), with a header line. */
+export function screeningCsv(rows: readonly ScreeningRowDto[]): string {
+  const head = ['Transmitter', 'Use position', 'Position kind', 'Separation (mm)', 'Market', 'Tier', 'Method', 'Frequency (MHz)', 'Evaluated', 'Threshold', 'Result', 'Margin (dB)', 'Source'];
+  const lines = rows.map((r) =>
+    [
+      r.transmitterId,
+      r.usePositionId,
+      USE_POSITION_LABELS[r.usePositionKind],
+      Number((r.separationM * 1000).toPrecision(6)),
+      regimeShort(r.regime),
+      r.tier,
+      methodShort(r.method),
+      Number((r.frequencyHz / 1e6).toPrecision(9)),
+      evaluatedText(r),
+      thresholdText(r),
+      RESULT_LOOK[r.result].label,
+      r.marginDb === null ? null : Number(r.marginDb.toFixed(2)),
+      r.derivation.source,
+    ]
+      .map(cell)
+      .join(','),
+  );
+  return [head.join(','), ...lines].join('\r\n') + '\r\n';
+}

@@ -1,0 +1,84 @@
+/**
+ * Screening at scale: the filters (result, market, transmitter, use position) on real engine rows,
+ * a tapped summary count filtering the table, the page-at-a-time table, and the CSV export.
+ */
+import { fireEvent, screen } from '@testing-library/react-native';
+import { screeningInput } from '../../calc/screening/input';
+import { SCREENING_CAUTIONS, screenParsed } from '../../calc/screening/screen';
+import { filterRows, NO_FILTER, screeningCsv } from '../../components/filings/screening-filter';
+import { ROWS_PAGE, ScreeningView } from '../../components/filings/screening-view';
+import type { FilingDetail } from '../../constants/schemas/filings';
+import { installFetchMock } from './support/fetch-mock';
+import { renderWithClient } from './support/render';
+
+jest.mock('../../components/charts/depth-profile-chart', () => ({ DepthProfileChart: () => null }));
+jest.setTimeout(60_000);
+
+const antennas = [{ id: 'A1', gainDbi: 0, location: '' }];
+const transmitters = Array.from({ length: 12 }, (_, i) => ({ id: `T${i + 1}`, technology: 'LTE', band: `B${i + 1}`, frequencyMinHz: 700e6 + i * 400e6, frequencyMaxHz: 740e6 + i * 400e6, maxTuneUpPowerDbm: 2 + 2 * i, dutyCycle: 1, antennaId: 'A1' }));
+const usePositions = [
+  { id: 'belt', kind: 'body-worn' as const, separations: [{ antennaId: 'A1', separationM: 0.01 }] },
+  { id: 'desk', kind: 'far-field' as const, separations: [{ antennaId: 'A1', separationM: 0.3 }] },
+];
+const markets = [{ regime: 'fcc' as const, tier: 'general' as const }, { regime: 'eu' as const, tier: 'general' as const }];
+const output = screenParsed(screeningInput.parse({ markets, antennas, transmitters, usePositions }));
+const SCREENING = { ...output, filingId: 9, version: 1, engineVersion: 'e', ruleSetVersion: 'r', computedAt: '2026-03-01T10:00:00.000Z', complete: true, cautions: SCREENING_CAUTIONS };
+const FILING = {
+  id: 9,
+  device: { name: 'Scale test', model: 'S-1', applicant: 'Northfold Telemetry', productType: 'phone' },
+  version: { id: 9, number: 1, state: 'draft' },
+  markets: ['fcc', 'eu'],
+  owner: { id: 2, name: 'Tomas Lindqvist' },
+  updatedAt: '2026-03-01T10:00:00.000Z',
+  createdAt: '2026-03-01T10:00:00.000Z',
+  editable: true,
+  steps: [],
+  data: { device: FILING_DEVICE(), radios: { antennas, transmitters }, 'use-positions': { usePositions: [] }, markets: { markets } },
+  drafts: {},
+} as unknown as FilingDetail;
+function FILING_DEVICE() {
+  return { name: 'Scale test', model: 'S-1', applicant: 'Northfold Telemetry', productType: 'phone', hardwareVersion: '', firmwareVersion: '' };
+}
+
+describe('screening filters', () => {
+  it('filter by each dimension and combine them', () => {
+    const rows = output.rows;
+    expect(rows.length).toBe(48);
+    expect(filterRows(rows, NO_FILTER)).toHaveLength(48);
+    expect(filterRows(rows, { ...NO_FILTER, regime: 'eu' }).every((r) => r.regime === 'eu')).toBe(true);
+    expect(filterRows(rows, { ...NO_FILTER, transmitterId: 'T3' })).toHaveLength(4);
+    expect(filterRows(rows, { ...NO_FILTER, transmitterId: 'T3', usePositionId: 'desk', regime: 'fcc' })).toHaveLength(1);
+    const exempt = filterRows(rows, { ...NO_FILTER, result: 'exempt' });
+    expect(exempt.length).toBeGreaterThan(0);
+    expect(exempt.length).toBeLessThan(48);
+    expect(exempt.every((r) => r.result === 'exempt')).toBe(true);
+  });
+
+  it('exports the rows as CSV, one line each, with quoted fields where needed', () => {
+    const csv = screeningCsv(output.rows.slice(0, 3));
+    const lines = csv.trimEnd().split('\r\n');
+    expect(lines).toHaveLength(4);
+    expect(lines[0]).toBe('Transmitter,Use position,Position kind,Separation (mm),Market,Tier,Method,Frequency (MHz),Evaluated,Threshold,Result,Margin (dB),Source');
+    expect(lines[1]).toMatch(/^T1,belt,/);
+    // The source names a clause with commas or not; either way the line has 13 fields.
+    const fields = lines[1]!.match(/("([^"]|"")*"|[^,]*)(,|$)/g)!.filter((f) => f !== '');
+    expect(fields).toHaveLength(13);
+  });
+
+  it('a tapped summary count filters the table; long tables come a page at a time', async () => {
+    installFetchMock({ 'GET /api/filings/9/screening': { status: 200, body: SCREENING } });
+    renderWithClient(<ScreeningView filing={FILING} />);
+    expect(await screen.findByTestId('screening-shown')).toHaveTextContent('48 combinations');
+    // A page of rows, then "show more".
+    expect(screen.getByTestId(`screening-row-${ROWS_PAGE - 1}`)).toBeTruthy();
+    expect(screen.queryByTestId(`screening-row-${ROWS_PAGE}`)).toBeNull();
+    fireEvent.press(screen.getByTestId('screening-more'));
+    expect(screen.getByTestId('screening-row-47')).toBeTruthy();
+    // Tap "Exempt" in the FCC summary: only the FCC's exempt rows remain.
+    const fccExempt = output.rows.filter((r) => r.regime === 'fcc' && r.result === 'exempt').length;
+    fireEvent.press(screen.getByTestId('summary-fcc-exempt'));
+    expect(screen.getByTestId('screening-shown')).toHaveTextContent(`${fccExempt} of 48 combinations match`);
+    fireEvent.press(screen.getByTestId('screening-clear'));
+    expect(screen.getByTestId('screening-shown')).toHaveTextContent('48 combinations');
+  });
+});
