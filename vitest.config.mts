@@ -7,7 +7,8 @@ export default defineConfig({
     include: ['tests/calc/**/*.test.ts', 'tests/server/**/*.test.ts', 'tests/unit/**/*.test.ts'],
     environment: 'node',
     pool: 'forks',
-    testTimeout: 20_000,
+    // A ceiling, not a wait: on the shared 2-core machine an API test can pass 20 s.
+    testTimeout: 60_000,
     // Seeding hashes passwords (scrypt, about 0.5 s each); on a busy machine that takes a while.
     hookTimeout: 60_000,
   },

@@ -8,7 +8,8 @@ export default defineConfig({
     environment: 'node',
     pool: 'forks',
     fileParallelism: false,
-    testTimeout: 90_000,
+    // A whole walk through the wizard; the shared 2-core machine can make one take minutes.
+    testTimeout: 240_000,
     hookTimeout: 240_000,
   },
 });

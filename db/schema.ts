@@ -263,13 +263,27 @@ export const marketSelections = sqliteTable(
   (t) => [primaryKey({ columns: [t.versionId, t.regime] })],
 );
 
-/** Transmitter combinations that can be on together (stored by transmitter key). */
+/** Transmitter combinations that can be on together; members are in simultaneous_group_members. */
 export const simultaneousGroups = sqliteTable('simultaneous_groups', {
   id: integer('id').primaryKey({ autoIncrement: true }),
   versionId: versionRef(),
-  transmitterKeys: text('transmitter_keys', { mode: 'json' }).notNull().$type<string[]>(),
   sortOrder: integer('sort_order').notNull(),
 });
+
+/** A combination's transmitters, by row: renaming a transmitter changes nothing here. */
+export const simultaneousGroupMembers = sqliteTable(
+  'simultaneous_group_members',
+  {
+    groupId: integer('group_id')
+      .notNull()
+      .references(() => simultaneousGroups.id, { onDelete: 'cascade' }),
+    transmitterId: integer('transmitter_id')
+      .notNull()
+      .references(() => transmitters.id, { onDelete: 'cascade' }),
+    sortOrder: integer('sort_order').notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.groupId, t.transmitterId] })],
+);
 
 /**
  * What the user typed in a step that does not validate yet, so a reload loses nothing. Cleared

@@ -1,12 +1,15 @@
 /**
  * Rows of a step (antennas, transmitters, use positions): an editable table on a wide screen,
- * a card per row on a phone. Adding a row is one tap; every row can be removed.
+ * a card per row on a phone. Adding a row is one tap; removing one asks first and says what
+ * goes with it.
  */
+import { useState } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
 import { layout, palette, radii, space } from '../../constants/theme';
 import { useIsWide } from '../../hooks/use-is-wide';
 import { Icon } from '../icons';
 import { Button } from '../ui/button';
+import { Sheet } from '../ui/sheet';
 import { Text } from '../ui/text';
 
 export interface EditColumn {
@@ -30,6 +33,7 @@ export function EditRows({
   editable,
   testID,
   empty,
+  removalEffects,
 }: {
   noun: string;
   columns: EditColumn[];
@@ -41,15 +45,18 @@ export function EditRows({
   editable: boolean;
   testID: string;
   empty: string;
+  /** What else is removed or left without a partner when row i goes, in words. */
+  removalEffects?: (i: number) => string[];
 }) {
   const wide = useIsWide();
+  const [asking, setAsking] = useState<number | null>(null);
   const rows = Array.from({ length: count }, (_, i) => i);
   const remove = (i: number) =>
     editable ? (
       <Pressable
         accessibilityRole="button"
         accessibilityLabel={`Remove ${noun} ${titleOf(i)}`}
-        onPress={() => onRemove(i)}
+        onPress={() => setAsking(i)}
         testID={`${testID}-remove-${i}`}
         style={({ pressed }) => [styles.remove, pressed && { backgroundColor: palette.failSoft }]}
       >
@@ -103,7 +110,42 @@ export function EditRows({
         ))
       )}
       {editable ? <Button label={`Add ${noun}`} icon="plus" variant="secondary" onPress={onAdd} testID={`${testID}-add`} style={styles.add} /> : null}
+      {asking !== null && asking < count ? (
+        <ConfirmRemoval
+          title={`Remove ${noun} ${titleOf(asking) || asking + 1}?`}
+          effects={removalEffects?.(asking) ?? []}
+          onCancel={() => setAsking(null)}
+          onConfirm={() => {
+            onRemove(asking);
+            setAsking(null);
+          }}
+          testID={`${testID}-confirm-remove`}
+        />
+      ) : null}
     </View>
+  );
+}
+
+function ConfirmRemoval({ title, effects, onCancel, onConfirm, testID }: { title: string; effects: string[]; onCancel: () => void; onConfirm: () => void; testID: string }) {
+  return (
+    <Sheet visible title={title} onClose={onCancel} testID={testID}>
+      <View style={styles.effects} testID={`${testID}-effects`}>
+        {effects.length ? (
+          <>
+            <Text>Goes with it when the step saves:</Text>
+            {effects.map((e) => (
+              <Text key={e} variant="small">{`• ${e}`}</Text>
+            ))}
+          </>
+        ) : (
+          <Text>Nothing else refers to it.</Text>
+        )}
+      </View>
+      <View style={styles.confirmButtons}>
+        <Button label="Remove" icon="cross" variant="danger" onPress={onConfirm} testID={`${testID}-yes`} />
+        <Button label="Keep it" variant="secondary" onPress={onCancel} testID={`${testID}-no`} />
+      </View>
+    </Sheet>
   );
 }
 
@@ -127,4 +169,6 @@ const styles = StyleSheet.create({
   full: { flexBasis: '100%' },
   half: { flexBasis: '45%', flexGrow: 1 },
   add: { alignSelf: 'flex-start' },
+  effects: { gap: space.xs },
+  confirmButtons: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
 });

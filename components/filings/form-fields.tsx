@@ -19,12 +19,33 @@ interface Common<T extends FieldValues> {
   placeholder?: string;
 }
 
-export function FormText<T extends FieldValues>({ control, name, editable, ...rest }: Common<T>) {
+/** `onValueChange` hears each change with the value before it (e.g. to carry a rename to what refers to it). */
+type Changed = { onValueChange?: (next: string, previous: string) => void };
+
+export function FormText<T extends FieldValues>({ control, name, editable, onValueChange, ...rest }: Common<T> & Changed) {
   return (
     <Controller
       control={control}
       name={name}
-      render={({ field, fieldState }) => editable ? <InputBox {...rest} ref={field.ref} editable={editable} value={field.value ?? ''} onChangeText={field.onChange} onBlur={field.onBlur} error={fieldState.error?.message} /> : <ReadValue label={rest.label} hideLabel={rest.hideLabel} value={field.value ?? ''} testID={rest.testID} />}
+      render={({ field, fieldState }) =>
+        editable ? (
+          <InputBox
+            {...rest}
+            ref={field.ref}
+            editable={editable}
+            value={field.value ?? ''}
+            onChangeText={(next) => {
+              const previous = field.value ?? '';
+              field.onChange(next);
+              onValueChange?.(next, previous);
+            }}
+            onBlur={field.onBlur}
+            error={fieldState.error?.message}
+          />
+        ) : (
+          <ReadValue label={rest.label} hideLabel={rest.hideLabel} value={field.value ?? ''} testID={rest.testID} />
+        )
+      }
     />
   );
 }
@@ -44,12 +65,29 @@ export function FormNumber<T extends FieldValues>({ control, name, editable, uni
   );
 }
 
-export function FormSelect<T extends FieldValues>({ control, name, editable, options, ...rest }: Common<T> & { options: readonly { value: string; label: string }[] }) {
+export function FormSelect<T extends FieldValues>({ control, name, editable, options, onValueChange, ...rest }: Common<T> & Changed & { options: readonly { value: string; label: string }[] }) {
   return (
     <Controller
       control={control}
       name={name}
-      render={({ field, fieldState }) => !editable ? <ReadValue label={rest.label} hideLabel={rest.hideLabel} value={options.find((o) => o.value === field.value)?.label ?? field.value ?? ''} testID={rest.testID} /> : <SelectField {...rest} options={options} disabled={!editable} value={field.value} onChange={field.onChange} error={fieldState.error?.message} />}
+      render={({ field, fieldState }) =>
+        !editable ? (
+          <ReadValue label={rest.label} hideLabel={rest.hideLabel} value={options.find((o) => o.value === field.value)?.label ?? field.value ?? ''} testID={rest.testID} />
+        ) : (
+          <SelectField
+            {...rest}
+            options={options}
+            disabled={!editable}
+            value={field.value}
+            onChange={(next) => {
+              const previous = field.value ?? '';
+              field.onChange(next);
+              onValueChange?.(next, previous);
+            }}
+            error={fieldState.error?.message}
+          />
+        )
+      }
     />
   );
 }

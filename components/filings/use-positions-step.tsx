@@ -14,13 +14,14 @@ import { Text } from '../ui/text';
 import { EditRows, nextId, type EditColumn } from './edit-rows';
 import { FormSelect, FormText } from './form-fields';
 import { StepFrame } from './step-frame';
-import { arrayOf, isObject, useStepForm } from './use-step-form';
+import { arrayOf, isObject, useAdoptRowIds, useStepForm } from './use-step-form';
 
 interface Separation {
   antennaId: string;
   separationM: number | null;
 }
 interface PositionRow {
+  rowId?: number;
   id: string;
   kind: UsePositionKind;
   separations: Separation[];
@@ -46,6 +47,11 @@ export function UsePositionsStep({ filing }: { filing: FilingDetail }) {
   const positions = useFieldArray({ control, name: 'usePositions', keyName: 'key' });
   const values = useWatch({ control, name: 'usePositions' }) ?? [];
   const common = { control, editable };
+  useAdoptRowIds(form, 'usePositions', filing.data['use-positions'].usePositions);
+  const positionEffects = (i: number) => {
+    const given = (values[i]?.separations ?? []).map((s) => s.antennaId);
+    return given.length ? [`its separation${given.length === 1 ? '' : 's'} to ${given.join(', ')}`] : [];
+  };
 
   const columns: EditColumn[] = [
     { key: 'id', label: 'Position id', flex: 1.2, render: (i, h) => <FormText {...common} name={`usePositions.${i}.id`} label="Position id" hideLabel={h} testID={`pos-${i}-id`} /> },
@@ -81,6 +87,7 @@ export function UsePositionsStep({ filing }: { filing: FilingDetail }) {
           titleOf={(i) => values[i]?.id ?? ''}
           onAdd={() => positions.append({ id: nextId('POS', values.map((p) => p?.id)), kind: 'body-worn', separations: [] })}
           onRemove={(i) => positions.remove(i)}
+          removalEffects={positionEffects}
           editable={editable}
           testID="positions"
           empty="No use positions yet. Add each way the product is held, worn or placed."

@@ -4,7 +4,7 @@
  */
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useEffect, useState } from 'react';
-import { useForm, type FieldValues, type Resolver } from 'react-hook-form';
+import { useForm, type FieldValues, type Path, type PathValue, type Resolver, type UseFormReturn } from 'react-hook-form';
 import { STEP_SCHEMAS, type DataStep, type FilingDetail } from '../../constants/schemas/filings';
 import { useAutosave, type AutosaveStatus } from '../../hooks/use-autosave';
 
@@ -33,3 +33,21 @@ export type StepForm<T extends FieldValues> = ReturnType<typeof useStepForm<T>>;
 /** Draft data is whatever was sent last; keep it only when it has the step's outer shape. */
 export const isObject = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
 export const arrayOf = (v: unknown): Record<string, unknown>[] => (Array.isArray(v) ? v.filter(isObject) : []);
+
+/**
+ * A row added in the form learns its saved row number once the step has saved (matched by label),
+ * so that a later rename in the same visit keeps the row and what refers to it.
+ */
+export function useAdoptRowIds<T extends FieldValues>(form: UseFormReturn<T>, name: Path<T>, stored: readonly { rowId?: number; id: string }[]) {
+  useEffect(() => {
+    const rows = (form.getValues(name) ?? []) as ({ rowId?: number; id: string } | undefined)[];
+    const used = new Set(rows.map((r) => r?.rowId).filter(Boolean));
+    rows.forEach((r, i) => {
+      if (!r || r.rowId) return;
+      const match = stored.find((x) => x.id === r.id && x.rowId && !used.has(x.rowId));
+      if (!match?.rowId) return;
+      used.add(match.rowId);
+      form.setValue(`${name}.${i}.rowId` as Path<T>, match.rowId as PathValue<T, Path<T>>);
+    });
+  }, [form, name, stored]);
+}

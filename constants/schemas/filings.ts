@@ -50,11 +50,19 @@ const duplicateIdIssues = (items: { id: string }[], path: string, ctx: z.Refinem
 export const zDeviceStep = zDeviceInfo;
 export type DeviceStep = z.output<typeof zDeviceStep>;
 
+/**
+ * A saved row's own number. The ids a user types are labels: a row sent back with its rowId keeps
+ * its relations (separations, co-transmission combinations) when its label changes. A row without
+ * one is matched by label, or added.
+ */
+export const zRowId = z.number().int().positive().optional();
+const withRowId = { rowId: zRowId };
+
 /** Antennas and transmitters are saved together: a transmitter names its antenna. */
 export const zRadiosStep = z
   .strictObject({
-    antennas: z.array(zAntenna).max(MAX_ANTENNAS),
-    transmitters: z.array(zTransmitter).max(MAX_TRANSMITTERS),
+    antennas: z.array(zAntenna.extend(withRowId)).max(MAX_ANTENNAS),
+    transmitters: z.array(zTransmitter.safeExtend(withRowId)).max(MAX_TRANSMITTERS),
   })
   .superRefine((v, ctx) => {
     duplicateIdIssues(v.antennas, 'antennas', ctx);
@@ -68,7 +76,7 @@ export type RadiosStep = z.output<typeof zRadiosStep>;
 export type RadiosStepInput = z.input<typeof zRadiosStep>;
 
 export const zUsePositionsStep = z
-  .strictObject({ usePositions: z.array(zUsePosition).max(MAX_USE_POSITIONS) })
+  .strictObject({ usePositions: z.array(zUsePosition.extend(withRowId)).max(MAX_USE_POSITIONS) })
   .superRefine((v, ctx) => duplicateIdIssues(v.usePositions, 'usePositions', ctx));
 export type UsePositionsStep = z.output<typeof zUsePositionsStep>;
 export type UsePositionsStepInput = z.input<typeof zUsePositionsStep>;
@@ -131,6 +139,8 @@ export interface FilingDetail extends FilingSummary {
     'use-positions': UsePositionsStep;
     markets: MarketsStep;
   };
+  /** Transmitter combinations that can be on together, by transmitter label. */
+  simultaneous?: string[][];
   /** Unvalidated step input saved while it still had errors. */
   drafts: Partial<Record<DataStep, { data: unknown; updatedAt: string }>>;
 }

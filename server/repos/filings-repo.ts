@@ -7,6 +7,7 @@ import {
   filings,
   filingVersions,
   marketSelections,
+  simultaneousGroupMembers,
   simultaneousGroups,
   stepDrafts,
   transmitters,
@@ -97,57 +98,82 @@ export function readRadios(db: Db, versionId: number): RadiosStep {
   const keyById = new Map(ants.map((a) => [a.id, a.key]));
   const txs = db.select().from(transmitters).where(eq(transmitters.versionId, versionId)).orderBy(asc(transmitters.sortOrder)).all();
   return {
-    antennas: ants.map((a) => ({ id: a.key, gainDbi: a.gainDbi, location: a.location })),
-    transmitters: txs.map((t) => ({
-      id: t.key,
-      technology: t.technology,
-      band: t.band,
-      frequencyMinHz: t.frequencyMinHz,
-      frequencyMaxHz: t.frequencyMaxHz,
-      maxTuneUpPowerDbm: t.maxTuneUpPowerDbm,
-      dutyCycle: t.dutyCycle,
-      antennaId: keyById.get(t.antennaId)!,
-    })),
+    antennas: ants.map((a) => ({ id: a.key, gainDbi: a.gainDbi, location: a.location, rowId: a.id })),
+    // Columns are named and ordered as the schema's fields, so an unchanged step compares equal.
+    transmitters: txs.map(({ id, key, versionId: _v, antennaId, sortOrder: _s, ...fields }) => ({ id: key, ...fields, antennaId: keyById.get(antennaId)!, rowId: id })),
   };
 }
 
 /**
- * Replaces a version's antennas and transmitters. Antennas are matched by id so that the
- * separations entered for them under Use positions survive an edit of gain or location.
+ * Which stored row each wanted row is: by its rowId when it names a row of this version, else by
+ * label among the rows not yet taken. Rows left over are the removed ones.
+ */
+function matchRows<W extends { rowId?: number; id: string }>(existing: { id: number; key: string }[], wanted: W[]) {
+  const byId = new Map(existing.map((r) => [r.id, r]));
+  const taken = new Set<number>();
+  const rowOf = new Map<W, number>();
+  for (const w of wanted) {
+    if (w.rowId !== undefined && byId.has(w.rowId) && !taken.has(w.rowId)) {
+      rowOf.set(w, w.rowId);
+      taken.add(w.rowId);
+    }
+  }
+  for (const w of wanted) {
+    if (rowOf.has(w)) continue;
+    const row = existing.find((r) => r.key === w.id && !taken.has(r.id));
+    if (row) {
+      rowOf.set(w, row.id);
+      taken.add(row.id);
+    }
+  }
+  return { rowOf, removed: existing.filter((r) => !taken.has(r.id)).map((r) => r.id), kept: [...taken] };
+}
+
+/** Labels are unique per version; kept rows wait on a placeholder no label can be, so two labels can swap. */
+const parkedKey = (id: number) => `~parked-${id}`;
+
+/**
+ * Updates a version's antennas and transmitters in place. A rename changes the label only, so
+ * separations (by antenna row) and co-transmission combinations (by transmitter row) stay; a
+ * removed antenna takes its separations with it, a removed transmitter its place in combinations.
  */
 export function writeRadios(db: Db, versionId: number, radios: RadiosStep) {
-  db.delete(transmitters).where(eq(transmitters.versionId, versionId)).run();
-  const existing = db.select().from(antennas).where(eq(antennas.versionId, versionId)).all();
-  const wanted = new Set(radios.antennas.map((a) => a.id));
-  const removed = existing.filter((a) => !wanted.has(a.key)).map((a) => a.id);
-  if (removed.length) db.delete(antennas).where(inArray(antennas.id, removed)).run();
-  const idByKey = new Map(existing.filter((a) => wanted.has(a.key)).map((a) => [a.key, a.id]));
+  const oldAntennas = db.select({ id: antennas.id, key: antennas.key }).from(antennas).where(eq(antennas.versionId, versionId)).all();
+  const oldTxs = db.select({ id: transmitters.id, key: transmitters.key }).from(transmitters).where(eq(transmitters.versionId, versionId)).all();
+  const ant = matchRows(oldAntennas, radios.antennas);
+  const tx = matchRows(oldTxs, radios.transmitters);
+  if (tx.removed.length) db.delete(transmitters).where(inArray(transmitters.id, tx.removed)).run();
+  for (const id of tx.kept) db.update(transmitters).set({ key: parkedKey(id) }).where(eq(transmitters.id, id)).run();
+  for (const id of ant.kept) db.update(antennas).set({ key: parkedKey(id) }).where(eq(antennas.id, id)).run();
+
+  const antennaRow = new Map<string, number>();
   radios.antennas.forEach((a, sortOrder) => {
-    const id = idByKey.get(a.id);
-    if (id) {
-      db.update(antennas).set({ gainDbi: a.gainDbi, location: a.location, sortOrder }).where(eq(antennas.id, id)).run();
-    } else {
-      idByKey.set(a.id, db.insert(antennas).values({ versionId, key: a.id, gainDbi: a.gainDbi, location: a.location, sortOrder }).returning().get().id);
-    }
+    const values = { key: a.id, gainDbi: a.gainDbi, location: a.location, sortOrder };
+    const id = ant.rowOf.get(a);
+    if (id) db.update(antennas).set(values).where(eq(antennas.id, id)).run();
+    antennaRow.set(a.id, id ?? db.insert(antennas).values({ versionId, ...values }).returning().get().id);
   });
-  if (radios.transmitters.length) {
-    db.insert(transmitters)
-      .values(
-        radios.transmitters.map((t, sortOrder) => ({
-          versionId,
-          key: t.id,
-          technology: t.technology,
-          band: t.band,
-          frequencyMinHz: t.frequencyMinHz,
-          frequencyMaxHz: t.frequencyMaxHz,
-          maxTuneUpPowerDbm: t.maxTuneUpPowerDbm,
-          dutyCycle: t.dutyCycle,
-          antennaId: idByKey.get(t.antennaId)!,
-          sortOrder,
-        })),
-      )
-      .run();
-  }
+  radios.transmitters.forEach((t, sortOrder) => {
+    const { id: key, rowId: _r, antennaId, ...fields } = t;
+    const values = { key, ...fields, antennaId: antennaRow.get(antennaId)!, sortOrder };
+    const id = tx.rowOf.get(t);
+    if (id) db.update(transmitters).set(values).where(eq(transmitters.id, id)).run();
+    else db.insert(transmitters).values({ versionId, ...values }).run();
+  });
+  if (ant.removed.length) db.delete(antennas).where(inArray(antennas.id, ant.removed)).run();
+  if (tx.removed.length) dropShrunkCombinations(db, versionId);
+}
+
+/** A combination that lost members down to one transmitter is no combination any more. */
+function dropShrunkCombinations(db: Db, versionId: number) {
+  db.delete(simultaneousGroups)
+    .where(
+      and(
+        eq(simultaneousGroups.versionId, versionId),
+        sql`(select count(*) from ${simultaneousGroupMembers} where ${simultaneousGroupMembers.groupId} = ${simultaneousGroups.id}) < 2`,
+      ),
+    )
+    .run();
 }
 
 export function antennaIdsByKey(db: Db, versionId: number): Map<string, number> {
@@ -177,18 +203,26 @@ export function readUsePositions(db: Db, versionId: number): UsePositionsStep {
       id: p.key,
       kind: p.kind,
       separations: seps.filter((s) => s.usePositionId === p.id).map((s) => ({ antennaId: s.antennaKey, separationM: s.separationM })),
+      rowId: p.id,
     })),
   };
 }
 
-/** Replaces a version's use positions; antenna keys must already be resolved (see service). */
+/** Updates a version's use positions in place (a rename keeps the row); antenna keys must already be resolved (see service). */
 export function writeUsePositions(db: Db, versionId: number, step: UsePositionsStep, antennaIds: Map<string, number>) {
-  db.delete(usePositions).where(eq(usePositions.versionId, versionId)).run();
+  const old = db.select({ id: usePositions.id, key: usePositions.key }).from(usePositions).where(eq(usePositions.versionId, versionId)).all();
+  const match = matchRows(old, step.usePositions);
+  if (match.removed.length) db.delete(usePositions).where(inArray(usePositions.id, match.removed)).run();
+  for (const id of match.kept) db.update(usePositions).set({ key: parkedKey(id) }).where(eq(usePositions.id, id)).run();
+  if (match.kept.length) db.delete(usePositionSeparations).where(inArray(usePositionSeparations.usePositionId, match.kept)).run();
   step.usePositions.forEach((p, sortOrder) => {
-    const row = db.insert(usePositions).values({ versionId, key: p.id, kind: p.kind, sortOrder }).returning().get();
+    const values = { key: p.id, kind: p.kind, sortOrder };
+    let id = match.rowOf.get(p);
+    if (id) db.update(usePositions).set(values).where(eq(usePositions.id, id)).run();
+    else id = db.insert(usePositions).values({ versionId, ...values }).returning().get().id;
     if (p.separations.length) {
       db.insert(usePositionSeparations)
-        .values(p.separations.map((s) => ({ usePositionId: row.id, antennaId: antennaIds.get(s.antennaId)!, separationM: s.separationM })))
+        .values(p.separations.map((s) => ({ usePositionId: id, antennaId: antennaIds.get(s.antennaId)!, separationM: s.separationM })))
         .run();
     }
   });
@@ -210,19 +244,38 @@ export function writeMarkets(db: Db, versionId: number, step: MarketsStep) {
   }
 }
 
+/** Combinations by transmitter label, each in the order it was given. */
 export function readSimultaneous(db: Db, versionId: number): string[][] {
-  return db
-    .select()
+  const rows = db
+    .select({ groupId: simultaneousGroups.id, key: transmitters.key })
     .from(simultaneousGroups)
+    .innerJoin(simultaneousGroupMembers, eq(simultaneousGroupMembers.groupId, simultaneousGroups.id))
+    .innerJoin(transmitters, eq(transmitters.id, simultaneousGroupMembers.transmitterId))
     .where(eq(simultaneousGroups.versionId, versionId))
-    .orderBy(asc(simultaneousGroups.sortOrder))
-    .all()
-    .map((g) => g.transmitterKeys);
+    .orderBy(asc(simultaneousGroups.sortOrder), asc(simultaneousGroupMembers.sortOrder))
+    .all();
+  const groups = new Map<number, string[]>();
+  for (const r of rows) groups.set(r.groupId, [...(groups.get(r.groupId) ?? []), r.key]);
+  return [...groups.values()];
 }
 
+/** Replaces a version's combinations; every label must name one of its transmitters (the file schema checks). */
 export function writeSimultaneous(db: Db, versionId: number, groups: string[][]) {
   db.delete(simultaneousGroups).where(eq(simultaneousGroups.versionId, versionId)).run();
-  if (groups.length) db.insert(simultaneousGroups).values(groups.map((transmitterKeys, sortOrder) => ({ versionId, transmitterKeys, sortOrder }))).run();
+  const txRow = new Map(
+    db
+      .select({ id: transmitters.id, key: transmitters.key })
+      .from(transmitters)
+      .where(eq(transmitters.versionId, versionId))
+      .all()
+      .map((t) => [t.key, t.id]),
+  );
+  groups.forEach((keys, sortOrder) => {
+    const group = db.insert(simultaneousGroups).values({ versionId, sortOrder }).returning().get();
+    db.insert(simultaneousGroupMembers)
+      .values(keys.map((key, i) => ({ groupId: group.id, transmitterId: txRow.get(key)!, sortOrder: i })))
+      .run();
+  });
 }
 
 export function readDrafts(db: Db, versionId: number) {

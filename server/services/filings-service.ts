@@ -140,6 +140,7 @@ export function getFiling(db: Db, actor: FilingActor, filingId: number): FilingD
     editable: canEdit(actor) && EDITABLE_STATES.includes(row.version.state as VersionState),
     steps: stepStatuses(data, new Set(drafts.map((d) => d.step))),
     data,
+    simultaneous: repo.readSimultaneous(db, row.version.id),
     drafts: Object.fromEntries(drafts.map((d) => [d.step, { data: d.data, updatedAt: d.updatedAt }])),
   };
 }
@@ -178,16 +179,19 @@ export function importDeviceFile(db: Db, actor: FilingActor, file: DeviceFile): 
   return getFiling(db, actor, id);
 }
 
+const withoutRowId = <T extends { rowId?: number }>({ rowId: _rowId, ...rest }: T): Omit<T, 'rowId'> => rest;
+
 export function exportDeviceFile(db: Db, actor: FilingActor, filingId: number): DeviceFile {
   const row = loadFiling(db, actor, filingId);
   const data = readData(db, row);
+  // Row numbers belong to this database; the file relates its parts by label.
   return {
     format: DEVICE_FILE_FORMAT,
     device: data.device,
     markets: data.markets.markets,
-    antennas: data.radios.antennas,
-    transmitters: data.radios.transmitters,
-    usePositions: data['use-positions'].usePositions,
+    antennas: data.radios.antennas.map(withoutRowId),
+    transmitters: data.radios.transmitters.map(withoutRowId),
+    usePositions: data['use-positions'].usePositions.map(withoutRowId),
     simultaneous: repo.readSimultaneous(db, row.version.id),
   };
 }

@@ -6,10 +6,9 @@
  */
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DESKTOP, openBrowser, PHONE, screenshot, type Session } from './support/browser';
+import { DESKTOP, openBrowser, PHONE, screenshot, signInAt, waitSaved, type Session } from './support/browser';
 import { startServer, type RunningServer } from './support/server';
 
-const PASSWORD = 'fieldfile-demo-2026';
 let server: RunningServer;
 
 beforeAll(async () => {
@@ -20,18 +19,7 @@ afterAll(async () => {
   await server?.stop();
 });
 
-async function signIn(page: Page, email: string) {
-  await page.goto(`${server.baseUrl}/login`);
-  await page.getByTestId('sign-in-email').fill(email);
-  await page.getByTestId('sign-in-password').fill(PASSWORD);
-  await page.getByTestId('sign-in-submit').click();
-  await page.waitForURL((url) => !url.pathname.startsWith('/login'));
-}
-
-/** Autosave is debounced: wait until the indicator says the last change is stored. */
-async function waitSaved(page: Page) {
-  await page.getByTestId('save-status').filter({ hasText: /^Saved \d\d:\d\d$/ }).waitFor({ timeout: 15_000 });
-}
+const signIn = (page: Page, email: string) => signInAt(page, server.baseUrl, email);
 
 async function buildFiling(s: Session, size: 'phone' | 'desktop', deviceName: string) {
   const { page } = s;

@@ -4,6 +4,8 @@
  */
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import fs from 'node:fs';
+import path from 'node:path';
 import { DEMO_TRACKER } from '../../seeds/demo-filing';
 import { screenDevice } from '../../calc/screening';
 import { createTestApp, seedUsers, signIn, type TestApp } from './support/test-app';
@@ -90,7 +92,7 @@ describe('creating and editing a filing', () => {
     expect(res.body.draftSavedAt).toBeTruthy();
 
     const detail = (await specialist.get(`/api/filings/${id}`)).body.filing;
-    expect(detail.data.radios).toEqual(radios); // the stored data is untouched
+    expect(detail.data.radios).toMatchObject(radios); // the stored data is untouched
     expect(detail.drafts.radios.data).toEqual(bad); // what was typed survives a reload
     expect(detail.steps.find((s: { step: string }) => s.step === 'radios').hasDraft).toBe(true);
 
@@ -261,5 +263,122 @@ describe('the filings list', () => {
     expect(found).toHaveLength(1);
     expect((await specialist.get('/api/filings?q=%25')).body.filings).toHaveLength(0);
     expect((await specialist.get('/api/filings?sort=bogus')).status).toBe(422);
+  });
+});
+
+describe('renames carry through; removals take their dependents', () => {
+  type Row = { id: string; rowId: number; antennaId?: string; separations?: { antennaId: string; separationM: number }[] };
+  let id: number;
+  let filing: { data: { radios: { antennas: Row[]; transmitters: Row[] }; 'use-positions': { usePositions: Row[] } }; simultaneous: string[][] };
+  const reload = async () => {
+    filing = (await specialist.get(`/api/filings/${id}`)).body.filing;
+    return filing;
+  };
+
+  beforeAll(async () => {
+    id = (await specialist.post('/api/filings/import').send(DEMO_TRACKER)).body.filing.id;
+    await reload();
+  });
+
+  it('renaming an antenna keeps its separations in every use position and its transmitters', async () => {
+    const radios = structuredClone(filing.data.radios);
+    const main = radios.antennas.find((a) => a.id === 'ANT-MAIN')!;
+    main.id = 'ANT-TOP';
+    for (const t of radios.transmitters) if (t.antennaId === 'ANT-MAIN') t.antennaId = 'ANT-TOP';
+    const res = await specialist.put(`/api/filings/${id}/steps/radios`).send(radios);
+    expect(res.status).toBe(200);
+    await reload();
+    expect(filing.data.radios.antennas.find((a) => a.id === 'ANT-TOP')!.rowId).toBe(main.rowId);
+    const seps = filing.data['use-positions'].usePositions.map((p) => [p.id, p.separations!.find((s) => s.antennaId === 'ANT-TOP')?.separationM]);
+    // The demo's ANT-MAIN separations: belt-clip 10 mm, in-hand 0, wrist-strap 4 mm, vehicle-dock 200 mm.
+    expect(seps).toEqual([['belt-clip', 0.01], ['in-hand', 0], ['wrist-strap', 0.004], ['vehicle-dock', 0.2]]);
+    expect(filing.data.radios.transmitters.filter((t) => t.antennaId === 'ANT-TOP').map((t) => t.id)).toEqual(['LTE-B12', 'LTE-B11']);
+  });
+
+  it('two antennas can swap labels in one save', async () => {
+    const radios = structuredClone(filing.data.radios);
+    const [a, b] = radios.antennas;
+    [a.id, b.id] = [b.id, a.id];
+    for (const t of radios.transmitters) t.antennaId = t.antennaId === b.id ? a.id : t.antennaId === a.id ? b.id : t.antennaId;
+    expect((await specialist.put(`/api/filings/${id}/steps/radios`).send(radios)).status).toBe(200);
+    await reload();
+    expect(filing.data.radios.antennas.slice(0, 2).map((x) => [x.id, x.rowId])).toEqual([[a.id, a.rowId], [b.id, b.rowId]]);
+    // Swap back for the next cases.
+    [a.id, b.id] = [b.id, a.id];
+    for (const t of radios.transmitters) t.antennaId = t.antennaId === b.id ? a.id : t.antennaId === a.id ? b.id : t.antennaId;
+    expect((await specialist.put(`/api/filings/${id}/steps/radios`).send(radios)).status).toBe(200);
+    await reload();
+  });
+
+  it('renaming a transmitter renames it in the co-transmission combinations, and the export re-imports', async () => {
+    const radios = structuredClone(filing.data.radios);
+    radios.transmitters.find((t) => t.id === 'WLAN-2G4')!.id = 'WIFI-2G4';
+    expect((await specialist.put(`/api/filings/${id}/steps/radios`).send(radios)).status).toBe(200);
+    await reload();
+    expect(filing.simultaneous).toEqual([
+      ['LTE-B2', 'WIFI-2G4'],
+      ['LTE-B12', 'WLAN-5G', 'BT-LE'],
+    ]);
+    const exported = JSON.parse((await specialist.get(`/api/filings/${id}/device.json`)).text);
+    expect(JSON.stringify(exported)).not.toMatch(/rowId/);
+    expect(exported.simultaneous[0]).toEqual(['LTE-B2', 'WIFI-2G4']);
+    expect(exported.antennas[0].id).toBe('ANT-TOP');
+    const again = await specialist.post('/api/filings/import').send(exported);
+    expect(again.status).toBe(201);
+    expect(JSON.parse((await specialist.get(`/api/filings/${again.body.filing.id}/device.json`)).text)).toEqual(exported);
+  });
+
+  it('renaming a use position keeps its row and separations', async () => {
+    const step = structuredClone(filing.data['use-positions']);
+    const belt = step.usePositions[0];
+    belt.id = 'belt-holster';
+    expect((await specialist.put(`/api/filings/${id}/steps/use-positions`).send(step)).status).toBe(200);
+    await reload();
+    expect(filing.data['use-positions'].usePositions[0]).toMatchObject({ id: 'belt-holster', rowId: belt.rowId, separations: belt.separations });
+  });
+
+  it('removing a transmitter drops it from combinations, and a combination left with one member goes', async () => {
+    const radios = structuredClone(filing.data.radios);
+    radios.transmitters = radios.transmitters.filter((t) => t.id !== 'LTE-B2');
+    expect((await specialist.put(`/api/filings/${id}/steps/radios`).send(radios)).status).toBe(200);
+    await reload();
+    expect(filing.simultaneous).toEqual([['LTE-B12', 'WLAN-5G', 'BT-LE']]);
+  });
+
+  it('removing an antenna takes its separations; one still used by a transmitter is refused', async () => {
+    const radios = structuredClone(filing.data.radios);
+    const refused = await specialist.put(`/api/filings/${id}/steps/radios`).send({ ...radios, antennas: radios.antennas.filter((a) => a.id !== 'ANT-WLAN') });
+    expect(refused.status).toBe(422);
+    expect(Object.values(refused.body.error.fields).join(' ')).toMatch(/no antenna "ANT-WLAN"/);
+    await specialist.put(`/api/filings/${id}/steps/radios`).send(radios); // clears the draft
+    const unused = radios.antennas.find((a) => a.id === 'ANT-DIV')!; // LTE-B2 was its only transmitter
+    const ok = await specialist.put(`/api/filings/${id}/steps/radios`).send({ ...radios, antennas: radios.antennas.filter((a) => a !== unused) });
+    expect(ok.status).toBe(200);
+    await reload();
+    expect(filing.data['use-positions'].usePositions.flatMap((p) => p.separations!.map((s) => s.antennaId))).not.toContain('ANT-DIV');
+    // Adding an antenna of the same label later starts empty: a new row.
+    const re = await specialist.put(`/api/filings/${id}/steps/radios`).send({ ...filing.data.radios, antennas: [...filing.data.radios.antennas, { id: 'ANT-DIV', gainDbi: 0, location: '' }] });
+    expect(re.status).toBe(200);
+    expect((await reload()).data['use-positions'].usePositions.flatMap((p) => p.separations!.map((s) => s.antennaId))).not.toContain('ANT-DIV');
+  });
+
+  it('a rowId from another filing is not taken: the row is matched by label or added', async () => {
+    const other = (await specialist.get(`/api/filings/${id}`)).body.filing.data.radios;
+    const fresh = (await specialist.post('/api/filings').send({ device })).body.filing.id;
+    const res = await specialist.put(`/api/filings/${fresh}/steps/radios`).send(other);
+    expect(res.status).toBe(200);
+    const mine = res.body.filing.data.radios.antennas.map((a: Row) => a.rowId);
+    expect(mine.some((r: number) => other.antennas.some((a: Row) => a.rowId === r))).toBe(false);
+    expect((await reload()).data.radios.antennas.map((a) => a.id)).toEqual(other.antennas.map((a: Row) => a.id));
+  });
+});
+
+describe('device files written before this version', () => {
+  it('the demo export saved before the device record grew imports unchanged', async () => {
+    const file = JSON.parse(fs.readFileSync(path.join(__dirname, '../fixtures/demo-tracker-before-device-fields.device.json'), 'utf8'));
+    const res = await specialist.post('/api/filings/import').send(file);
+    expect(res.status).toBe(201);
+    const exported = JSON.parse((await specialist.get(`/api/filings/${res.body.filing.id}/device.json`)).text);
+    expect(exported).toMatchObject(file);
   });
 });

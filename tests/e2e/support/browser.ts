@@ -71,3 +71,17 @@ export async function screenshot(page: Page, name: string): Promise<string> {
   await page.screenshot({ path: file, fullPage: true });
   return file;
 }
+
+/** Signs in on the sign-in page with the demo password and waits to leave it. */
+export async function signInAt(page: Page, baseUrl: string, email: string, password = 'fieldfile-demo-2026') {
+  await page.goto(`${baseUrl}/login`);
+  await page.getByTestId('sign-in-email').fill(email);
+  await page.getByTestId('sign-in-password').fill(password);
+  await page.getByTestId('sign-in-submit').click();
+  await page.waitForURL((url) => !url.pathname.startsWith('/login'));
+}
+
+/** Autosave is debounced: wait until the indicator says the last change is stored. */
+export async function waitSaved(page: Page) {
+  await page.getByTestId('save-status').filter({ hasText: /^Saved \d\d:\d\d$/ }).waitFor({ timeout: 15_000 });
+}

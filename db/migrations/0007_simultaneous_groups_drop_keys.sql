@@ -1,0 +1,1 @@
+ALTER TABLE `simultaneous_groups` DROP COLUMN `transmitter_keys`;
