@@ -25,6 +25,7 @@ import { conflict, forbidden, notFound, unprocessable } from '../http-error';
 import { ruleSetWarnings } from '../../calc/versions';
 import { zodFieldErrors } from '../middleware/validate';
 import * as repo from '../repos/filings-repo';
+import * as labRepo from '../repos/lab-repo';
 import { recordAudit } from './audit';
 
 export interface FilingActor {
@@ -39,13 +40,13 @@ function requireEditor(actor: FilingActor) {
   if (!canEdit(actor)) throw forbidden('Only a compliance specialist can change a filing’s device data. This needs the specialist role.');
 }
 
-function loadFiling(db: Db, actor: FilingActor, filingId: number): repo.FilingRow {
+export function loadFiling(db: Db, actor: FilingActor, filingId: number): repo.FilingRow {
   const row = repo.findFiling(db, actor.organisationId, filingId);
   if (!row) throw notFound('No such filing in your organisation.');
   return row;
 }
 
-function requireEditable(row: repo.FilingRow) {
+export function requireEditable(row: repo.FilingRow) {
   if (!EDITABLE_STATES.includes(row.version.state as VersionState)) {
     throw conflict(`Version ${row.version.number} is ${VERSION_STATE_LABELS[row.version.state as VersionState].toLowerCase()}; its data can no longer change.`);
   }
@@ -98,7 +99,7 @@ function readData(db: Db, row: repo.FilingRow): FilingDetail['data'] {
 }
 
 /** Each step's completion, computed from the data (never ticked by hand). */
-export function stepStatuses(data: FilingDetail['data'], draftSteps: Set<DataStep>): StepStatus[] {
+export function stepStatuses(data: FilingDetail['data'], draftSteps: Set<DataStep>, lab: { measurements: number } = { measurements: 0 }): StepStatus[] {
   const device: string[] = zDeviceStep.safeParse(data.device).success ? [] : ['Fill in the device name, model, applicant and product type.'];
   const radios: string[] = [];
   if (!data.radios.antennas.length) radios.push('Add at least one antenna.');
@@ -127,6 +128,12 @@ export function stepStatuses(data: FilingDetail['data'], draftSteps: Set<DataSte
     hasDraft: false,
     warnings: ruleSet,
   });
+  // Lab steps: complete once the lab's measurements are in; their checks are in the lab results.
+  const measured = lab.measurements > 0;
+  statuses.push(
+    { step: 'measurements', complete: measured, problems: measured ? [] : ['Import or enter the lab’s SAR measurements (test engineer).'], hasDraft: false, warnings: [] },
+    { step: 'co-transmission', complete: measured, problems: measured ? [] : ['Sums follow once measurements are in.'], hasDraft: false, warnings: [] },
+  );
   return statuses;
 }
 
@@ -138,7 +145,7 @@ export function getFiling(db: Db, actor: FilingActor, filingId: number): FilingD
   return {
     ...toSummary(row, markets),
     editable: canEdit(actor) && EDITABLE_STATES.includes(row.version.state as VersionState),
-    steps: stepStatuses(data, new Set(drafts.map((d) => d.step))),
+    steps: stepStatuses(data, new Set(drafts.map((d) => d.step)), { measurements: labRepo.countMeasurements(db, row.version.id) }),
     data,
     simultaneous: repo.readSimultaneous(db, row.version.id),
     drafts: Object.fromEntries(drafts.map((d) => [d.step, { data: d.data, updatedAt: d.updatedAt }])),

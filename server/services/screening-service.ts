@@ -14,6 +14,7 @@ import { SCREENING_CAUTIONS, screenParsed } from '../../calc/screening/screen';
 import { screeningDepthProfile } from '../../calc/screening';
 import { notFound, unprocessable } from '../http-error';
 import { getFiling, type FilingActor } from './filings-service';
+import { DATA_STEPS } from '../../constants/schemas/filings';
 
 export interface ScreeningMeta {
   filingId: number;
@@ -27,7 +28,7 @@ export interface ScreeningMeta {
 }
 
 
-function inputFor(detail: ReturnType<typeof getFiling>): ScreeningInput {
+export function screeningInputFor(detail: ReturnType<typeof getFiling>): ScreeningInput {
   return screeningInput.parse({
     markets: detail.data.markets.markets,
     antennas: detail.data.radios.antennas.map((a) => ({ id: a.id, gainDbi: a.gainDbi })),
@@ -58,7 +59,7 @@ export type ScreeningResponse = { encoding: 'gzip'; body: Buffer } | { encoding:
  */
 export function screeningResponseForFiling(db: Db, actor: FilingActor, filingId: number, acceptsGzip: boolean): ScreeningResponse {
   const detail = getFiling(db, actor, filingId);
-  const input = inputFor(detail);
+  const input = screeningInputFor(detail);
   const inputJson = JSON.stringify(input);
   const inputSha256 = createHash('sha256').update(inputJson).digest('hex');
   const key = and(
@@ -67,7 +68,8 @@ export function screeningResponseForFiling(db: Db, actor: FilingActor, filingId:
     eq(screeningResults.engineVersion, ENGINE_VERSION),
     eq(screeningResults.ruleSetVersion, RULE_SET_VERSION),
   );
-  const complete = detail.steps.every((s) => s.complete);
+  // Complete when the device data is: the later (lab) steps do not change what screening covers.
+  const complete = detail.steps.filter((s) => (DATA_STEPS as readonly string[]).includes(s.step)).every((s) => s.complete);
   const found = db.select({ id: screeningResults.id }).from(screeningResults).where(key).get();
   const cacheKey = found && `${found.id}:${filingId}:${complete}`;
   const cached = cacheKey && acceptsGzip ? gzipCache.get(cacheKey) : undefined;
@@ -105,7 +107,7 @@ export function screeningResponseForFiling(db: Db, actor: FilingActor, filingId:
  */
 export function depthProfileForFiling(db: Db, actor: FilingActor, filingId: number, q: { transmitterId: string; usePositionId: string; regime?: ScreeningRegime }) {
   const detail = getFiling(db, actor, filingId);
-  const input = inputFor(detail);
+  const input = screeningInputFor(detail);
   const tx = input.transmitters.find((t) => t.id === q.transmitterId);
   const position = input.usePositions.find((p) => p.id === q.usePositionId);
   if (!tx || !position) throw notFound('No such transmitter or use position in this filing.');
