@@ -28,14 +28,19 @@ export interface TestApp {
   close(): Promise<void>;
 }
 
-export async function createTestApp(): Promise<TestApp> {
+/** `env` adds or overrides environment variables (limits, say). */
+export async function createTestApp(env: Record<string, string> = {}): Promise<TestApp> {
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'fieldfile-test-'));
   const config = loadConfig({
     NODE_ENV: 'test',
     FIELDFILE_DATA_DIR: dataDir,
     FIELDFILE_DEMO_PASSWORD: TEST_PASSWORD,
     FIELDFILE_PUBLIC_URL: 'http://fieldfile.test:8080',
+<<<<<<< HEAD
     FIELDFILE_SCRYPT_LOG2N: '14',
+=======
+    ...env,
+>>>>>>> 47296bd (Evidence: records owned by a filing version (category, title, note, uploader, size, sniffed type, SHA-256, replacement history, carry-forward by reference), categories of our own with the types each takes (GET /api/schema/evidence-categories.json), the required-categories rule as a pure function of the filing, upload through multer straight into the byte storage (415 naming the sniffed type, 413 per file and per filing, aborted upload leaves nothing, display-only names), download as attachment with nosniff, removal, and test-report read-back (pdfjs-dist) with findings an engineer can explain; API and read-back tests)
   });
   const handle = openDatabase(path.join(dataDir, 'fieldfile.db'));
   applyMigrations(handle.db);
