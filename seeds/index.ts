@@ -12,6 +12,8 @@ import { filings } from '../db/schema';
 import { zDeviceFile } from '../constants/schemas/device-file';
 import { createFiling, importDeviceFile } from '../server/services/filings-service';
 import { DEMO_DOCK_DEVICE, DEMO_TRACKER } from './demo-filing';
+import { seedDemoEvidence } from './demo-evidence';
+import type { ByteStorage } from '../server/storage';
 
 export interface SeedResult {
   organisationId: number;
@@ -19,9 +21,12 @@ export interface SeedResult {
   createdFilings: number;
 }
 
-export async function seedDemo(db: Db, demoPassword: string): Promise<SeedResult> {
+/** With `storage`, the demo filing also gets its evidence files (only when the filings are new). */
+export async function seedDemo(db: Db, demoPassword: string, storage?: ByteStorage): Promise<SeedResult> {
   const people = await seedPeople(db, demoPassword);
-  return { ...people, createdFilings: seedFilings(db, people.organisationId) };
+  const createdFilings = seedFilings(db, people.organisationId);
+  if (createdFilings && storage) await seedDemoEvidence(db, storage, people.organisationId);
+  return { ...people, createdFilings };
 }
 
 /** The demo filings, created by the demo specialist, only into an organisation that has none. */

@@ -16,6 +16,7 @@ import { Screen } from '../layout/screen';
 import { Button } from '../ui/button';
 import { Notice } from '../ui/notice';
 import { ScreeningView } from '../filings/screening-view';
+import { EvidenceStep } from '../filings/evidence-step';
 
 const isStep = (s: string | undefined): s is WizardStep => !!s && (WIZARD_STEPS as readonly string[]).includes(s);
 
@@ -58,6 +59,8 @@ function StepBody({ filing, step }: { filing: FilingDetail; step: WizardStep }) 
       return <MarketsStep filing={filing} />;
     case 'screening':
       return <ScreeningView filing={filing} />;
+    case 'evidence':
+      return <EvidenceStep filing={filing} />;
   }
 }
 

@@ -167,3 +167,10 @@ export interface EvidenceList {
   findings: ReadBackFinding[];
   limits: { maxFileBytes: number; maxFilingBytes: number; usedBytes: number };
 }
+
+/** POST /api/filings/:id/evidence answers 201 with this. */
+export interface UploadedEvidence {
+  record: EvidenceRecord;
+  duplicateOf: number[];
+  notice?: string;
+}

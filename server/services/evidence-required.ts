@@ -51,8 +51,9 @@ export function requiredEvidenceRules(f: EvidenceFacts): RequiredRule[] {
   } else {
     rules.push({ category: 'user-manual', reason: 'Every filing: the manual tells users the separation distance.' });
   }
-  if (f.markets.includes('fcc') || f.markets.includes('ised')) {
-    rules.push({ category: 'label-drawing', reason: 'FCC and ISED applications include the label and its location.' });
+  const labelled = [f.markets.includes('fcc') && 'FCC', f.markets.includes('ised') && 'ISED'].filter(Boolean);
+  if (labelled.length) {
+    rules.push({ category: 'label-drawing', reason: `${labelled.join(' and ')} applications include the label and its location.` });
   }
   if (allExempt) {
     rules.push({ category: 'exemption-analysis', reason: 'Every transmitter is exempt in every use position: the exhibit is the exemption analysis.' });

@@ -12,12 +12,12 @@ import {
   CATEGORY_BY_ID,
   MEDIA,
   MEDIA_LABELS,
-  type EvidenceCategoryId,
   type EvidenceFields,
   type EvidenceList,
   type EvidenceRecord,
   type MediaType,
   type ReadBackFinding,
+  type UploadedEvidence,
 } from '../../constants/schemas/evidence';
 import { EDITABLE_STATES, VERSION_STATE_LABELS, type VersionState } from '../../constants/schemas/filings';
 import type { Config } from '../env';
@@ -27,9 +27,8 @@ import * as filingsRepo from '../repos/filings-repo';
 import * as repo from '../repos/evidence-repo';
 import { recordAudit } from './audit';
 import { getFiling, type FilingActor } from './filings-service';
-import { requiredEvidence, type EvidenceFacts } from './evidence-required';
+import { requiredForVersion } from './evidence-step';
 import { compareReport, extractPdfText, type FilingNumbers } from './report-readback';
-import { screeningCountsFor } from './screening-service';
 
 export const canUpload = (actor: FilingActor) => actor.roles.includes('engineer') || actor.roles.includes('specialist');
 
@@ -74,7 +73,7 @@ export function safeDisplayName(raw: string | undefined, max = 200): string {
 export async function sniffMediaType(storage: ByteStorage, stored: StoredObject, fileName: string): Promise<{ mime: string; label: string }> {
   // file-type reads a Node stream too (its typings name only web streams).
   const sniffed = await fileTypeFromStream((await storage.get(stored.sha256)) as unknown as Parameters<typeof fileTypeFromStream>[0]);
-  if (sniffed) return { mime: sniffed.mime, label: MEDIA_LABELS[sniffed.mime as MediaType] ?? `${sniffed.mime} (.${sniffed.ext})` };
+  if (sniffed) return { mime: sniffed.mime, label: MEDIA_LABELS[sniffed.mime as MediaType] ?? `a .${sniffed.ext} file` };
   const head = stored.head.subarray(0, Math.max(0, stored.head.length - 4));
   const isText = !head.includes(0) && (() => {
     try {
@@ -102,15 +101,8 @@ export interface UploadInput {
   fields: EvidenceFields;
 }
 
-export interface UploadResult {
-  record: EvidenceRecord;
-  /** Set when the same content is already filed in this version. */
-  duplicateOf: number[];
-  notice?: string;
-}
-
 /** Files an uploaded object: type and limit checks, then the row (and the audit record). */
-export async function recordUpload(db: Db, storage: ByteStorage, config: Config, actor: FilingActor, filingId: number, input: UploadInput): Promise<UploadResult> {
+export async function recordUpload(db: Db, storage: ByteStorage, config: Config, actor: FilingActor, filingId: number, input: UploadInput): Promise<UploadedEvidence> {
   const { stored, fields } = input;
   try {
     const row = requireEvidenceEditable(db, actor, filingId);
@@ -218,17 +210,6 @@ function listRecords(db: Db, versionId: number, versionNumber = 0): EvidenceReco
   return rows.map((r) => toRecord(r, versionNumber, duplicates));
 }
 
-/** The facts the required-categories rule reads, from the filing's current version. */
-export function evidenceFacts(db: Db, actor: FilingActor, filingId: number): EvidenceFacts {
-  const detail = getFiling(db, actor, filingId);
-  return {
-    markets: detail.data.markets.markets.map((m) => m.regime),
-    usePositionKinds: detail.data['use-positions'].usePositions.map((p) => p.kind),
-    screening: screeningCountsFor(detail),
-    labResults: { sar: 0, mpe: 0 },
-  };
-}
-
 function filingNumbers(db: Db, actor: FilingActor, filingId: number): FilingNumbers {
   const detail = getFiling(db, actor, filingId);
   const positions = detail.data['use-positions'].usePositions;
@@ -271,7 +252,7 @@ export function listEvidence(db: Db, config: Config, actor: FilingActor, filingI
     editable: canUpload(actor) && EDITABLE_STATES.includes(state),
     records: current,
     history: records.filter((r) => r.replacedById !== null),
-    required: requiredEvidence(evidenceFacts(db, actor, filingId), current, (c: EvidenceCategoryId) => !!CATEGORY_BY_ID[c].writtenByFieldfile),
+    required: requiredForVersion(db, row.version.id, getFiling(db, actor, filingId)),
     findings: findings(db, actor, filingId, row.version.id, records),
     limits: { ...config.evidence, usedBytes: repo.usedBytes(db, row.version.id) },
   };

@@ -146,7 +146,7 @@ async function buildFiling(s: Session, size: 'phone' | 'desktop', deviceName: st
 
   // The step list shows everything complete.
   await page.goto(filingUrl);
-  await page.getByTestId('filing-progress').filter({ hasText: '5 of 5 steps complete' }).waitFor();
+  await page.getByTestId('filing-progress').filter({ hasText: '5 of 6 steps complete' }).waitFor();
   await screenshot(page, `filing-overview-${size}`);
 }
 
@@ -221,7 +221,7 @@ describe('filing wizard', () => {
       await page.getByTestId('import-submit').click();
       await page.waitForURL(/\/filings\/\d+$/);
       await page.getByTestId('filing-overview').waitFor();
-      expect(await page.getByTestId('filing-progress').textContent()).toMatch(/3 of 5 steps complete/);
+      expect(await page.getByTestId('filing-progress').textContent()).toMatch(/3 of 6 steps complete/);
       expect(faults(s)).toEqual([]);
     } finally {
       await s.close();

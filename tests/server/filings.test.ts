@@ -55,6 +55,7 @@ describe('creating and editing a filing', () => {
       ['use-positions', false],
       ['markets', false],
       ['screening', false],
+      ['evidence', false],
     ]);
   });
 
