@@ -107,8 +107,11 @@ export function evidenceRoutes({ db, config, storage }: AppContext): Router {
   });
 
   router.post('/:evidenceId/findings/explain', uploader, (req, res) => {
+    const filingId = filingIdOf(req);
+    // Who and which filing first (403/404), then what was sent (422).
+    evidence.requireEvidenceEditable(db, actorOf(req.user!), filingId);
     const body = parseWith(zExplainFinding.extend({ key: z.string().min(1).max(300) }), req.body);
-    res.json(evidence.explainFinding(db, config, actorOf(req.user!), filingIdOf(req), parseWith(zId, req.params.evidenceId), body.key, body.reason));
+    res.json(evidence.explainFinding(db, config, actorOf(req.user!), filingId, parseWith(zId, req.params.evidenceId), body.key, body.reason));
   });
 
   return router;

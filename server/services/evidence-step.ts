@@ -5,7 +5,7 @@
  */
 import type { Db } from '../../db/client';
 import { CATEGORY_BY_ID } from '../../constants/schemas/evidence';
-import type { FilingDetail, StepStatus } from '../../constants/schemas/filings';
+import { DATA_STEPS, type FilingDetail, type StepStatus } from '../../constants/schemas/filings';
 import { screeningInput } from '../../calc/screening/input';
 import { screenParsed, type ScreeningCounts } from '../../calc/screening/screen';
 import { listEvidence } from '../repos/evidence-repo';
@@ -13,9 +13,12 @@ import { requiredEvidence, type EvidenceFacts } from './evidence-required';
 
 type FilingData = Pick<FilingDetail, 'data' | 'steps'>;
 
+/** The entered data is complete (the computed steps, this one included, do not count). */
+const dataComplete = (f: FilingData) => f.steps.filter((s) => (DATA_STEPS as readonly string[]).includes(s.step)).every((s) => s.complete);
+
 /** Screening counts of the filing's data; null while a data step is incomplete. */
 export function screeningCounts(f: FilingData): ScreeningCounts | null {
-  if (!f.steps.every((s) => s.complete)) return null;
+  if (!dataComplete(f)) return null;
   const parsed = screeningInput.safeParse({
     markets: f.data.markets.markets,
     antennas: f.data.radios.antennas.map((a) => ({ id: a.id, gainDbi: a.gainDbi })),
@@ -46,6 +49,6 @@ export function requiredForVersion(db: Db, versionId: number, f: FilingData) {
 export function evidenceStepStatus(db: Db, versionId: number, f: FilingData): StepStatus {
   const missing = requiredForVersion(db, versionId, f).filter((r) => !r.present);
   const problems = missing.map((r) => `Missing: ${CATEGORY_BY_ID[r.category].label.toLowerCase()}.`);
-  if (!f.steps.every((s) => s.complete)) problems.unshift('The full list of required evidence follows from a complete filing.');
-  return { step: 'evidence', complete: problems.length === 0, problems, hasDraft: false };
+  if (!dataComplete(f)) problems.unshift('The full list of required evidence follows from a complete filing.');
+  return { step: 'evidence', complete: problems.length === 0, problems, hasDraft: false, warnings: [] };
 }

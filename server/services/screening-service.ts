@@ -67,7 +67,8 @@ export function screeningResponseForFiling(db: Db, actor: FilingActor, filingId:
     eq(screeningResults.engineVersion, ENGINE_VERSION),
     eq(screeningResults.ruleSetVersion, RULE_SET_VERSION),
   );
-  const complete = detail.steps.every((s) => s.complete);
+  // The screening step is complete when the data it reads is (later steps do not count).
+  const complete = detail.steps.find((s) => s.step === 'screening')?.complete ?? false;
   const found = db.select({ id: screeningResults.id }).from(screeningResults).where(key).get();
   const cacheKey = found && `${found.id}:${filingId}:${complete}`;
   const cached = cacheKey && acceptsGzip ? gzipCache.get(cacheKey) : undefined;

@@ -36,11 +36,8 @@ export async function createTestApp(env: Record<string, string> = {}): Promise<T
     FIELDFILE_DATA_DIR: dataDir,
     FIELDFILE_DEMO_PASSWORD: TEST_PASSWORD,
     FIELDFILE_PUBLIC_URL: 'http://fieldfile.test:8080',
-<<<<<<< HEAD
     FIELDFILE_SCRYPT_LOG2N: '14',
-=======
     ...env,
->>>>>>> 47296bd (Evidence: records owned by a filing version (category, title, note, uploader, size, sniffed type, SHA-256, replacement history, carry-forward by reference), categories of our own with the types each takes (GET /api/schema/evidence-categories.json), the required-categories rule as a pure function of the filing, upload through multer straight into the byte storage (415 naming the sniffed type, 413 per file and per filing, aborted upload leaves nothing, display-only names), download as attachment with nosniff, removal, and test-report read-back (pdfjs-dist) with findings an engineer can explain; API and read-back tests)
   });
   const handle = openDatabase(path.join(dataDir, 'fieldfile.db'));
   applyMigrations(handle.db);
