@@ -49,8 +49,8 @@ export async function extractPdfText(data: Uint8Array): Promise<PdfText> {
   const pdfjs = await import('pdfjs-dist/legacy/build/pdf.mjs');
   let doc: Awaited<ReturnType<typeof pdfjs.getDocument>['promise']> | undefined;
   try {
-    // pdfjs refuses a Node Buffer; a plain view over the same memory will do.
-    const bytes = Buffer.isBuffer(data) ? new Uint8Array(data.buffer, data.byteOffset, data.byteLength) : data;
+    // pdfjs refuses a Node Buffer and detaches the memory it is given: hand it a copy.
+    const bytes = new Uint8Array(data);
     doc = await pdfjs.getDocument({ data: bytes, isEvalSupported: false, disableFontFace: true, standardFontDataUrl: STANDARD_FONTS, verbosity: 0 }).promise;
     const pages: string[] = [];
     for (let n = 1; n <= doc.numPages; n++) {
@@ -113,11 +113,13 @@ export function compareReport(pages: string[], f: FilingNumbers): ReadBackDraft[
   const lines = pages.flatMap((text, i) => text.split('\n').map((line) => ({ page: i + 1, line })));
 
   // Tune-up powers: a line naming a band (or transmitter id) and "tune-up" with a dBm figure.
-  const bands = [...f.tuneUps].sort((a, b) => b.band.length - a.band.length);
+  const bands = [...f.tuneUps]
+    .sort((a, b) => b.band.length - a.band.length)
+    .map((t) => ({ ...t, bandRe: new RegExp(`(^|\\W)${escapeRe(t.band)}(\\W|$)`, 'i'), idRe: new RegExp(`(^|\\W)${escapeRe(t.transmitterId)}(\\W|$)`) }));
   for (const { page, line } of lines) {
     const tuneUp = /tune[- ]?up/i.exec(line);
     if (!tuneUp) continue;
-    const tx = bands.find((t) => new RegExp(`(^|\\W)${escapeRe(t.band)}(\\W|$)`, 'i').test(line) || new RegExp(`(^|\\W)${escapeRe(t.transmitterId)}(\\W|$)`).test(line));
+    const tx = bands.find((t) => t.bandRe.test(line) || t.idRe.test(line));
     if (!tx) continue;
     const values = numbersWithUnit(line, /dBm/);
     const stated = values.find((v) => v.index > tuneUp.index) ?? values[values.length - 1];

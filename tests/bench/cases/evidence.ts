@@ -130,6 +130,7 @@ export const readBackCase: BenchCase = {
     notes.push(`test report: ${(pdf.length / 1024).toFixed(0)} KB, 100 pages, 45 lines a page`);
     return async () => {
       const text = await extractPdfText(pdf);
+      if (text.status !== 'read' || text.pages.length !== 100) throw new Error(`read ${text.pages.length} pages (${text.status})`);
       pageCount = text.pages.length;
       compareReport(text.pages, numbers);
     };
