@@ -63,7 +63,8 @@ describe('evidence categories', () => {
     expect(cal.dateLabel).toBe('Calibration date');
   });
 
-  it('take exactly their types, by content: everything else is 415 naming the sniffed type', async () => {
+  // About a hundred uploads: allow for a busy shared machine.
+  it('take exactly their types, by content: everything else is 415 naming the sniffed type', { timeout: 180_000 }, async () => {
     const id = await newFiling();
     for (const category of UPLOADABLE_CATEGORIES) {
       for (const sample of all) {

@@ -118,7 +118,8 @@ describe('read-back through the evidence API', () => {
     expect(list.findings.find((f) => f.key === finding.key)?.explanation).toMatchObject({ reason: expect.stringMatching(/tolerance/), by: expect.any(String) });
     const audit = t.handle.db.select().from(auditLog).all().filter((a) => a.action === 'evidence.finding-explain');
     expect(audit).toHaveLength(1);
-  });
+    // Three uploads, each read back by pdfjs: allow for a busy shared machine (speed is a bench matter).
+  }, 120_000);
 });
 
 /** A PDF whose trailer names a standard-security encryption the empty password does not open. */
