@@ -4,7 +4,8 @@
  * `tablesFilter` in drizzle.config.ts).
  */
 import { sql } from 'drizzle-orm';
-import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
+import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex, type AnySQLiteColumn } from 'drizzle-orm/sqlite-core';
+import { EVIDENCE_CATEGORY_IDS } from '../constants/schemas/evidence';
 import { ROLES } from '../constants/schemas/roles';
 import { DATA_STEPS, VERSION_STATES } from '../constants/schemas/filings';
 import { AVERAGING_MASSES, DISTRIBUTIONS, INSTRUMENT_KINDS, LIQUID_KINDS } from '../constants/schemas/lab';
@@ -438,4 +439,69 @@ export const labImportMappings = sqliteTable(
     updatedAt: text('updated_at').notNull(),
   },
   (t) => [primaryKey({ columns: [t.organisationId, t.headerSha256] })],
+);
+
+// ---------------------------------------------------------------------------------------------
+// Evidence: files filed in a category, owned by a filing version. The bytes live in the byte
+// storage under their SHA-256; a new version carries rows forward by reference (same hash).
+
+export const evidenceFiles = sqliteTable(
+  'evidence_files',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    versionId: versionRef(),
+    category: text('category', { enum: EVIDENCE_CATEGORY_IDS }).notNull(),
+    title: text('title').notNull(),
+    note: text('note').notNull().default(''),
+    /** The uploader's file name, cleaned; a display name only, never a path. */
+    fileName: text('file_name').notNull(),
+    sizeBytes: integer('size_bytes').notNull(),
+    /** Sniffed from the bytes, not taken from the client. */
+    mediaType: text('media_type').notNull(),
+    sha256: text('sha256').notNull(),
+    /** A calibration, check or signature date the uploader gave (YYYY-MM-DD). */
+    documentDate: text('document_date'),
+    uploadedByUserId: integer('uploaded_by_user_id')
+      .notNull()
+      .references(() => users.id),
+    uploadedAt: createdAt(),
+    /** The record this one replaced (kept as history). */
+    replacesId: integer('replaces_id').references((): AnySQLiteColumn => evidenceFiles.id, { onDelete: 'set null' }),
+    /** The record that replaced this one; null while current. */
+    replacedById: integer('replaced_by_id').references((): AnySQLiteColumn => evidenceFiles.id, { onDelete: 'set null' }),
+    /** The record of an earlier version this one was carried forward from. */
+    carriedFromId: integer('carried_from_id').references((): AnySQLiteColumn => evidenceFiles.id, { onDelete: 'set null' }),
+  },
+  (t) => [index('evidence_files_version').on(t.versionId), index('evidence_files_sha256').on(t.sha256)],
+);
+
+/** Text read back from a stored PDF, per content hash (the same bytes are read once). */
+export const documentTexts = sqliteTable('document_texts', {
+  sha256: text('sha256').primaryKey(),
+  status: text('status', { enum: ['read', 'unreadable'] }).notNull(),
+  /** Why it could not be read (encrypted, damaged). */
+  reason: text('reason'),
+  pageCount: integer('page_count').notNull().default(0),
+  /** JSON array: one string per page, lines separated by \n. */
+  pages: text('pages', { mode: 'json' }).notNull().$type<string[]>(),
+  readAt: createdAt(),
+});
+
+/** An engineer's reason why a read-back difference is acceptable. */
+export const evidenceExplanations = sqliteTable(
+  'evidence_explanations',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    versionId: versionRef(),
+    evidenceId: integer('evidence_id')
+      .notNull()
+      .references(() => evidenceFiles.id, { onDelete: 'cascade' }),
+    findingKey: text('finding_key').notNull(),
+    reason: text('reason').notNull(),
+    userId: integer('user_id')
+      .notNull()
+      .references(() => users.id),
+    at: createdAt(),
+  },
+  (t) => [uniqueIndex('evidence_explanations_key').on(t.evidenceId, t.findingKey)],
 );

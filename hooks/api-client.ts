@@ -9,6 +9,9 @@ import { markSessionExpired } from './connection-recovery';
 /** '' means same origin (npm start); `npm run dev` sets it to the API's own port. */
 const API_BASE = (process.env.EXPO_PUBLIC_API_URL ?? '').replace(/\/$/, '');
 
+/** The full URL of an API path (for links and uploads that do not go through fetch). */
+export const apiUrl = (path: string) => `${API_BASE}${path}`;
+
 export interface ApiProblemInfo {
   /** HTTP status, or 0 when the server could not be reached. */
   status: number;

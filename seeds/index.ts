@@ -15,6 +15,8 @@ import { DEMO_DOCK_DEVICE, DEMO_TRACKER } from './demo-filing';
 import { DEMO_BUDGET, DEMO_INSTRUMENTS, DEMO_LIQUID_CHECKS, DEMO_MEASUREMENTS, DEMO_SYSTEM_CHECKS } from './demo-lab';
 import { zMeasurementsBody } from '../constants/schemas/lab';
 import * as labRepo from '../server/repos/lab-repo';
+import { seedDemoEvidence } from './demo-evidence';
+import type { ByteStorage } from '../server/storage';
 
 export interface SeedResult {
   organisationId: number;
@@ -22,9 +24,12 @@ export interface SeedResult {
   createdFilings: number;
 }
 
-export async function seedDemo(db: Db, demoPassword: string): Promise<SeedResult> {
+/** With `storage`, the demo filing also gets its evidence files (only when the filings are new). */
+export async function seedDemo(db: Db, demoPassword: string, storage?: ByteStorage): Promise<SeedResult> {
   const people = await seedPeople(db, demoPassword);
-  return { ...people, createdFilings: seedFilings(db, people.organisationId) };
+  const createdFilings = seedFilings(db, people.organisationId);
+  if (createdFilings && storage) await seedDemoEvidence(db, storage, people.organisationId);
+  return { ...people, createdFilings };
 }
 
 /** The demo filings, created by the demo specialist, only into an organisation that has none. */

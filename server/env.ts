@@ -4,6 +4,7 @@
  */
 import path from 'node:path';
 import { z } from 'zod';
+import { DEFAULT_MAX_FILE_BYTES, DEFAULT_MAX_FILING_BYTES } from '../constants/schemas/evidence';
 
 const zBool = z
   .enum(['true', 'false', '1', '0', ''])
@@ -41,6 +42,10 @@ const zEnv = z.object({
   FIELDFILE_DEMO_PASSWORD: z.string().min(8).default('fieldfile-demo-2026'),
   /** Port of the in-process SMTP catcher (used when SMTP_HOST is not set). */
   FIELDFILE_MAIL_CATCHER_PORT: z.coerce.number().int().min(0).max(65535).default(2525),
+  /** Largest evidence file, bytes (default 100 MB). */
+  FIELDFILE_EVIDENCE_MAX_FILE_BYTES: z.coerce.number().int().positive().default(DEFAULT_MAX_FILE_BYTES),
+  /** Most evidence one filing version may hold, bytes (default 2 GB). */
+  FIELDFILE_EVIDENCE_MAX_FILING_BYTES: z.coerce.number().int().positive().default(DEFAULT_MAX_FILING_BYTES),
   SMTP_HOST: z.string().optional(),
   SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(587),
   SMTP_SECURE: zBool,
@@ -70,6 +75,7 @@ export interface Config {
   trustProxy: boolean | number | string;
   scryptLog2N: number;
   importMaxBytes: number;
+  evidence: { maxFileBytes: number; maxFilingBytes: number };
   mail: {
     from: string;
     catcherPort: number;
@@ -102,6 +108,7 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
     trustProxy: parseTrustProxy(e.FIELDFILE_TRUST_PROXY),
     scryptLog2N: e.FIELDFILE_SCRYPT_LOG2N,
     importMaxBytes: e.FIELDFILE_IMPORT_MAX_BYTES,
+    evidence: { maxFileBytes: e.FIELDFILE_EVIDENCE_MAX_FILE_BYTES, maxFilingBytes: e.FIELDFILE_EVIDENCE_MAX_FILING_BYTES },
     mail: {
       from: e.MAIL_FROM,
       catcherPort: e.FIELDFILE_MAIL_CATCHER_PORT,

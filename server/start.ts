@@ -31,7 +31,7 @@ async function main() {
   applyMigrations(handle.db);
 
   const storage = createStorages(config);
-  const seeded = config.demo.seed ? await seedDemo(handle.db, config.demoPassword) : undefined;
+  const seeded = config.demo.seed ? await seedDemo(handle.db, config.demoPassword, storage.uploads) : undefined;
   // Bytes whose row was never written (a crash between the rename and the insert) and stale
   // temporary files; a minute's grace for another process's upload in flight.
   const swept = await sweepOrphans(storage, handle.db, referenceSources, { minAgeMs: 60_000 });

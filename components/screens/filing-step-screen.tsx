@@ -18,6 +18,7 @@ import { Notice } from '../ui/notice';
 import { ScreeningView } from '../filings/screening-view';
 import { LabView } from '../filings/lab-view';
 import { CoTransmissionView } from '../filings/co-transmission-view';
+import { EvidenceStep } from '../filings/evidence-step';
 
 const isStep = (s: string | undefined): s is WizardStep => !!s && (WIZARD_STEPS as readonly string[]).includes(s);
 
@@ -64,6 +65,8 @@ function StepBody({ filing, step }: { filing: FilingDetail; step: WizardStep }) 
       return <LabView filing={filing} />;
     case 'co-transmission':
       return <CoTransmissionView filing={filing} />;
+    case 'evidence':
+      return <EvidenceStep filing={filing} />;
   }
 }
 

@@ -12,6 +12,7 @@ import { requireAuth, requireRole } from '../middleware/auth';
 import { parseWith, strictId } from '../middleware/validate';
 import * as filingsService from '../services/filings-service';
 import * as screeningService from '../services/screening-service';
+import { evidenceCategoriesDocument } from './evidence';
 
 const zId = z.coerce.number({ error: 'The filing id must be a number.' }).int().positive();
 const zStep = z.enum(DATA_STEPS, { error: `The step must be one of ${DATA_STEPS.join(', ')}.` });
@@ -90,6 +91,10 @@ export function schemaRoutes(): Router {
   };
   router.get('/device.json', (_req, res) => {
     res.json(deviceSchema);
+  });
+  const evidenceCategories = evidenceCategoriesDocument();
+  router.get('/evidence-categories.json', (_req, res) => {
+    res.json(evidenceCategories);
   });
   return router;
 }

@@ -27,6 +27,7 @@ import { zodFieldErrors } from '../middleware/validate';
 import * as repo from '../repos/filings-repo';
 import * as labRepo from '../repos/lab-repo';
 import { recordAudit } from './audit';
+import { evidenceStepStatus } from './evidence-step';
 
 export interface FilingActor {
   id: number;
@@ -142,10 +143,12 @@ export function getFiling(db: Db, actor: FilingActor, filingId: number): FilingD
   const data = readData(db, row);
   const drafts = repo.readDrafts(db, row.version.id);
   const markets = data.markets.markets.map((m) => m.regime);
+  const steps = stepStatuses(data, new Set(drafts.map((d) => d.step)), { measurements: labRepo.countMeasurements(db, row.version.id) });
+  steps.push(evidenceStepStatus(db, row.version.id, { data, steps }));
   return {
     ...toSummary(row, markets),
     editable: canEdit(actor) && EDITABLE_STATES.includes(row.version.state as VersionState),
-    steps: stepStatuses(data, new Set(drafts.map((d) => d.step)), { measurements: labRepo.countMeasurements(db, row.version.id) }),
+    steps,
     data,
     simultaneous: repo.readSimultaneous(db, row.version.id),
     drafts: Object.fromEntries(drafts.map((d) => [d.step, { data: d.data, updatedAt: d.updatedAt }])),

@@ -3,6 +3,7 @@
  * (sweep.ts) removes every other object of an area listed here. Add one line per table that
  * keeps hashes (its query lives in its repo).
  */
+import { allEvidenceHashes } from '../repos/evidence-repo';
 import type { ReferenceSource } from './sweep';
 
-export const referenceSources: ReferenceSource[] = [];
+export const referenceSources: ReferenceSource[] = [{ area: 'uploads', referenced: allEvidenceHashes }];

@@ -54,10 +54,13 @@ const onlyRole = (role: 'admin' | 'specialist', status: number, otherOrg = 403):
 
 /** Only the engineer may (lab data): the others get 403 before any lookup. */
 const onlyEngineer = (status: number): Expected => ({ ...signedIn(403), engineer: status });
+/** Engineers and specialists may (the other organisation's specialist too, up to the lookup). */
+const filers = (status: number): Expected => ({ anon: 401, admin: 403, specialist: status, engineer: status, approver: 403, otherAdmin: 403, otherSpecialist: status });
 
 export const MATRIX: Record<string, Row> = {
   'GET /api/health': { expect: everyone(200) },
   'GET /api/schema/device.json': { expect: everyone(200) },
+  'GET /api/schema/evidence-categories.json': { expect: everyone(200) },
 
   'POST /api/auth/login': { expect: everyone(422) },
   'POST /api/auth/logout': { expect: everyone(204), freshSession: true },
@@ -84,6 +87,12 @@ export const MATRIX: Record<string, Row> = {
   'PUT /api/filings/:id/steps/:step': { expect: onlyRole('specialist', 422, 404) },
   'GET /api/filings/:id/device.json': { expect: ownOrganisation(200) },
   'GET /api/filings/:id/screening': { expect: ownOrganisation(200) },
+  // Evidence: engineers and specialists change it, every member reads. No multipart body → 400.
+  'GET /api/filings/:id/evidence': { expect: ownOrganisation(200) },
+  'POST /api/filings/:id/evidence': { expect: { ...filers(400), otherSpecialist: 404 } },
+  'GET /api/filings/:id/evidence/:evidenceId/file': { expect: signedIn(404) },
+  'DELETE /api/filings/:id/evidence/:evidenceId': { expect: filers(404) },
+  'POST /api/filings/:id/evidence/:evidenceId/findings/explain': { expect: { ...filers(422), otherSpecialist: 404 } },
   'GET /api/filings/:id/screening/depth-profile': { expect: ownOrganisation(404), query: { transmitterId: 'NO-SUCH-TX', usePositionId: 'NO-SUCH-POS' } },
 
   // Lab results: every member of the organisation reads; only the engineer writes (role check first).
@@ -103,6 +112,7 @@ const paramsFor = (fx: Fixture): Record<string, string | number> => ({
   step: 'device',
   name: 'fcc-sar-exemption',
   token: 'no-such-token',
+  evidenceId: 999999,
 });
 
 let t: TestApp;

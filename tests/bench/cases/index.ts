@@ -6,5 +6,6 @@ import { screeningCase } from './screening';
 import { screeningApiCase } from './screening-api';
 import { screeningPageCase } from './screening-page';
 import { labImportCase, labRecomputeCase } from './lab';
+import { evidenceUploadCase, readBackCase } from './evidence';
 
-export const benchCases: BenchCase[] = [filingEvaluationCase, planeWaveProfileCase, screeningCase, screeningApiCase, screeningPageCase, labRecomputeCase, labImportCase];
+export const benchCases: BenchCase[] = [filingEvaluationCase, planeWaveProfileCase, screeningCase, screeningApiCase, screeningPageCase, labRecomputeCase, labImportCase, evidenceUploadCase, readBackCase];
