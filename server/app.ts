@@ -25,6 +25,7 @@ import { outboxRoutes } from './routes/outbox';
 import { auditRoutes } from './routes/audit';
 import { calcRoutes } from './routes/calc';
 import { filingRoutes, schemaRoutes } from './routes/filings';
+import { reviewRoutes } from './routes/review';
 
 export const SESSION_COOKIE = 'fieldfile.sid';
 const SESSION_MAX_AGE_MS = 12 * 3600 * 1000;
@@ -112,6 +113,7 @@ export function createApp({ handle, config, mailer, serveWeb = true, storage = c
   api.use('/audit', auditRoutes(ctx));
   api.use('/calc', calcRoutes());
   api.use('/filings', filingRoutes(ctx));
+  api.use('/filings', reviewRoutes(ctx));
   api.use('/schema', schemaRoutes());
   api.use(apiNotFound);
   api.use(errorHandler);
