@@ -33,6 +33,9 @@ import { readVersionData, screeningInputOf, versionReadiness } from './readiness
 import { storeScreeningOf } from './screening-service';
 import { CONTENT_FORMAT, versionContentSha256 } from './version-content';
 
+/** What review actions need from the app (the seed passes its own, with no mail). */
+export type ReviewContext = Pick<AppContext, 'db' | 'config' | 'mailer'>;
+
 export interface ReviewActor extends FilingActor {
   name: string;
 }
@@ -182,7 +185,7 @@ export function getTimeline(db: Db, actor: FilingActor, filingId: number): Timel
 
 // --- mail ------------------------------------------------------------------------------------
 
-async function sendAll(ctx: AppContext, actor: FilingActor, filingId: number, mails: { to: string; subject: string; text: string; html: string }[]) {
+async function sendAll(ctx: ReviewContext, actor: FilingActor, filingId: number, mails: { to: string; subject: string; text: string; html: string }[]) {
   for (const m of mails) {
     try {
       await ctx.mailer.send(m);
@@ -193,7 +196,7 @@ async function sendAll(ctx: AppContext, actor: FilingActor, filingId: number, ma
   }
 }
 
-const reviewLink = (ctx: AppContext, filingId: number) => `${ctx.config.publicUrl}/filings/${filingId}/review`;
+const reviewLink = (ctx: ReviewContext, filingId: number) => `${ctx.config.publicUrl}/filings/${filingId}/review`;
 
 function filingPeople(db: Db, row: filingsRepo.FilingRow, versionId: number, extra: number[]) {
   const ids = [...new Set([row.filing.ownerUserId, ...repo.versionEditorIds(db, versionId), ...extra])];
@@ -202,7 +205,7 @@ function filingPeople(db: Db, row: filingsRepo.FilingRow, versionId: number, ext
 
 // --- transitions -----------------------------------------------------------------------------
 
-export async function requestReview(ctx: AppContext, actor: ReviewActor, filingId: number) {
+export async function requestReview(ctx: ReviewContext, actor: ReviewActor, filingId: number) {
   const { db } = ctx;
   const { row, version } = load(db, actor, filingId);
   requireAllowed('request-review', actor, stateOf(version));
@@ -224,7 +227,7 @@ export async function requestReview(ctx: AppContext, actor: ReviewActor, filingI
   return getReview(db, actor, filingId);
 }
 
-export async function returnVersion(ctx: AppContext, actor: ReviewActor, filingId: number, input: ReturnInput) {
+export async function returnVersion(ctx: ReviewContext, actor: ReviewActor, filingId: number, input: ReturnInput) {
   const { db } = ctx;
   const { row, version } = load(db, actor, filingId);
   requireAllowed('return', actor, stateOf(version));
@@ -269,7 +272,7 @@ function wrongPasswordCount(db: Db, actor: FilingActor, filingId: number, versio
     .filter((r) => r.entry.action === 'version.sign-refused' && r.entry.actorUserId === actor.id && (r.entry.details as { version?: number } | null)?.version === versionNumber).length;
 }
 
-export async function signVersion(ctx: AppContext, actor: ReviewActor, filingId: number, input: SignInput) {
+export async function signVersion(ctx: ReviewContext, actor: ReviewActor, filingId: number, input: SignInput) {
   const { db } = ctx;
   const { row, version } = load(db, actor, filingId);
   requireAllowed('sign', actor, stateOf(version));
