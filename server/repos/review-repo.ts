@@ -145,11 +145,11 @@ export function findSignature(db: Db, versionId: number): SignatureRow | undefin
 /** Active members of an organisation who hold the role. */
 export function membersWithRole(db: Db, organisationId: number, role: string) {
   return db
-    .select({ id: users.id, name: users.name, email: users.email })
+    .select({ id: users.id, name: sql<string>`coalesce(nullif(${memberships.name}, ''), ${users.name})`, email: users.email })
     .from(memberships)
     .innerJoin(users, eq(users.id, memberships.userId))
     .innerJoin(membershipRoles, eq(membershipRoles.membershipId, memberships.id))
-    .where(and(eq(memberships.organisationId, organisationId), eq(membershipRoles.role, role as never), eq(users.active, true)))
+    .where(and(eq(memberships.organisationId, organisationId), eq(membershipRoles.role, role as never), eq(memberships.active, true), eq(users.active, true)))
     .orderBy(asc(users.id))
     .all();
 }

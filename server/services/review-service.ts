@@ -188,7 +188,7 @@ export function getTimeline(db: Db, actor: FilingActor, filingId: number): Timel
 async function sendAll(ctx: ReviewContext, actor: FilingActor, filingId: number, mails: { to: string; subject: string; text: string; html: string }[]) {
   for (const m of mails) {
     try {
-      await ctx.mailer.send(m);
+      await ctx.mailer.send({ ...m, organisationId: actor.organisationId });
     } catch (err) {
       console.error('[fieldfile] review mail failed', err);
       audit(ctx.db, actor, filingId, 'mail.failed', { to: m.to, subject: m.subject });

@@ -12,6 +12,7 @@
  */
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { SIGNING_STATEMENT } from '../../constants/schemas/review';
 import { apiRouteTable } from './support/route-table';
 import { createTestApp, OTHER_ORG, seedOtherOrganisation, seedUsers, signIn, type TestApp } from './support/test-app';
 
@@ -52,6 +53,18 @@ const onlyRole = (role: 'admin' | 'specialist', status: number, otherOrg = 403):
   otherSpecialist: role === 'specialist' ? otherOrg : 403,
 });
 
+/** Review actions: 403 for roles that take no part, the given status for those that do, 404 outside the organisation. */
+const review = (allowed: Partial<Record<'admin' | 'specialist' | 'engineer' | 'approver', number>>): Expected => ({
+  anon: 401,
+  admin: 403,
+  specialist: 403,
+  engineer: 403,
+  approver: 403,
+  ...allowed,
+  otherAdmin: 404,
+  otherSpecialist: 404,
+});
+
 export const MATRIX: Record<string, Row> = {
   'GET /api/health': { expect: everyone(200) },
   'GET /api/schema/device.json': { expect: everyone(200) },
@@ -82,6 +95,21 @@ export const MATRIX: Record<string, Row> = {
   'GET /api/filings/:id/device.json': { expect: ownOrganisation(200) },
   'GET /api/filings/:id/screening': { expect: ownOrganisation(200) },
   'GET /api/filings/:id/screening/depth-profile': { expect: ownOrganisation(404), query: { transmitterId: 'NO-SUCH-TX', usePositionId: 'NO-SUCH-POS' } },
+  // Review and signing of the demo organisation's newest filing (a draft that is not ready):
+  // the role is checked after the filing is found, so the other organisation always gets 404.
+  'GET /api/filings/:id/readiness': { expect: ownOrganisation(200) },
+  'GET /api/filings/:id/review': { expect: ownOrganisation(200) },
+  'GET /api/filings/:id/timeline': { expect: ownOrganisation(200) },
+  'GET /api/filings/:id/compare': { expect: ownOrganisation(200), query: { from: '1', to: '1' } },
+  'POST /api/filings/:id/review/request': { expect: review({ specialist: 409 }) },
+  'POST /api/filings/:id/review/return': { expect: review({ approver: 409 }), body: { message: 'x' } },
+  'POST /api/filings/:id/review/sign': { expect: review({ approver: 409 }), body: { password: 'x', statement: SIGNING_STATEMENT } },
+  'POST /api/filings/:id/review/threads': { expect: review({ approver: 409 }), body: { step: 'radios', body: 'x' } },
+  'POST /api/filings/:id/review/threads/:threadId/replies': { expect: review({ specialist: 409, approver: 409 }), params: () => ({ threadId: 999999 }), body: { body: 'x' } },
+  'POST /api/filings/:id/review/threads/:threadId/resolve': { expect: review({ specialist: 409 }), params: () => ({ threadId: 999999 }) },
+  'POST /api/filings/:id/review/threads/:threadId/reopen': { expect: review({ specialist: 409 }), params: () => ({ threadId: 999999 }) },
+  'POST /api/filings/:id/versions': { expect: review({ specialist: 409 }) },
+  'POST /api/filings/:id/versions/:number/verify': { expect: ownOrganisation(409), params: () => ({ number: 1 }) },
 };
 
 /** Defaults for path parameters; a row's `params` overrides them. */
