@@ -183,6 +183,11 @@ export const filingVersions = sqliteTable(
       .references(() => filings.id, { onDelete: 'cascade' }),
     number: integer('number').notNull(),
     state: text('state', { enum: VERSION_STATES }).notNull().default('draft'),
+    /**
+     * The device identity this version was filed with. Version N+1 gets its own copy, so a
+     * signed version's device never changes. Null only on rows made before versions had it.
+     */
+    deviceId: integer('device_id').references(() => devices.id),
     createdAt: createdAt(),
   },
   (t) => [uniqueIndex('filing_versions_filing_number').on(t.filingId, t.number)],
@@ -504,4 +509,82 @@ export const evidenceExplanations = sqliteTable(
     at: createdAt(),
   },
   (t) => [uniqueIndex('evidence_explanations_key').on(t.evidenceId, t.findingKey)],
+);
+
+// ---------------------------------------------------------------------------------------------
+// Review and signing. A signed version is frozen by the triggers of migration
+// "signed_versions_frozen": every row that belongs to it refuses UPDATE, DELETE and INSERT.
+
+/** Who changed a version's data (separation of duties: they may not sign it). Insert-only. */
+export const versionEditors = sqliteTable(
+  'version_editors',
+  {
+    versionId: versionRef(),
+    userId: integer('user_id')
+      .notNull()
+      .references(() => users.id),
+    firstEditAt: createdAt(),
+  },
+  (t) => [primaryKey({ columns: [t.versionId, t.userId] })],
+);
+
+export const REVIEW_THREAD_STATES = ['open', 'resolved'] as const;
+
+/** A comment thread on a step (and optionally one row of it, by the row's user-facing id). */
+export const reviewThreads = sqliteTable(
+  'review_threads',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    versionId: versionRef(),
+    step: text('step').notNull(),
+    rowRef: text('row_ref'),
+    state: text('state', { enum: REVIEW_THREAD_STATES }).notNull().default('open'),
+    createdByUserId: integer('created_by_user_id')
+      .notNull()
+      .references(() => users.id),
+    createdAt: createdAt(),
+    resolvedByUserId: integer('resolved_by_user_id').references(() => users.id),
+    resolvedAt: text('resolved_at'),
+  },
+  (t) => [index('review_threads_version').on(t.versionId)],
+);
+
+export const reviewComments = sqliteTable(
+  'review_comments',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    threadId: integer('thread_id')
+      .notNull()
+      .references(() => reviewThreads.id, { onDelete: 'cascade' }),
+    authorUserId: integer('author_user_id')
+      .notNull()
+      .references(() => users.id),
+    body: text('body').notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index('review_comments_thread').on(t.threadId)],
+);
+
+/** One signature per version (the unique index makes two approvers at once end in one). Never changes. */
+export const versionSignatures = sqliteTable(
+  'version_signatures',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    versionId: integer('version_id')
+      .notNull()
+      .references(() => filingVersions.id),
+    signerUserId: integer('signer_user_id')
+      .notNull()
+      .references(() => users.id),
+    signerName: text('signer_name').notNull(),
+    signerRole: text('signer_role').notNull(),
+    signedAt: text('signed_at').notNull(),
+    statement: text('statement').notNull(),
+    /** Name of the canonical serialisation the hash was computed over (bump when it changes). */
+    contentFormat: text('content_format').notNull(),
+    contentSha256: text('content_sha256').notNull(),
+    /** The readiness checklist as it stood at signing (JSON text). */
+    checklist: text('checklist').notNull(),
+  },
+  (t) => [uniqueIndex('version_signatures_version').on(t.versionId)],
 );

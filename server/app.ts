@@ -28,6 +28,7 @@ import { calcRoutes } from './routes/calc';
 import { filingRoutes, schemaRoutes } from './routes/filings';
 import { labRoutes } from './routes/lab';
 import { evidenceRoutes } from './routes/evidence';
+import { reviewRoutes } from './routes/review';
 
 export const SESSION_COOKIE = 'fieldfile.sid';
 /** Idle lifetime: each request extends the cookie (rolling). */
@@ -163,6 +164,7 @@ export function createApp({ handle, config, mailer, serveWeb = true, storage = c
   api.use('/filings/:id/evidence', evidenceRoutes(ctx));
   api.use('/filings', filingRoutes(ctx));
   api.use('/filings', labRoutes(ctx));
+  api.use('/filings', reviewRoutes(ctx));
   api.use('/schema', schemaRoutes());
   api.use(apiNotFound);
   api.use(errorHandler);

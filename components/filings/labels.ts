@@ -8,7 +8,7 @@ import type { BadgeTone } from '../ui/status-badge';
 export const STATE_LOOK: Record<VersionState, { icon: IconName; tone: BadgeTone; label: string }> = {
   draft: { icon: 'pending', tone: 'neutral', label: VERSION_STATE_LABELS.draft },
   'in-review': { icon: 'info', tone: 'caution', label: VERSION_STATE_LABELS['in-review'] },
-  'changes-requested': { icon: 'warning', tone: 'fail', label: VERSION_STATE_LABELS['changes-requested'] },
+  returned: { icon: 'warning', tone: 'caution', label: VERSION_STATE_LABELS.returned },
   signed: { icon: 'lock', tone: 'pass', label: VERSION_STATE_LABELS.signed },
 };
 

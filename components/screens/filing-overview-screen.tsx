@@ -37,7 +37,7 @@ export function FilingOverviewScreen() {
       {!wide ? <BackLink href="/filings" label="All filings" /> : null}
       {!f.editable ? (
         <Notice tone="info" title="Read only" testID="filing-read-only">
-          {f.version.state === 'draft' || f.version.state === 'changes-requested'
+          {f.version.state === 'draft' || f.version.state === 'returned'
             ? 'Only a compliance specialist changes the device data. You can read every step and the screening.'
             : `Version ${f.version.number} is ${state.label.toLowerCase()}; its data no longer changes.`}
         </Notice>

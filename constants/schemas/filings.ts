@@ -15,16 +15,17 @@ import {
   zUsePosition,
 } from './device-file';
 
-export const VERSION_STATES = ['draft', 'in-review', 'changes-requested', 'signed'] as const;
+/** A version's life: draft → in review → returned (with comments) → in review → signed. */
+export const VERSION_STATES = ['draft', 'in-review', 'returned', 'signed'] as const;
 export type VersionState = (typeof VERSION_STATES)[number];
 export const VERSION_STATE_LABELS: Record<VersionState, string> = {
   draft: 'Draft',
   'in-review': 'In review',
-  'changes-requested': 'Changes requested',
+  returned: 'Returned',
   signed: 'Signed',
 };
 /** States in which the wizard's data may change. */
-export const EDITABLE_STATES: readonly VersionState[] = ['draft', 'changes-requested'];
+export const EDITABLE_STATES: readonly VersionState[] = ['draft', 'returned'];
 
 /** Steps whose data the user enters (autosaved); the wizard's further steps are computed. */
 export const DATA_STEPS = ['device', 'radios', 'use-positions', 'markets'] as const;

@@ -5,6 +5,9 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { HttpError, notFound } from '../http-error';
 
+/** The start of the message the signed-version triggers raise (db/migrations/*_signed_versions_frozen.sql). */
+export const FROZEN_MESSAGE = 'signed version is frozen';
+
 export const apiNotFound: RequestHandler = (req, _res, next) => {
   next(notFound(`No API route ${req.method} ${req.originalUrl}.`));
 };
@@ -21,6 +24,11 @@ export const errorHandler: ErrorRequestHandler = (err, _req, res, _next) => {
   }
   if (e?.type === 'entity.too.large') {
     res.status(413).json({ error: { code: 'too_large', message: 'The request body is too large.' } });
+    return;
+  }
+  if (typeof e?.message === 'string' && e.message.startsWith(FROZEN_MESSAGE)) {
+    // The data layer's own guard (the signed-version triggers) refused a write the services let through.
+    res.status(409).json({ error: { code: 'version_signed', message: 'This version is signed and can no longer change. Start the next version to edit.' } });
     return;
   }
   if (typeof e?.status === 'number' && e.status >= 400 && e.status < 500) {

@@ -31,8 +31,9 @@ function summaryQuery(db: Db) {
   return db
     .select(summaryColumns)
     .from(filings)
-    .innerJoin(devices, eq(devices.id, filings.deviceId))
     .innerJoin(filingVersions, and(eq(filingVersions.filingId, filings.id), eq(filingVersions.number, latestVersion)))
+    // Each version names its own device row (version N+1 gets a copy); older rows fall back to the filing's.
+    .innerJoin(devices, eq(devices.id, sql`coalesce(${filingVersions.deviceId}, ${filings.deviceId})`))
     // The owner's name as the filing's organisation knows it.
     .leftJoin(memberships, and(eq(memberships.userId, filings.ownerUserId), eq(memberships.organisationId, filings.organisationId)));
 }
@@ -299,6 +300,6 @@ export function clearDraft(db: Db, versionId: number, step: DataStep) {
 
 export function insertFiling(db: Db, organisationId: number, deviceId: number, ownerUserId: number) {
   const filing = db.insert(filings).values({ organisationId, deviceId, ownerUserId }).returning().get();
-  const version = db.insert(filingVersions).values({ filingId: filing.id, number: 1 }).returning().get();
+  const version = db.insert(filingVersions).values({ filingId: filing.id, number: 1, deviceId }).returning().get();
   return { filing, version };
 }

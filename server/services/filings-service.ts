@@ -26,6 +26,7 @@ import { ruleSetWarnings } from '../../calc/versions';
 import { zodFieldErrors } from '../middleware/validate';
 import * as repo from '../repos/filings-repo';
 import * as labRepo from '../repos/lab-repo';
+import { addVersionEditor } from '../repos/review-repo';
 import { recordAudit } from './audit';
 import { evidenceStepStatus } from './evidence-step';
 
@@ -48,8 +49,10 @@ export function loadFiling(db: Db, actor: FilingActor, filingId: number): repo.F
 }
 
 export function requireEditable(row: repo.FilingRow) {
-  if (!EDITABLE_STATES.includes(row.version.state as VersionState)) {
-    throw conflict(`Version ${row.version.number} is ${VERSION_STATE_LABELS[row.version.state as VersionState].toLowerCase()}; its data can no longer change.`);
+  const state = row.version.state as VersionState;
+  if (state === 'signed') throw conflict(`Version ${row.version.number} is signed and frozen. Start version ${row.version.number + 1} to make changes.`);
+  if (!EDITABLE_STATES.includes(state)) {
+    throw conflict(`Version ${row.version.number} is ${VERSION_STATE_LABELS[state].toLowerCase()}; its data cannot change until the approver returns it.`);
   }
 }
 
@@ -71,8 +74,8 @@ export function listFilings(db: Db, actor: FilingActor, q: string | undefined, s
   return rows.map((r) => toSummary(r, markets.get(r.version.id) ?? []));
 }
 
-function readDevice(row: repo.FilingRow): FilingDetail['data']['device'] {
-  const { device } = row;
+/** The device step's fields of a stored device row. */
+export function deviceStepOf(device: repo.FilingRow['device']): FilingDetail['data']['device'] {
   return {
     name: device.name,
     model: device.model,
@@ -84,7 +87,7 @@ function readDevice(row: repo.FilingRow): FilingDetail['data']['device'] {
 }
 
 const STEP_READERS: { [S in DataStep]: (db: Db, row: repo.FilingRow) => FilingDetail['data'][S] } = {
-  device: (_db, row) => readDevice(row),
+  device: (_db, row) => deviceStepOf(row.device),
   radios: (db, row) => repo.readRadios(db, row.version.id),
   'use-positions': (db, row) => repo.readUsePositions(db, row.version.id),
   markets: (db, row) => repo.readMarkets(db, row.version.id),
@@ -159,7 +162,8 @@ export function createFiling(db: Db, actor: FilingActor, device: DeviceFile['dev
   requireEditor(actor);
   const id = db.transaction((tx) => {
     const dev = repo.insertDevice(tx, actor.organisationId, device);
-    const { filing } = repo.insertFiling(tx, actor.organisationId, dev.id, actor.id);
+    const { filing, version } = repo.insertFiling(tx, actor.organisationId, dev.id, actor.id);
+    addVersionEditor(tx, version.id, actor.id);
     recordAudit(tx, { organisationId: actor.organisationId, actorUserId: actor.id, action: 'filing.create', targetType: 'filing', targetId: filing.id, details: { device: device.name, model: device.model } });
     return filing.id;
   });
@@ -176,6 +180,7 @@ export function importDeviceFile(db: Db, actor: FilingActor, file: DeviceFile): 
     repo.writeUsePositions(tx, version.id, { usePositions: file.usePositions }, repo.antennaIdsByKey(tx, version.id));
     repo.writeMarkets(tx, version.id, { markets: file.markets });
     repo.writeSimultaneous(tx, version.id, file.simultaneous);
+    addVersionEditor(tx, version.id, actor.id);
     recordAudit(tx, {
       organisationId: actor.organisationId,
       actorUserId: actor.id,
@@ -247,6 +252,7 @@ export function saveStep(db: Db, actor: FilingActor, filingId: number, step: Dat
       if (step === 'use-positions') repo.writeUsePositions(tx, versionId, data, repo.antennaIdsByKey(tx, versionId));
       if (step === 'markets') repo.writeMarkets(tx, versionId, data);
       repo.touchFiling(tx, filingId);
+      addVersionEditor(tx, versionId, actor.id);
       recordAudit(tx, { organisationId: actor.organisationId, actorUserId: actor.id, action: 'filing.step-save', targetType: 'filing', targetId: filingId, details: { step, version: row.version.number } });
     }
     repo.clearDraft(tx, versionId, step);

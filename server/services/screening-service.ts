@@ -5,7 +5,7 @@
  */
 import { createHash } from 'node:crypto';
 import { gzipSync } from 'node:zlib';
-import { and, eq } from 'drizzle-orm';
+import { and, desc, eq } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 import { screeningResults } from '../../db/schema';
 import { ENGINE_VERSION, RULE_SET_VERSION } from '../../calc/versions';
@@ -76,6 +76,15 @@ export function screeningResponseForFiling(db: Db, actor: FilingActor, filingId:
   if (cached) return { encoding: 'gzip', body: cached };
 
   let stored = found && db.select({ id: screeningResults.id, output: screeningResults.output, computedAt: screeningResults.computedAt }).from(screeningResults).where(eq(screeningResults.id, found.id)).get();
+  if (!stored && detail.version.state === 'signed') {
+    // A signed version is frozen: show the result it was signed with (stored at signing), never a new one.
+    stored = db
+      .select({ id: screeningResults.id, output: screeningResults.output, computedAt: screeningResults.computedAt })
+      .from(screeningResults)
+      .where(eq(screeningResults.versionId, detail.version.id))
+      .orderBy(desc(screeningResults.id))
+      .get();
+  }
   if (!stored) {
     const output = JSON.stringify(screenParsed(input));
     stored = db
@@ -135,4 +144,14 @@ export function depthProfileForFiling(db: Db, actor: FilingActor, filingId: numb
       ...SCREENING_CAUTIONS,
     ],
   };
+}
+
+/** Stores the screening of a version's current data if it is not stored yet (signing keeps it with the version). */
+export function storeScreeningOf(db: Db, versionId: number, input: ScreeningInput): void {
+  const inputJson = JSON.stringify(input);
+  const inputSha256 = createHash('sha256').update(inputJson).digest('hex');
+  db.insert(screeningResults)
+    .values({ versionId, engineVersion: ENGINE_VERSION, ruleSetVersion: RULE_SET_VERSION, inputSha256, input: inputJson, output: JSON.stringify(screenParsed(input)) })
+    .onConflictDoNothing()
+    .run();
 }

@@ -12,6 +12,7 @@
  */
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { SIGNING_STATEMENT } from '../../constants/schemas/review';
 import { apiRouteTable } from './support/route-table';
 import { createTestApp, OTHER_ORG, seedOtherOrganisation, seedUsers, signIn, type TestApp } from './support/test-app';
 
@@ -56,6 +57,17 @@ const onlyRole = (role: 'admin' | 'specialist', status: number, otherOrg = 403):
 const onlyEngineer = (status: number): Expected => ({ ...signedIn(403), engineer: status });
 /** Engineers and specialists may (the other organisation's specialist too, up to the lookup). */
 const filers = (status: number): Expected => ({ anon: 401, admin: 403, specialist: status, engineer: status, approver: 403, otherAdmin: 403, otherSpecialist: status });
+/** Review actions: 403 for roles that take no part, the given status for those that do, 404 outside the organisation. */
+const review = (allowed: Partial<Record<'admin' | 'specialist' | 'engineer' | 'approver', number>>): Expected => ({
+  anon: 401,
+  admin: 403,
+  specialist: 403,
+  engineer: 403,
+  approver: 403,
+  ...allowed,
+  otherAdmin: 404,
+  otherSpecialist: 404,
+});
 
 export const MATRIX: Record<string, Row> = {
   'GET /api/health': { expect: everyone(200) },
@@ -104,6 +116,21 @@ export const MATRIX: Record<string, Row> = {
   ),
   'POST /api/filings/:id/measurements/import': { expect: onlyEngineer(400) },
   'GET /api/filings/:id/lab-results': { expect: ownOrganisation(200) },
+  // Review and signing of the demo organisation's newest filing (a draft that is not ready):
+  // the role is checked after the filing is found, so the other organisation always gets 404.
+  'GET /api/filings/:id/readiness': { expect: ownOrganisation(200) },
+  'GET /api/filings/:id/review': { expect: ownOrganisation(200) },
+  'GET /api/filings/:id/timeline': { expect: ownOrganisation(200) },
+  'GET /api/filings/:id/compare': { expect: ownOrganisation(200), query: { from: '1', to: '1' } },
+  'POST /api/filings/:id/review/request': { expect: review({ specialist: 409 }) },
+  'POST /api/filings/:id/review/return': { expect: review({ approver: 409 }), body: { message: 'x' } },
+  'POST /api/filings/:id/review/sign': { expect: review({ approver: 409 }), body: { password: 'x', statement: SIGNING_STATEMENT } },
+  'POST /api/filings/:id/review/threads': { expect: review({ approver: 409 }), body: { step: 'radios', body: 'x' } },
+  'POST /api/filings/:id/review/threads/:threadId/replies': { expect: review({ specialist: 409, approver: 409 }), params: () => ({ threadId: 999999 }), body: { body: 'x' } },
+  'POST /api/filings/:id/review/threads/:threadId/resolve': { expect: review({ specialist: 409 }), params: () => ({ threadId: 999999 }) },
+  'POST /api/filings/:id/review/threads/:threadId/reopen': { expect: review({ specialist: 409 }), params: () => ({ threadId: 999999 }) },
+  'POST /api/filings/:id/versions': { expect: review({ specialist: 409 }) },
+  'POST /api/filings/:id/versions/:number/verify': { expect: ownOrganisation(409), params: () => ({ number: 1 }) },
 };
 
 /** Defaults for path parameters; a row's `params` overrides them. */

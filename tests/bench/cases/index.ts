@@ -7,5 +7,6 @@ import { screeningApiCase } from './screening-api';
 import { screeningPageCase } from './screening-page';
 import { labImportCase, labRecomputeCase } from './lab';
 import { evidenceUploadCase, readBackCase } from './evidence';
+import { compareCase, readinessCase } from './readiness';
 
-export const benchCases: BenchCase[] = [filingEvaluationCase, planeWaveProfileCase, screeningCase, screeningApiCase, screeningPageCase, labRecomputeCase, labImportCase, evidenceUploadCase, readBackCase];
+export const benchCases: BenchCase[] = [filingEvaluationCase, planeWaveProfileCase, screeningCase, screeningApiCase, screeningPageCase, labRecomputeCase, labImportCase, evidenceUploadCase, readBackCase, readinessCase, compareCase];

@@ -1,0 +1,56 @@
+/**
+ * Every table whose rows belong to a filing version is frozen once the version is signed, and
+ * the rows that make up its content are in the signature hash. This test reads the migrated
+ * schema, so a new table with a `version_id` (or one hanging off such a table) fails here until
+ * it gets its triggers (DEVELOPERS.md, "Signed versions are frozen") and its place in the hash.
+ */
+import { afterAll, describe, expect, it } from 'vitest';
+import { openDatabase } from '../../db/client';
+import { applyMigrations } from '../../db/migrate';
+import { VERSION_CONTENT_TABLES, VERSION_REVIEW_TABLES } from '../../server/repos/review-repo';
+
+// Opened while the tests are collected: the table list decides which tests exist.
+const t = { handle: openDatabase(':memory:') };
+applyMigrations(t.handle.db);
+afterAll(() => t.handle.sqlite.close());
+
+const tables = () =>
+  (t.handle.sqlite.prepare("select name from sqlite_master where type = 'table' and name not like 'sqlite_%' and name not like '__drizzle%'").all() as { name: string }[]).map((r) => r.name);
+const columns = (table: string) => (t.handle.sqlite.prepare(`select name from pragma_table_info(?)`).all(table) as { name: string }[]).map((c) => c.name);
+const foreignTables = (table: string) => (t.handle.sqlite.prepare(`select "table" from pragma_foreign_key_list(?)`).all(table) as { table: string }[]).map((f) => f.table);
+const triggers = (table: string) =>
+  (t.handle.sqlite.prepare("select name, sql from sqlite_master where type = 'trigger' and tbl_name = ?").all(table) as { name: string; sql: string }[]);
+
+/** Tables whose rows belong to a version: a version_id column, or a foreign key to such a table. */
+function versionTables(): string[] {
+  const all = tables();
+  const direct = all.filter((n) => n !== 'version_signatures' && columns(n).includes('version_id'));
+  const indirect = all.filter((n) => !direct.includes(n) && n !== 'filing_versions' && foreignTables(n).some((f) => direct.includes(f) && f !== 'filing_versions'));
+  return [...direct, ...indirect];
+}
+
+describe('signed versions are frozen in every table that belongs to a version', () => {
+  it('finds the wizard, screening and review tables', () => {
+    expect(versionTables()).toEqual(expect.arrayContaining(['antennas', 'transmitters', 'use_positions', 'use_position_separations', 'market_selections', 'screening_results', 'review_comments']));
+  });
+
+  it.each(versionTables())('%s refuses INSERT, UPDATE and DELETE on a signed version', (table) => {
+    const t2 = triggers(table).filter((x) => /signed version is frozen/.test(x.sql));
+    for (const op of ['INSERT', 'UPDATE', 'DELETE']) {
+      expect(t2.some((x) => x.sql.includes(`BEFORE ${op}`)), `${table}: no frozen-version trigger BEFORE ${op}`).toBe(true);
+    }
+  });
+
+  it.each(versionTables())('%s is in the signature hash or named as review metadata', (table) => {
+    const hashed = VERSION_CONTENT_TABLES.map((x) => x.table);
+    expect(hashed.includes(table) || (VERSION_REVIEW_TABLES as readonly string[]).includes(table), `${table}: add it to VERSION_CONTENT_TABLES in server/repos/review-repo.ts`).toBe(true);
+  });
+
+  it('the version itself, its device and its signature cannot change once signed', () => {
+    for (const table of ['filing_versions', 'devices', 'version_signatures']) {
+      const sqls = triggers(table).map((x) => x.sql).join('\n');
+      expect(sqls).toMatch(/BEFORE UPDATE/);
+      expect(sqls).toMatch(/BEFORE DELETE/);
+    }
+  });
+});
