@@ -26,6 +26,11 @@ import { outboxRoutes } from './routes/outbox';
 import { auditRoutes } from './routes/audit';
 import { calcRoutes } from './routes/calc';
 import { filingRoutes, schemaRoutes } from './routes/filings';
+import { packageRoutes } from './routes/packages';
+import { createInProcessQueue, type JobQueue } from './jobs/queue';
+import { defaultExhibitSources, type ExhibitSources } from './services/exhibit-sources';
+import { registerPackageJobs, type PackageDeps } from './services/package-service';
+import { version as productVersion } from '../package.json';
 
 export const SESSION_COOKIE = 'fieldfile.sid';
 /** Idle lifetime: each request extends the cookie (rolling). */
@@ -98,10 +103,22 @@ export interface CreateAppOptions {
   serveWeb?: boolean;
   /** Byte storage; defaults to local disk under config.dataDir. */
   storage?: Storages;
+  /** Where the exhibit takes lab results, readiness, signature and evidence from. */
+  exhibitSources?: Partial<ExhibitSources>;
+  queue?: JobQueue;
 }
 
-export function createApp({ handle, config, mailer, serveWeb = true, storage = createStorages(config) }: CreateAppOptions) {
+export function createApp({ handle, config, mailer, serveWeb = true, storage = createStorages(config), exhibitSources, queue }: CreateAppOptions) {
   const ctx: AppContext = { db: handle.db, config, mailer, storage };
+  const packages: PackageDeps = {
+    db: handle.db,
+    queue: queue ?? createInProcessQueue(handle.db),
+    storage: storage.packages,
+    sources: { ...defaultExhibitSources, ...exhibitSources },
+    producer: `Fieldfile ${productVersion}`,
+  };
+  registerPackageJobs(packages);
+  packages.queue.recoverInterrupted();
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', config.trustProxy);
@@ -160,6 +177,7 @@ export function createApp({ handle, config, mailer, serveWeb = true, storage = c
   api.use('/calc', calcRoutes());
   api.use('/filings', filingRoutes(ctx));
   api.use('/schema', schemaRoutes());
+  api.use(packageRoutes(packages));
   api.use(apiNotFound);
   api.use(errorHandler);
   app.use('/api', api);
@@ -172,5 +190,5 @@ export function createApp({ handle, config, mailer, serveWeb = true, storage = c
   }
   app.use(errorHandler);
 
-  return { app, close: () => store.close() };
+  return { app, packages, close: () => store.close() };
 }

@@ -4,5 +4,6 @@
  * keeps hashes (its query lives in its repo).
  */
 import type { ReferenceSource } from './sweep';
+import { allStorageKeys } from '../repos/packages-repo';
 
-export const referenceSources: ReferenceSource[] = [];
+export const referenceSources: ReferenceSource[] = [{ area: 'packages', referenced: allStorageKeys }];
