@@ -26,7 +26,7 @@ describe('a build killed mid-way', () => {
   it('leaves nothing visible, shows failed after a restart, and runs again', async () => {
     const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'fieldfile-kill-'));
     const packagesDir = path.join(dataDir, 'packages');
-    const child = spawn(process.execPath, [path.join(ROOT, 'node_modules/tsx/dist/cli.mjs'), path.join(ROOT, 'tests/server/support/package-build-child.ts'), dataDir], { cwd: ROOT, stdio: ['ignore', 'pipe', 'inherit'] });
+    const child = spawn(process.execPath, ['--import', 'tsx', path.join(ROOT, 'tests/server/support/package-build-child.ts'), dataDir], { cwd: ROOT, stdio: ['ignore', 'pipe', 'inherit'] });
     const exited = new Promise((resolve) => child.on('exit', resolve));
     // Wait until the zip is being written: the evidence stage has begun and the temporary file has bytes.
     let stage = '';
@@ -40,8 +40,12 @@ describe('a build killed mid-way', () => {
       if (stage.startsWith('failed')) throw new Error(stage);
       await new Promise((r) => setTimeout(r, 100));
     }
+    // The child is the node process itself (tsx as a loader, no wrapper), so this kills the build.
     child.kill('SIGKILL');
     await exited;
+    const sizeAtKill = partial()[0];
+    await new Promise((r) => setTimeout(r, 500));
+    expect(partial()[0], 'nothing writes after the kill').toBe(sizeAtKill);
     expect(fs.readdirSync(building)).toHaveLength(1);
     expect(objects(packagesDir)).toEqual([]);
 

@@ -4,5 +4,6 @@ import { filingEvaluationCase } from './filing-evaluation';
 import { planeWaveProfileCase } from './plane-wave-profile';
 import { screeningCase } from './screening';
 import { screeningApiCase } from './screening-api';
+import { exhibitPdfCase, packageBuildCase } from './package-build';
 
-export const benchCases: BenchCase[] = [filingEvaluationCase, planeWaveProfileCase, screeningCase, screeningApiCase];
+export const benchCases: BenchCase[] = [filingEvaluationCase, planeWaveProfileCase, screeningCase, screeningApiCase, exhibitPdfCase, packageBuildCase];
