@@ -97,9 +97,17 @@ export function createInProcessQueue(db: Db): JobQueue {
       const result = await handler({ id, organisationId: row.organisationId, payload: row.payload, report });
       repo.markDone(db, id, result);
     } catch (e) {
-      repo.markFailed(db, id, e instanceof Error ? e.message : String(e));
+      try {
+        repo.markFailed(db, id, e instanceof Error ? e.message : String(e));
+      } catch {
+        // The database is gone (the app is shutting down): the next start marks the job failed.
+      }
     } finally {
-      emit(id);
+      try {
+        emit(id);
+      } catch {
+        // As above.
+      }
       running = false;
       setImmediate(() => void runNext());
     }

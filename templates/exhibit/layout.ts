@@ -54,9 +54,11 @@ export function resultText(result: string): string {
   return `${RESULT_MARKS[result] ?? ''} ${RESULT_WORDS[result] ?? result}`.trim();
 }
 
+/** A derivation quantity with its unit; frequencies in Hz read as MHz/GHz, words without a unit. */
 export function quantityText(qty: Quantity): string {
+  if (typeof qty.value === 'number' && qty.unit === 'Hz') return hz(qty.value);
   const value = typeof qty.value === 'number' ? num(qty.value, 6) : qty.value === null ? '—' : String(qty.value);
-  return qty.unit && qty.unit !== '1' ? `${value} ${qty.unit}` : value;
+  return qty.unit && qty.unit !== '1' && qty.unit !== 'text' ? `${value} ${qty.unit}` : value;
 }
 
 export function derivationRows(d: Derivation): [string, string][] {
@@ -108,7 +110,7 @@ function summaryBlocks(m: ExhibitModel): Block[] {
     );
   }
   if (m.screening.gaps.length) {
-    blocks.push({ kind: 'paragraph', style: 'caution', text: `${m.screening.gaps.length} combination(s) could not be screened: ${m.screening.gaps.map((g) => `${g.transmitterId} at ${g.usePositionId} — ${g.message}`).join('; ')}` });
+    blocks.push({ kind: 'paragraph', style: 'caution', text: `${m.screening.gaps.length} combination(s) could not be screened. ${m.screening.gaps.map((g) => `${g.transmitterId} at ${g.usePositionId}: ${g.message}`).join(' ')}` });
   }
   return blocks;
 }

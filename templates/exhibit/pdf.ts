@@ -337,9 +337,13 @@ class Flow {
   derivation(entry: { ref: string; title: string; derivation: ExhibitModel['appendix'][number]['derivation'] }) {
     const d = entry.derivation;
     const rows = derivationRows(d);
-    this.ensure(SIZE.h2 * 2 + 30);
-    this.text(`${entry.ref}  ${entry.title}`, MARGIN_X, this.y - SIZE.body, this.fonts.semibold, SIZE.body, ACCENT);
-    this.y -= SIZE.body * 1.7;
+    const title = this.wrap(`${entry.ref}  ${entry.title}`, this.fonts.semibold, SIZE.body, TEXT_W);
+    this.ensure(title.length * SIZE.body * 1.35 + 60);
+    for (const line of title) {
+      this.text(line, MARGIN_X, this.y - SIZE.body, this.fonts.semibold, SIZE.body, ACCENT);
+      this.y -= SIZE.body * 1.35;
+    }
+    this.y -= SIZE.body * 0.4;
     this.table(
       [
         { title: '', width: 0.27 },
