@@ -588,3 +588,59 @@ export const versionSignatures = sqliteTable(
   },
   (t) => [uniqueIndex('version_signatures_version').on(t.versionId)],
 );
+
+// ---------------------------------------------------------------------------------------------
+// Background jobs and submission packages.
+
+/**
+ * Background jobs (package builds) run by the in-process queue (server/jobs/queue.ts). A job
+ * that was queued or running when the server stopped is marked failed at the next start and can
+ * be run again.
+ */
+export const jobs = sqliteTable(
+  'jobs',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    kind: text('kind').notNull(),
+    organisationId: integer('organisation_id')
+      .notNull()
+      .references(() => organisations.id),
+    /** JSON: what the job works on. */
+    payload: text('payload', { mode: 'json' }).notNull().$type<Record<string, unknown>>(),
+    state: text('state', { enum: ['queued', 'running', 'done', 'failed'] }).notNull().default('queued'),
+    stage: text('stage').notNull().default('queued'),
+    percent: integer('percent').notNull().default(0),
+    /** JSON: what a finished job produced. */
+    result: text('result', { mode: 'json' }).$type<Record<string, unknown>>(),
+    error: text('error'),
+    requestedByUserId: integer('requested_by_user_id').references(() => users.id),
+    createdAt: createdAt(),
+    startedAt: text('started_at'),
+    finishedAt: text('finished_at'),
+  },
+  (t) => [index('jobs_org_created').on(t.organisationId, t.createdAt), index('jobs_state').on(t.state)],
+);
+
+/**
+ * Built submission packages. A signed version has one package; a draft keeps its latest
+ * preview (marked DRAFT on every page). The zip itself is kept by the byte storage.
+ */
+export const packages = sqliteTable(
+  'packages',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    versionId: versionRef(),
+    kind: text('kind', { enum: ['signed', 'preview'] }).notNull(),
+    fileName: text('file_name').notNull(),
+    storageKey: text('storage_key').notNull(),
+    sizeBytes: integer('size_bytes').notNull(),
+    sha256: text('sha256').notNull(),
+    /** SHA-256 of manifest.json inside the zip, so a zip's manifest can be recognised. */
+    manifestSha256: text('manifest_sha256').notNull(),
+    /** SHA-256 of the exhibit model the package was built from (a preview is rebuilt when it changes). */
+    modelSha256: text('model_sha256').notNull(),
+    jobId: integer('job_id').references(() => jobs.id),
+    builtAt: createdAt(),
+  },
+  (t) => [uniqueIndex('packages_version_kind').on(t.versionId, t.kind), index('packages_sha256').on(t.sha256), index('packages_manifest_sha256').on(t.manifestSha256)],
+);

@@ -29,6 +29,11 @@ import { filingRoutes, schemaRoutes } from './routes/filings';
 import { labRoutes } from './routes/lab';
 import { evidenceRoutes } from './routes/evidence';
 import { reviewRoutes } from './routes/review';
+import { packageRoutes } from './routes/packages';
+import { createInProcessQueue, type JobQueue } from './jobs/queue';
+import { defaultExhibitSources, type ExhibitSources } from './services/exhibit-sources';
+import { registerPackageJobs, type PackageDeps } from './services/package-service';
+import { version as productVersion } from '../package.json';
 
 export const SESSION_COOKIE = 'fieldfile.sid';
 /** Idle lifetime: each request extends the cookie (rolling). */
@@ -101,10 +106,22 @@ export interface CreateAppOptions {
   serveWeb?: boolean;
   /** Byte storage; defaults to local disk under config.dataDir. */
   storage?: Storages;
+  /** Where the exhibit takes lab results, readiness, signature and evidence from. */
+  exhibitSources?: Partial<ExhibitSources>;
+  queue?: JobQueue;
 }
 
-export function createApp({ handle, config, mailer, serveWeb = true, storage = createStorages(config) }: CreateAppOptions) {
+export function createApp({ handle, config, mailer, serveWeb = true, storage = createStorages(config), exhibitSources, queue }: CreateAppOptions) {
   const ctx: AppContext = { db: handle.db, config, mailer, storage };
+  const packages: PackageDeps = {
+    db: handle.db,
+    queue: queue ?? createInProcessQueue(handle.db),
+    storage: storage.packages,
+    sources: { ...defaultExhibitSources, ...exhibitSources },
+    producer: `Fieldfile ${productVersion}`,
+  };
+  registerPackageJobs(packages);
+  packages.queue.recoverInterrupted();
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', config.trustProxy);
@@ -166,6 +183,7 @@ export function createApp({ handle, config, mailer, serveWeb = true, storage = c
   api.use('/filings', labRoutes(ctx));
   api.use('/filings', reviewRoutes(ctx));
   api.use('/schema', schemaRoutes());
+  api.use(packageRoutes(packages));
   api.use(apiNotFound);
   api.use(errorHandler);
   app.use('/api', api);
@@ -178,5 +196,5 @@ export function createApp({ handle, config, mailer, serveWeb = true, storage = c
   }
   app.use(errorHandler);
 
-  return { app, close: () => store.close() };
+  return { app, packages, close: () => store.close() };
 }

@@ -3,9 +3,9 @@ import type { SessionUser } from '../../constants/schemas/auth';
 import type { IconName } from '../icons';
 
 export interface NavItem {
-  href: '/filings' | '/users' | '/outbox' | '/activity' | '/profile';
+  href: '/filings' | '/verify' | '/users' | '/outbox' | '/activity' | '/profile';
   /** Stable id for tests (`nav-<id>`), independent of the wording. */
-  id: 'filings' | 'people' | 'outbox' | 'activity' | 'profile';
+  id: 'filings' | 'verify' | 'people' | 'outbox' | 'activity' | 'profile';
   label: string;
   icon: IconName;
   adminOnly: boolean;
@@ -13,6 +13,7 @@ export interface NavItem {
 
 export const NAV_ITEMS: readonly NavItem[] = [
   { href: '/filings', id: 'filings', label: 'Filings', icon: 'filings', adminOnly: false },
+  { href: '/verify', id: 'verify', label: 'Verify', icon: 'check', adminOnly: false },
   { href: '/users', id: 'people', label: 'People', icon: 'people', adminOnly: true },
   { href: '/outbox', id: 'outbox', label: 'Sent mail', icon: 'outbox', adminOnly: true },
   { href: '/activity', id: 'activity', label: 'Activity', icon: 'activity', adminOnly: true },

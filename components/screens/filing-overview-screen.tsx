@@ -3,7 +3,7 @@ import { useRouter } from 'expo-router';
 import { Linking, StyleSheet, View } from 'react-native';
 import { PRODUCT_TYPE_LABELS, REGIME_LABELS, type MarketRegime } from '../../constants/schemas/device-file';
 import { STEP_LABELS } from '../../constants/schemas/filings';
-import { palette, space } from '../../constants/theme';
+import { space } from '../../constants/theme';
 import { deviceFileUrl, useFilingQuery } from '../../hooks/queries/filings';
 import { useIsWide } from '../../hooks/use-is-wide';
 import { BackLink } from '../filings/back-link';
@@ -18,6 +18,8 @@ import { Card } from '../ui/card';
 import { Notice } from '../ui/notice';
 import { StatusBadge } from '../ui/status-badge';
 import { Text } from '../ui/text';
+import { PackageCard } from '../packages/package-card';
+import { Fact } from '../ui/fact';
 
 export function FilingOverviewScreen() {
   const id = useFilingId();
@@ -84,22 +86,11 @@ export function FilingOverviewScreen() {
         </Text>
         <Button label="Export device.json" variant="secondary" icon="link" onPress={() => void Linking.openURL(deviceFileUrl(f.id))} style={{ alignSelf: 'flex-start' }} testID="export-device-file" />
       </Card>
+      <PackageCard filingId={f.id} versionNumber={f.version.number} />
     </Screen>
-  );
-}
-
-function Fact({ label, value }: { label: string; value: string }) {
-  return (
-    <View style={styles.fact}>
-      <Text variant="small" tone="muted">
-        {label}
-      </Text>
-      <Text variant="bodyStrong">{value}</Text>
-    </View>
   );
 }
 
 const styles = StyleSheet.create({
   facts: { flexDirection: 'row', flexWrap: 'wrap', gap: space.lg },
-  fact: { minWidth: 140, gap: 2, paddingBottom: space.xs, borderBottomWidth: 1, borderBottomColor: palette.paperDeep },
 });

@@ -116,7 +116,17 @@ export function screeningResponseForFiling(db: Db, actor: FilingActor, filingId:
  */
 export function depthProfileForFiling(db: Db, actor: FilingActor, filingId: number, q: { transmitterId: string; usePositionId: string; regime?: ScreeningRegime }) {
   const detail = getFiling(db, actor, filingId);
-  const input = screeningInputFor(detail);
+  return {
+    ...depthProfileOf(screeningInputFor(detail), q),
+    cautions: [
+      'A screening estimate from a plane-wave model of layered tissue; it never replaces a SAR measurement where the rules require one.',
+      ...SCREENING_CAUTIONS,
+    ],
+  };
+}
+
+/** The depth profile of one transmitter at one use position from a version's screening input (also used by the exhibit). */
+export function depthProfileOf(input: ScreeningInput, q: { transmitterId: string; usePositionId: string; regime?: ScreeningRegime }) {
   const tx = input.transmitters.find((t) => t.id === q.transmitterId);
   const position = input.usePositions.find((p) => p.id === q.usePositionId);
   if (!tx || !position) throw notFound('No such transmitter or use position in this filing.');
@@ -139,10 +149,6 @@ export function depthProfileForFiling(db: Db, actor: FilingActor, filingId: numb
     usePositionId: position.id,
     basis: { regime: row.regime, frequencyHz: row.frequencyHz, eirpW, separationM: row.separationM, method: row.method },
     ...profile,
-    cautions: [
-      'A screening estimate from a plane-wave model of layered tissue; it never replaces a SAR measurement where the rules require one.',
-      ...SCREENING_CAUTIONS,
-    ],
   };
 }
 

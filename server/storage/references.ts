@@ -5,5 +5,9 @@
  */
 import { allEvidenceHashes } from '../repos/evidence-repo';
 import type { ReferenceSource } from './sweep';
+import { allStorageKeys } from '../repos/packages-repo';
 
-export const referenceSources: ReferenceSource[] = [{ area: 'uploads', referenced: allEvidenceHashes }];
+export const referenceSources: ReferenceSource[] = [
+  { area: 'uploads', referenced: allEvidenceHashes },
+  { area: 'packages', referenced: allStorageKeys },
+];

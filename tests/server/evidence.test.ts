@@ -218,7 +218,7 @@ describe('roles', () => {
 
 describe('limits and interruptions', () => {
   it('answers 413 over the per-file and per-filing limits and keeps nothing', async () => {
-    const small = await createTestApp({ FIELDFILE_EVIDENCE_MAX_FILE_BYTES: '4000', FIELDFILE_EVIDENCE_MAX_FILING_BYTES: '6000' });
+    const small = await createTestApp({ env: { FIELDFILE_EVIDENCE_MAX_FILE_BYTES: '4000', FIELDFILE_EVIDENCE_MAX_FILING_BYTES: '6000'  } });
     try {
       await seedUsers(small);
       const spec = await signIn(small, 'specialist@fieldfile.test');

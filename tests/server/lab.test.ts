@@ -198,7 +198,7 @@ describe('import', () => {
   });
 
   it('over the size limit is 413 and stores nothing', { timeout: 60_000 }, async () => {
-    const small = await createTestApp({ FIELDFILE_IMPORT_MAX_BYTES: '2048' });
+    const small = await createTestApp({ env: { FIELDFILE_IMPORT_MAX_BYTES: '2048'  } });
     try {
       await seedUsers(small);
       const sp = await signIn(small, 'specialist@fieldfile.test');

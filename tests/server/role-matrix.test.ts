@@ -131,6 +131,19 @@ export const MATRIX: Record<string, Row> = {
   'POST /api/filings/:id/review/threads/:threadId/reopen': { expect: review({ specialist: 409 }), params: () => ({ threadId: 999999 }) },
   'POST /api/filings/:id/versions': { expect: review({ specialist: 409 }) },
   'POST /api/filings/:id/versions/:number/verify': { expect: ownOrganisation(409), params: () => ({ number: 1 }) },
+  // Packages: version 1 of the demo filing is a draft, so its package is a DRAFT preview (no build yet
+  // when the download row runs: 409 for the roles that may download it; admins hold no filing role).
+  'GET /api/filings/:id/versions/:n/package/status': { expect: ownOrganisation(200), params: () => ({ n: 1 }) },
+  'GET /api/filings/:id/versions/:n/package': {
+    expect: { anon: 401, admin: 403, specialist: 409, engineer: 409, approver: 409, otherAdmin: 404, otherSpecialist: 404 },
+    params: () => ({ n: 1 }),
+  },
+  'POST /api/filings/:id/versions/:n/package': {
+    expect: { anon: 401, admin: 403, specialist: 202, engineer: 202, approver: 202, otherAdmin: 404, otherSpecialist: 404 },
+    params: () => ({ n: 1 }),
+  },
+  'GET /api/jobs/:id/events': { expect: signedIn(404), params: () => ({ id: 999_999 }) },
+  'POST /api/packages/verify': { expect: signedIn(422) },
 };
 
 /** Defaults for path parameters; a row's `params` overrides them. */

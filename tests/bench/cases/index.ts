@@ -8,5 +8,6 @@ import { screeningPageCase } from './screening-page';
 import { labImportCase, labRecomputeCase } from './lab';
 import { evidenceUploadCase, readBackCase } from './evidence';
 import { compareCase, readinessCase } from './readiness';
+import { exhibitPdfCase, packageBuildCase } from './package-build';
 
-export const benchCases: BenchCase[] = [filingEvaluationCase, planeWaveProfileCase, screeningCase, screeningApiCase, screeningPageCase, labRecomputeCase, labImportCase, evidenceUploadCase, readBackCase, readinessCase, compareCase];
+export const benchCases: BenchCase[] = [filingEvaluationCase, planeWaveProfileCase, screeningCase, screeningApiCase, screeningPageCase, labRecomputeCase, labImportCase, evidenceUploadCase, readBackCase, readinessCase, compareCase, exhibitPdfCase, packageBuildCase];

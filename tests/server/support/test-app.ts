@@ -8,7 +8,7 @@ import path from 'node:path';
 import request from 'supertest';
 import { openDatabase, type DbHandle } from '../../../db/client';
 import { applyMigrations } from '../../../db/migrate';
-import { createApp } from '../../../server/app';
+import { createApp, type CreateAppOptions } from '../../../server/app';
 import { loadConfig, type Config } from '../../../server/env';
 import { createMailer } from '../../../server/services/mailer';
 import { startMailCatcher, type MailCatcher } from '../../../server/services/mail-catcher';
@@ -25,27 +25,37 @@ export interface TestApp {
   handle: DbHandle;
   config: Config;
   catcher: MailCatcher;
+  packages: ReturnType<typeof createApp>['packages'];
   close(): Promise<void>;
 }
 
-/** `env` adds or overrides environment variables (e.g. a small import limit). */
-export async function createTestApp(env: Record<string, string> = {}): Promise<TestApp> {
-  const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'fieldfile-test-'));
+export interface TestAppOptions {
+  /** Stand-ins for what other modules record (lab results, signature, evidence) in the exhibit. */
+  exhibitSources?: CreateAppOptions['exhibitSources'];
+  /** An existing data folder (e.g. one a killed process left behind) instead of a fresh one. */
+  dataDir?: string;
+  /** Adds or overrides environment variables (e.g. a small import limit). */
+  env?: Record<string, string>;
+}
+
+export async function createTestApp(opts: TestAppOptions = {}): Promise<TestApp> {
+  const dataDir = opts.dataDir ?? fs.mkdtempSync(path.join(os.tmpdir(), 'fieldfile-test-'));
   const config = loadConfig({
     NODE_ENV: 'test',
     FIELDFILE_DATA_DIR: dataDir,
     FIELDFILE_DEMO_PASSWORD: TEST_PASSWORD,
     FIELDFILE_PUBLIC_URL: 'http://fieldfile.test:8080',
     FIELDFILE_SCRYPT_LOG2N: '14',
-    ...env,
+    ...opts.env,
   });
   const handle = openDatabase(path.join(dataDir, 'fieldfile.db'));
   applyMigrations(handle.db);
   const catcher = await startMailCatcher(handle.db, 0);
   const mailer = createMailer(config, () => catcher.port);
-  const { app, close } = createApp({ handle, config, mailer, serveWeb: false });
+  const { app, close, packages } = createApp({ handle, config, mailer, serveWeb: false, exhibitSources: opts.exhibitSources });
   return {
     app,
+    packages,
     handle,
     config,
     catcher,

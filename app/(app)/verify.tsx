@@ -1,0 +1,3 @@
+import { PackageVerifyScreen } from '../../components/screens/package-verify-screen';
+
+export default PackageVerifyScreen;

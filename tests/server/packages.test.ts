@@ -1,0 +1,345 @@
+/**
+ * Submission packages through the API: a DRAFT preview of the demo filing and a signed package
+ * (with stand-ins for lab results, signature and evidence) are built as jobs, downloaded,
+ * unpacked and checked file by file against the manifest; the PDF's text is read back with
+ * pdfjs-dist and the DOCX's document.xml with JSZip; two builds give the same bytes; verify
+ * recognises the package and catches a tampered copy; roles and the audit trail.
+ */
+import { createHash } from 'node:crypto';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import JSZip from 'jszip';
+import type request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import { DEMO_TRACKER } from '../../seeds/demo-filing';
+import { createTestApp, seedUsers, signIn, type TestApp } from './support/test-app';
+import { fullSources, LAB, markSigned, SIGNED_AT, writeEvidence } from './support/package-fixtures';
+import { assembleExhibit } from '../../server/services/exhibit-service';
+import { buildPackage, fileSink } from '../../server/services/package-builder';
+import { defaultExhibitSources } from '../../server/services/exhibit-sources';
+
+type Agent = Awaited<ReturnType<typeof signIn>>;
+// Builds render a 50-page PDF on a shared two-core machine: generous limits, no timing asserted.
+vi.setConfig({ testTimeout: 120_000, hookTimeout: 60_000 });
+const sha256 = (b: Buffer | Uint8Array) => createHash('sha256').update(b).digest('hex');
+const transmitterIds = (DEMO_TRACKER.transmitters ?? []).map((x) => x.id);
+
+const binary = (res: request.Response, cb: (err: Error | null, body: Buffer) => void) => {
+  const chunks: Buffer[] = [];
+  res.on('data', (c: Buffer) => chunks.push(c));
+  res.on('end', () => cb(null, Buffer.concat(chunks)));
+};
+
+async function pdfText(bytes: Uint8Array): Promise<string[]> {
+  const pdfjs = await import('pdfjs-dist/legacy/build/pdf.mjs');
+  const doc = await pdfjs.getDocument({ data: new Uint8Array(bytes), useSystemFonts: false, disableFontFace: true, verbosity: 0 }).promise;
+  const pages: string[] = [];
+  for (let i = 1; i <= doc.numPages; i++) {
+    const content = await (await doc.getPage(i)).getTextContent();
+    pages.push(content.items.map((it) => ('str' in it ? it.str : '')).join('\n'));
+  }
+  return pages;
+}
+
+/** Builds through the API and follows the job's Server-Sent Events until it ends. */
+async function buildAndWait(agent: Agent, filingId: number, n: number) {
+  const start = await agent.post(`/api/filings/${filingId}/versions/${n}/package`);
+  expect(start.status).toBe(202);
+  const events = await agent.get(`/api/jobs/${start.body.job.id}/events`).buffer(true).parse((res, cb) => {
+    let text = '';
+    res.on('data', (c: Buffer) => (text += c.toString()));
+    res.on('end', () => cb(null, text));
+  });
+  expect(events.headers['content-type']).toMatch(/text\/event-stream/);
+  const statuses = String(events.body)
+    .split('\n\n')
+    .filter((e) => e.startsWith('event: progress'))
+    .map((e) => JSON.parse(e.split('data: ')[1]));
+  return statuses;
+}
+
+async function download(agent: Agent, filingId: number, n: number) {
+  const res = await agent.get(`/api/filings/${filingId}/versions/${n}/package`).buffer(true).parse(binary);
+  return res;
+}
+
+async function checkAgainstManifest(zipBytes: Buffer) {
+  const zip = await JSZip.loadAsync(zipBytes);
+  const manifest = JSON.parse(await zip.file('manifest.json')!.async('string'));
+  const names = Object.keys(zip.files).filter((n) => !zip.files[n].dir);
+  expect(names.sort()).toEqual(['manifest.json', ...manifest.files.map((f: { path: string }) => f.path)].sort());
+  for (const f of manifest.files) {
+    const data = await zip.file(f.path)!.async('nodebuffer');
+    expect(sha256(data), f.path).toBe(f.sha256);
+    expect(data.length, f.path).toBe(f.sizeBytes);
+  }
+  return { zip, manifest };
+}
+
+describe('a DRAFT preview of the demo filing', () => {
+  let t: TestApp;
+  let specialist: Agent;
+  let engineer: Agent;
+  let admin: Agent;
+  let zipBytes: Buffer;
+
+  beforeAll(async () => {
+    t = await createTestApp();
+    await seedUsers(t);
+    [specialist, engineer, admin] = await Promise.all([signIn(t, 'specialist@fieldfile.test'), signIn(t, 'engineer@fieldfile.test'), signIn(t, 'admin@fieldfile.test')]);
+  });
+  afterAll(() => t.close());
+
+  it('is not there before it is built, and the status says what a build would give', async () => {
+    const status = await engineer.get('/api/filings/1/versions/1/package/status');
+    expect(status.status).toBe(200);
+    expect(status.body).toMatchObject({ kind: 'preview', package: null, upToDate: false, canDownload: true, canBuild: true });
+    const res = await engineer.get('/api/filings/1/versions/1/package');
+    expect(res.status).toBe(409);
+    expect(res.body.error.message).toMatch(/build one first/);
+  });
+
+  it('is built as a job whose progress streams by stage and percent, and an engineer downloads it', async () => {
+    const statuses = await buildAndWait(engineer, 1, 1);
+    expect(statuses.at(-1)).toMatchObject({ state: 'done', percent: 100 });
+    const stages = new Set(statuses.map((s) => s.stage));
+    expect(stages).toContain('exhibit-pdf');
+    const percents = statuses.map((s) => s.percent);
+    expect(percents).toEqual([...percents].sort((a, b) => a - b));
+    const res = await download(engineer, 1, 1);
+    expect(res.status).toBe(200);
+    expect(res.headers['content-type']).toBe('application/zip');
+    expect(res.headers['content-disposition']).toBe('attachment; filename="trailhound-th-4-rugged-tracker-v1-draft.zip"');
+    zipBytes = res.body;
+    expect(res.headers['x-content-sha256']).toBe(sha256(zipBytes));
+    expect(res.headers['repr-digest']).toBe(`sha-256=:${createHash('sha256').update(zipBytes).digest('base64')}:`);
+  });
+
+  it('holds the manifest, the exhibit, the results, and every file matches its manifest hash', async () => {
+    const { manifest, zip } = await checkAgainstManifest(zipBytes);
+    expect(manifest).toMatchObject({ format: 'fieldfile.package/1', status: 'draft-preview', filing: { id: 1, version: 1 }, signature: null, engine: { version: expect.any(String), ruleSetVersion: expect.any(String) } });
+    expect(manifest.files.map((f: { path: string }) => f.path)).toEqual([
+      'exhibit/trailhound-th-4-rugged-tracker-v1-rf-exposure-exhibit.pdf',
+      'exhibit/trailhound-th-4-rugged-tracker-v1-rf-exposure-exhibit.docx',
+      'results/screening.csv',
+      'results/lab-sar.csv',
+    ]);
+    const csv = await zip.file('results/screening.csv')!.async('string');
+    const lines = csv.trim().split('\r\n');
+    expect(lines[0]).toBe('transmitter_id,use_position_id,use_position_kind,market,exposure_tier,rule,frequency_Hz,separation_m,evaluated_power_W,evaluated_quantity,threshold,threshold_unit,result,margin_dB,estimated_sar_W_per_kg,appendix_ref');
+    for (const id of transmitterIds) expect(csv).toContain(`\r\n${id},`);
+  });
+
+  it('says DRAFT on every page of the PDF and every transmitter is in its text', async () => {
+    const zip = await JSZip.loadAsync(zipBytes);
+    const pdf = await zip.file(/\.pdf$/)[0].async('uint8array');
+    const pages = await pdfText(pdf);
+    expect(pages.length).toBeGreaterThan(10);
+    pages.forEach((p, i) => {
+      expect(p, `page ${i + 1}`).toContain('DRAFT');
+      expect(p, `page ${i + 1}`).toContain(`Page ${i + 1} of ${pages.length}`);
+    });
+    const all = pages.join('\n');
+    for (const id of transmitterIds) expect(all).toContain(id);
+    expect(all).toContain('The certifying body decides on every filing.');
+  });
+
+  it('is refused to an admin, who has no role in filings', async () => {
+    expect((await admin.get('/api/filings/1/versions/1/package')).status).toBe(403);
+    expect((await admin.post('/api/filings/1/versions/1/package')).status).toBe(403);
+  });
+
+  it('is refused without a session and for a version that does not exist', async () => {
+    const { default: request } = await import('supertest');
+    expect((await request(t.app).get('/api/filings/1/versions/1/package')).status).toBe(401);
+    const missing = await specialist.get('/api/filings/1/versions/9/package');
+    expect(missing.status).toBe(404);
+    expect(missing.body.error.message).toMatch(/No version 9 of filing 1/);
+    expect((await specialist.get('/api/filings/1/versions/x/package')).status).toBe(422);
+  });
+
+  it('goes stale when the data changes, and is refused until it is built again', async () => {
+    const radios = (await specialist.get('/api/filings/1')).body.filing.data.radios;
+    radios.transmitters[0].maxTuneUpPowerDbm = 23.5;
+    expect((await specialist.put('/api/filings/1/steps/radios').send(radios)).status).toBe(200);
+    const status = await engineer.get('/api/filings/1/versions/1/package/status');
+    expect(status.body).toMatchObject({ upToDate: false, package: { kind: 'preview' } });
+    expect((await engineer.get('/api/filings/1/versions/1/package')).status).toBe(409);
+  });
+});
+
+describe('a signed package', () => {
+  let t: TestApp;
+  let approver: Agent;
+  let engineer: Agent;
+  let specialist: Agent;
+  let zipBytes: Buffer;
+  let evidenceDir: string;
+
+  beforeAll(async () => {
+    evidenceDir = fs.mkdtempSync(path.join(os.tmpdir(), 'fieldfile-evidence-'));
+    const evidence = writeEvidence(evidenceDir, [
+      { category: 'Test setup photos', fileName: 'belt-clip.jpg', data: Buffer.alloc(40_000, 7) },
+      { category: 'Lab report', fileName: 'sar-report.pdf', data: Buffer.from('%PDF-1.7 stand-in report') },
+      { category: 'Lab report', fileName: 'liquid-check.csv', data: Buffer.from('frequency_Hz,eps_r\r\n1880000000,39.6\r\n') },
+    ]);
+    t = await createTestApp({ exhibitSources: fullSources(evidence) });
+    await seedUsers(t);
+    markSigned(t.handle.db, 1);
+    [approver, engineer, specialist] = await Promise.all([signIn(t, 'approver@fieldfile.test'), signIn(t, 'engineer@fieldfile.test'), signIn(t, 'specialist@fieldfile.test')]);
+  });
+  afterAll(async () => {
+    await t.close();
+    fs.rmSync(evidenceDir, { recursive: true, force: true });
+  });
+
+  it('is built and downloaded by the approver, and an engineer may neither build nor download it', async () => {
+    expect((await engineer.post('/api/filings/1/versions/1/package')).status).toBe(403);
+    const statuses = await buildAndWait(approver, 1, 1);
+    expect(statuses.at(-1)).toMatchObject({ state: 'done' });
+    const res = await download(approver, 1, 1);
+    expect(res.status).toBe(200);
+    expect(res.headers['content-disposition']).toBe('attachment; filename="trailhound-th-4-rugged-tracker-v1.zip"');
+    zipBytes = res.body;
+    const denied = await engineer.get('/api/filings/1/versions/1/package');
+    expect(denied.status).toBe(403);
+    expect(denied.body.error.message).toMatch(/approver or specialist/);
+  });
+
+  it('records each download in the audit trail', async () => {
+    await download(specialist, 1, 1);
+    const audit = t.handle.sqlite.prepare("select actor_user_id, details from audit_log where action = 'package.download' order by id").all() as { details: string }[];
+    expect(audit).toHaveLength(2);
+    expect(JSON.parse(audit[0].details)).toMatchObject({ version: 1, kind: 'signed', sha256: sha256(zipBytes) });
+  });
+
+  it('holds the evidence in folders by category, dated with the signing time, stored or deflated by type', async () => {
+    const { manifest, zip } = await checkAgainstManifest(zipBytes);
+    expect(manifest.status).toBe('signed');
+    expect(manifest.signature).toMatchObject({ signerName: 'Jonas Weber', signedAt: SIGNED_AT });
+    expect(manifest.readiness).toMatchObject({ met: 1, open: 0 });
+    const paths = manifest.files.map((f: { path: string }) => f.path);
+    expect(paths).toEqual(expect.arrayContaining(['evidence/test-setup-photos/belt-clip.jpg', 'evidence/lab-report/sar-report.pdf', 'evidence/lab-report/liquid-check.csv']));
+    for (const name of Object.keys(zip.files)) expect(zip.files[name].date.toISOString(), name).toBe('2026-11-30T14:05:00.000Z');
+    // Compression method per entry from the central directory: 0 stored, 8 deflated.
+    const methods = new Map<string, number>();
+    for (let at = zipBytes.indexOf(Buffer.from([0x50, 0x4b, 0x01, 0x02])); at >= 0; at = zipBytes.indexOf(Buffer.from([0x50, 0x4b, 0x01, 0x02]), at + 46)) {
+      const nameLength = zipBytes.readUInt16LE(at + 28);
+      methods.set(zipBytes.toString('utf8', at + 46, at + 46 + nameLength), zipBytes.readUInt16LE(at + 10));
+    }
+    const method = (name: string) => methods.get(name);
+    expect(method('evidence/test-setup-photos/belt-clip.jpg')).toBe(0);
+    expect(method('exhibit/trailhound-th-4-rugged-tracker-v1-rf-exposure-exhibit.pdf')).toBe(0);
+    expect(method('results/screening.csv')).toBe(8);
+    expect(method('manifest.json')).toBe(8);
+  });
+
+  it('has a PDF without DRAFT, with embedded fonts, document properties, every transmitter and each highest reported SAR', async () => {
+    const zip = await JSZip.loadAsync(zipBytes);
+    const pdf = Buffer.from(await zip.file(/\.pdf$/)[0].async('uint8array'));
+    const pages = await pdfText(pdf);
+    const all = pages.join('\n');
+    expect(all).not.toContain('DRAFT');
+    for (const id of transmitterIds) expect(all).toContain(id);
+    for (const h of LAB.highestReported) expect(all).toContain(`${h.reportedSarWPerKg.toFixed(2)} W/kg`);
+    expect(all).toContain('Jonas Weber (Approver)');
+    const { PDFDocument, PDFDict, PDFName } = await import('pdf-lib');
+    const parsed = await PDFDocument.load(pdf, { updateMetadata: false });
+    const dicts = parsed.context.enumerateIndirectObjects().map(([, o]) => o).filter((o) => o instanceof PDFDict);
+    const fonts = dicts.filter((d) => d.get(PDFName.of('Type')) === PDFName.of('Font'));
+    const descriptors = dicts.filter((d) => d.get(PDFName.of('Type')) === PDFName.of('FontDescriptor'));
+    expect(descriptors.length).toBeGreaterThanOrEqual(3);
+    for (const d of descriptors) expect(d.has(PDFName.of('FontFile2')), String(d.get(PDFName.of('FontName')))).toBe(true);
+    // No standard-14 font: every font is a Type0 with an embedded TrueType descendant.
+    for (const f of fonts) expect(['/Type0', '/CIDFontType2']).toContain(String(f.get(PDFName.of('Subtype'))));
+    const doc = parsed;
+    expect(doc.getAuthor()).toBe('Halden Ridge Instruments');
+    expect(doc.getTitle()).toMatch(/RF-exposure exhibit — Trailhound TH-4 rugged tracker \(TH4-LW2\) v1$/);
+    expect(doc.getCreationDate()?.toISOString()).toBe('2026-11-30T14:05:00.000Z');
+    expect(doc.getSubject()).toMatch(/filing 1 version 1/);
+  });
+
+  it('has a DOCX whose document.xml has real headings and tables, every transmitter and each highest reported SAR', async () => {
+    const zip = await JSZip.loadAsync(zipBytes);
+    const docx = await JSZip.loadAsync(await zip.file(/\.docx$/)[0].async('nodebuffer'));
+    const xml = await docx.file('word/document.xml')!.async('string');
+    for (const id of transmitterIds) expect(xml).toContain(id);
+    for (const h of LAB.highestReported) expect(xml).toContain(`${h.reportedSarWPerKg.toFixed(2)} W/kg`);
+    expect(xml).toContain('<w:tbl>');
+    expect(xml).toMatch(/<w:pStyle w:val="Heading1"\/>/);
+    expect(xml).toContain('<w:tblHeader/>');
+    expect(xml).not.toContain('DRAFT');
+    const core = await docx.file('docProps/core.xml')!.async('string');
+    expect(core).toContain('2026-11-30T14:05:00Z');
+  });
+
+  it('gives the same bytes when built again', async () => {
+    await buildAndWait(approver, 1, 1);
+    const again = await download(approver, 1, 1);
+    expect(sha256(again.body)).toBe(sha256(zipBytes));
+  });
+
+  it('is recognised by verify from its hash and from the zip', async () => {
+    const byHash = await engineer.post('/api/packages/verify').send({ sha256: sha256(zipBytes) });
+    expect(byHash.status).toBe(200);
+    expect(byHash.body).toMatchObject({ verdict: 'intact', signed: true, package: { filingId: 1, versionNumber: 1, kind: 'signed' } });
+    const byZip = await engineer.post('/api/packages/verify').attach('file', zipBytes, 'package.zip');
+    expect(byZip.body).toMatchObject({ verdict: 'intact', signed: true });
+  });
+
+  it('catches a tampered copy and names the changed, missing and added files', async () => {
+    const zip = await JSZip.loadAsync(zipBytes);
+    zip.file('results/screening.csv', 'transmitter_id\r\nLTE-B12\r\n');
+    zip.remove('evidence/lab-report/liquid-check.csv');
+    zip.file('evidence/extra.txt', 'slipped in');
+    const tampered = await zip.generateAsync({ type: 'nodebuffer' });
+    const res = await engineer.post('/api/packages/verify').attach('file', tampered, 'package.zip');
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ verdict: 'differs', signed: false, package: { filingId: 1, versionNumber: 1 } });
+    const bad = res.body.files.filter((f: { status: string }) => f.status !== 'ok');
+    expect(bad).toEqual([
+      { path: 'results/screening.csv', status: 'changed' },
+      { path: 'evidence/lab-report/liquid-check.csv', status: 'missing' },
+      { path: 'evidence/extra.txt', status: 'not-in-manifest' },
+    ]);
+    expect(res.body.message).toMatch(/3 files differ/);
+  });
+
+  it('does not vouch for a zip whose manifest was edited, or for unknown hashes and non-zips', async () => {
+    const zip = await JSZip.loadAsync(zipBytes);
+    const manifest = JSON.parse(await zip.file('manifest.json')!.async('string'));
+    manifest.filing.version = 2;
+    zip.file('manifest.json', JSON.stringify(manifest));
+    const res = await engineer.post('/api/packages/verify').attach('file', await zip.generateAsync({ type: 'nodebuffer' }), 'package.zip');
+    expect(res.body).toMatchObject({ verdict: 'unknown', signed: false, package: null });
+    const unknown = await engineer.post('/api/packages/verify').send({ sha256: 'a'.repeat(64) });
+    expect(unknown.body).toMatchObject({ verdict: 'unknown' });
+    const badHash = await engineer.post('/api/packages/verify').send({ sha256: 'xyz' });
+    expect(badHash.status).toBe(422);
+    expect(badHash.body.error.fields.sha256).toMatch(/64 hexadecimal/);
+    const notZip = await engineer.post('/api/packages/verify').attach('file', Buffer.from('hello'), 'notes.zip');
+    expect(notZip.status).toBe(422);
+    expect(notZip.body.error.message).toMatch(/not a zip/);
+  });
+});
+
+describe('the builder on its own', () => {
+  it('gives byte-identical zips for the same version, built twice in a row', async () => {
+    const t = await createTestApp();
+    try {
+      const seeded = await seedUsers(t);
+      const a = assembleExhibit(t.handle.db, seeded.organisationId, 1, 1, defaultExhibitSources)!;
+      const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'fieldfile-build-'));
+      const one = await buildPackage(a, fileSink(path.join(dir, 'one.zip')), { producer: 'Fieldfile test' });
+      const b = assembleExhibit(t.handle.db, seeded.organisationId, 1, 1, defaultExhibitSources)!;
+      const two = await buildPackage(b, fileSink(path.join(dir, 'two.zip')), { producer: 'Fieldfile test' });
+      expect(two.sha256).toBe(one.sha256);
+      expect(sha256(fs.readFileSync(path.join(dir, 'one.zip')))).toBe(one.sha256);
+      expect(fs.readFileSync(path.join(dir, 'two.zip')).equals(fs.readFileSync(path.join(dir, 'one.zip')))).toBe(true);
+      fs.rmSync(dir, { recursive: true, force: true });
+    } finally {
+      await t.close();
+    }
+  });
+});
