@@ -203,7 +203,21 @@ export const VERSION_CONTENT_TABLES: readonly { table: string; where: string }[]
   { table: 'simultaneous_groups', where: 'version_id = :v' },
   { table: 'step_drafts', where: 'version_id = :v' },
   { table: 'screening_results', where: 'version_id = :v' },
+  { table: 'simultaneous_group_members', where: 'group_id in (select id from simultaneous_groups where version_id = :v)' },
+  { table: 'lab_measurements', where: 'version_id = :v' },
+  { table: 'lab_liquid_checks', where: 'version_id = :v' },
+  { table: 'lab_system_checks', where: 'version_id = :v' },
+  { table: 'lab_instruments', where: 'version_id = :v' },
+  { table: 'lab_uncertainty_components', where: 'version_id = :v' },
+  { table: 'evidence_files', where: 'version_id = :v' },
+  { table: 'evidence_explanations', where: 'version_id = :v' },
 ];
+/**
+ * Tables with a version_id that hold what is computed or built from a version (its lab results,
+ * its package): written after signing too, and recomputed from the frozen rows with the engine
+ * and rule-set versions they record, so neither frozen nor part of the hash.
+ */
+export const VERSION_DERIVED_TABLES = ['lab_results', 'packages'] as const;
 /** Tables with a version_id that are frozen but are not part of the hashed content. */
 export const VERSION_REVIEW_TABLES = ['version_editors', 'review_threads', 'review_comments', 'version_signatures'] as const;
 /** Columns left out of the hash because signing itself changes them. */
