@@ -7,6 +7,7 @@ import { sql } from 'drizzle-orm';
 import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
 import { ROLES } from '../constants/schemas/roles';
 import { DATA_STEPS, VERSION_STATES } from '../constants/schemas/filings';
+import { AVERAGING_MASSES, DISTRIBUTIONS, INSTRUMENT_KINDS, LIQUID_KINDS } from '../constants/schemas/lab';
 import { FCC_SAR_SCREENINGS, PRODUCT_TYPES, REGIMES, TIERS, USE_POSITION_KINDS } from '../constants/schemas/device-file';
 
 const createdAt = () =>
@@ -286,20 +287,141 @@ export const stepDrafts = sqliteTable(
   (t) => [primaryKey({ columns: [t.versionId, t.step] })],
 );
 
+/** Columns of a stored engine result: the input's hash and text, the output, and the versions used. */
+const computedResultColumns = () => ({
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  versionId: versionRef(),
+  computedAt: createdAt(),
+  engineVersion: text('engine_version').notNull(),
+  ruleSetVersion: text('rule_set_version').notNull(),
+  /** SHA-256 of the engine input, so an unchanged filing is not stored twice. */
+  inputSha256: text('input_sha256').notNull(),
+  /** JSON text, kept as text so a stored result is sent without parsing it again. */
+  input: text('input').notNull(),
+  output: text('output').notNull(),
+});
+
 /** Each distinct screening computed for a version, with the engine and rule-set versions used. */
-export const screeningResults = sqliteTable(
-  'screening_results',
+export const screeningResults = sqliteTable('screening_results', computedResultColumns(), (t) => [
+  uniqueIndex('screening_results_version_input').on(t.versionId, t.inputSha256, t.engineVersion, t.ruleSetVersion),
+]);
+
+// ---------------------------------------------------------------------------------------------
+// Lab results (the test engineer's data), owned by a filing version like the radios. Transmitters
+// and use positions are referenced by the user's keys, because a Radios save replaces their rows.
+
+export const labMeasurements = sqliteTable(
+  'lab_measurements',
   {
     id: integer('id').primaryKey({ autoIncrement: true }),
     versionId: versionRef(),
-    computedAt: createdAt(),
-    engineVersion: text('engine_version').notNull(),
-    ruleSetVersion: text('rule_set_version').notNull(),
-    /** SHA-256 of the engine input, so an unchanged filing is not stored twice. */
-    inputSha256: text('input_sha256').notNull(),
-    /** JSON text, kept as text so a stored result is sent without parsing it again. */
-    input: text('input').notNull(),
-    output: text('output').notNull(),
+    key: text('key').notNull(),
+    transmitterKey: text('transmitter_key').notNull(),
+    usePositionKey: text('use_position_key').notNull(),
+    testPosition: text('test_position').notNull().default(''),
+    channel: text('channel').notNull().default(''),
+    frequencyHz: real('frequency_hz').notNull(),
+    testSeparationM: real('test_separation_m').notNull(),
+    measuredPowerDbm: real('measured_power_dbm').notNull(),
+    /** Null: the transmitter's maximum tune-up power applies. */
+    tuneUpPowerDbm: real('tune_up_power_dbm'),
+    testDutyCycle: real('test_duty_cycle').notNull().default(1),
+    sar1gWPerKg: real('sar_1g_w_per_kg'),
+    sar10gWPerKg: real('sar_10g_w_per_kg'),
+    repeatSarWPerKg: text('repeat_sar_w_per_kg', { mode: 'json' }).notNull().$type<number[]>(),
+    driftDb: real('drift_db'),
+    testDate: text('test_date').notNull(),
+    peakXMm: real('peak_x_mm'),
+    peakYMm: real('peak_y_mm'),
+    liquidCheckKey: text('liquid_check_key'),
+    systemCheckKey: text('system_check_key'),
+    sortOrder: integer('sort_order').notNull(),
   },
-  (t) => [uniqueIndex('screening_results_version_input').on(t.versionId, t.inputSha256, t.engineVersion, t.ruleSetVersion)],
+  (t) => [uniqueIndex('lab_measurements_version_key').on(t.versionId, t.key)],
+);
+
+export const labLiquidChecks = sqliteTable(
+  'lab_liquid_checks',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    versionId: versionRef(),
+    key: text('key').notNull(),
+    date: text('date').notNull(),
+    liquid: text('liquid', { enum: LIQUID_KINDS }).notNull(),
+    frequencyHz: real('frequency_hz').notNull(),
+    relativePermittivity: real('relative_permittivity').notNull(),
+    conductivitySPerM: real('conductivity_s_per_m').notNull(),
+    temperatureC: real('temperature_c'),
+    sortOrder: integer('sort_order').notNull(),
+  },
+  (t) => [uniqueIndex('lab_liquid_checks_version_key').on(t.versionId, t.key)],
+);
+
+export const labSystemChecks = sqliteTable(
+  'lab_system_checks',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    versionId: versionRef(),
+    key: text('key').notNull(),
+    date: text('date').notNull(),
+    frequencyHz: real('frequency_hz').notNull(),
+    dipoleSerial: text('dipole_serial').notNull().default(''),
+    averagingMass: text('averaging_mass', { enum: AVERAGING_MASSES }).notNull(),
+    measuredSarWPerKgPerW: real('measured_sar_w_per_kg_per_w').notNull(),
+    targetSarWPerKgPerW: real('target_sar_w_per_kg_per_w').notNull(),
+    sortOrder: integer('sort_order').notNull(),
+  },
+  (t) => [uniqueIndex('lab_system_checks_version_key').on(t.versionId, t.key)],
+);
+
+export const labInstruments = sqliteTable(
+  'lab_instruments',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    versionId: versionRef(),
+    key: text('key').notNull(),
+    kind: text('kind', { enum: INSTRUMENT_KINDS }).notNull(),
+    model: text('model').notNull().default(''),
+    serial: text('serial').notNull().default(''),
+    calibrationDate: text('calibration_date').notNull(),
+    dueDate: text('due_date').notNull(),
+    sortOrder: integer('sort_order').notNull(),
+  },
+  (t) => [uniqueIndex('lab_instruments_version_key').on(t.versionId, t.key)],
+);
+
+export const labUncertaintyComponents = sqliteTable(
+  'lab_uncertainty_components',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    versionId: versionRef(),
+    name: text('name').notNull(),
+    valuePct: real('value_pct').notNull(),
+    distribution: text('distribution', { enum: DISTRIBUTIONS }).notNull(),
+    divisor: real('divisor'),
+    sensitivity: real('sensitivity').notNull(),
+    degreesOfFreedom: real('degrees_of_freedom'),
+    sortOrder: integer('sort_order').notNull(),
+  },
+  (t) => [uniqueIndex('lab_uncertainty_components_version_name').on(t.versionId, t.name)],
+);
+
+/** Each distinct lab-results computation for a version, with the engine and rule-set versions. */
+export const labResults = sqliteTable('lab_results', computedResultColumns(), (t) => [
+  uniqueIndex('lab_results_version_input').on(t.versionId, t.inputSha256, t.engineVersion, t.ruleSetVersion),
+]);
+
+/** The column mapping an organisation last used for a spreadsheet with a given header row. */
+export const labImportMappings = sqliteTable(
+  'lab_import_mappings',
+  {
+    organisationId: integer('organisation_id')
+      .notNull()
+      .references(() => organisations.id, { onDelete: 'cascade' }),
+    /** SHA-256 of the header row (trimmed, lower-case, joined by a tab). */
+    headerSha256: text('header_sha256').notNull(),
+    mapping: text('mapping', { mode: 'json' }).notNull().$type<Record<string, { column: string; unit?: string }>>(),
+    updatedAt: text('updated_at').notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.organisationId, t.headerSha256] })],
 );

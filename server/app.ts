@@ -26,6 +26,7 @@ import { outboxRoutes } from './routes/outbox';
 import { auditRoutes } from './routes/audit';
 import { calcRoutes } from './routes/calc';
 import { filingRoutes, schemaRoutes } from './routes/filings';
+import { labRoutes } from './routes/lab';
 
 export const SESSION_COOKIE = 'fieldfile.sid';
 /** Idle lifetime: each request extends the cookie (rolling). */
@@ -159,6 +160,7 @@ export function createApp({ handle, config, mailer, serveWeb = true, storage = c
   api.use('/audit', auditRoutes(ctx));
   api.use('/calc', calcRoutes());
   api.use('/filings', filingRoutes(ctx));
+  api.use('/filings', labRoutes(ctx));
   api.use('/schema', schemaRoutes());
   api.use(apiNotFound);
   api.use(errorHandler);

@@ -47,6 +47,8 @@ const zEnv = z.object({
   SMTP_USER: z.string().optional(),
   SMTP_PASS: z.string().optional(),
   MAIL_FROM: z.string().default('Fieldfile <no-reply@fieldfile.test>'),
+  /** Largest measurement spreadsheet accepted by the lab import, bytes (default 20 MB). */
+  FIELDFILE_IMPORT_MAX_BYTES: z.coerce.number().int().positive().default(20 * 1024 * 1024),
 });
 
 export type Env = z.infer<typeof zEnv>;
@@ -67,6 +69,7 @@ export interface Config {
   demo: { seed: boolean; reason: string };
   trustProxy: boolean | number | string;
   scryptLog2N: number;
+  importMaxBytes: number;
   mail: {
     from: string;
     catcherPort: number;
@@ -98,6 +101,7 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
     demo: demoDecision(e),
     trustProxy: parseTrustProxy(e.FIELDFILE_TRUST_PROXY),
     scryptLog2N: e.FIELDFILE_SCRYPT_LOG2N,
+    importMaxBytes: e.FIELDFILE_IMPORT_MAX_BYTES,
     mail: {
       from: e.MAIL_FROM,
       catcherPort: e.FIELDFILE_MAIL_CATCHER_PORT,

@@ -6,6 +6,7 @@ import { reportedSarCalculation } from './reported-sar';
 import { simultaneousTransmissionCalculation } from './simultaneous-transmission';
 import { systemCheckCalculation } from './system-check';
 import { uncertaintyBudgetCalculation } from './uncertainty-budget';
+import { labResultsCalculation } from './lab-results';
 
 export { reportedSar } from './reported-sar';
 export { repeatMeasurements } from './repeat-measurements';
@@ -14,6 +15,7 @@ export { uncertaintyBudget } from './uncertainty-budget';
 export { liquidTarget, liquidCheck } from './liquid';
 export { systemCheck } from './system-check';
 export { powerDrift } from './power-drift';
+export { computeLabResults, labChecks, labResultsInput, type LabCheck, type LabResults, type LabResultsInput, type LabResultsInputRaw } from './lab-results';
 
 // Measurement-side calculations (SAR lab): reported SAR, repeats, simultaneous transmission,
 // uncertainty, liquid, system check and drift.
@@ -26,4 +28,5 @@ export const labCalculations: Calculation[] = [
   liquidCheckCalculation,
   systemCheckCalculation,
   powerDriftCalculation,
+  labResultsCalculation,
 ] as Calculation[];

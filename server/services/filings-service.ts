@@ -39,13 +39,13 @@ function requireEditor(actor: FilingActor) {
   if (!canEdit(actor)) throw forbidden('Only a compliance specialist can change a filing’s device data. This needs the specialist role.');
 }
 
-function loadFiling(db: Db, actor: FilingActor, filingId: number): repo.FilingRow {
+export function loadFiling(db: Db, actor: FilingActor, filingId: number): repo.FilingRow {
   const row = repo.findFiling(db, actor.organisationId, filingId);
   if (!row) throw notFound('No such filing in your organisation.');
   return row;
 }
 
-function requireEditable(row: repo.FilingRow) {
+export function requireEditable(row: repo.FilingRow) {
   if (!EDITABLE_STATES.includes(row.version.state as VersionState)) {
     throw conflict(`Version ${row.version.number} is ${VERSION_STATE_LABELS[row.version.state as VersionState].toLowerCase()}; its data can no longer change.`);
   }

@@ -27,7 +27,7 @@ export interface ScreeningMeta {
 }
 
 
-function inputFor(detail: ReturnType<typeof getFiling>): ScreeningInput {
+export function screeningInputFor(detail: ReturnType<typeof getFiling>): ScreeningInput {
   return screeningInput.parse({
     markets: detail.data.markets.markets,
     antennas: detail.data.radios.antennas.map((a) => ({ id: a.id, gainDbi: a.gainDbi })),
@@ -58,7 +58,7 @@ export type ScreeningResponse = { encoding: 'gzip'; body: Buffer } | { encoding:
  */
 export function screeningResponseForFiling(db: Db, actor: FilingActor, filingId: number, acceptsGzip: boolean): ScreeningResponse {
   const detail = getFiling(db, actor, filingId);
-  const input = inputFor(detail);
+  const input = screeningInputFor(detail);
   const inputJson = JSON.stringify(input);
   const inputSha256 = createHash('sha256').update(inputJson).digest('hex');
   const key = and(

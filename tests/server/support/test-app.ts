@@ -28,7 +28,8 @@ export interface TestApp {
   close(): Promise<void>;
 }
 
-export async function createTestApp(): Promise<TestApp> {
+/** `env` adds or overrides environment variables (e.g. a small import limit). */
+export async function createTestApp(env: Record<string, string> = {}): Promise<TestApp> {
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'fieldfile-test-'));
   const config = loadConfig({
     NODE_ENV: 'test',
@@ -36,6 +37,7 @@ export async function createTestApp(): Promise<TestApp> {
     FIELDFILE_DEMO_PASSWORD: TEST_PASSWORD,
     FIELDFILE_PUBLIC_URL: 'http://fieldfile.test:8080',
     FIELDFILE_SCRYPT_LOG2N: '14',
+    ...env,
   });
   const handle = openDatabase(path.join(dataDir, 'fieldfile.db'));
   applyMigrations(handle.db);

@@ -1,0 +1,157 @@
+/**
+ * Lab results of a filing's current version: the engineer's measurements, liquid checks, system
+ * checks, instruments and uncertainty budget (read by every role, replaced by the engineer), and
+ * the computed lab results — stored with the engine and rule-set versions like screening.
+ */
+import { createHash } from 'node:crypto';
+import type { Db } from '../../db/client';
+import { LAB_SETS, type LabData, type LabSet, type Measurement } from '../../constants/schemas/lab';
+import { ENGINE_VERSION, RULE_SET_VERSION } from '../../calc/versions';
+import { computeLabResults, labResultsInput, type LabResultsInput } from '../../calc/lab/lab-results';
+import { screenParsed } from '../../calc/screening/screen';
+import { forbidden, unprocessable } from '../http-error';
+import { zodFieldErrors } from '../middleware/validate';
+import * as repo from '../repos/lab-repo';
+import * as filingsRepo from '../repos/filings-repo';
+import { recordAudit } from './audit';
+import { getFiling, loadFiling, requireEditable, type FilingActor } from './filings-service';
+import { screeningInputFor } from './screening-service';
+
+export const LAB_CAUTIONS = [
+  'Reported SAR and checks are summaries of the lab’s measurements; the accredited lab and the certifying body decide.',
+  'Tolerances marked “from memory” should be verified against the standards; follow the applicable regulations.',
+];
+
+export function requireEngineer(actor: FilingActor) {
+  if (!actor.roles.includes('engineer')) throw forbidden('Only a test engineer can change lab results. This needs the engineer role.');
+}
+
+type SetRows = { [S in LabSet]: LabData[(typeof LAB_SETS)[S]['key']] };
+
+const READERS: { [S in LabSet]: (db: Db, versionId: number) => SetRows[S] } = {
+  measurements: repo.readMeasurements,
+  'liquid-checks': repo.readLiquidChecks,
+  'system-checks': repo.readSystemChecks,
+  instruments: repo.readInstruments,
+  'uncertainty-budget': repo.readBudget,
+};
+const WRITERS: { [S in LabSet]: (db: Db, versionId: number, rows: SetRows[S]) => void } = {
+  measurements: repo.writeMeasurements,
+  'liquid-checks': repo.writeLiquidChecks,
+  'system-checks': repo.writeSystemChecks,
+  instruments: repo.writeInstruments,
+  'uncertainty-budget': repo.writeBudget,
+};
+
+export function readLabSet(db: Db, actor: FilingActor, filingId: number, set: LabSet) {
+  const row = loadFiling(db, actor, filingId);
+  return { version: row.version.number, [LAB_SETS[set].key]: READERS[set](db, row.version.id) };
+}
+
+/**
+ * Problems with the ids a measurement names: transmitters and use positions of the device data,
+ * liquid and system checks of the lab data. Keyed like zod paths, each message saying what exists.
+ */
+export function measurementReferenceProblems(
+  rows: Pick<Measurement, 'transmitterId' | 'usePositionId' | 'liquidCheckId' | 'systemCheckId'>[],
+  known: { transmitters: Set<string>; usePositions: Set<string>; liquidChecks: Set<string>; systemChecks: Set<string> },
+  pathOf: (index: number, field: string) => string = (i, f) => `measurements.${i}.${f}`,
+): Record<string, string> {
+  const fields: Record<string, string> = {};
+  const list = (s: Set<string>) => (s.size ? [...s].slice(0, 12).join(', ') : 'none yet');
+  rows.forEach((m, i) => {
+    if (!known.transmitters.has(m.transmitterId)) fields[pathOf(i, 'transmitterId')] = `Unknown transmitter “${m.transmitterId}”; this filing has ${list(known.transmitters)}.`;
+    if (!known.usePositions.has(m.usePositionId)) fields[pathOf(i, 'usePositionId')] = `Unknown use position “${m.usePositionId}”; this filing has ${list(known.usePositions)}.`;
+    if (m.liquidCheckId !== null && !known.liquidChecks.has(m.liquidCheckId)) fields[pathOf(i, 'liquidCheckId')] = `Unknown liquid check “${m.liquidCheckId}”; enter it under liquid checks first (${list(known.liquidChecks)}).`;
+    if (m.systemCheckId !== null && !known.systemChecks.has(m.systemCheckId)) fields[pathOf(i, 'systemCheckId')] = `Unknown system check “${m.systemCheckId}”; enter it under system checks first (${list(known.systemChecks)}).`;
+  });
+  return fields;
+}
+
+export function knownIds(db: Db, versionId: number) {
+  return {
+    transmitters: new Set(filingsRepo.readRadios(db, versionId).transmitters.map((t) => t.id)),
+    usePositions: new Set(filingsRepo.readUsePositions(db, versionId).usePositions.map((p) => p.id)),
+    liquidChecks: new Set(repo.readLiquidChecks(db, versionId).map((l) => l.id)),
+    systemChecks: new Set(repo.readSystemChecks(db, versionId).map((s) => s.id)),
+  };
+}
+
+/** Replaces one lab data set of the current version in one transaction (all or nothing). */
+export function replaceLabSet(db: Db, actor: FilingActor, filingId: number, set: LabSet, body: unknown) {
+  requireEngineer(actor);
+  const row = loadFiling(db, actor, filingId);
+  requireEditable(row);
+  const parsed = LAB_SETS[set].body.safeParse(body);
+  if (!parsed.success) {
+    const fields = zodFieldErrors(parsed.error);
+    throw unprocessable(`${Object.keys(fields).length} field(s) need fixing; nothing was saved.`, fields);
+  }
+  const rows = (parsed.data as Record<string, unknown>)[LAB_SETS[set].key] as SetRows[typeof set];
+  if (set === 'measurements') {
+    const fields = measurementReferenceProblems(rows as Measurement[], knownIds(db, row.version.id));
+    if (Object.keys(fields).length) throw unprocessable(`${Object.keys(fields).length} id(s) do not match this filing; nothing was saved.`, fields);
+  }
+  db.transaction((tx) => {
+    (WRITERS[set] as (db: Db, versionId: number, rows: unknown) => void)(tx, row.version.id, rows);
+    filingsRepo.touchFiling(tx, filingId);
+    recordAudit(tx, { organisationId: actor.organisationId, actorUserId: actor.id, action: `lab.${set}.replace`, targetType: 'filing', targetId: filingId, details: { version: row.version.number, rows: (rows as unknown[]).length } });
+  });
+  return readLabSet(db, actor, filingId, set);
+}
+
+/** The engine input for a filing's lab results: device data, screening rows and lab data. */
+export function labInputFor(db: Db, detail: ReturnType<typeof getFiling>, lab: LabData = repo.readLabData(db, detail.version.id)): LabResultsInput {
+  const screening = screenParsed(screeningInputFor(detail));
+  return labResultsInput.parse({
+    markets: detail.data.markets.markets.map((m) => ({ regime: m.regime, tier: m.tier })),
+    transmitters: detail.data.radios.transmitters,
+    usePositions: detail.data['use-positions'].usePositions,
+    simultaneous: filingsRepo.readSimultaneous(db, detail.version.id),
+    screening: screening.rows.map((s) => ({
+      transmitterId: s.transmitterId,
+      usePositionId: s.usePositionId,
+      regime: s.regime,
+      result: s.result,
+      frequencyHz: s.frequencyHz,
+      separationM: s.separationM,
+      timeAveragedPowerMw: s.powers.timeAveragedPowerMw,
+      evaluatedPowerMw: s.evaluatedPowerMw,
+      thresholdMw: s.thresholdMw,
+      thresholdErpW: s.thresholdErpW,
+      thresholdEirpW: s.thresholdEirpW,
+      evaluatedPowerDensityWPerM2: s.evaluatedPowerDensityWPerM2,
+      thresholdPowerDensityWPerM2: s.thresholdPowerDensityWPerM2,
+    })),
+    measurements: lab.measurements,
+    liquidChecks: lab.liquidChecks,
+    systemChecks: lab.systemChecks,
+    instruments: lab.instruments,
+    uncertainty: lab.components,
+  });
+}
+
+/**
+ * The lab results of a filing's current data as a JSON body. Each distinct input is computed once
+ * and stored with the engine and rule-set versions; an unchanged filing is answered from the store.
+ */
+export function labResultsForFiling(db: Db, actor: FilingActor, filingId: number): string {
+  const detail = getFiling(db, actor, filingId);
+  const input = labInputFor(db, detail);
+  const inputJson = JSON.stringify(input);
+  const inputSha256 = createHash('sha256').update(inputJson).digest('hex');
+  let stored = repo.findLabResult(db, detail.version.id, inputSha256, ENGINE_VERSION, RULE_SET_VERSION);
+  if (!stored) {
+    const { derivation: _d, ...output } = computeLabResults(input);
+    stored = repo.insertLabResult(db, { versionId: detail.version.id, engineVersion: ENGINE_VERSION, ruleSetVersion: RULE_SET_VERSION, inputSha256, input: inputJson, output: JSON.stringify(output) });
+  }
+  const meta = {
+    filingId,
+    version: detail.version.number,
+    engineVersion: ENGINE_VERSION,
+    ruleSetVersion: RULE_SET_VERSION,
+    computedAt: stored.computedAt,
+    cautions: LAB_CAUTIONS,
+  };
+  return `${JSON.stringify(meta).slice(0, -1)},${stored.output.slice(1)}`;
+}
