@@ -12,6 +12,9 @@ import { filings } from '../db/schema';
 import { zDeviceFile } from '../constants/schemas/device-file';
 import { createFiling, importDeviceFile } from '../server/services/filings-service';
 import { DEMO_DOCK_DEVICE, DEMO_TRACKER } from './demo-filing';
+import { DEMO_BUDGET, DEMO_INSTRUMENTS, DEMO_LIQUID_CHECKS, DEMO_MEASUREMENTS, DEMO_SYSTEM_CHECKS } from './demo-lab';
+import { zMeasurementsBody } from '../constants/schemas/lab';
+import * as labRepo from '../server/repos/lab-repo';
 
 export interface SeedResult {
   organisationId: number;
@@ -29,9 +32,21 @@ function seedFilings(db: Db, organisationId: number): number {
   if (db.select({ id: filings.id }).from(filings).where(eq(filings.organisationId, organisationId)).get()) return 0;
   const specialist = usersRepo.findUserByEmail(db, 'specialist@fieldfile.test')!;
   const actor = { id: specialist.id, organisationId, roles: ['specialist' as const] };
-  importDeviceFile(db, actor, zDeviceFile.parse(DEMO_TRACKER));
+  const tracker = importDeviceFile(db, actor, zDeviceFile.parse(DEMO_TRACKER));
+  seedLab(db, tracker.version.id);
   createFiling(db, actor, DEMO_DOCK_DEVICE);
   return 2;
+}
+
+/** The demo tracker's lab results (one liquid check out of tolerance), as the engineer would import them. */
+function seedLab(db: Db, versionId: number) {
+  db.transaction((tx) => {
+    labRepo.writeLiquidChecks(tx, versionId, DEMO_LIQUID_CHECKS);
+    labRepo.writeSystemChecks(tx, versionId, DEMO_SYSTEM_CHECKS);
+    labRepo.writeInstruments(tx, versionId, DEMO_INSTRUMENTS);
+    labRepo.writeBudget(tx, versionId, DEMO_BUDGET);
+    labRepo.writeMeasurements(tx, versionId, zMeasurementsBody.parse({ measurements: DEMO_MEASUREMENTS }).measurements);
+  });
 }
 
 async function seedPeople(db: Db, demoPassword: string) {

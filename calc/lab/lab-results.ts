@@ -23,6 +23,8 @@ import { CalcRangeError, defineCalculation, q, type Derivation, type Quantity, t
 import { sarLimit, type SarRegion } from '../limits/sar-limits';
 import { kdbEstimatedSarWPerKg } from '../limits/kdb-447498';
 import { mpeSumOfRatios } from '../limits/sum-of-ratios';
+import { exposureLimit } from '../limits/exposure-limits';
+import { farFieldPowerDensityWPerM2 } from '../limits/far-field';
 import { computeReportedSar } from './reported-sar';
 import { computeRepeatMeasurements } from './repeat-measurements';
 import { computeLiquidCheck, LIQUID_TOLERANCE_PCT } from './liquid';
@@ -31,6 +33,7 @@ import { computePowerDrift, POWER_DRIFT_TOLERANCE_PCT } from './power-drift';
 import { computeUncertaintyBudget, SAR_EXPANDED_UNCERTAINTY_LIMIT_PCT } from './uncertainty-budget';
 import { computeSimultaneousTransmission, SPLSR_LIMIT, type SplsrPair } from './simultaneous-transmission';
 import { SCREENING_REGIMES, SCREENING_TIERS, USE_POSITION_KINDS, type ScreeningRegime, type UsePositionKind } from '../screening/input';
+import type { ScreeningRow } from '../screening/screen';
 
 /** KDB 865664 D01: uncertainty budget required at or above these highest measured SARs, W/kg [from memory]. */
 export const UNCERTAINTY_REQUIRED_W_PER_KG = { '1g': 1.5, '10g': 3.75 } as const;
@@ -85,6 +88,7 @@ export const labResultsInput = z.object({
         frequencyHz: num,
         separationM: num,
         timeAveragedPowerMw: num,
+        eirpMw: num,
         evaluatedPowerMw: num,
         thresholdMw: num.nullable(),
         thresholdErpW: num.nullable(),
@@ -160,6 +164,26 @@ export const labResultsInput = z.object({
     .default([]),
 });
 export type LabResultsInput = z.output<typeof labResultsInput>;
+
+/** The fields of the screening rows that lab results use, picked from the screening output. */
+export function labScreeningRows(rows: readonly ScreeningRow[]): LabResultsInputRaw['screening'] {
+  return rows.map((s) => ({
+    transmitterId: s.transmitterId,
+    usePositionId: s.usePositionId,
+    regime: s.regime,
+    result: s.result,
+    frequencyHz: s.frequencyHz,
+    separationM: s.separationM,
+    timeAveragedPowerMw: s.powers.timeAveragedPowerMw,
+    eirpMw: s.powers.eirpMw,
+    evaluatedPowerMw: s.evaluatedPowerMw,
+    thresholdMw: s.thresholdMw,
+    thresholdErpW: s.thresholdErpW,
+    thresholdEirpW: s.thresholdEirpW,
+    evaluatedPowerDensityWPerM2: s.evaluatedPowerDensityWPerM2,
+    thresholdPowerDensityWPerM2: s.thresholdPowerDensityWPerM2,
+  }));
+}
 export type LabResultsInputRaw = z.input<typeof labResultsInput>;
 type In = LabResultsInput;
 type MeasurementIn = In['measurements'][number];
@@ -822,14 +846,17 @@ function coTransmission(input: In, rows: LabRow[], posById: Context['posById']):
       for (const mk of input.markets) {
         const base = { id: `G${gi + 1}@${pos.id}@${mk.regime}`, transmitterIds: group, usePositionId: pos.id, usePositionKind: pos.kind, regime: mk.regime };
         if (pos.kind === 'far-field') {
+          const limitRegime = mk.regime === 'eu' ? 'icnirp-1998' : mk.regime;
           const contributions: CoTxContribution[] = group.map((t) => {
             const s = screening.get(screeningKey(t, pos.id, mk.regime));
             let ratio: number | null = null;
-            if (s) {
-              if (s.evaluatedPowerDensityWPerM2 !== null && s.thresholdPowerDensityWPerM2) ratio = s.evaluatedPowerDensityWPerM2 / s.thresholdPowerDensityWPerM2;
-              else if (s.thresholdMw) ratio = s.evaluatedPowerMw / s.thresholdMw;
-              else if (s.thresholdErpW) ratio = s.evaluatedPowerMw / (s.thresholdErpW * 1000);
-              else if (s.thresholdEirpW) ratio = s.evaluatedPowerMw / (s.thresholdEirpW * 1000);
+            if (s && s.separationM > 0) {
+              try {
+                const limit = exposureLimit(s.frequencyHz, limitRegime, mk.tier, 'whole-body').powerDensityWPerM2;
+                if (limit) ratio = farFieldPowerDensityWPerM2(s.eirpMw / 1000, s.separationM) / limit;
+              } catch (err) {
+                if (!(err instanceof CalcRangeError)) throw err;
+              }
             }
             return { transmitterId: t, basis: ratio === null ? 'missing' : 'ratio', value: ratio, unit: '1', measurementId: null, peakMm: null };
           });
@@ -845,12 +872,12 @@ function coTransmission(input: In, rows: LabRow[], posById: Context['posById']):
             outcome: !r ? 'incomplete' : r.pass ? 'sum-within-limit' : 'over-limit',
             pairs: [],
             derivation: {
-              formula: 'Σ_i S_i/S_L,i ≤ 1 (each source against its own limit or exemption threshold at its frequency)',
+              formula: 'S_i = EIRP_i/(4π·d²); Σ_i S_i/S_L,i(f_i) ≤ 1 (each source against the MPE / reference level at its own frequency)',
               inputs: Object.fromEntries(contributions.map((c) => [`ratio[${c.transmitterId}]`, q(c.value, '1')])),
               intermediate: {},
               result: { sumOfRatios: q(r?.sum ?? null, '1'), pass: q(r?.pass ?? null, 'boolean') },
               source: SRC.mpe,
-              notes: ['Ratios are taken from the screening of each transmitter at this position (power density over its limit, or power over its exemption threshold).'],
+              notes: [`Far-field power density at the use position’s separation from each transmitter’s EIRP (screening), against ${mk.regime === 'eu' ? '1999/519/EC (ICNIRP 1998)' : MARKET_LABEL[mk.regime]} ${mk.tier} reference levels at the band’s most restrictive frequency.`],
             },
           });
           continue;
@@ -877,7 +904,7 @@ function coTransmission(input: In, rows: LabRow[], posById: Context['posById']):
             notes.push(`${t}: exempt from testing; estimated ${massG} g SAR ${fmt(est)} W/kg = (P/d)·√f/${massG === 10 ? '18.75' : '7.5'} (P ${fmt(s.timeAveragedPowerMw)} mW, d ${fmt(s.separationM * 1000)} mm, f ${fmt(s.frequencyHz / 1e9)} GHz; 0.4/1.0 W/kg beyond 50 mm).`);
             return { transmitterId: t, basis: 'estimated', value: est, unit: 'W/kg', measurementId: null, peakMm: null };
           }
-          notes.push(`${t}: needs SAR evaluation in ${pos.id} and has no measurement.`);
+          notes.push(s ? `${t}: needs SAR evaluation in ${pos.id} and has no measurement.` : `${t}: not screened in ${pos.id} (no separation for its antenna under Use positions).`);
           return { transmitterId: t, basis: 'missing', value: null, unit: 'W/kg', measurementId: null, peakMm: null };
         });
         if (massG === 10 && pos.kind !== 'extremity') notes.push('Estimated 10 g SAR uses the KDB 447498 §4.3.2 10 g divisor (given there for extremities); common practice for 10 g head/trunk limits.');

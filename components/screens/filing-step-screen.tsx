@@ -16,6 +16,8 @@ import { Screen } from '../layout/screen';
 import { Button } from '../ui/button';
 import { Notice } from '../ui/notice';
 import { ScreeningView } from '../filings/screening-view';
+import { LabView } from '../filings/lab-view';
+import { CoTransmissionView } from '../filings/co-transmission-view';
 
 const isStep = (s: string | undefined): s is WizardStep => !!s && (WIZARD_STEPS as readonly string[]).includes(s);
 
@@ -58,6 +60,10 @@ function StepBody({ filing, step }: { filing: FilingDetail; step: WizardStep }) 
       return <MarketsStep filing={filing} />;
     case 'screening':
       return <ScreeningView filing={filing} />;
+    case 'measurements':
+      return <LabView filing={filing} />;
+    case 'co-transmission':
+      return <CoTransmissionView filing={filing} />;
   }
 }
 

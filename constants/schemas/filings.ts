@@ -29,7 +29,7 @@ export const EDITABLE_STATES: readonly VersionState[] = ['draft', 'changes-reque
 /** Steps whose data the user enters (autosaved); the wizard's further steps are computed. */
 export const DATA_STEPS = ['device', 'radios', 'use-positions', 'markets'] as const;
 export type DataStep = (typeof DATA_STEPS)[number];
-export const WIZARD_STEPS = [...DATA_STEPS, 'screening'] as const;
+export const WIZARD_STEPS = [...DATA_STEPS, 'screening', 'measurements', 'co-transmission'] as const;
 export type WizardStep = (typeof WIZARD_STEPS)[number];
 export const STEP_LABELS: Record<WizardStep, string> = {
   device: 'Device',
@@ -37,6 +37,8 @@ export const STEP_LABELS: Record<WizardStep, string> = {
   'use-positions': 'Use positions',
   markets: 'Markets',
   screening: 'Screening',
+  measurements: 'Measurements',
+  'co-transmission': 'Co-transmission',
 };
 
 const duplicateIdIssues = (items: { id: string }[], path: string, ctx: z.RefinementCtx) => {

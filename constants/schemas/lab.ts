@@ -222,3 +222,28 @@ export const zImportMapping = z.partialRecord(
   z.strictObject({ column: z.string().min(1).max(TEXT_MAX), unit: z.string().max(10).optional() }),
 );
 export type ImportMapping = z.output<typeof zImportMapping>;
+
+export interface ImportProblem {
+  /** 1-based line of the file (the header is line 1; XLSX: the sheet's row number). */
+  line: number;
+  /** The file's column header, or null for a problem with the whole row or file. */
+  column: string | null;
+  field: ImportField | null;
+  message: string;
+}
+
+/** What an import (or its dry run) answers: how the file was read, the preview and every problem. */
+export interface ImportPreview {
+  format: 'csv' | 'xlsx';
+  delimiter: string | null;
+  decimalComma: boolean;
+  headers: string[];
+  mapping: ImportMapping;
+  mappingSource: 'given' | 'remembered' | 'header' | 'guessed';
+  rowCount: number;
+  /** The first rows (and every row with a problem), cells as the file gives them, by field. */
+  rows: { line: number; cells: Partial<Record<ImportField, string>> }[];
+  problems: ImportProblem[];
+  dryRun: boolean;
+  imported: number;
+}

@@ -1,5 +1,5 @@
 /** Drizzle queries for a version's lab data, its stored lab results and remembered import mappings. */
-import { and, asc, eq } from 'drizzle-orm';
+import { and, asc, count, eq } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 import { labImportMappings, labInstruments, labLiquidChecks, labMeasurements, labResults, labSystemChecks, labUncertaintyComponents } from '../../db/schema';
 import type { BudgetComponent, ImportMapping, Instrument, LabData, LiquidCheck, Measurement, SystemCheck } from '../../constants/schemas/lab';
@@ -8,6 +8,10 @@ import type { BudgetComponent, ImportMapping, Instrument, LabData, LiquidCheck, 
 const INSERT_CHUNK = 400;
 function insertChunked<T>(rows: T[], insert: (chunk: T[]) => void) {
   for (let i = 0; i < rows.length; i += INSERT_CHUNK) insert(rows.slice(i, i + INSERT_CHUNK));
+}
+
+export function countMeasurements(db: Db, versionId: number): number {
+  return db.select({ n: count() }).from(labMeasurements).where(eq(labMeasurements.versionId, versionId)).get()?.n ?? 0;
 }
 
 export function readMeasurements(db: Db, versionId: number): Measurement[] {

@@ -25,6 +25,7 @@ import { conflict, forbidden, notFound, unprocessable } from '../http-error';
 import { ruleSetWarnings } from '../../calc/versions';
 import { zodFieldErrors } from '../middleware/validate';
 import * as repo from '../repos/filings-repo';
+import * as labRepo from '../repos/lab-repo';
 import { recordAudit } from './audit';
 
 export interface FilingActor {
@@ -98,7 +99,7 @@ function readData(db: Db, row: repo.FilingRow): FilingDetail['data'] {
 }
 
 /** Each step's completion, computed from the data (never ticked by hand). */
-export function stepStatuses(data: FilingDetail['data'], draftSteps: Set<DataStep>): StepStatus[] {
+export function stepStatuses(data: FilingDetail['data'], draftSteps: Set<DataStep>, lab: { measurements: number } = { measurements: 0 }): StepStatus[] {
   const device: string[] = zDeviceStep.safeParse(data.device).success ? [] : ['Fill in the device name, model, applicant and product type.'];
   const radios: string[] = [];
   if (!data.radios.antennas.length) radios.push('Add at least one antenna.');
@@ -127,6 +128,12 @@ export function stepStatuses(data: FilingDetail['data'], draftSteps: Set<DataSte
     hasDraft: false,
     warnings: ruleSet,
   });
+  // Lab steps: complete once the lab's measurements are in; their checks are in the lab results.
+  const measured = lab.measurements > 0;
+  statuses.push(
+    { step: 'measurements', complete: measured, problems: measured ? [] : ['Import or enter the lab’s SAR measurements (test engineer).'], hasDraft: false },
+    { step: 'co-transmission', complete: measured, problems: measured ? [] : ['Sums follow once measurements are in.'], hasDraft: false },
+  );
   return statuses;
 }
 
@@ -138,7 +145,7 @@ export function getFiling(db: Db, actor: FilingActor, filingId: number): FilingD
   return {
     ...toSummary(row, markets),
     editable: canEdit(actor) && EDITABLE_STATES.includes(row.version.state as VersionState),
-    steps: stepStatuses(data, new Set(drafts.map((d) => d.step))),
+    steps: stepStatuses(data, new Set(drafts.map((d) => d.step)), { measurements: labRepo.countMeasurements(db, row.version.id) }),
     data,
     drafts: Object.fromEntries(drafts.map((d) => [d.step, { data: d.data, updatedAt: d.updatedAt }])),
   };

@@ -21,6 +21,8 @@ import {
   zMeasurement,
   type ImportField,
   type ImportMapping,
+  type ImportPreview,
+  type ImportProblem,
   type Measurement,
 } from '../../constants/schemas/lab';
 import { HttpError, unprocessable } from '../http-error';
@@ -33,30 +35,6 @@ import { knownIds, measurementReferenceProblems, requireEngineer } from './lab-s
 
 const XLSX_MIME = 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet';
 const PREVIEW_ROWS = 200;
-
-export interface ImportProblem {
-  /** 1-based line of the file (the header is line 1; XLSX: the sheet's row number). */
-  line: number;
-  /** The file's column header, or null for a problem with the whole row or file. */
-  column: string | null;
-  field: ImportField | null;
-  message: string;
-}
-
-export interface ImportPreview {
-  format: 'csv' | 'xlsx';
-  delimiter: string | null;
-  decimalComma: boolean;
-  headers: string[];
-  mapping: ImportMapping;
-  mappingSource: 'given' | 'remembered' | 'header' | 'guessed';
-  rowCount: number;
-  /** The first rows (and every row with a problem), cells as the file gives them, by field. */
-  rows: { line: number; cells: Partial<Record<ImportField, string>> }[];
-  problems: ImportProblem[];
-  dryRun: boolean;
-  imported: number;
-}
 
 export class ImportRefused extends HttpError {
   constructor(

@@ -7,7 +7,7 @@ import { createHash } from 'node:crypto';
 import type { Db } from '../../db/client';
 import { LAB_SETS, type LabData, type LabSet, type Measurement } from '../../constants/schemas/lab';
 import { ENGINE_VERSION, RULE_SET_VERSION } from '../../calc/versions';
-import { computeLabResults, labResultsInput, type LabResultsInput } from '../../calc/lab/lab-results';
+import { computeLabResults, labResultsInput, labScreeningRows, type LabResultsInput } from '../../calc/lab/lab-results';
 import { screenParsed } from '../../calc/screening/screen';
 import { forbidden, unprocessable } from '../http-error';
 import { zodFieldErrors } from '../middleware/validate';
@@ -108,21 +108,7 @@ export function labInputFor(db: Db, detail: ReturnType<typeof getFiling>, lab: L
     transmitters: detail.data.radios.transmitters,
     usePositions: detail.data['use-positions'].usePositions,
     simultaneous: filingsRepo.readSimultaneous(db, detail.version.id),
-    screening: screening.rows.map((s) => ({
-      transmitterId: s.transmitterId,
-      usePositionId: s.usePositionId,
-      regime: s.regime,
-      result: s.result,
-      frequencyHz: s.frequencyHz,
-      separationM: s.separationM,
-      timeAveragedPowerMw: s.powers.timeAveragedPowerMw,
-      evaluatedPowerMw: s.evaluatedPowerMw,
-      thresholdMw: s.thresholdMw,
-      thresholdErpW: s.thresholdErpW,
-      thresholdEirpW: s.thresholdEirpW,
-      evaluatedPowerDensityWPerM2: s.evaluatedPowerDensityWPerM2,
-      thresholdPowerDensityWPerM2: s.thresholdPowerDensityWPerM2,
-    })),
+    screening: labScreeningRows(screening.rows),
     measurements: lab.measurements,
     liquidChecks: lab.liquidChecks,
     systemChecks: lab.systemChecks,

@@ -14,6 +14,7 @@ import { SCREENING_CAUTIONS, screenParsed } from '../../calc/screening/screen';
 import { screeningDepthProfile } from '../../calc/screening';
 import { notFound, unprocessable } from '../http-error';
 import { getFiling, type FilingActor } from './filings-service';
+import { DATA_STEPS } from '../../constants/schemas/filings';
 
 export interface ScreeningMeta {
   filingId: number;
@@ -67,7 +68,8 @@ export function screeningResponseForFiling(db: Db, actor: FilingActor, filingId:
     eq(screeningResults.engineVersion, ENGINE_VERSION),
     eq(screeningResults.ruleSetVersion, RULE_SET_VERSION),
   );
-  const complete = detail.steps.every((s) => s.complete);
+  // Complete when the device data is: the later (lab) steps do not change what screening covers.
+  const complete = detail.steps.filter((s) => (DATA_STEPS as readonly string[]).includes(s.step)).every((s) => s.complete);
   const found = db.select({ id: screeningResults.id }).from(screeningResults).where(key).get();
   const cacheKey = found && `${found.id}:${filingId}:${complete}`;
   const cached = cacheKey && acceptsGzip ? gzipCache.get(cacheKey) : undefined;

@@ -23,6 +23,7 @@ const screeningRow = (transmitterId: string, usePositionId: string, regime: 'fcc
   frequencyHz: extra.frequencyHz ?? 1.91e9,
   separationM: extra.separationM ?? 0,
   timeAveragedPowerMw: extra.timeAveragedPowerMw ?? 251,
+  eirpMw: extra.timeAveragedPowerMw ?? 251,
   evaluatedPowerMw: extra.timeAveragedPowerMw ?? 251,
   thresholdMw: 10,
   thresholdErpW: null,

@@ -5,5 +5,6 @@ import { planeWaveProfileCase } from './plane-wave-profile';
 import { screeningCase } from './screening';
 import { screeningApiCase } from './screening-api';
 import { screeningPageCase } from './screening-page';
+import { labImportCase, labRecomputeCase } from './lab';
 
-export const benchCases: BenchCase[] = [filingEvaluationCase, planeWaveProfileCase, screeningCase, screeningApiCase, screeningPageCase];
+export const benchCases: BenchCase[] = [filingEvaluationCase, planeWaveProfileCase, screeningCase, screeningApiCase, screeningPageCase, labRecomputeCase, labImportCase];
