@@ -131,8 +131,8 @@ export function stepStatuses(data: FilingDetail['data'], draftSteps: Set<DataSte
   // Lab steps: complete once the lab's measurements are in; their checks are in the lab results.
   const measured = lab.measurements > 0;
   statuses.push(
-    { step: 'measurements', complete: measured, problems: measured ? [] : ['Import or enter the lab’s SAR measurements (test engineer).'], hasDraft: false },
-    { step: 'co-transmission', complete: measured, problems: measured ? [] : ['Sums follow once measurements are in.'], hasDraft: false },
+    { step: 'measurements', complete: measured, problems: measured ? [] : ['Import or enter the lab’s SAR measurements (test engineer).'], hasDraft: false, warnings: [] },
+    { step: 'co-transmission', complete: measured, problems: measured ? [] : ['Sums follow once measurements are in.'], hasDraft: false, warnings: [] },
   );
   return statuses;
 }

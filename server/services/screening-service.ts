@@ -107,7 +107,7 @@ export function screeningResponseForFiling(db: Db, actor: FilingActor, filingId:
  */
 export function depthProfileForFiling(db: Db, actor: FilingActor, filingId: number, q: { transmitterId: string; usePositionId: string; regime?: ScreeningRegime }) {
   const detail = getFiling(db, actor, filingId);
-  const input = inputFor(detail);
+  const input = screeningInputFor(detail);
   const tx = input.transmitters.find((t) => t.id === q.transmitterId);
   const position = input.usePositions.find((p) => p.id === q.usePositionId);
   if (!tx || !position) throw notFound('No such transmitter or use position in this filing.');
