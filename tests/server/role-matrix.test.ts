@@ -52,6 +52,9 @@ const onlyRole = (role: 'admin' | 'specialist', status: number, otherOrg = 403):
   otherSpecialist: role === 'specialist' ? otherOrg : 403,
 });
 
+/** Only the engineer may (lab data): the others get 403 before any lookup. */
+const onlyEngineer = (status: number): Expected => ({ ...signedIn(403), engineer: status });
+
 export const MATRIX: Record<string, Row> = {
   'GET /api/health': { expect: everyone(200) },
   'GET /api/schema/device.json': { expect: everyone(200) },
@@ -82,6 +85,16 @@ export const MATRIX: Record<string, Row> = {
   'GET /api/filings/:id/device.json': { expect: ownOrganisation(200) },
   'GET /api/filings/:id/screening': { expect: ownOrganisation(200) },
   'GET /api/filings/:id/screening/depth-profile': { expect: ownOrganisation(404), query: { transmitterId: 'NO-SUCH-TX', usePositionId: 'NO-SUCH-POS' } },
+
+  // Lab results: every member of the organisation reads; only the engineer writes (role check first).
+  ...Object.fromEntries(
+    ['measurements', 'liquid-checks', 'system-checks', 'instruments', 'uncertainty-budget'].flatMap((set) => [
+      [`GET /api/filings/:id/${set}`, { expect: ownOrganisation(200) }],
+      [`PUT /api/filings/:id/${set}`, { expect: onlyEngineer(422) }],
+    ]),
+  ),
+  'POST /api/filings/:id/measurements/import': { expect: onlyEngineer(400) },
+  'GET /api/filings/:id/lab-results': { expect: ownOrganisation(200) },
 };
 
 /** Defaults for path parameters; a row's `params` overrides them. */
