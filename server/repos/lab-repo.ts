@@ -1,5 +1,5 @@
 /** Drizzle queries for a version's lab data, its stored lab results and remembered import mappings. */
-import { and, asc, count, eq } from 'drizzle-orm';
+import { and, asc, count, eq, sql } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 import { labImportMappings, labInstruments, labLiquidChecks, labMeasurements, labResults, labSystemChecks, labUncertaintyComponents } from '../../db/schema';
 import type { BudgetComponent, ImportMapping, Instrument, LabData, LiquidCheck, Measurement, SystemCheck } from '../../constants/schemas/lab';
@@ -151,4 +151,19 @@ export function saveImportMapping(db: Db, organisationId: number, headerSha256: 
     .values({ organisationId, headerSha256, mapping, updatedAt })
     .onConflictDoUpdate({ target: [labImportMappings.organisationId, labImportMappings.headerSha256], set: { mapping, updatedAt } })
     .run();
+}
+
+/** The lab tables a new version copies by value (rows name transmitters and positions by their labels). */
+const LAB_VERSION_TABLES = ['lab_measurements', 'lab_liquid_checks', 'lab_system_checks', 'lab_instruments', 'lab_uncertainty_components'] as const;
+
+/** Copies a version's lab data into a new version (its stored results are recomputed there). */
+export function copyLabData(db: Db, fromVersionId: number, toVersionId: number): void {
+  for (const table of LAB_VERSION_TABLES) {
+    const columns = db
+      .all<{ name: string }>(sql.raw(`select name from pragma_table_info('${table}')`))
+      .map((c) => c.name)
+      .filter((c) => c !== 'id' && c !== 'version_id');
+    const list = columns.map((c) => `"${c}"`).join(', ');
+    db.run(sql.raw(`insert into "${table}" ("version_id", ${list}) select ${Math.trunc(toVersionId)}, ${list} from "${table}" where "version_id" = ${Math.trunc(fromVersionId)} order by "id"`));
+  }
 }

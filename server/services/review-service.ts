@@ -24,7 +24,9 @@ import {
 import type { ReadinessChecklist } from '../../calc/readiness';
 import { renderReturnedMail, renderReviewRequestedMail, renderSignedMail } from '../../templates/mail/review';
 import { conflict, forbidden, HttpError, notFound, unprocessable } from '../http-error';
+import { carryEvidenceForward } from '../repos/evidence-repo';
 import * as filingsRepo from '../repos/filings-repo';
+import { copyLabData } from '../repos/lab-repo';
 import * as repo from '../repos/review-repo';
 import { recordAudit } from './audit';
 import type { FilingActor } from './filings-service';
@@ -351,7 +353,10 @@ export function verifyVersion(db: Db, actor: FilingActor, filingId: number, numb
  * markets and co-transmission combinations. Other parts of the product add their own copy step
  * to `versionCopiers` (evidence is carried by reference, lab data by value).
  */
-export const versionCopiers: ((db: Db, fromVersionId: number, toVersionId: number) => void)[] = [];
+export const versionCopiers: ((db: Db, fromVersionId: number, toVersionId: number) => void)[] = [
+  copyLabData,
+  (db, from, to) => void carryEvidenceForward(db, from, to),
+];
 
 export function startNextVersion(db: Db, actor: FilingActor, filingId: number) {
   const { row, version } = load(db, actor, filingId);
