@@ -18,6 +18,8 @@ export interface ApiProblemInfo {
   code: string;
   message: string;
   fields?: Record<string, string>;
+  /** The whole JSON answer, for problems that carry more than a message (a 409's current data). */
+  body?: unknown;
 }
 
 /** Thrown by `apiOrThrow` so TanStack Query sees failures; carries the typed problem. */
@@ -25,12 +27,14 @@ export class ApiProblem extends Error implements ApiProblemInfo {
   readonly status: number;
   readonly code: string;
   readonly fields?: Record<string, string>;
+  readonly body?: unknown;
   constructor(info: ApiProblemInfo) {
     super(info.message);
     this.name = 'ApiProblem';
     this.status = info.status;
     this.code = info.code;
     this.fields = info.fields;
+    this.body = info.body;
   }
 }
 
@@ -44,6 +48,8 @@ interface RequestOptions<S extends z.ZodType | undefined> {
   /** Checks the response shape; a mismatch becomes a problem instead of a wrong screen. */
   schema?: S;
   signal?: AbortSignal;
+  /** Extra request headers, e.g. If-Match on a step save. */
+  headers?: Record<string, string>;
 }
 
 type Parsed<S> = S extends z.ZodType ? z.output<S> : unknown;
@@ -63,13 +69,13 @@ export async function api<S extends z.ZodType | undefined = undefined>(
   path: string,
   options: RequestOptions<S> = {},
 ): Promise<ApiResult<Parsed<S>>> {
-  const { method = 'GET', body, schema, signal } = options;
+  const { method = 'GET', body, schema, signal, headers = {} } = options;
   let response: Response;
   try {
     response = await fetch(`${API_BASE}${path}`, {
       method,
       credentials: 'include',
-      headers: body === undefined ? { Accept: 'application/json' } : { Accept: 'application/json', 'Content-Type': 'application/json' },
+      headers: body === undefined ? { Accept: 'application/json', ...headers } : { Accept: 'application/json', 'Content-Type': 'application/json', ...headers },
       body: body === undefined ? undefined : JSON.stringify(body),
       signal,
     });
@@ -95,7 +101,7 @@ export async function api<S extends z.ZodType | undefined = undefined>(
     if (response.status === 401 && !path.startsWith('/api/auth/')) markSessionExpired();
     if (isErrorBody(json)) {
       const { code, message, fields } = json.error;
-      return { ok: false, problem: new ApiProblem({ status: response.status, code: code || 'error', message, fields }) };
+      return { ok: false, problem: new ApiProblem({ status: response.status, code: code || 'error', message, fields, body: json }) };
     }
     const message = FALLBACK_MESSAGES[response.status] ?? `The server answered ${response.status}. Try again in a moment.`;
     return { ok: false, problem: new ApiProblem({ status: response.status, code: 'http_error', message }) };

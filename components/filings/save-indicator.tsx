@@ -72,6 +72,16 @@ export function SaveIndicator({ status, onRetry, readOnly }: { status: AutosaveS
         </>
       );
       break;
+    case 'conflict':
+      body = (
+        <>
+          <Icon name="warning" size={16} color={palette.fail} strokeWidth={2} />
+          <Text variant="smallStrong" tone="fail" style={styles.shrink}>
+            Not saved — someone else saved this step at {time(status.at)}
+          </Text>
+        </>
+      );
+      break;
     case 'failed':
       body = (
         <>
@@ -85,7 +95,7 @@ export function SaveIndicator({ status, onRetry, readOnly }: { status: AutosaveS
       break;
   }
   return (
-    <View style={[styles.row, status.kind === 'invalid' || status.kind === 'failed' ? styles.bad : null]} testID="save-status" accessibilityLiveRegion="polite">
+    <View style={[styles.row, status.kind === 'invalid' || status.kind === 'failed' || status.kind === 'conflict' ? styles.bad : null]} testID="save-status" accessibilityLiveRegion="polite">
       {body}
     </View>
   );

@@ -2,6 +2,7 @@
 import { StyleSheet, View } from 'react-native';
 import { palette, radii, space } from '../../constants/theme';
 import type { FieldValues } from 'react-hook-form';
+import { Button } from '../ui/button';
 import { Notice } from '../ui/notice';
 import { Text } from '../ui/text';
 import { timeOfDay } from './format';
@@ -24,9 +25,10 @@ export function StepFrame<T extends FieldValues>({ stepForm, intro, children }: 
         ) : null}
         <SaveIndicator status={status} onRetry={onRetry} readOnly={!editable} />
       </View>
+      {status.kind === 'conflict' ? <ConflictNotice changed={status.changed} onChoose={autosave.resolveConflict} /> : null}
       {!editable ? (
         <Notice tone="info" title="Read only" testID="step-read-only">
-          Only a compliance specialist changes a filing’s device data, and only while its version is a draft or has changes requested.
+          Only a compliance specialist changes a filing’s device data, and only while its version is a draft or has been returned to them.
         </Notice>
       ) : null}
       {draftAt && editable ? (
@@ -40,7 +42,31 @@ export function StepFrame<T extends FieldValues>({ stepForm, intro, children }: 
   );
 }
 
+/** Someone else saved this step meanwhile: say what differs and let the person choose. */
+function ConflictNotice({ changed, onChoose }: { changed: string[]; onChoose: (choice: 'theirs' | 'mine') => void }) {
+  const shown = changed.slice(0, 6);
+  return (
+    <Notice tone="error" title="Someone else saved this step while you were editing" testID="step-conflict">
+      <View style={styles.conflict}>
+        <Text variant="small">Your latest changes are not saved. {changed.length ? 'Where the two differ:' : 'Their version holds the same values as yours.'}</Text>
+        {shown.map((c) => (
+          <Text key={c} variant="small">
+            {`• ${c}`}
+          </Text>
+        ))}
+        {changed.length > shown.length ? <Text variant="small" tone="soft">{`…and ${changed.length - shown.length} more`}</Text> : null}
+        <View style={styles.choices}>
+          <Button label="Load their version" variant="secondary" onPress={() => onChoose('theirs')} testID="conflict-theirs" />
+          <Button label="Keep mine and save it" onPress={() => onChoose('mine')} testID="conflict-mine" />
+        </View>
+      </View>
+    </Notice>
+  );
+}
+
 const styles = StyleSheet.create({
+  conflict: { gap: space.xs },
+  choices: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm, marginTop: space.xs },
   frame: { gap: space.lg },
   bar: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', justifyContent: 'space-between', gap: space.sm, paddingVertical: space.sm, paddingHorizontal: space.md, backgroundColor: palette.surface, borderRadius: radii.md, borderWidth: 1, borderColor: palette.line },
   intro: { flex: 1, minWidth: 200 },

@@ -20,7 +20,8 @@ export function useStepForm<T extends FieldValues>(filing: FilingDetail, step: D
     mode: 'onChange',
   });
   const [initialStatus] = useState<AutosaveStatus>(() => (draft ? { kind: 'invalid', at: new Date(draft.updatedAt), problems: 0 } : { kind: 'idle' }));
-  const autosave = useAutosave({ form, filingId: filing.id, step, enabled: filing.editable, initialStatus });
+  const [revision] = useState(() => filing.revisions?.[step]);
+  const autosave = useAutosave({ form, filingId: filing.id, step, enabled: filing.editable, initialStatus, revision });
   useEffect(() => {
     // A draft is kept because it had errors: show them at once.
     if (draft && filing.editable) void form.trigger();

@@ -147,4 +147,6 @@ export interface FilingDetail extends FilingSummary {
   simultaneous?: string[][];
   /** Unvalidated step input saved while it still had errors. */
   drafts: Partial<Record<DataStep, { data: unknown; updatedAt: string }>>;
+  /** Each step's stored-data revision; a save sends it back as If-Match (409 when stale). */
+  revisions: Record<DataStep, string>;
 }

@@ -36,6 +36,7 @@ const zDetail = zSummaryShape.extend({
   steps: z.array(z.looseObject({ step: z.enum(WIZARD_STEPS), complete: z.boolean(), problems: z.array(z.string()), hasDraft: z.boolean() })),
   data: z.looseObject({ device: z.looseObject({}), radios: z.looseObject({}), 'use-positions': z.looseObject({}), markets: z.looseObject({}) }),
   drafts: z.record(z.string(), z.looseObject({ updatedAt: z.string() })),
+  revisions: z.record(z.string(), z.string()),
 }) as unknown as z.ZodType<FilingDetail>;
 
 const zList = z.object({ filings: z.array(zSummary) });
@@ -137,9 +138,14 @@ export function useImportFilingMutation() {
 const apiBase = () => (process.env.EXPO_PUBLIC_API_URL ?? '').replace(/\/$/, '');
 
 /** One step's whole form; a 422 throws an ApiProblem whose `fields` are the dotted paths. */
-export function saveStep(filingId: number, step: DataStep, body: unknown): Promise<FilingDetail> {
-  return apiOrThrow(`/api/filings/${filingId}/steps/${step}`, { method: 'PUT', body, schema: zSaved }).then((d) => d.filing);
+/** Saves a step; `basedOn` is the revision the form started from (a stale one answers 409). */
+export function saveStep(filingId: number, step: DataStep, body: unknown, basedOn?: string): Promise<FilingDetail> {
+  const headers = basedOn ? { 'If-Match': `"${basedOn}"` } : undefined;
+  return apiOrThrow(`/api/filings/${filingId}/steps/${step}`, { method: 'PUT', body, schema: zSaved, headers }).then((d) => d.filing);
 }
+
+/** What a 409 on a step save carries: the data someone else saved, and its revision. */
+export const zStaleStep = z.object({ current: z.object({ data: z.unknown(), revision: z.string(), updatedAt: z.string() }) });
 
 /** The step's save address, for the page-hide keepalive request (which cannot go through `api`). */
 export const stepUrl = (filingId: number, step: DataStep) => `${apiBase()}/api/filings/${filingId}/steps/${step}`;

@@ -48,9 +48,16 @@ export function filingRoutes({ db }: AppContext): Router {
   });
 
   router.put('/:id/steps/:step', specialistOnly, (req, res) => {
-    const result = filingsService.saveStep(db, actorOf(req.user!), parseWith(zId, req.params.id), parseWith(zStep, req.params.step), req.body);
+    const result = filingsService.saveStep(db, actorOf(req.user!), parseWith(zId, req.params.id), parseWith(zStep, req.params.step), req.body, req.get('If-Match'));
     if (result.saved) {
       res.json(result);
+      return;
+    }
+    if ('stale' in result) {
+      res.status(409).set('ETag', `"${result.current.revision}"`).json({
+        error: { code: 'stale_step', message: 'Someone saved this step after you opened it; nothing of yours was saved. Load their version or keep yours.' },
+        current: result.current,
+      });
       return;
     }
     res.status(422).json({

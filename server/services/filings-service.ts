@@ -4,6 +4,7 @@
  * filings; every member of the organisation may read them. A step that does not validate is
  * kept as a draft so a reload loses nothing, while the last valid data stays as it was.
  */
+import { createHash } from 'node:crypto';
 import type { Db } from '../../db/client';
 import {
   DATA_STEPS,
@@ -155,8 +156,18 @@ export function getFiling(db: Db, actor: FilingActor, filingId: number): FilingD
     data,
     simultaneous: repo.readSimultaneous(db, row.version.id),
     drafts: Object.fromEntries(drafts.map((d) => [d.step, { data: d.data, updatedAt: d.updatedAt }])),
+    revisions: stepRevisions(data),
   };
 }
+
+/**
+ * A step's revision is a hash of its stored data: a save that names the revision it started from
+ * (If-Match) is refused when someone saved different data since. A save of exactly
+ * the stored data is never stale, so two tabs saving the same thing do not conflict.
+ */
+export const stepRevision = (data: unknown) => createHash('sha256').update(JSON.stringify(data)).digest('hex').slice(0, 24);
+
+const stepRevisions = (data: FilingDetail['data']) => Object.fromEntries(DATA_STEPS.map((s) => [s, stepRevision(data[s])])) as Record<DataStep, string>;
 
 export function createFiling(db: Db, actor: FilingActor, device: DeviceFile['device']): FilingDetail {
   requireEditor(actor);
@@ -211,19 +222,40 @@ export function exportDeviceFile(db: Db, actor: FilingActor, filingId: number): 
   };
 }
 
-export type SaveStepResult = { saved: true; filing: FilingDetail } | { saved: false; draftSavedAt: string; fields: Record<string, string> };
+export type SaveStepResult =
+  | { saved: true; filing: FilingDetail }
+  | { saved: false; draftSavedAt: string; fields: Record<string, string> }
+  /** The save named a revision that is no longer the stored one: nothing was written. */
+  | { saved: false; stale: true; current: { data: unknown; revision: string; updatedAt: string } };
+
+/** An If-Match value as browsers and tools send it: `"rev"`, `W/"rev"`, a list, or `*`. */
+function matchesRevision(ifMatch: string, revision: string): boolean {
+  return ifMatch.split(',').some((tag) => {
+    const t = tag.trim().replace(/^W\//, '').replace(/^"|"$/g, '');
+    return t === '*' || t === revision;
+  });
+}
 
 /**
  * Saves one wizard step. Valid input replaces the step's data (and clears its draft); invalid
  * input is kept as a draft and reported field by field, and the stored data is left untouched.
  */
-export function saveStep(db: Db, actor: FilingActor, filingId: number, step: DataStep, body: unknown): SaveStepResult {
+export function saveStep(db: Db, actor: FilingActor, filingId: number, step: DataStep, body: unknown, ifMatch?: string): SaveStepResult {
   requireEditor(actor);
   const row = loadFiling(db, actor, filingId);
   requireEditable(row);
   const versionId = row.version.id;
 
   const parsed = STEP_SCHEMAS[step].safeParse(body);
+  if (ifMatch) {
+    // saveStep runs synchronously from here to the write (better-sqlite3), so no other request
+    // can save between this check and the write below.
+    const current = STEP_READERS[step](db, row);
+    const revision = stepRevision(current);
+    const sameAsStored = parsed.success && stepRevision(parsed.data) === revision;
+    if (!matchesRevision(ifMatch, revision) && !sameAsStored) return { saved: false, stale: true, current: { data: current, revision, updatedAt: row.filing.updatedAt } };
+  }
+
   const fields = parsed.success ? {} : zodFieldErrors(parsed.error);
   if (parsed.success && step === 'use-positions') {
     // Separations must name antennas that exist under Radios.

@@ -28,6 +28,7 @@ const FILING = {
   updatedAt: '2026-03-01T10:00:00.000Z',
   createdAt: '2026-03-01T10:00:00.000Z',
   editable: true,
+  revisions: { device: 'r-device', radios: 'r-radios', 'use-positions': 'r-positions', markets: 'r-markets' },
   steps: [],
   data: {
     device: { name: 'Stridebeacon wrist tag', model: 'SB-1', applicant: 'Northfold Telemetry', productType: 'wearable', hardwareVersion: '', firmwareVersion: '' },

@@ -28,6 +28,7 @@ const FILING: FilingDetail = {
     markets: { markets: [] },
   },
   drafts: {},
+  revisions: { device: 'r-device-1', radios: 'r-radios-1', 'use-positions': 'r-positions-1', markets: 'r-markets-1' },
 };
 
 const MESSAGE = 'The highest frequency must not be below the lowest.';
@@ -63,6 +64,58 @@ describe('RadiosStep', () => {
       antennas: [{ id: 'ANT-1', gainDbi: 2, location: '' }],
       transmitters: [{ ...FILING.data.radios.transmitters[0], band: 'ISM 2.4', frequencyMaxHz: 2480.5e6 }],
     });
+  });
+
+  it('names the revision it started from, and on a 409 shows what the other save changed until the person chooses', async () => {
+    const theirs = {
+      antennas: [{ rowId: 1, id: 'ANT-1', gainDbi: 3.5, location: '' }],
+      transmitters: [{ ...FILING.data.radios.transmitters[0], maxTuneUpPowerDbm: 12 }],
+    };
+    let puts = 0;
+    const { calls } = installFetchMock({
+      'PUT /api/filings/7/steps/radios': () => {
+        puts += 1;
+        if (puts === 1) return { status: 409, body: { error: { code: 'stale_step', message: 'Someone saved this step after you opened it.' }, current: { data: theirs, revision: 'r-radios-2', updatedAt: '2026-03-01T11:00:00.000Z' } } };
+        return { status: 200, body: { saved: true, filing: { ...FILING, revisions: { ...FILING.revisions, radios: 'r-radios-3' } } } };
+      },
+      'GET /api/filings/7': { status: 200, body: { filing: FILING } },
+    });
+    renderWithClient(<RadiosStep filing={FILING} />);
+    fireEvent.changeText(screen.getByTestId('tx-0-band'), 'ISM 2.4');
+
+    const notice = await screen.findByTestId('step-conflict', {}, { timeout: 4000 });
+    expect(calls.find((c) => c.method === 'PUT')?.headers['If-Match']).toBe('"r-radios-1"');
+    // The differences, row by row in words: their gain and tune-up power, my band.
+    expect(notice).toHaveTextContent(/Antenna “ANT-1”: gain dbi/);
+    expect(notice).toHaveTextContent(/Transmitter “TX-1”: band, max tune up power dbm/);
+    expect(screen.getByTestId('save-status')).toHaveTextContent(/Not saved — someone else saved this step/);
+
+    // Further typing is kept in the form but nothing is sent while the choice waits.
+    fireEvent.changeText(screen.getByTestId('tx-0-band'), 'ISM 2.4 GHz');
+    await new Promise((r) => setTimeout(r, 1200));
+    expect(calls.filter((c) => c.method === 'PUT')).toHaveLength(1);
+
+    // Keeping mine sends it over theirs, naming their revision.
+    fireEvent.press(screen.getByTestId('conflict-mine'));
+    await screen.findByText(/^Saved /, {}, { timeout: 4000 });
+    const second = calls.filter((c) => c.method === 'PUT')[1];
+    expect(second.headers['If-Match']).toBe('"r-radios-2"');
+    expect((second.body as { transmitters: { band: string }[] }).transmitters[0].band).toBe('ISM 2.4 GHz');
+    expect(screen.queryByTestId('step-conflict')).toBeNull();
+  });
+
+  it('loads the other person’s version when asked', async () => {
+    const theirs = { antennas: FILING.data.radios.antennas, transmitters: [{ ...FILING.data.radios.transmitters[0], band: 'Their band' }] };
+    installFetchMock({
+      'PUT /api/filings/7/steps/radios': { status: 409, body: { error: { code: 'stale_step', message: 'Stale.' }, current: { data: theirs, revision: 'r-radios-2', updatedAt: '2026-03-01T11:00:00.000Z' } } },
+      'GET /api/filings/7': { status: 200, body: { filing: FILING } },
+    });
+    renderWithClient(<RadiosStep filing={FILING} />);
+    fireEvent.changeText(screen.getByTestId('tx-0-band'), 'Mine');
+    await screen.findByTestId('step-conflict', {}, { timeout: 4000 });
+    fireEvent.press(screen.getByTestId('conflict-theirs'));
+    expect(screen.queryByTestId('step-conflict')).toBeNull();
+    expect(screen.getByTestId('tx-0-band').props.value).toBe('Their band');
   });
 
   it('is read-only with a notice when the filing is not editable', () => {

@@ -13,6 +13,7 @@ export interface FetchCall {
   method: string;
   path: string;
   body?: unknown;
+  headers: Record<string, string>;
 }
 
 export function installFetchMock(routes: Record<string, Handler>) {
@@ -21,7 +22,7 @@ export function installFetchMock(routes: Record<string, Handler>) {
     const method = (init.method ?? 'GET').toUpperCase();
     const path = new URL(input, 'http://localhost').pathname;
     const body = typeof init.body === 'string' ? JSON.parse(init.body) : undefined;
-    calls.push({ method, path, body });
+    calls.push({ method, path, body, headers: { ...((init.headers ?? {}) as Record<string, string>) } });
     const handler = routes[`${method} ${path}`];
     if (!handler) throw new Error(`Unexpected request in test: ${method} ${path}`);
     const reply = typeof handler === 'function' ? handler({ body }) : handler;
