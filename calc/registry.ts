@@ -2,6 +2,7 @@
  * The one registry of calculations. The CLI, the HTTP API and the app all go through it.
  */
 import { z } from 'zod';
+import { MAX_REPORTED_PROBLEMS } from './input-limits';
 import { CalcRangeError, type CalcIssue, type Calculation } from './types';
 import { emCalculations } from './em';
 import { limitCalculations } from './limits';
@@ -24,7 +25,11 @@ export function getCalculation(name: string): Calculation | undefined {
 
 export type CalcOutcome =
   | { ok: true; result: unknown }
-  | { ok: false; error: { message: string; issues: CalcIssue[] } };
+  /** `problemCount` is there when more problems were found than `issues` lists. */
+  | { ok: false; error: { message: string; issues: CalcIssue[]; problemCount?: number } };
+
+/** Problems named in the one-line message; `issues` carries up to MAX_REPORTED_PROBLEMS. */
+const MESSAGE_PROBLEMS = 20;
 
 /** Validates raw input against the calculation's schema and runs it; never throws for bad input. */
 export function runCalculation(name: string, rawInput: unknown): CalcOutcome {
@@ -40,13 +45,14 @@ export function runCalculation(name: string, rawInput: unknown): CalcOutcome {
   }
   const parsed = calc.input.safeParse(rawInput);
   if (!parsed.success) {
-    const issues = parsed.error.issues.map((i) => ({ path: i.path as (string | number)[], message: i.message }));
+    // A large bad input could list thousands of problems: report the first ones and the count.
+    const all = parsed.error.issues;
+    const issues = all.slice(0, MAX_REPORTED_PROBLEMS).map((i) => ({ path: i.path as (string | number)[], message: i.message }));
+    const listed = issues.slice(0, MESSAGE_PROBLEMS).map((i) => `${i.path.join('.') || '(root)'}: ${i.message}`);
+    const more = all.length > listed.length ? ` (and ${all.length - listed.length} more problem${all.length - listed.length === 1 ? '' : 's'})` : '';
     return {
       ok: false,
-      error: {
-        message: `Invalid input for ${name}: ${issues.map((i) => `${i.path.join('.') || '(root)'}: ${i.message}`).join('; ')}`,
-        issues,
-      },
+      error: { message: `Invalid input for ${name}: ${listed.join('; ')}${more}`, issues, ...(all.length > issues.length ? { problemCount: all.length } : {}) },
     };
   }
   try {

@@ -25,6 +25,7 @@ import { userRoutes } from './routes/users';
 import { outboxRoutes } from './routes/outbox';
 import { auditRoutes } from './routes/audit';
 import { calcRoutes } from './routes/calc';
+import { createCalcPool } from './calc-pool';
 import { filingRoutes, schemaRoutes } from './routes/filings';
 import { labRoutes } from './routes/lab';
 import { evidenceRoutes } from './routes/evidence';
@@ -112,7 +113,8 @@ export interface CreateAppOptions {
 }
 
 export function createApp({ handle, config, mailer, serveWeb = true, storage = createStorages(config), exhibitSources, queue }: CreateAppOptions) {
-  const ctx: AppContext = { db: handle.db, config, mailer, storage };
+  const calcPool = createCalcPool({ timeLimitMs: config.calcTimeLimitMs });
+  const ctx: AppContext = { db: handle.db, config, mailer, storage, calcPool };
   const packages: PackageDeps = {
     db: handle.db,
     queue: queue ?? createInProcessQueue(handle.db),
@@ -177,7 +179,7 @@ export function createApp({ handle, config, mailer, serveWeb = true, storage = c
   api.use('/users', userRoutes(ctx));
   api.use('/outbox', outboxRoutes(ctx));
   api.use('/audit', auditRoutes(ctx));
-  api.use('/calc', calcRoutes());
+  api.use('/calc', calcRoutes(ctx));
   api.use('/filings/:id/evidence', evidenceRoutes(ctx));
   api.use('/filings', filingRoutes(ctx));
   api.use('/filings', labRoutes(ctx));
@@ -196,5 +198,12 @@ export function createApp({ handle, config, mailer, serveWeb = true, storage = c
   }
   app.use(errorHandler);
 
-  return { app, packages, close: () => store.close() };
+  return {
+    app,
+    packages,
+    close: () => {
+      store.close();
+      void calcPool.close();
+    },
+  };
 }

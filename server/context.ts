@@ -1,5 +1,6 @@
 /** What routes and services need from the running app, built once by createApp(). */
 import type { Db } from '../db/client';
+import type { CalcPool } from './calc-pool';
 import type { Config } from './env';
 import type { Mailer } from './services/mailer';
 import type { Storages } from './storage';
@@ -10,4 +11,6 @@ export interface AppContext {
   mailer: Mailer;
   /** Where bytes live (evidence uploads, packages); see server/storage. */
   storage: Storages;
+  /** Worker threads for calculations through the API (off the event loop, with a time limit). */
+  calcPool: CalcPool;
 }

@@ -52,6 +52,8 @@ const zEnv = z.object({
   SMTP_USER: z.string().optional(),
   SMTP_PASS: z.string().optional(),
   MAIL_FROM: z.string().default('Fieldfile <no-reply@fieldfile.test>'),
+  /** A calculation through the API is stopped after this long (ms) and answers 503. */
+  FIELDFILE_CALC_TIME_LIMIT_MS: z.coerce.number().int().min(100).max(600_000).default(15_000),
   /** Largest measurement spreadsheet accepted by the lab import, bytes (default 20 MB). */
   FIELDFILE_IMPORT_MAX_BYTES: z.coerce.number().int().positive().default(20 * 1024 * 1024),
 });
@@ -75,6 +77,7 @@ export interface Config {
   trustProxy: boolean | number | string;
   scryptLog2N: number;
   importMaxBytes: number;
+  calcTimeLimitMs: number;
   evidence: { maxFileBytes: number; maxFilingBytes: number };
   mail: {
     from: string;
@@ -108,6 +111,7 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
     trustProxy: parseTrustProxy(e.FIELDFILE_TRUST_PROXY),
     scryptLog2N: e.FIELDFILE_SCRYPT_LOG2N,
     importMaxBytes: e.FIELDFILE_IMPORT_MAX_BYTES,
+    calcTimeLimitMs: e.FIELDFILE_CALC_TIME_LIMIT_MS,
     evidence: { maxFileBytes: e.FIELDFILE_EVIDENCE_MAX_FILE_BYTES, maxFilingBytes: e.FIELDFILE_EVIDENCE_MAX_FILING_BYTES },
     mail: {
       from: e.MAIL_FROM,

@@ -18,6 +18,7 @@
  * - Co-transmission: KDB 447498 D01 v06 §4.3.2 (sum of SAR, estimated SAR of a test-excluded
  *   transmitter, SPLSR ≤ 0.04); far-field: Σ S_i/S_L,i ≤ 1 (47 CFR §1.1307(b)(3)(ii)(B); ICNIRP).
  */
+import { MAX_ANTENNAS, MAX_CHECK_RECORDS, MAX_COMBINATION_MEMBERS, MAX_COMBINATIONS, MAX_ID_CHARS, MAX_INSTRUMENTS, MAX_MEASUREMENTS, MAX_SCREENING_ROWS, MAX_TEXT_CHARS, MAX_TRANSMITTERS, MAX_UNCERTAINTY_COMPONENTS, MAX_USE_POSITIONS } from '../input-limits';
 import { z } from 'zod';
 import { CalcRangeError, defineCalculation, q, type Derivation, type Quantity, type WithDerivation } from '../types';
 import { sarLimit, type SarRegion } from '../limits/sar-limits';
@@ -65,18 +66,19 @@ const SRC = {
 // ---------------------------------------------------------------------------------------------
 // Input
 
-const id = z.string().min(1).max(40);
+const id = z.string().min(1).max(MAX_ID_CHARS);
+const text = z.string().max(MAX_TEXT_CHARS);
 const num = z.number().refine(Number.isFinite, 'must be a finite number');
 const date = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'YYYY-MM-DD');
 
 export const labResultsInput = z.object({
-  markets: z.array(z.object({ regime: z.enum(SCREENING_REGIMES), tier: z.enum(SCREENING_TIERS).default('general') })),
+  markets: z.array(z.object({ regime: z.enum(SCREENING_REGIMES), tier: z.enum(SCREENING_TIERS).default('general') })).max(SCREENING_REGIMES.length),
   transmitters: z.array(
     z.object({ id, frequencyMinHz: num, frequencyMaxHz: num, maxTuneUpPowerDbm: num, dutyCycle: num.pipe(z.number().gt(0).max(1)).default(1), antennaId: id }),
-  ),
-  usePositions: z.array(z.object({ id, kind: z.enum(USE_POSITION_KINDS), separations: z.array(z.object({ antennaId: id, separationM: num })) })),
+  ).max(MAX_TRANSMITTERS),
+  usePositions: z.array(z.object({ id, kind: z.enum(USE_POSITION_KINDS), separations: z.array(z.object({ antennaId: id, separationM: num })).max(MAX_ANTENNAS) })).max(MAX_USE_POSITIONS),
   /** Transmitter combinations that can be on together. */
-  simultaneous: z.array(z.array(id)).default([]),
+  simultaneous: z.array(z.array(id).max(MAX_COMBINATION_MEMBERS)).max(MAX_COMBINATIONS).default([]),
   /** The screening rows of the same data (only the fields used here). */
   screening: z
     .array(
@@ -97,14 +99,15 @@ export const labResultsInput = z.object({
         thresholdPowerDensityWPerM2: num.nullable(),
       }),
     )
+    .max(MAX_SCREENING_ROWS)
     .default([]),
   measurements: z.array(
     z.object({
       id,
       transmitterId: id,
       usePositionId: id,
-      testPosition: z.string().default(''),
-      channel: z.string().default(''),
+      testPosition: text.default(''),
+      channel: text.default(''),
       frequencyHz: num.pipe(z.number().positive()),
       testSeparationM: num.pipe(z.number().min(0)),
       measuredPowerDbm: num,
@@ -120,7 +123,7 @@ export const labResultsInput = z.object({
       liquidCheckId: id.nullable().default(null),
       systemCheckId: id.nullable().default(null),
     }),
-  ),
+  ).max(MAX_MEASUREMENTS),
   liquidChecks: z
     .array(
       z.object({
@@ -133,6 +136,7 @@ export const labResultsInput = z.object({
         temperatureC: num.nullable().default(null),
       }),
     )
+    .max(MAX_CHECK_RECORDS)
     .default([]),
   systemChecks: z
     .array(
@@ -140,20 +144,22 @@ export const labResultsInput = z.object({
         id,
         date,
         frequencyHz: num.pipe(z.number().positive()),
-        dipoleSerial: z.string().default(''),
+        dipoleSerial: text.default(''),
         averagingMass: z.enum(['1g', '10g']).default('1g'),
         measuredSarWPerKgPerW: num.pipe(z.number().positive()),
         targetSarWPerKgPerW: num.pipe(z.number().positive()),
       }),
     )
+    .max(MAX_CHECK_RECORDS)
     .default([]),
   instruments: z
-    .array(z.object({ id, kind: z.enum(['probe', 'dipole', 'dae', 'power-meter']), model: z.string().default(''), serial: z.string().default(''), calibrationDate: date, dueDate: date }))
+    .array(z.object({ id, kind: z.enum(['probe', 'dipole', 'dae', 'power-meter']), model: text.default(''), serial: text.default(''), calibrationDate: date, dueDate: date }))
+    .max(MAX_INSTRUMENTS)
     .default([]),
   uncertainty: z
     .array(
       z.object({
-        name: z.string().min(1),
+        name: text.min(1),
         valuePct: num.pipe(z.number().min(0)),
         distribution: z.enum(['normal', 'rectangular', 'u-shaped', 'triangular']),
         divisor: num.pipe(z.number().positive()).nullable().default(null),
@@ -161,6 +167,7 @@ export const labResultsInput = z.object({
         degreesOfFreedom: num.pipe(z.number().positive()).nullable().default(null),
       }),
     )
+    .max(MAX_UNCERTAINTY_COMPONENTS)
     .default([]),
 });
 export type LabResultsInput = z.output<typeof labResultsInput>;

@@ -8,6 +8,7 @@
  *   peak-SAR locations in mm (√(Δx² + Δy² + Δz²)), rounded to two decimals, ≤ 0.04 for 1-g
  *   (≤ 0.10 for 10-g — reference marks that value "unsure") for every pair.
  */
+import { MAX_CO_TRANSMITTERS, MAX_ID_CHARS } from '../input-limits';
 import { z } from 'zod';
 import { defineCalculation, type WithDerivation } from '../types';
 import { plainFunction } from './plain-function';
@@ -18,7 +19,7 @@ export const SPLSR_LIMIT = { '1g': 0.04, '10g': 0.1 } as const;
 const MM_PER_M = 1000;
 
 const transmitter = z.object({
-  id: z.string().min(1),
+  id: z.string().min(1).max(MAX_ID_CHARS),
   sarWPerKg: z.number().nonnegative().describe('Reported (or estimated) SAR of this transmitter, W/kg'),
   peakLocationM: z
     .tuple([z.number(), z.number(), z.number()])
@@ -32,6 +33,7 @@ export const simultaneousTransmissionInput = z.object({
   transmitters: z
     .array(transmitter)
     .min(1)
+    .max(MAX_CO_TRANSMITTERS)
     .refine((list) => new Set(list.map((t) => t.id)).size === list.length, { message: 'transmitter ids must be unique' }),
 });
 

@@ -11,6 +11,7 @@
  * (JCGM 100:2008 (GUM) and IEC/IEEE 62209-1528:2020 uncertainty budget). Expanded-uncertainty ceiling 30 % (k = 2) for psSAR:
  * IEEE 1528-2013 / IEC/IEEE 62209-1528 / KDB 865664 [from memory, §4.4].
  */
+import { MAX_TEXT_CHARS, MAX_UNCERTAINTY_COMPONENTS } from '../input-limits';
 import { z } from 'zod';
 import { defineCalculation, type WithDerivation } from '../types';
 import { plainFunction } from './plain-function';
@@ -29,7 +30,7 @@ export const DIVISORS = {
 export const SAR_EXPANDED_UNCERTAINTY_LIMIT_PCT = 30;
 
 const component = z.object({
-  name: z.string().min(1),
+  name: z.string().min(1).max(MAX_TEXT_CHARS),
   valuePct: z.number().nonnegative().describe('Half-width a (or quoted uncertainty) of the contribution, %'),
   distribution: z.enum(['normal', 'rectangular', 'u-shaped', 'triangular']),
   divisor: z.number().positive().optional().describe('Overrides the distribution’s divisor, e.g. k = 2 for a normal U quoted at k = 2'),
@@ -46,6 +47,7 @@ export const uncertaintyBudgetInput = z.object({
   components: z
     .array(component)
     .min(1)
+    .max(MAX_UNCERTAINTY_COMPONENTS)
     .refine((list) => new Set(list.map((c) => c.name)).size === list.length, { message: 'component names must be unique' }),
   coverageFactor: z.number().positive().default(2),
   limitPct: z.number().positive().default(SAR_EXPANDED_UNCERTAINTY_LIMIT_PCT),

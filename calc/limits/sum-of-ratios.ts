@@ -4,6 +4,7 @@
  * , from memory) and the ICNIRP 1998 /
  * 1999/519/EC Annex IV summation Σ S_i / S_L,i ≤ 1 for frequencies ≥ 100 kHz (1999/519/EC Annexes III–IV).
  */
+import { MAX_ID_CHARS, MAX_MPE_SOURCES } from '../input-limits';
 import { z } from 'zod';
 import { defineCalculation, type Derivation } from '../types';
 import { q } from '../types';
@@ -26,12 +27,13 @@ export const mpeSumOfRatiosInput = z.object({
   sources: z
     .array(
       z.object({
-        id: z.string().min(1),
+        id: z.string().min(1).max(MAX_ID_CHARS),
         powerDensityWPerM2: z.number().nonnegative().describe('Power density of this source at the point, W/m²'),
         limitWPerM2: z.number().positive().describe('This source’s own limit at its frequency, W/m²'),
       }),
     )
     .min(1)
+    .max(MAX_MPE_SOURCES)
     .superRefine((list, ctx) => {
       const seen = new Set<string>();
       list.forEach((s, i) => {

@@ -5,6 +5,7 @@
  * that schema, so it is restated here. Unknown keys (device info, antenna location, simultaneous
  * combinations) are accepted and ignored.
  */
+import { MAX_ANTENNAS, MAX_ID_CHARS, MAX_TEXT_CHARS, MAX_TRANSMITTERS, MAX_USE_POSITIONS } from '../input-limits';
 import { z } from 'zod';
 
 export const SCREENING_REGIMES = ['fcc', 'ised', 'eu', 'icnirp-2020'] as const;
@@ -17,7 +18,7 @@ export type FccSarScreening = (typeof FCC_SAR_SCREENINGS)[number];
 export const USE_POSITION_KINDS = ['head', 'body-worn', 'hotspot', 'extremity', 'far-field'] as const;
 export type UsePositionKind = (typeof USE_POSITION_KINDS)[number];
 
-const id = z.string().trim().min(1, 'an id is required').max(40);
+const id = z.string().trim().min(1, 'an id is required').max(MAX_ID_CHARS);
 const finite = z.number().refine(Number.isFinite, 'must be a finite number');
 
 const market = z.object({
@@ -33,8 +34,8 @@ const antenna = z.object({
 
 const transmitter = z.object({
   id,
-  technology: z.string().optional(),
-  band: z.string().optional(),
+  technology: z.string().max(MAX_TEXT_CHARS).optional(),
+  band: z.string().max(MAX_TEXT_CHARS).optional(),
   frequencyMinHz: finite.pipe(z.number().positive()).describe('Lowest frequency of the band, Hz'),
   frequencyMaxHz: finite.pipe(z.number().positive()).describe('Highest frequency of the band, Hz'),
   maxTuneUpPowerDbm: finite.pipe(z.number().min(-30).max(60)).describe('Maximum tune-up (conducted) power, dBm'),
@@ -45,7 +46,7 @@ const transmitter = z.object({
 const usePosition = z.object({
   id,
   kind: z.enum(USE_POSITION_KINDS),
-  separations: z.array(z.object({ antennaId: id, separationM: finite.pipe(z.number().min(0).max(10)).describe('Separation distance, m') })),
+  separations: z.array(z.object({ antennaId: id, separationM: finite.pipe(z.number().min(0).max(10)).describe('Separation distance, m') })).max(MAX_ANTENNAS),
 });
 
 const duplicateIssues = (ids: string[], path: string, ctx: z.RefinementCtx) => {
@@ -57,9 +58,9 @@ const duplicateIssues = (ids: string[], path: string, ctx: z.RefinementCtx) => {
 export const screeningInput = z
   .object({
     markets: z.array(market).max(SCREENING_REGIMES.length),
-    antennas: z.array(antenna).max(64),
-    transmitters: z.array(transmitter).max(128),
-    usePositions: z.array(usePosition).max(64),
+    antennas: z.array(antenna).max(MAX_ANTENNAS),
+    transmitters: z.array(transmitter).max(MAX_TRANSMITTERS),
+    usePositions: z.array(usePosition).max(MAX_USE_POSITIONS),
   })
   .superRefine((input, ctx) => {
     const antennaIds = new Set(input.antennas.map((a) => a.id));

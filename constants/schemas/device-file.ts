@@ -6,14 +6,14 @@
  * The per-part schemas are also the wizard's step schemas, so a form and the file agree.
  */
 import { z } from 'zod';
+import { MAX_ANTENNAS, MAX_TRANSMITTERS, MAX_USE_POSITIONS } from '../../calc/input-limits';
 
 export const DEVICE_FILE_FORMAT = 'fieldfile.device/1';
 
 export const TEXT_MAX = 120;
 export const ID_MAX = 40;
-export const MAX_TRANSMITTERS = 64;
-export const MAX_ANTENNAS = 32;
-export const MAX_USE_POSITIONS = 24;
+// One set of limits for the wizard, the device file and the engine.
+export { MAX_ANTENNAS, MAX_TRANSMITTERS, MAX_USE_POSITIONS };
 export const FREQUENCY_MIN_HZ = 100e3;
 export const FREQUENCY_MAX_HZ = 300e9;
 export const POWER_MIN_DBM = -30;

@@ -4,11 +4,19 @@
  */
 import type { RequestHandler } from 'express';
 import type { z } from 'zod';
+import { MAX_REPORTED_PROBLEMS } from '../../calc/input-limits';
 import { notFound, unprocessable } from '../http-error';
+
+/** A refused body names at most this many fields (a huge bad body must not give a huge answer). */
+export const MAX_FIELD_PROBLEMS = MAX_REPORTED_PROBLEMS;
 
 export function zodFieldErrors(error: z.ZodError): Record<string, string> {
   const fields: Record<string, string> = {};
   for (const issue of error.issues) {
+    if (Object.keys(fields).length >= MAX_FIELD_PROBLEMS) {
+      fields._more = `…and more problems (${error.issues.length} in all); fix these first.`;
+      break;
+    }
     const key = issue.path.length ? issue.path.join('.') : '_';
     if (issue.code === 'unrecognized_keys') {
       for (const k of issue.keys) fields[[...issue.path, k].join('.')] = `Unknown field "${k}".`;
@@ -24,6 +32,7 @@ export function parseWith<S extends z.ZodType>(schema: S, value: unknown): z.out
   if (!parsed.success) {
     const fields = zodFieldErrors(parsed.error);
     const summary = Object.entries(fields)
+      .slice(0, 20)
       .map(([k, m]) => (k === '_' ? m : `${k}: ${m}`))
       .join(' ');
     throw unprocessable(`Please fix the highlighted fields. ${summary}`.trim(), fields);

@@ -3,23 +3,14 @@
  * with server memory growth ≤ 50 MB, over real HTTP against the real app; and reading back a
  * 100-page test report (pdfjs-dist text, compared with the filing's numbers) in ≤ 3 s.
  */
-import fs from 'node:fs';
 import http from 'node:http';
-import os from 'node:os';
 import path from 'node:path';
-import type { Server } from 'node:http';
-import type { AddressInfo } from 'node:net';
 import type { BenchCase } from '../harness';
-import { openDatabase } from '../../../db/client';
-import { applyMigrations } from '../../../db/migrate';
-import { createApp } from '../../../server/app';
-import { loadConfig } from '../../../server/env';
-import { seedDemo } from '../../../seeds';
+import { startBenchServer } from '../bench-server';
 import { makePdf } from '../../../seeds/documents';
 import { compareReport, extractPdfText, type FilingNumbers } from '../../../server/services/report-readback';
 import { largeDeviceFile } from './screening-api';
 
-const PASSWORD = 'bench-password-123';
 const UPLOAD_BYTES = 200 * 1024 * 1024;
 const CHUNK = 1024 * 1024;
 
@@ -61,30 +52,12 @@ export const evidenceUploadCase: BenchCase = {
   warmupIterations: 1,
   iterations: 3,
   async prepare() {
-    const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'fieldfile-bench-'));
-    const config = loadConfig({ NODE_ENV: 'test', FIELDFILE_DATA_DIR: dataDir, FIELDFILE_EVIDENCE_MAX_FILE_BYTES: String(300 * 1024 * 1024), FIELDFILE_EVIDENCE_MAX_FILING_BYTES: String(4 * 1024 * 1024 * 1024) });
-    const handle = openDatabase(path.join(dataDir, 'fieldfile.db'));
-    applyMigrations(handle.db);
-    await seedDemo(handle.db, PASSWORD);
-    const { app, close } = createApp({ handle, config, mailer: { send: async () => {} }, serveWeb: false });
-    const server: Server = await new Promise((resolve) => {
-      const s = app.listen(0, '127.0.0.1', () => resolve(s));
-    });
-    const port = (server.address() as AddressInfo).port;
-    const base = `http://127.0.0.1:${port}/api`;
-    const login = await fetch(`${base}/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email: 'engineer@fieldfile.test', password: PASSWORD }) });
-    const cookie = login.headers.get('set-cookie')!.split(';')[0];
-    const specialistLogin = await fetch(`${base}/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email: 'specialist@fieldfile.test', password: PASSWORD }) });
-    const specialistCookie = specialistLogin.headers.get('set-cookie')!.split(';')[0];
+    const server = await startBenchServer({ FIELDFILE_EVIDENCE_MAX_FILE_BYTES: String(300 * 1024 * 1024), FIELDFILE_EVIDENCE_MAX_FILING_BYTES: String(4 * 1024 * 1024 * 1024) });
+    const { base, port, cookie: specialistCookie } = server;
+    const cookie = await server.login('engineer@fieldfile.test');
     const imported = await fetch(`${base}/filings/import`, { method: 'POST', headers: { 'content-type': 'application/json', cookie: specialistCookie }, body: JSON.stringify(largeDeviceFile()) });
     const { filing } = (await imported.json()) as { filing: { id: number } };
-    cleanup = async () => {
-      server.closeAllConnections();
-      await new Promise((r) => server.close(r));
-      close();
-      handle.sqlite.close();
-      fs.rmSync(dataDir, { recursive: true, force: true });
-    };
+    cleanup = () => server.close();
     return async () => {
       // The client and the server share this process: the client holds one 1 MB chunk, so the
       // growth measured is the server's buffering.

@@ -9,5 +9,6 @@ import { labImportCase, labRecomputeCase } from './lab';
 import { evidenceUploadCase, readBackCase } from './evidence';
 import { compareCase, readinessCase } from './readiness';
 import { exhibitPdfCase, packageBuildCase } from './package-build';
+import { healthUnderCalcCase, readsUnderCalcCase } from './calc-under-load';
 
-export const benchCases: BenchCase[] = [filingEvaluationCase, planeWaveProfileCase, screeningCase, screeningApiCase, screeningPageCase, labRecomputeCase, labImportCase, evidenceUploadCase, readBackCase, readinessCase, compareCase, exhibitPdfCase, packageBuildCase];
+export const benchCases: BenchCase[] = [filingEvaluationCase, planeWaveProfileCase, screeningCase, screeningApiCase, screeningPageCase, labRecomputeCase, labImportCase, evidenceUploadCase, readBackCase, readinessCase, compareCase, exhibitPdfCase, packageBuildCase, healthUnderCalcCase, readsUnderCalcCase];

@@ -7,22 +7,11 @@
  *   under 100 MB, reported below the timing.
  * Data is fictional: measurements spread over every transmitter and use position.
  */
-import fs from 'node:fs';
-import os from 'node:os';
-import path from 'node:path';
-import type { Server } from 'node:http';
-import type { AddressInfo } from 'node:net';
 import type { BenchCase } from '../harness';
+import { startBenchServer } from '../bench-server';
 import { computeLabResults, labResultsInput, labScreeningRows, type LabResultsInputRaw } from '../../../calc/lab/lab-results';
 import { screenDevice } from '../../../calc/screening';
-import { openDatabase } from '../../../db/client';
-import { applyMigrations } from '../../../db/migrate';
-import { createApp } from '../../../server/app';
-import { loadConfig } from '../../../server/env';
-import { seedDemo } from '../../../seeds';
 import { largeDeviceFile } from './screening-api';
-
-const PASSWORD = 'bench-password-123';
 
 function measurementRows(n: number) {
   const file = largeDeviceFile();
@@ -103,22 +92,9 @@ export const labImportCase: BenchCase = {
   warmupIterations: 1,
   iterations: 5,
   async prepare() {
-    const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'fieldfile-bench-'));
-    const config = loadConfig({ NODE_ENV: 'test', FIELDFILE_DATA_DIR: dataDir });
-    const handle = openDatabase(path.join(dataDir, 'fieldfile.db'));
-    applyMigrations(handle.db);
-    await seedDemo(handle.db, PASSWORD);
-    const { app, close } = createApp({ handle, config, mailer: { send: async () => {} }, serveWeb: false });
-    const server: Server = await new Promise((resolve) => {
-      const s = app.listen(0, '127.0.0.1', () => resolve(s));
-    });
-    const base = `http://127.0.0.1:${(server.address() as AddressInfo).port}/api`;
-    const login = async (email: string) => {
-      const res = await fetch(`${base}/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email, password: PASSWORD }) });
-      return res.headers.get('set-cookie')!.split(';')[0];
-    };
-    const specialist = await login('specialist@fieldfile.test');
-    const engineer = await login('engineer@fieldfile.test');
+    const server = await startBenchServer();
+    const { base, cookie: specialist } = server;
+    const engineer = await server.login('engineer@fieldfile.test');
     const imported = await fetch(`${base}/filings/import`, { method: 'POST', headers: { 'content-type': 'application/json', cookie: specialist }, body: JSON.stringify(largeDeviceFile()) });
     const { filing } = (await imported.json()) as { filing: { id: number } };
     const header = 'transmitter_id,use_position_id,test_position,channel,frequency_mhz,test_separation_mm,measured_power_dbm,tune_up_power_dbm,test_duty_cycle,sar_1g_w_kg,sar_10g_w_kg,drift_db,test_date,peak_x_mm,peak_y_mm';
@@ -128,13 +104,7 @@ export const labImportCase: BenchCase = {
     const csvFor = (r: number) => [header, ...rows.map((m, i) => `${m.tx},${m.pos},back ${r},${i},${m.mhz},${m.sepMm},${m.power.toFixed(2)},,,${m.sar1g.toFixed(3)},${m.sar10g.toFixed(3)},${m.drift},${m.date},${m.peak[0]},${m.peak[1]}`)].join('\n');
     const rssStart = process.memoryUsage().rss;
     let rssMax = rssStart;
-    cleanup = async () => {
-      server.closeAllConnections();
-      await new Promise((r) => server.close(r));
-      close();
-      handle.sqlite.close();
-      fs.rmSync(dataDir, { recursive: true, force: true });
-    };
+    cleanup = () => server.close();
     return async () => {
       const form = new FormData();
       form.append('file', new Blob([csvFor(run++)], { type: 'text/csv' }), 'lab.csv');

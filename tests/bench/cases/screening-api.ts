@@ -2,20 +2,9 @@
  * Issue 4's target: GET /api/filings/:id/screening for a 20-transmitter × 6-position × 4-market
  * filing, over real HTTP on loopback against the real app and a SQLite file, under 50 ms.
  */
-import fs from 'node:fs';
-import os from 'node:os';
-import path from 'node:path';
-import type { Server } from 'node:http';
-import type { AddressInfo } from 'node:net';
 import type { BenchCase } from '../harness';
-import { openDatabase } from '../../../db/client';
-import { applyMigrations } from '../../../db/migrate';
-import { createApp } from '../../../server/app';
-import { loadConfig } from '../../../server/env';
-import { seedDemo } from '../../../seeds';
+import { startBenchServer } from '../bench-server';
 import { DEVICE_FILE_FORMAT, USE_POSITION_KINDS } from '../../../constants/schemas/device-file';
-
-const PASSWORD = 'bench-password-123';
 
 /** 20 transmitters on 5 antennas spread from 700 MHz to 5.8 GHz, 6 positions, 4 markets. */
 export function largeDeviceFile() {
@@ -49,27 +38,11 @@ export const screeningApiCase: BenchCase = {
   warmupIterations: 5,
   iterations: 60,
   async prepare() {
-    const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'fieldfile-bench-'));
-    const config = loadConfig({ NODE_ENV: 'test', FIELDFILE_DATA_DIR: dataDir });
-    const handle = openDatabase(path.join(dataDir, 'fieldfile.db'));
-    applyMigrations(handle.db);
-    await seedDemo(handle.db, PASSWORD);
-    const { app, close } = createApp({ handle, config, mailer: { send: async () => {} }, serveWeb: false });
-    const server: Server = await new Promise((resolve) => {
-      const s = app.listen(0, '127.0.0.1', () => resolve(s));
-    });
-    const base = `http://127.0.0.1:${(server.address() as AddressInfo).port}/api`;
-    const login = await fetch(`${base}/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email: 'specialist@fieldfile.test', password: PASSWORD }) });
-    const cookie = login.headers.get('set-cookie')!.split(';')[0];
-    const imported = await fetch(`${base}/filings/import`, { method: 'POST', headers: { 'content-type': 'application/json', cookie }, body: JSON.stringify(largeDeviceFile()) });
+    const server = await startBenchServer();
+    const imported = await server.post('/filings/import', largeDeviceFile());
     const { filing } = (await imported.json()) as { filing: { id: number } };
-    cleanup = async () => {
-      server.closeAllConnections();
-      await new Promise((r) => server.close(r));
-      close();
-      handle.sqlite.close();
-      fs.rmSync(dataDir, { recursive: true, force: true });
-    };
+    const { base, cookie } = server;
+    cleanup = () => server.close();
     return async () => {
       const res = await fetch(`${base}/filings/${filing.id}/screening`, { headers: { cookie } });
       const body = (await res.json()) as { rows: unknown[] };
