@@ -23,6 +23,8 @@ const slug = (s: string) => s.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(
 
 export function filingRoutes({ db }: AppContext): Router {
   const router = Router();
+  // Per app instance: two apps in one process never answer from each other's results.
+  const screeningCache = screeningService.createScreeningCache();
   router.use(requireAuth);
   router.param('id', strictId);
   const specialistOnly: RequestHandler = requireRole('specialist');
@@ -74,7 +76,7 @@ export function filingRoutes({ db }: AppContext): Router {
 
   router.get('/:id/screening', (req, res) => {
     const acceptsGzip = req.acceptsEncodings('gzip') === 'gzip';
-    const response = screeningService.screeningResponseForFiling(db, actorOf(req.user!), parseWith(zId, req.params.id), acceptsGzip);
+    const response = screeningService.screeningResponseForFiling(db, screeningCache, actorOf(req.user!), parseWith(zId, req.params.id), acceptsGzip);
     res.vary('Accept-Encoding').type('application/json');
     if (response.encoding === 'gzip') res.set('Content-Encoding', 'gzip');
     res.send(response.body);

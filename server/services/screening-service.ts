@@ -1,11 +1,11 @@
 /**
  * Screening of a filing's current version: the engine's `screening` calculation over the
- * wizard's data. Each distinct result is stored with the engine and rule-set versions it was
- * computed with, so a signed version can show exactly what it was signed on.
+ * wizard's data. The result a version is signed on is stored with it, with the engine and
+ * rule-set versions it was computed with; drafts are computed on demand and never stored.
  */
 import { createHash } from 'node:crypto';
 import { gzipSync } from 'node:zlib';
-import { and, desc, eq } from 'drizzle-orm';
+import { and, desc, eq, ne } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 import { screeningResults } from '../../db/schema';
 import { ENGINE_VERSION, RULE_SET_VERSION } from '../../calc/versions';
@@ -14,6 +14,7 @@ import { SCREENING_CAUTIONS, screenParsed } from '../../calc/screening/screen';
 import { screeningDepthProfile } from '../../calc/screening';
 import { notFound, unprocessable } from '../http-error';
 import { getFiling, type FilingActor } from './filings-service';
+import { ByteLru } from './result-cache';
 import { DATA_STEPS } from '../../constants/schemas/filings';
 
 export interface ScreeningMeta {
@@ -37,75 +38,77 @@ export function screeningInputFor(detail: ReturnType<typeof getFiling>): Screeni
   });
 }
 
-/** Gzipped responses of recent stored results; a result never changes once stored. */
-const GZIP_CACHE_ENTRIES = 32;
-const gzipCache = new Map<string, Buffer>();
+/**
+ * Computed screening outputs and their gzipped responses, per app instance. Reading never writes
+ * to the database: a draft's screening is computed on demand and kept here (keyed by the input's
+ * hash and the engine and rule-set versions); a signed version's is the one stored at signing.
+ */
+export interface ScreeningCache {
+  outputs: ByteLru<{ output: string; computedAt: string }>;
+  gzipped: ByteLru<Buffer>;
+}
 
-function rememberGzip(key: string, body: Buffer): Buffer {
-  gzipCache.delete(key);
-  gzipCache.set(key, body);
-  if (gzipCache.size > GZIP_CACHE_ENTRIES) gzipCache.delete(gzipCache.keys().next().value!);
-  return body;
+/** Room for the few filings being worked on at once (a large filing's output is several MB). */
+const OUTPUT_CACHE_BYTES = 64 * 1024 * 1024;
+const GZIP_CACHE_BYTES = 16 * 1024 * 1024;
+
+export function createScreeningCache(): ScreeningCache {
+  return {
+    outputs: new ByteLru(OUTPUT_CACHE_BYTES, (e) => e.output.length * 2),
+    gzipped: new ByteLru(GZIP_CACHE_BYTES, (b) => b.length),
+  };
 }
 
 export type ScreeningResponse = { encoding: 'gzip'; body: Buffer } | { encoding: 'identity'; body: string };
 
 /**
- * The screening of a filing's current data, as the response body. An unchanged filing (same
- * input, engine and rule-set versions) is answered from the stored result without recomputing
- * or re-parsing it: the result is JSON text, and the body is that text with the meta fields in
- * front. A result is about 4 KB a row (every row carries its derivation), so clients that accept
- * gzip get it compressed, once per stored result.
+ * The screening of a filing's current data, as the response body. A signed version answers with
+ * the result stored at signing; a draft's is computed once per distinct input and kept in the
+ * instance's cache. The result is JSON text, and the body is that text with the meta fields in
+ * front, without re-parsing. A result is about 4 KB a row (every row carries its derivation), so
+ * clients that accept gzip get it compressed, once per result.
  */
-export function screeningResponseForFiling(db: Db, actor: FilingActor, filingId: number, acceptsGzip: boolean): ScreeningResponse {
+export function screeningResponseForFiling(db: Db, cache: ScreeningCache, actor: FilingActor, filingId: number, acceptsGzip: boolean): ScreeningResponse {
   const detail = getFiling(db, actor, filingId);
   const input = screeningInputFor(detail);
   const inputJson = JSON.stringify(input);
   const inputSha256 = createHash('sha256').update(inputJson).digest('hex');
-  const key = and(
-    eq(screeningResults.versionId, detail.version.id),
-    eq(screeningResults.inputSha256, inputSha256),
-    eq(screeningResults.engineVersion, ENGINE_VERSION),
-    eq(screeningResults.ruleSetVersion, RULE_SET_VERSION),
-  );
   // Complete when the device data is: the later (lab) steps do not change what screening covers.
   const complete = detail.steps.filter((s) => (DATA_STEPS as readonly string[]).includes(s.step)).every((s) => s.complete);
-  const found = db.select({ id: screeningResults.id }).from(screeningResults).where(key).get();
-  const cacheKey = found && `${found.id}:${filingId}:${complete}`;
-  const cached = cacheKey && acceptsGzip ? gzipCache.get(cacheKey) : undefined;
-  if (cached) return { encoding: 'gzip', body: cached };
 
-  let stored = found && db.select({ id: screeningResults.id, output: screeningResults.output, computedAt: screeningResults.computedAt }).from(screeningResults).where(eq(screeningResults.id, found.id)).get();
-  if (!stored && detail.version.state === 'signed') {
-    // A signed version is frozen: show the result it was signed with (stored at signing), never a new one.
-    stored = db
-      .select({ id: screeningResults.id, output: screeningResults.output, computedAt: screeningResults.computedAt })
-      .from(screeningResults)
-      .where(eq(screeningResults.versionId, detail.version.id))
-      .orderBy(desc(screeningResults.id))
-      .get();
-  }
-  if (!stored) {
-    const output = JSON.stringify(screenParsed(input));
-    stored = db
-      .insert(screeningResults)
-      .values({ versionId: detail.version.id, engineVersion: ENGINE_VERSION, ruleSetVersion: RULE_SET_VERSION, inputSha256, input: inputJson, output })
-      .returning({ id: screeningResults.id, output: screeningResults.output, computedAt: screeningResults.computedAt })
-      .get();
-  }
+  const contentKey = `${inputSha256}:${ENGINE_VERSION}:${RULE_SET_VERSION}`;
+  let result = detail.version.state === 'signed' ? storedResultOf(db, detail.version.id, inputSha256) : undefined;
+  result ??= cache.outputs.get(contentKey);
+  result ??= cache.outputs.set(contentKey, { output: JSON.stringify(screenParsed(input)), computedAt: new Date().toISOString() });
+
+  const gzipKey = `${contentKey}:${result.computedAt}:${filingId}:${detail.version.number}:${complete}`;
+  const cached = acceptsGzip ? cache.gzipped.get(gzipKey) : undefined;
+  if (cached) return { encoding: 'gzip', body: cached };
   const meta: ScreeningMeta = {
     filingId,
     version: detail.version.number,
     engineVersion: ENGINE_VERSION,
     ruleSetVersion: RULE_SET_VERSION,
-    computedAt: stored.computedAt,
+    computedAt: result.computedAt,
     complete,
     cautions: [...SCREENING_CAUTIONS],
   };
   // `{...meta, ...output}` without parsing the stored output: both are JSON objects.
-  const body = `${JSON.stringify(meta).slice(0, -1)},${stored.output.slice(1)}`;
+  const body = `${JSON.stringify(meta).slice(0, -1)},${result.output.slice(1)}`;
   if (!acceptsGzip) return { encoding: 'identity', body };
-  return { encoding: 'gzip', body: rememberGzip(`${stored.id}:${filingId}:${complete}`, gzipSync(body, { level: 6 })) };
+  return { encoding: 'gzip', body: cache.gzipped.set(gzipKey, gzipSync(body, { level: 6 })) };
+}
+
+/** A signed version's screening: the result stored at signing (for this input if there are several). */
+function storedResultOf(db: Db, versionId: number, inputSha256: string) {
+  const columns = { output: screeningResults.output, computedAt: screeningResults.computedAt };
+  return (
+    db
+      .select(columns)
+      .from(screeningResults)
+      .where(and(eq(screeningResults.versionId, versionId), eq(screeningResults.inputSha256, inputSha256), eq(screeningResults.engineVersion, ENGINE_VERSION), eq(screeningResults.ruleSetVersion, RULE_SET_VERSION)))
+      .get() ?? db.select(columns).from(screeningResults).where(eq(screeningResults.versionId, versionId)).orderBy(desc(screeningResults.id)).get()
+  );
 }
 
 /**
@@ -152,10 +155,16 @@ export function depthProfileOf(input: ScreeningInput, q: { transmitterId: string
   };
 }
 
-/** Stores the screening of a version's current data if it is not stored yet (signing keeps it with the version). */
+/**
+ * Stores the screening of a version's current data as its one result (signing keeps it with the
+ * version, so the signature covers it); results stored for earlier data are removed.
+ */
 export function storeScreeningOf(db: Db, versionId: number, input: ScreeningInput): void {
   const inputJson = JSON.stringify(input);
   const inputSha256 = createHash('sha256').update(inputJson).digest('hex');
+  db.delete(screeningResults)
+    .where(and(eq(screeningResults.versionId, versionId), ne(screeningResults.inputSha256, inputSha256)))
+    .run();
   db.insert(screeningResults)
     .values({ versionId, engineVersion: ENGINE_VERSION, ruleSetVersion: RULE_SET_VERSION, inputSha256, input: inputJson, output: JSON.stringify(screenParsed(input)) })
     .onConflictDoNothing()
