@@ -228,7 +228,7 @@ export const READINESS_RULES: readonly ReadinessRule[] = [
             if (!c) out.push({ text: `${name} is not evaluated.` });
             else if (c.status === 'over-limit') out.push({ text: `${name}: the sum is over the limit.` });
             else if (c.status === 'needs-simultaneous-measurement') out.push({ text: `${name} needs a simultaneous measurement.` });
-            else if (c.status === 'incomplete') out.push({ text: `${name} cannot be summed: a transmitter in it has neither a measurement nor an exemption to estimate its SAR from.`, step: 'measurements' });
+            else if (c.status === 'incomplete') out.push({ text: `${name} cannot be summed: a transmitter in it has no measurement here and no exemption to estimate its SAR from (or is not screened here).`, step: 'measurements' });
           }
       }
       return out;

@@ -106,7 +106,7 @@ function readinessLabCheck(c: LabCheck): ReadinessLabCheck | null {
   // A measurement's own copy of an instrument out of calibration is listed once, under the instrument.
   if (!kind || (c.kind === 'calibration' && c.subject.type === 'measurement')) return null;
   const gap = c.status === 'warning';
-  const label = c.status === 'fail' && c.value && !c.message.includes(c.value) ? `${c.message} (${c.value})` : c.message;
+  const label = c.status === 'fail' && c.value && !c.message.includes(c.value) ? `${c.message.replace(/\.$/, '')}: ${c.value}.` : c.message;
   return { kind, ok: c.status === 'pass', ...(gap ? { gap } : {}), label, source: c.source };
 }
 
