@@ -12,6 +12,7 @@ import type { EvidenceCategoryId } from '../constants/schemas/evidence';
 import type { ByteStorage } from '../server/storage';
 import { insertEvidence } from '../server/repos/evidence-repo';
 import { readBack } from '../server/services/evidence-service';
+import { READ_BACK_CATEGORIES } from '../server/services/version-readback';
 import { makePdf } from './documents';
 import { DEMO_TRACKER } from './demo-filing';
 
@@ -80,7 +81,7 @@ export async function seedDemoEvidence(db: Db, storage: ByteStorage, organisatio
       documentDate: d.documentDate ?? null,
       uploadedByUserId: engineer.id,
     });
-    if (d.category === 'test-report') await readBack(db, storage, stored.sha256);
+    if (READ_BACK_CATEGORIES.includes(d.category)) await readBack(db, storage, stored.sha256);
   }
   return DOCUMENTS.length;
 }

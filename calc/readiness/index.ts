@@ -7,7 +7,7 @@ import type { ReadinessInput } from './input';
 import { READINESS_RULES, type ReadinessFinding, type ReadinessRule } from './rules';
 
 export * from './input';
-export { READINESS_RULES, HOTSPOT_EDGE_DISTANCE_M, THIN_MARGIN_DB, TUNE_UP_SAME_WITHIN_DB } from './rules';
+export { READINESS_RULES, HOTSPOT_EDGE_DISTANCE_M, MANUAL_SEPARATION_KINDS, THIN_MARGIN_DB, TUNE_UP_SAME_WITHIN_DB, testsEdge } from './rules';
 export type { ReadinessFinding, ReadinessRule, ReadinessSeverity } from './rules';
 
 export type ReadinessStatus = 'pass' | 'fail' | 'not-applicable';

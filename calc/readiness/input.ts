@@ -5,7 +5,8 @@
  *
  * A part that is `null` holds no data for this version (nothing recorded yet). Rules that need a
  * part treat `null` as "nothing recorded", which is what it is: a combination that needs SAR and
- * has no lab results has no measurement.
+ * has no lab results has no measurement; a hotspot device with no antenna drawing on file has no
+ * edge distances, and a rule says what to upload.
  */
 import type { ScreeningRegime, UsePositionKind } from '../screening/input';
 
@@ -64,10 +65,17 @@ export interface ReadinessHighestSar {
   usePositionId: string;
 }
 
-/** One measurement-quality check computed by the lab results (liquid, system check, drift, calibration…). */
+/**
+ * One measurement-quality check computed by the lab results (calc/lab `lab-results`): a value
+ * against its tolerance (liquid, system check, drift, calibration, repeats, test separation), a
+ * reference to the device data (band, ids), or a gap in the records (`gap`: nothing out of
+ * tolerance, something not recorded — a warning).
+ */
 export interface ReadinessLabCheck {
-  kind: 'liquid' | 'system-check' | 'drift' | 'calibration' | 'repeat' | 'other';
+  kind: 'liquid' | 'system-check' | 'drift' | 'calibration' | 'repeat' | 'separation' | 'reference' | 'record' | 'other';
   ok: boolean;
+  /** A record that is missing rather than a value out of tolerance. */
+  gap?: boolean;
   /** What it checked, in words ("Liquid 2450 MHz, σ +6.1 % (±5 %)"). */
   label: string;
   source?: string;
@@ -78,8 +86,11 @@ export interface ReadinessCoTransmission {
   transmitterIds: string[];
   usePositionId: string;
   regime: ScreeningRegime;
-  /** within-limit: sum ≤ limit; ratio-ok: peak-location ratio passes; otherwise it fails. */
-  status: 'within-limit' | 'ratio-ok' | 'over-limit' | 'needs-simultaneous-measurement';
+  /**
+   * within-limit: sum ≤ limit; ratio-ok: peak-location ratio passes; incomplete: a transmitter in
+   * it has neither a measurement nor an exemption to estimate from; otherwise it fails.
+   */
+  status: 'within-limit' | 'ratio-ok' | 'over-limit' | 'needs-simultaneous-measurement' | 'incomplete';
 }
 
 export interface ReadinessLab {
@@ -87,7 +98,8 @@ export interface ReadinessLab {
   highest: ReadinessHighestSar[];
   checks: ReadinessLabCheck[];
   coTransmission: ReadinessCoTransmission[];
-  uncertainty: { required: boolean; given: boolean } | null;
+  /** Expanded uncertainty (k = 2) against its limit, when a budget is given. */
+  uncertainty: { required: boolean; given: boolean; expandedPct?: number | null; limitPct?: number } | null;
 }
 
 export interface ReadinessEvidence {
@@ -103,19 +115,32 @@ export interface ReadinessReportTuneUp {
   explained: boolean;
 }
 
+/** A difference the report read-back found other than a tune-up power (those are above). */
+export interface ReadinessReportFinding {
+  kind: 'reported-sar' | 'separation' | 'model' | 'unreadable';
+  /** The read-back's message, naming the document and page. */
+  text: string;
+  /** Marked explained by an engineer, with a reason. */
+  explained: boolean;
+}
+
 /** A separation distance the user manual states for a use position. */
 export interface ReadinessManualSeparation {
   usePositionId: string;
   statedSeparationM: number;
+  /** Where the manual says it ("“User manual”, page 4"). */
+  where?: string;
 }
 
-/** An edge of the device and how far each antenna is from it. */
+/**
+ * How far an antenna is from an edge of the device (the antenna location drawing). A hotspot use
+ * position tests an edge when its id names it (“hotspot-top”).
+ */
 export interface ReadinessEdge {
   edge: string;
   antennaId: string;
   distanceM: number;
-  /** The hotspot use position that tests this edge, if any. */
-  usePositionId: string | null;
+  where?: string;
 }
 
 export interface ReadinessInput {
@@ -131,7 +156,12 @@ export interface ReadinessInput {
   screening: { rows: ReadinessScreeningRow[]; gaps: { transmitterId: string; usePositionId: string }[] } | null;
   lab: ReadinessLab | null;
   evidence: ReadinessEvidence | null;
+  /** Null when no test report's text is on file. */
   reportTuneUps: ReadinessReportTuneUp[] | null;
+  /** Null when no test report's text is on file. */
+  reportFindings: ReadinessReportFinding[] | null;
+  /** Null when no user manual's text is on file; a position the manual states nothing for is absent. */
   manualSeparations: ReadinessManualSeparation[] | null;
+  /** Null when no antenna drawing's text is on file. */
   hotspotEdges: ReadinessEdge[] | null;
 }

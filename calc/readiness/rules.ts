@@ -31,8 +31,10 @@ export interface ReadinessRule {
   check(input: ReadinessInput): ReadinessFinding[] | null;
 }
 
-/** The hotspot edge distance within which an edge must be tested: 25 mm (KDB 941225 D06 §4.2, from memory). */
+/** The antenna-to-edge distance within which a hotspot edge must be tested: 25 mm (FCC KDB 941225 D06; clause from memory). */
 export const HOTSPOT_EDGE_DISTANCE_M = 0.025;
+/** Use-position kinds whose separation the user is told in the manual (body-worn accessories, hotspot). */
+export const MANUAL_SEPARATION_KINDS = ['body-worn', 'hotspot'] as const;
 /** A screening margin under this is a warning: small changes of tune-up or gain flip it. Common practice. */
 export const THIN_MARGIN_DB = 1;
 /** Tune-up powers that differ by less than this are the same figure (rounding of printed tables). */
@@ -53,6 +55,32 @@ const DEVICE_FIELDS: [keyof ReadinessInput['device'], string][] = [
 function measuredCombinations(input: ReadinessInput): Set<string> {
   return new Set((input.lab?.measurements ?? []).map((m) => key(m.transmitterId, m.usePositionId)));
 }
+
+/** The lab checks of some kinds: those out of tolerance (gap false) or the gaps in the records (gap true). */
+function labChecks(input: ReadinessInput, kinds: readonly string[], gaps: boolean): ReadinessFinding[] | null {
+  const relevant = (input.lab?.checks ?? []).filter((c) => kinds.includes(c.kind) && !!c.gap === gaps);
+  if (!relevant.length) return null;
+  return relevant.filter((c) => !c.ok).map((c) => ({ text: c.source && !gaps ? `${c.label} (${c.source})` : c.label }));
+}
+
+/** The separation a use position was tested at: its measurements' largest, else the position's own. */
+function testedSeparations(input: ReadinessInput): Map<string, number> {
+  const tested = new Map<string, number>();
+  for (const m of input.lab?.measurements ?? []) {
+    if (m.testSeparationM === null) continue;
+    tested.set(m.usePositionId, Math.max(tested.get(m.usePositionId) ?? 0, m.testSeparationM));
+  }
+  for (const p of input.usePositions) {
+    if (tested.has(p.id) || !p.separations.length) continue;
+    tested.set(p.id, Math.max(...p.separations.map((s) => s.separationM)));
+  }
+  return tested;
+}
+
+const manualPositions = (input: ReadinessInput) => input.usePositions.filter((p) => (MANUAL_SEPARATION_KINDS as readonly string[]).includes(p.kind));
+
+/** A hotspot use position tests an edge when its id names the edge as a word (“hotspot-top”, “HS_Top_edge”). */
+export const testsEdge = (usePositionId: string, edge: string) => usePositionId.toLowerCase().split(/[^a-z0-9]+/).includes(edge.toLowerCase());
 
 export const READINESS_RULES: readonly ReadinessRule[] = [
   {
@@ -146,6 +174,24 @@ export const READINESS_RULES: readonly ReadinessRule[] = [
     },
   },
   {
+    id: 'measurements-match-device',
+    severity: 'blocks-signing',
+    title: 'Every measurement belongs to the device data',
+    fix: 'Correct the transmitter, use position or frequency of each measurement named, or add what it names under Radios or Use positions.',
+    step: 'measurements',
+    source: 'common practice (the lab results are evaluated against the device as described: 47 CFR §2.1093(d))',
+    check: (input) => (input.lab?.measurements.length || input.lab?.checks.some((c) => c.kind === 'reference') ? (labChecks(input, ['reference'], false) ?? []) : null),
+  },
+  {
+    id: 'lab-records-complete',
+    severity: 'warning',
+    title: 'Every measurement’s record is complete',
+    fix: 'Enter what each record named lacks (power drift, the liquid and system check it relied on, the SAR at each averaging mass, the probe and its calibration).',
+    step: 'measurements',
+    source: 'IEC/IEEE 62209-1528:2020 and FCC KDB 865664 D01 v01r04 (what a SAR test record carries; from memory); common practice',
+    check: (input) => (input.lab?.measurements.length ? (labChecks(input, ['liquid', 'system-check', 'drift', 'calibration', 'repeat', 'separation', 'reference', 'record', 'other'], true) ?? []) : null),
+  },
+  {
     id: 'reported-sar-within-limit',
     severity: 'blocks-signing',
     title: 'Every highest reported SAR is under its limit',
@@ -182,6 +228,7 @@ export const READINESS_RULES: readonly ReadinessRule[] = [
             if (!c) out.push({ text: `${name} is not evaluated.` });
             else if (c.status === 'over-limit') out.push({ text: `${name}: the sum is over the limit.` });
             else if (c.status === 'needs-simultaneous-measurement') out.push({ text: `${name} needs a simultaneous measurement.` });
+            else if (c.status === 'incomplete') out.push({ text: `${name} cannot be summed: a transmitter in it has no measurement here and no exemption to estimate its SAR from (or is not screened here).`, step: 'measurements' });
           }
       }
       return out;
@@ -231,14 +278,21 @@ export const READINESS_RULES: readonly ReadinessRule[] = [
   {
     id: 'lab-checks-in-tolerance',
     severity: 'blocks-signing',
-    title: 'Liquid, system check, drift and calibrations are in tolerance',
+    title: 'Liquid, system check, drift, calibrations and repeats are in tolerance',
     fix: 'Repeat the check named, or replace the measurements that relied on it.',
     step: 'measurements',
-    source: 'IEC/IEEE 62209-1528:2020; FCC KDB 865664 D01 v01r04',
-    check: (input) => {
-      if (!input.lab?.checks.length) return null;
-      return input.lab.checks.filter((c) => !c.ok).map((c) => ({ text: c.source ? `${c.label} (${c.source})` : c.label }));
-    },
+    source:
+      'IEEE Std 1528-2013: liquid εr and σ within ±5 % of target, system check within ±10 % of the dipole target, power drift within ±5 % (clause numbers from memory); FCC KDB 865664 D01 v01r04: calibration intervals, repeated measurements (§2.8.1, from memory)',
+    check: (input) => labChecks(input, ['liquid', 'system-check', 'drift', 'calibration', 'repeat'], false),
+  },
+  {
+    id: 'tested-at-use-separation',
+    severity: 'blocks-signing',
+    title: 'No measurement is made farther away than the device is used',
+    fix: 'Re-test at the use position’s separation, or correct the separation under Use positions.',
+    step: 'measurements',
+    source: 'FCC KDB 447498 D01 v06 §4.1 and KDB 865664 D01 v01r04 (test at the separation of use, never farther; from memory)',
+    check: (input) => labChecks(input, ['separation'], false),
   },
   {
     id: 'uncertainty-given',
@@ -250,7 +304,10 @@ export const READINESS_RULES: readonly ReadinessRule[] = [
     check: (input) => {
       const u = input.lab?.uncertainty;
       if (!u?.required) return null;
-      return u.given ? [] : [{ text: 'The highest measured SAR requires an uncertainty budget, and none is given.' }];
+      if (!u.given) return [{ text: 'The highest measured SAR requires an uncertainty budget, and none is given.' }];
+      if (u.expandedPct != null && u.limitPct != null && u.expandedPct > u.limitPct)
+        return [{ text: `The expanded uncertainty is ${u.expandedPct.toFixed(1)} % (k = 2), above ${u.limitPct} %: check the budget against the lab’s.` }];
+      return [];
     },
   },
   {
@@ -259,21 +316,43 @@ export const READINESS_RULES: readonly ReadinessRule[] = [
     title: 'The user manual states no separation smaller than the one tested',
     fix: 'Correct the separation stated in the user manual, or test at the stated distance.',
     step: 'evidence',
-    source: 'common practice (47 CFR §2.1093 grant conditions: end users must be informed of the tested body-worn distance)',
+    source: 'FCC KDB 447498 D01 v06 (body-worn accessories: users are told the tested separation; from memory); RSP-100 (user-manual notices; from memory)',
     check: (input) => {
       if (!input.manualSeparations?.length) return null;
-      const tested = new Map<string, number>();
-      for (const m of input.lab?.measurements ?? []) {
-        if (m.testSeparationM === null) continue;
-        tested.set(m.usePositionId, Math.max(tested.get(m.usePositionId) ?? 0, m.testSeparationM));
-      }
-      for (const p of input.usePositions) {
-        if (tested.has(p.id) || !p.separations.length) continue;
-        tested.set(p.id, Math.max(...p.separations.map((s) => s.separationM)));
-      }
+      const tested = testedSeparations(input);
       return input.manualSeparations
         .filter((s) => tested.has(s.usePositionId) && s.statedSeparationM < tested.get(s.usePositionId)! - 1e-9)
-        .map((s) => ({ text: `“${s.usePositionId}”: the manual states ${mm(s.statedSeparationM)} mm; it was tested at ${mm(tested.get(s.usePositionId)!)} mm.` }));
+        .map((s) => ({ text: `“${s.usePositionId}”: the manual${s.where ? ` (${s.where})` : ''} states ${mm(s.statedSeparationM)} mm; it was tested at ${mm(tested.get(s.usePositionId)!)} mm.` }));
+    },
+  },
+  {
+    id: 'manual-separation-stated',
+    severity: 'warning',
+    title: 'The user manual states the separation of each body-worn and hotspot position',
+    fix: 'Upload the user-manual excerpt as a PDF whose text can be selected, with a sentence that gives the distance, such as “keep at least 10 mm between the device and your body”.',
+    step: 'evidence',
+    source: 'FCC KDB 447498 D01 v06 (body-worn operating instructions; from memory); RSP-100 (user-manual notices in English and French; from memory)',
+    check: (input) => {
+      const positions = manualPositions(input);
+      if (!positions.length) return null;
+      if (input.manualSeparations === null)
+        return [{ text: 'No user-manual text is on file, so the separation it tells users cannot be checked: upload the user-manual excerpt as a PDF with selectable text.' }];
+      const stated = new Set(input.manualSeparations.map((s) => s.usePositionId));
+      return positions
+        .filter((p) => !stated.has(p.id))
+        .map((p) => ({ text: `The user manual states no separation for “${p.id}” (${p.kind}): add a sentence with the distance in mm, for example “at least ${mm(testedSeparations(input).get(p.id) ?? 0.01)} mm from the body”.` }));
+    },
+  },
+  {
+    id: 'report-agrees',
+    severity: 'blocks-signing',
+    title: 'The test report agrees with the filing',
+    fix: 'Correct the filing or have the lab correct the report; where the difference is right, explain it on the Evidence step.',
+    step: 'evidence',
+    source: 'common practice (the exhibits of one application describe one device: 47 CFR §2.1033(b); from memory)',
+    check: (input) => {
+      if (!input.reportFindings) return null;
+      return input.reportFindings.filter((f) => !f.explained).map((f) => ({ text: f.text }));
     },
   },
   {
@@ -292,28 +371,50 @@ export const READINESS_RULES: readonly ReadinessRule[] = [
     id: 'hotspot-edges',
     severity: 'blocks-signing',
     title: 'Hotspot edges within 25 mm of an antenna are evaluated',
-    fix: 'Add a hotspot use position for each edge named, and measure every transmitter on an antenna within 25 mm of it that needs SAR.',
+    fix: 'Add a hotspot use position for each edge named (its id names the edge, such as “hotspot-top”), and measure every transmitter on an antenna within 25 mm of it that needs SAR.',
     step: 'use-positions',
-    source: 'FCC KDB 941225 D06 (hotspot mode: surfaces and edges with an antenna within 25 mm; from memory)',
+    source: 'FCC KDB 941225 D06 (hotspot mode: each surface and edge with a transmitting antenna within 25 mm is tested, at 10 mm; from memory)',
     check: (input) => {
       const hotspots = input.usePositions.filter((p) => p.kind === 'hotspot');
-      const edges = (input.hotspotEdges ?? []).filter((e) => e.distanceM <= HOTSPOT_EDGE_DISTANCE_M);
-      if (!hotspots.length && !edges.length) return null;
+      if (!hotspots.length || input.hotspotEdges === null) return null;
       const out: ReadinessFinding[] = [];
-      for (const e of edges) {
-        if (!e.usePositionId) out.push({ text: `Edge “${e.edge}” is ${mm(e.distanceM)} mm from ${e.antennaId} and has no hotspot use position.` });
-      }
       const rows = new Map((input.screening?.rows ?? []).map((r) => [key(r.transmitterId, r.usePositionId, r.regime), r.result]));
       const measured = measuredCombinations(input);
-      for (const p of hotspots) {
-        const near = new Set(p.separations.filter((s) => s.separationM <= HOTSPOT_EDGE_DISTANCE_M).map((s) => s.antennaId));
-        for (const t of input.transmitters.filter((t) => near.has(t.antennaId))) {
-          const results = input.regimes.map((r) => rows.get(key(t.id, p.id, r)));
-          if (results.some((r) => r === undefined)) out.push({ text: `${t.id} at hotspot “${p.id}” is not screened.` });
-          else if (results.includes('evaluate-sar') && !measured.has(key(t.id, p.id))) out.push({ text: `${t.id} at hotspot “${p.id}” needs SAR and has no measurement.`, step: 'measurements' });
+      const seen = new Set<string>();
+      for (const e of input.hotspotEdges) {
+        if (e.distanceM > HOTSPOT_EDGE_DISTANCE_M + 1e-9) continue;
+        const positions = hotspots.filter((p) => testsEdge(p.id, e.edge));
+        if (!positions.length) {
+          if (!seen.has(key('edge', e.edge))) out.push({ text: `The ${e.edge} edge is ${mm(e.distanceM)} mm from ${e.antennaId} and no hotspot use position tests it (give one an id naming the edge, such as “hotspot-${e.edge}”).` });
+          seen.add(key('edge', e.edge));
+          continue;
         }
+        for (const t of input.transmitters.filter((t) => t.antennaId === e.antennaId))
+          for (const p of positions) {
+            if (seen.has(key(t.id, p.id))) continue;
+            seen.add(key(t.id, p.id));
+            const results = input.regimes.map((r) => rows.get(key(t.id, p.id, r)));
+            if (results.some((r) => r === undefined)) out.push({ text: `${t.id} at hotspot “${p.id}” is not screened (give its separation for ${t.antennaId}).` });
+            else if (results.includes('evaluate-sar') && !measured.has(key(t.id, p.id))) out.push({ text: `${t.id} at hotspot “${p.id}” (${e.edge} edge, ${mm(e.distanceM)} mm from ${t.antennaId}) needs SAR and has no measurement.`, step: 'measurements' });
+          }
       }
       return out;
+    },
+  },
+  {
+    id: 'hotspot-edge-distances',
+    severity: 'warning',
+    title: 'The antenna-to-edge distances of a hotspot device are on file',
+    fix: 'Upload the antenna location drawing as a PDF whose text gives each antenna’s distance to each edge, such as “ANT-1: top edge 6 mm, left edge 31 mm”.',
+    step: 'evidence',
+    source: 'FCC KDB 941225 D06 (which hotspot edges are tested follows from the antenna-to-edge distances; from memory)',
+    check: (input) => {
+      if (!input.usePositions.some((p) => p.kind === 'hotspot')) return null;
+      if (input.hotspotEdges === null)
+        return [{ text: 'No antenna location drawing with readable text is on file, so which hotspot edges must be tested cannot be worked out.' }];
+      const known = new Set(input.hotspotEdges.map((e) => e.antennaId));
+      const used = [...new Set(input.transmitters.map((t) => t.antennaId))];
+      return used.filter((a) => !known.has(a)).map((a) => ({ text: `The antenna drawing gives no edge distance for ${a}.` }));
     },
   },
   {

@@ -28,7 +28,10 @@ import * as repo from '../repos/evidence-repo';
 import { recordAudit } from './audit';
 import { getFiling, type FilingActor } from './filings-service';
 import { requiredForVersion } from './evidence-step';
-import { compareReport, extractPdfText, type FilingNumbers } from './report-readback';
+import { extractPdfText } from './report-readback';
+import { labDeviceDataOf, readVersionData, screenVersion } from './readiness-service';
+import { versionLabResults } from './lab-results-cache';
+import { READ_BACK_CATEGORIES, filingNumbersOf, versionReadBack } from './version-readback';
 
 export const canUpload = (actor: FilingActor) => actor.roles.includes('engineer') || actor.roles.includes('specialist');
 
@@ -153,7 +156,7 @@ export async function recordUpload(db: Db, storage: ByteStorage, config: Config,
       });
       return inserted;
     });
-    if (fields.category === 'test-report' && sniffed.mime === MEDIA.pdf) await readBack(db, storage, stored.sha256);
+    if (READ_BACK_CATEGORIES.includes(fields.category) && sniffed.mime === MEDIA.pdf) await readBack(db, storage, stored.sha256);
     const full = listRecords(db, versionId).find((r) => r.id === record.id)!;
     return {
       record: full,
@@ -166,7 +169,7 @@ export async function recordUpload(db: Db, storage: ByteStorage, config: Config,
   }
 }
 
-/** Reads a test report's text once per content hash (kept for the read-back findings). */
+/** Reads a PDF's text once per content hash (test reports, user manuals and antenna drawings are read back). */
 export async function readBack(db: Db, storage: ByteStorage, sha256: string) {
   if (repo.findDocumentText(db, sha256)) return;
   const data = await buffer(await storage.get(sha256));
@@ -210,35 +213,15 @@ function listRecords(db: Db, versionId: number, versionNumber = 0): EvidenceReco
   return rows.map((r) => toRecord(r, versionNumber, duplicates));
 }
 
-function filingNumbers(db: Db, actor: FilingActor, filingId: number): FilingNumbers {
-  const detail = getFiling(db, actor, filingId);
-  const positions = detail.data['use-positions'].usePositions;
-  return {
-    model: detail.device.model,
-    tuneUps: detail.data.radios.transmitters.map((t) => ({ transmitterId: t.id, band: t.band, tuneUpPowerDbm: t.maxTuneUpPowerDbm })),
-    separations: positions.flatMap((p) => p.separations.map((s) => ({ kind: p.kind, separationMm: s.separationM * 1000 }))),
-    highestReportedSar: [],
-  };
-}
-
-/** Read-back findings of the version's current test reports against the filing's numbers. */
-function findings(db: Db, actor: FilingActor, filingId: number, versionId: number, records: EvidenceRecord[]): ReadBackFinding[] {
-  const reports = records.filter((r) => r.replacedById === null && r.category === 'test-report' && r.mediaType === MEDIA.pdf);
-  if (!reports.length) return [];
-  const texts = new Map(repo.documentTextsFor(db, [...new Set(reports.map((r) => r.sha256))]).map((t) => [t.sha256, t]));
-  const explained = new Map(repo.listExplanations(db, versionId).map((e) => [`${e.row.evidenceId}|${e.row.findingKey}`, { reason: e.row.reason, by: e.userName, at: e.row.at }]));
-  const numbers = filingNumbers(db, actor, filingId);
-  const out: ReadBackFinding[] = [];
-  for (const r of reports) {
-    const text = texts.get(r.sha256);
-    if (!text) continue;
-    const drafts =
-      text.status === 'unreadable'
-        ? [{ key: 'unreadable', kind: 'unreadable' as const, page: null, message: `“${r.title}” was stored, but ${text.reason?.replace(/^The PDF/, 'its PDF') ?? 'it could not be read'} Check it by hand.`, reportValue: null, filingValue: null }]
-        : compareReport(text.pages, numbers);
-    for (const d of drafts) out.push({ ...d, evidenceId: r.id, explanation: explained.get(`${r.id}|${d.key}`) ?? null });
-  }
-  return out;
+/** Read-back findings of the version's current test reports against the filing's numbers (the ones the checklist reads). */
+function findings(db: Db, row: filingsRepo.FilingRow, records: EvidenceRecord[]): ReadBackFinding[] {
+  if (!records.some((r) => r.replacedById === null && r.category === 'test-report' && r.mediaType === MEDIA.pdf)) return [];
+  const v = readVersionData(db, row.version, row.filing.deviceId);
+  const { data } = v;
+  const lab = versionLabResults(db, row.version.id, labDeviceDataOf(v), screenVersion(v));
+  const numbers = filingNumbersOf(data.device.model, data.radios.transmitters, data['use-positions'].usePositions, lab?.results?.highest ?? []);
+  const report = versionReadBack(db, row.version.id, records, numbers, data.radios.antennas.map((a) => a.id)).report ?? [];
+  return report.map(({ tuneUp: _t, title: _title, ...f }) => f);
 }
 
 export function listEvidence(db: Db, config: Config, actor: FilingActor, filingId: number): EvidenceList {
@@ -253,7 +236,7 @@ export function listEvidence(db: Db, config: Config, actor: FilingActor, filingI
     records: current,
     history: records.filter((r) => r.replacedById !== null),
     required: requiredForVersion(db, row.version.id, getFiling(db, actor, filingId)),
-    findings: findings(db, actor, filingId, row.version.id, records),
+    findings: findings(db, row, records),
     limits: { ...config.evidence, usedBytes: repo.usedBytes(db, row.version.id) },
   };
 }

@@ -9,6 +9,7 @@ import { DATA_STEPS, type FilingDetail, type StepStatus } from '../../constants/
 import { screeningInput } from '../../calc/screening/input';
 import { screenParsed, type ScreeningCounts } from '../../calc/screening/screen';
 import { listEvidence } from '../repos/evidence-repo';
+import { countMeasurements } from '../repos/lab-repo';
 import { requiredEvidence, type EvidenceFacts } from './evidence-required';
 
 type FilingData = Pick<FilingDetail, 'data' | 'steps'>;
@@ -28,21 +29,28 @@ export function screeningCounts(f: FilingData): ScreeningCounts | null {
   return parsed.success ? screenParsed(parsed.data).summary.total : null;
 }
 
-export function evidenceFactsOf(f: FilingData): EvidenceFacts {
+/** The facts the required-categories rule reads; `labSar` is how many SAR measurements the lab entered. */
+export function evidenceFactsOf(f: FilingData, labSar = 0): EvidenceFacts {
   return {
     markets: f.data.markets.markets.map((m) => m.regime),
     usePositionKinds: f.data['use-positions'].usePositions.map((p) => p.kind),
     screening: screeningCounts(f),
-    // Lab results join here once they exist.
-    labResults: { sar: 0, mpe: 0 },
+    // The lab data holds SAR measurements only; MPE results are not entered as lab data.
+    labResults: { sar: labSar, mpe: 0 },
   };
 }
 
-export function requiredForVersion(db: Db, versionId: number, f: FilingData) {
-  const current = listEvidence(db, versionId)
+/** The version's current (not replaced) evidence, by category. */
+export function currentEvidence(db: Db, versionId: number) {
+  return listEvidence(db, versionId)
     .filter((r) => r.row.replacedById === null)
     .map((r) => ({ id: r.row.id, category: r.row.category }));
-  return requiredEvidence(evidenceFactsOf(f), current, (c) => !!CATEGORY_BY_ID[c].writtenByFieldfile);
+}
+
+export const writtenByFieldfile = (c: keyof typeof CATEGORY_BY_ID) => !!CATEGORY_BY_ID[c].writtenByFieldfile;
+
+export function requiredForVersion(db: Db, versionId: number, f: FilingData) {
+  return requiredEvidence(evidenceFactsOf(f, countMeasurements(db, versionId)), currentEvidence(db, versionId), writtenByFieldfile);
 }
 
 /** Complete when every required category is present; until screening can run, it waits. */

@@ -88,6 +88,8 @@ export interface ReadBackDraft {
   message: string;
   reportValue: string | null;
   filingValue: string | null;
+  /** For a tune-up finding: the transmitter and the report's figure (the readiness rules compare them). */
+  tuneUp?: { transmitterId: string; reportTuneUpPowerDbm: number };
 }
 
 const CONDITION_PATTERNS: [UsePositionKind, RegExp][] = [
@@ -131,6 +133,7 @@ export function compareReport(pages: string[], f: FilingNumbers): ReadBackDraft[
       message: `Report page ${page} gives a tune-up power of ${fmt(stated.value)} dBm for ${tx.band}; the filing’s is ${fmt(tx.tuneUpPowerDbm)} dBm.`,
       reportValue: `${fmt(stated.value)} dBm`,
       filingValue: `${fmt(tx.tuneUpPowerDbm)} dBm`,
+      tuneUp: { transmitterId: tx.transmitterId, reportTuneUpPowerDbm: stated.value },
     });
   }
 
@@ -206,4 +209,83 @@ export function compareReport(pages: string[], f: FilingNumbers): ReadBackDraft[
     }
   }
   return drafts;
+}
+
+// ---------------------------------------------------------------------------------------------
+// The user manual and the antenna drawing: the figures the readiness rules compare.
+
+/** A distance as the text states it, in mm ("10 mm", "1.5 cm", "0,5 cm"). */
+const DISTANCE = /(\d+(?:[.,]\d+)?)\s*(mm|cm)\b/gi;
+const distancesMm = (line: string) =>
+  [...line.matchAll(DISTANCE)].map((m) => ({ mm: Number(m[1].replace(',', '.')) * (m[2].toLowerCase() === 'cm' ? 10 : 1), index: m.index ?? 0 }));
+
+export interface ManualSeparationStatement {
+  /** The condition the sentence names; null when it names none ("from your body"). */
+  kind: UsePositionKind | null;
+  separationMm: number;
+  page: number;
+  line: string;
+}
+
+/**
+ * Separation distances a user manual states: a line that speaks of keeping the device at a
+ * distance from the body (separation, distance, "at least", "away from", "from the body") with a
+ * figure in mm or cm. English and French wording, as RSP-100 asks for both in Canada. A line
+ * naming a condition (body-worn, hotspot) is that condition's; otherwise it names none.
+ */
+export function manualSeparationStatements(pages: string[]): ManualSeparationStatement[] {
+  const out: ManualSeparationStatement[] = [];
+  pages.forEach((text, i) => {
+    for (const line of text.split('\n')) {
+      if (!/(separation|distance|at least|away from|from (?:the|your) body|au moins|du corps|écart)/i.test(line)) continue;
+      const figures = distancesMm(line);
+      if (!figures.length) continue;
+      const kind = CONDITION_PATTERNS.find(([, re]) => re.test(line))?.[0] ?? null;
+      for (const f of figures) out.push({ kind, separationMm: f.mm, page: i + 1, line });
+    }
+  });
+  return out;
+}
+
+export const EDGES = ['top', 'bottom', 'left', 'right'] as const;
+export type Edge = (typeof EDGES)[number];
+const EDGE_WORDS: [Edge, RegExp][] = [
+  ['top', /\b(top|haut|sup[ée]rieur)\b/i],
+  ['bottom', /\b(bottom|bas|inf[ée]rieur)\b/i],
+  ['left', /\b(left|gauche)\b/i],
+  ['right', /\b(right|droit[e]?)\b/i],
+];
+
+export interface AntennaEdgeDistance {
+  antennaId: string;
+  edge: Edge;
+  distanceMm: number;
+  page: number;
+}
+
+/**
+ * Antenna-to-edge distances an antenna location drawing states in its text: a line naming an edge
+ * (top, bottom, left, right) with a figure in mm or cm, for the antenna the line names — or, in a
+ * table laid out one antenna per heading, the antenna named last above it on the same page.
+ * "ANT-MAIN: top edge 6 mm, left edge 30 mm" gives two distances. A drawing that is only a
+ * picture has no text, and gives none.
+ */
+export function antennaEdgeDistances(pages: string[], antennaIds: readonly string[]): AntennaEdgeDistance[] {
+  const ids = [...antennaIds].sort((a, b) => b.length - a.length).map((id) => ({ id, re: new RegExp(`(^|[^A-Za-z0-9._-])${escapeRe(id)}($|[^A-Za-z0-9._-])`, 'i') }));
+  const out: AntennaEdgeDistance[] = [];
+  pages.forEach((text, i) => {
+    let current: string | null = null;
+    for (const line of text.split('\n')) {
+      const named = ids.find((a) => a.re.test(line));
+      if (named) current = named.id;
+      if (!current) continue;
+      // Each part between commas or semicolons pairs one edge with one figure.
+      for (const part of line.split(/[;,]/)) {
+        const edge = EDGE_WORDS.find(([, re]) => re.test(part))?.[0];
+        const figure = distancesMm(part)[0];
+        if (edge && figure) out.push({ antennaId: current, edge, distanceMm: figure.mm, page: i + 1 });
+      }
+    }
+  });
+  return out;
 }

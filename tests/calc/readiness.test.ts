@@ -11,18 +11,25 @@ function passing(): ReadinessInput {
   const lab: ReadinessLab = {
     measurements: [
       { measurementId: 'M1', transmitterId: 'LTE-B2', usePositionId: 'body', measuredPowerDbm: 22.8, tuneUpPowerDbm: 23.5, testSeparationM: 0.01 },
-      { measurementId: 'M2', transmitterId: 'LTE-B2', usePositionId: 'hotspot-back', measuredPowerDbm: 23.1, tuneUpPowerDbm: 23.5, testSeparationM: 0.01 },
+      { measurementId: 'M2', transmitterId: 'LTE-B2', usePositionId: 'hotspot-top', measuredPowerDbm: 23.1, tuneUpPowerDbm: 23.5, testSeparationM: 0.01 },
     ],
     highest: [{ regime: 'fcc', usePositionKind: 'body-worn', reportedSarWPerKg: 1.19, limitWPerKg: 1.6, transmitterId: 'LTE-B2', usePositionId: 'body' }],
-    checks: [{ kind: 'liquid', ok: true, label: 'Liquid 1880 MHz, εr −2.1 %, σ +3.0 % (±5 %)' }],
-    coTransmission: ['body', 'hotspot-back'].flatMap((usePositionId) =>
+    checks: [
+      { kind: 'liquid', ok: true, label: 'Liquid 1880 MHz, εr −2.1 %, σ +3.0 % (±5 %)' },
+      { kind: 'system-check', ok: true, label: 'System check S1 within tolerance.' },
+      { kind: 'drift', ok: true, label: 'Power drift within tolerance.' },
+      { kind: 'calibration', ok: true, label: 'P1 in calibration on every test date.' },
+      { kind: 'repeat', ok: true, label: 'M1: repeat measurements as required.' },
+      { kind: 'separation', ok: true, label: 'Tested no farther than the device is used.' },
+    ],
+    coTransmission: ['body', 'hotspot-top'].flatMap((usePositionId) =>
       (['fcc', 'eu'] as const).map((regime) => ({ transmitterIds: ['LTE-B2', 'WLAN'], usePositionId, regime, status: 'within-limit' as const })),
     ),
     uncertainty: { required: true, given: true },
   };
   const positions = [
     { id: 'body', kind: 'body-worn' as const, separations: [{ antennaId: 'A1', separationM: 0.01 }, { antennaId: 'A2', separationM: 0.01 }] },
-    { id: 'hotspot-back', kind: 'hotspot' as const, separations: [{ antennaId: 'A1', separationM: 0.01 }, { antennaId: 'A2', separationM: 0.03 }] },
+    { id: 'hotspot-top', kind: 'hotspot' as const, separations: [{ antennaId: 'A1', separationM: 0.01 }, { antennaId: 'A2', separationM: 0.03 }] },
   ];
   const rows = positions.flatMap((p) =>
     (['fcc', 'eu'] as const).flatMap((regime) => [
@@ -45,8 +52,15 @@ function passing(): ReadinessInput {
     lab,
     evidence: { required: [{ category: 'sar-report', label: 'SAR test report', present: true }] },
     reportTuneUps: [{ transmitterId: 'LTE-B2', reportTuneUpPowerDbm: 23.5, where: 'page 12', explained: false }],
-    manualSeparations: [{ usePositionId: 'body', statedSeparationM: 0.015 }],
-    hotspotEdges: [{ edge: 'top', antennaId: 'A1', distanceM: 0.008, usePositionId: 'hotspot-back' }],
+    reportFindings: [],
+    manualSeparations: [
+      { usePositionId: 'body', statedSeparationM: 0.015 },
+      { usePositionId: 'hotspot-top', statedSeparationM: 0.01 },
+    ],
+    hotspotEdges: [
+      { edge: 'top', antennaId: 'A1', distanceM: 0.008 },
+      { edge: 'left', antennaId: 'A2', distanceM: 0.031 },
+    ],
   };
 }
 
@@ -118,7 +132,7 @@ const cases: { id: string; why: string; breaks: (f: ReadinessInput) => void; fin
     id: 'co-transmission-evaluated',
     why: 'over the limit without a peak-location ratio',
     breaks: (f) => void (f.lab!.coTransmission[3].status = 'needs-simultaneous-measurement'),
-    finding: /“hotspot-back”, EU needs a simultaneous measurement/,
+    finding: /“hotspot-top”, EU needs a simultaneous measurement/,
     blocks: true,
   },
   {
@@ -150,6 +164,69 @@ const cases: { id: string; why: string; breaks: (f: ReadinessInput) => void; fin
     blocks: true,
   },
   {
+    id: 'lab-checks-in-tolerance',
+    why: 'IEEE 1528-2013: system check within ±10 % of the dipole target',
+    breaks: (f) => void (f.lab!.checks[1] = { kind: 'system-check', ok: false, label: 'System check S1 (2026-11-10) is 11.2 % from its target.' }),
+    finding: /11\.2 % from its target/,
+    blocks: true,
+  },
+  {
+    id: 'lab-checks-in-tolerance',
+    why: 'IEEE 1528-2013: power drift within ±5 %',
+    breaks: (f) => void (f.lab!.checks[2] = { kind: 'drift', ok: false, label: 'M1: power drift -0.3 dB is outside ±5 %.' }),
+    finding: /power drift -0\.3 dB/,
+    blocks: true,
+  },
+  {
+    id: 'lab-checks-in-tolerance',
+    why: 'KDB 865664: instruments in calibration on the test date',
+    breaks: (f) => void (f.lab!.checks[3] = { kind: 'calibration', ok: false, label: 'P1 (probe) was not in calibration on 2026-11-12.' }),
+    finding: /not in calibration on 2026-11-12/,
+    blocks: true,
+  },
+  {
+    id: 'lab-checks-in-tolerance',
+    why: 'KDB 865664 §2.8.1: a repeat at ≥ 0.8 W/kg',
+    breaks: (f) => void (f.lab!.checks[4] = { kind: 'repeat', ok: false, label: 'M1: a repeat is required.' }),
+    finding: /a repeat is required/,
+    blocks: true,
+  },
+  {
+    id: 'tested-at-use-separation',
+    why: 'KDB 447498 §4.1: never tested farther than used',
+    breaks: (f) => void (f.lab!.checks[5] = { kind: 'separation', ok: false, label: 'M1: tested at 15 mm, farther than the 10 mm of body.' }),
+    finding: /tested at 15 mm, farther than the 10 mm of body/,
+    blocks: true,
+  },
+  {
+    id: 'measurements-match-device',
+    why: 'common practice: a measurement of a transmitter the device does not have',
+    breaks: (f) => void f.lab!.checks.push({ kind: 'reference', ok: false, label: 'Measurement M9 names transmitter “LTE-B5”, which the device data does not have.' }),
+    finding: /M9 names transmitter “LTE-B5”/,
+    blocks: true,
+  },
+  {
+    id: 'lab-records-complete',
+    why: 'IEC/IEEE 62209-1528: the drift of each scan is recorded',
+    breaks: (f) => void f.lab!.checks.push({ kind: 'drift', ok: false, gap: true, label: 'M1: no power drift recorded.' }),
+    finding: /M1: no power drift recorded/,
+    blocks: false,
+  },
+  {
+    id: 'co-transmission-evaluated',
+    why: 'KDB 447498 §4.3.2: a transmitter with neither a measurement nor an exemption',
+    breaks: (f) => void (f.lab!.coTransmission[0].status = 'incomplete'),
+    finding: /at “body”, US FCC cannot be summed/,
+    blocks: true,
+  },
+  {
+    id: 'uncertainty-given',
+    why: 'IEEE 1528-2013: expanded uncertainty at most 30 %',
+    breaks: (f) => void (f.lab!.uncertainty = { required: true, given: true, expandedPct: 31.4, limitPct: 30 }),
+    finding: /expanded uncertainty is 31\.4 %/,
+    blocks: true,
+  },
+  {
     id: 'uncertainty-given',
     why: 'KDB 865664 §2.8: a budget at ≥ 1.5 W/kg',
     breaks: (f) => void (f.lab!.uncertainty = { required: true, given: false }),
@@ -164,6 +241,34 @@ const cases: { id: string; why: string; breaks: (f: ReadinessInput) => void; fin
     blocks: true,
   },
   {
+    id: 'manual-separation-stated',
+    why: 'KDB 447498: users are told the body-worn distance; no manual on file says what to upload',
+    breaks: (f) => void (f.manualSeparations = null),
+    finding: /No user-manual text is on file/,
+    blocks: false,
+  },
+  {
+    id: 'manual-separation-stated',
+    why: 'a hotspot position the manual says nothing about',
+    breaks: (f) => void (f.manualSeparations = f.manualSeparations!.filter((m) => m.usePositionId !== 'hotspot-top')),
+    finding: /states no separation for “hotspot-top” \(hotspot\)/,
+    blocks: false,
+  },
+  {
+    id: 'report-agrees',
+    why: 'common practice: the report read back states the filing’s reported SAR',
+    breaks: (f) => void f.reportFindings!.push({ kind: 'reported-sar', text: '“SAR report”: Report page 9 says 1.12 W/kg for body-worn; the filing’s highest reported is 1.19 W/kg.', explained: false }),
+    finding: /page 9 says 1\.12 W\/kg/,
+    blocks: true,
+  },
+  {
+    id: 'report-agrees',
+    why: 'an unreadable report is checked by hand',
+    breaks: (f) => void f.reportFindings!.push({ kind: 'unreadable', text: '“SAR report” was stored, but its PDF is encrypted.', explained: false }),
+    finding: /its PDF is encrypted/,
+    blocks: true,
+  },
+  {
     id: 'evidence-present',
     why: '§2.1033(b): the test report is an exhibit',
     breaks: (f) => void (f.evidence!.required[0].present = false),
@@ -173,15 +278,36 @@ const cases: { id: string; why: string; breaks: (f: ReadinessInput) => void; fin
   {
     id: 'hotspot-edges',
     why: 'KDB 941225 D06: an edge with an antenna within 25 mm has its own position',
-    breaks: (f) => void (f.hotspotEdges![0].usePositionId = null),
-    finding: /Edge “top” is 8 mm from A1 and has no hotspot use position/,
+    breaks: (f) => void (f.hotspotEdges![0].edge = 'bottom'),
+    finding: /The bottom edge is 8 mm from A1 and no hotspot use position tests it/,
     blocks: true,
   },
   {
     id: 'hotspot-edges',
+    why: 'KDB 941225 D06: 25 mm is the line (the left edge moves from 31 mm to 24 mm)',
+    breaks: (f) => void (f.hotspotEdges![1].distanceM = 0.024),
+    finding: /The left edge is 24 mm from A2/,
+    blocks: true,
+  },
+  {
+    id: 'hotspot-edge-distances',
+    why: 'KDB 941225 D06: which edges are tested follows from the drawing; nothing on file says what to upload',
+    breaks: (f) => void (f.hotspotEdges = null),
+    finding: /No antenna location drawing with readable text is on file/,
+    blocks: false,
+  },
+  {
+    id: 'hotspot-edge-distances',
+    why: 'an antenna the drawing does not place',
+    breaks: (f) => void (f.hotspotEdges = f.hotspotEdges!.filter((e) => e.antennaId !== 'A2')),
+    finding: /gives no edge distance for A2/,
+    blocks: false,
+  },
+  {
+    id: 'hotspot-edges',
     why: 'KDB 941225 D06: a transmitter on the near antenna is measured',
-    breaks: (f) => void (f.lab!.measurements = f.lab!.measurements.filter((m) => m.usePositionId !== 'hotspot-back')),
-    finding: /LTE-B2 at hotspot “hotspot-back” needs SAR and has no measurement/,
+    breaks: (f) => void (f.lab!.measurements = f.lab!.measurements.filter((m) => m.usePositionId !== 'hotspot-top')),
+    finding: /LTE-B2 at hotspot “hotspot-top” \(top edge, 8 mm from A1\) needs SAR and has no measurement/,
     blocks: true,
   },
   {
@@ -225,12 +351,17 @@ describe('rules that do not apply', () => {
     f.lab = null;
     f.evidence = null;
     f.reportTuneUps = null;
+    f.reportFindings = null;
     f.manualSeparations = null;
     f.hotspotEdges = null;
     f.usePositions = f.usePositions.filter((p) => p.kind !== 'hotspot');
     const list = evaluateReadiness(f);
     const na = list.items.filter((i) => i.status === 'not-applicable').map((i) => i.id);
-    expect(na).toEqual(expect.arrayContaining(['sar-measured', 'co-transmission-evaluated', 'evidence-present', 'manual-separation', 'hotspot-edges', 'uncertainty-given', 'tune-up-consistent']));
+    expect(na).toEqual(
+      expect.arrayContaining(['sar-measured', 'co-transmission-evaluated', 'evidence-present', 'manual-separation', 'hotspot-edges', 'hotspot-edge-distances', 'uncertainty-given', 'tune-up-consistent', 'report-agrees', 'lab-records-complete', 'measurements-match-device', 'tested-at-use-separation']),
+    );
+    // Nothing is passed silently: the body-worn position's manual separation is asked for (a warning).
+    expect(list.items.find((i) => i.id === 'manual-separation-stated')!.status).toBe('fail');
     expect(list.ready).toBe(true);
   });
 
@@ -249,5 +380,25 @@ describe('rules that do not apply', () => {
     const it = evaluateReadiness(f).items.find((i) => i.id === 'screening-coverage')!;
     expect(it.findings).toHaveLength(51);
     expect(it.findings[50].text).toMatch(/and \d+ more/);
+  });
+});
+
+describe('explained read-back differences', () => {
+  it('a report difference an engineer explained does not fail the check', () => {
+    const f = passing();
+    f.reportFindings!.push({ kind: 'separation', text: 'Report page 3 gives a body-worn separation of 15 mm.', explained: true });
+    f.reportTuneUps!.push({ transmitterId: 'LTE-B2', reportTuneUpPowerDbm: 23, where: 'page 4', explained: true });
+    expect(item(f, 'report-agrees').status).toBe('pass');
+    expect(item(f, 'tune-up-consistent').status).toBe('pass');
+  });
+});
+
+describe('hotspot edges and positions', () => {
+  it('a position tests an edge when its id names the edge as a word', async () => {
+    const { testsEdge } = await import('../../calc/readiness');
+    expect(testsEdge('hotspot-top', 'top')).toBe(true);
+    expect(testsEdge('HS_Top_edge', 'top')).toBe(true);
+    expect(testsEdge('hotspot-topside', 'top')).toBe(false);
+    expect(testsEdge('hotspot-back', 'top')).toBe(false);
   });
 });

@@ -11,6 +11,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { openDatabase } from '../../db/client';
 import { SIGNING_STATEMENT } from '../../constants/schemas/review';
 import { versionContentSha256 } from '../../server/services/version-content';
+import { makePdf } from '../../seeds/documents';
 import { createTestApp, seedUsers, signIn, TEST_PASSWORD, type TestApp } from './support/test-app';
 
 type Agent = Awaited<ReturnType<typeof signIn>>;
@@ -40,10 +41,26 @@ async function addPerson(email: string, name: string, roles: string[]): Promise<
   return signIn(t, email);
 }
 
+/** What an exempt FCC + EU body-worn filing must carry (evidence-required): the tune-up table, the manual, the label. */
+const EXEMPT_EVIDENCE: [category: string, title: string, lines: string[]][] = [
+  ['tune-up-table', 'Tune-up power table', ['Tune-up power table, WR1-B', 'Bluetooth LE 2.4 GHz ISM: 4.0 dBm']],
+  ['user-manual', 'User manual, RF-exposure page', ['RF exposure', 'Wear the badge on its lanyard, at least 5 mm from the body.']],
+  ['label-drawing', 'Label drawing', ['Label WR1-B, on the back cover']],
+];
+
 async function newExemptFiling(by: Agent = specialist, name = exemptDevice.device.name): Promise<number> {
   const res = await by.post('/api/filings/import').send({ ...exemptDevice, device: { ...exemptDevice.device, name } });
   expect(res.status).toBe(201);
-  return res.body.filing.id;
+  const id = res.body.filing.id;
+  for (const [category, title, lines] of EXEMPT_EVIDENCE) {
+    const up = await by
+      .post(`/api/filings/${id}/evidence`)
+      .field('category', category)
+      .field('title', title)
+      .attach('file', await makePdf([lines], title), { filename: `${category}.pdf`, contentType: 'application/pdf' });
+    expect(up.status).toBe(201);
+  }
+  return id;
 }
 
 const mailsTo = async (email: string, subject: RegExp) =>

@@ -67,6 +67,7 @@ function input(v: VersionData): { input: ReadinessInput; screening: ReturnType<t
       lab: lab(v),
       evidence: { required: Array.from({ length: 12 }, (_, i) => ({ category: `c${i}`, label: `Category ${i}`, present: i !== 7 })) },
       reportTuneUps: v.data.radios.transmitters.map((t) => ({ transmitterId: t.id, reportTuneUpPowerDbm: t.maxTuneUpPowerDbm, where: 'p. 3', explained: false })),
+      reportFindings: [],
       manualSeparations: v.data['use-positions'].usePositions.map((p) => ({ usePositionId: p.id, statedSeparationM: 0.01 })),
       hotspotEdges: null,
     },
