@@ -263,6 +263,10 @@ describe('the review flow, role by role', () => {
     const v2 = (await specialist.get(`/api/filings/${id}`)).body.filing;
     expect(v2.version).toMatchObject({ number: 2, state: 'draft' });
     expect(v2.editable).toBe(true);
+    // An unchanged copy compares equal: the copy's rows have new row ids, which are not changes.
+    const same = (await engineer.get(`/api/filings/${id}/compare?from=1&to=2`)).body.comparison;
+    expect(same.fields).toEqual([]);
+    expect(same.impact).toEqual({ screening: [], checklist: [], markets: [], lab: [] });
     // The copy: same data as version 1.
     const usePositions = { usePositions: [{ id: 'lanyard', kind: 'body-worn', separations: [{ antennaId: 'ANT-BT', separationM: 0.005 }] }, { id: 'wrist', kind: 'extremity', separations: [{ antennaId: 'ANT-BT', separationM: 0 }] }] };
     const radios = { antennas: exemptDevice.antennas, transmitters: [{ ...exemptDevice.transmitters[0], maxTuneUpPowerDbm: 20, dutyCycle: 1 }] };
