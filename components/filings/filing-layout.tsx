@@ -4,7 +4,6 @@
  */
 import { Link, Slot, usePathname } from 'expo-router';
 import { Pressable, ScrollView, StyleSheet, View } from 'react-native';
-import { WIZARD_STEPS, type WizardStep } from '../../constants/schemas/filings';
 import { palette, space } from '../../constants/theme';
 import { asProblem } from '../../hooks/api-client';
 import { useFilingQuery } from '../../hooks/queries/filings';
@@ -16,13 +15,10 @@ import { Notice } from '../ui/notice';
 import { StatusBadge } from '../ui/status-badge';
 import { Text } from '../ui/text';
 import { STATE_LOOK } from './labels';
+import { pageOfPath } from './filing-pages';
 import { StepList } from './step-list';
 import { useFilingId } from './use-filing-id';
 
-export function activeStepOf(pathname: string): WizardStep | 'overview' {
-  const last = pathname.split('/').filter(Boolean).pop() ?? '';
-  return (WIZARD_STEPS as readonly string[]).includes(last) ? (last as WizardStep) : 'overview';
-}
 
 export function FilingLayout() {
   const id = useFilingId();
@@ -55,7 +51,7 @@ export function FilingLayout() {
   if (!wide) return <Slot />;
   const f = filing.data;
   const state = STATE_LOOK[f.version.state];
-  const active = activeStepOf(pathname);
+  const active = pageOfPath(pathname);
   return (
     <View style={styles.panes}>
       <ScrollView style={styles.left} contentContainerStyle={styles.leftContent} testID="filing-steps-pane">
