@@ -24,9 +24,11 @@ function itemLook(i: ReadinessItem): { icon: IconName; tone: BadgeTone; word: st
 
 export function ReadinessCounts({ readiness, testID = 'readiness-counts' }: { readiness: FilingReadiness; testID?: string }) {
   const { counts, ready } = readiness;
+  // A signed version is past signing: its checklist only says that nothing blocks.
+  const readyWord = readiness.state === 'signed' ? 'Nothing blocks signing' : 'Ready to sign';
   return (
     <View style={styles.counts} testID={testID}>
-      <StatusBadge tone={ready ? 'pass' : 'fail'} icon={ready ? 'check' : 'blocked'} label={ready ? 'Ready to sign' : 'Not ready'} testID="readiness-verdict" />
+      <StatusBadge tone={ready ? 'pass' : 'fail'} icon={ready ? 'check' : 'blocked'} label={ready ? readyWord : 'Not ready'} testID="readiness-verdict" />
       <Text variant="small" tone="soft">
         {counts.blocking} blocking · {counts.warnings} warning{counts.warnings === 1 ? '' : 's'} · {counts.passed} holding · {counts.notApplicable} not applicable
       </Text>

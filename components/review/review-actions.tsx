@@ -71,7 +71,7 @@ export function ReturnAction({ filingId, review }: { filingId: number; review: R
   const returning = useReturnMutation(filingId);
   if (!review.can.return.allowed) return null;
   return (
-    <View style={styles.block} testID="return-form">
+    <View style={[styles.block, styles.separated]} testID="return-form">
       <Text variant="bodyStrong">Return for changes</Text>
       <Text variant="small" tone="soft">
         The specialist gets your open comments and this note by mail.
@@ -165,6 +165,8 @@ const styles = StyleSheet.create({
   block: { gap: space.sm },
   button: { alignSelf: 'flex-start' },
   items: { gap: space.xxs },
+  // Set apart from the signing form above it.
+  separated: { borderTopWidth: 1, borderTopColor: palette.line, paddingTop: space.md },
   itemLink: { flexDirection: 'row', alignItems: 'center', gap: 4, minHeight: 32 },
   statement: { paddingLeft: space.md, borderLeftWidth: 3, borderLeftColor: '#B8652A' },
 });

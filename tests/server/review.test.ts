@@ -11,25 +11,14 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { openDatabase } from '../../db/client';
 import { SIGNING_STATEMENT } from '../../constants/schemas/review';
 import { versionContentSha256 } from '../../server/services/version-content';
+import { EXEMPT_BADGE, exemptBadgeNamed } from '../fixtures/exempt-badge';
 import { createTestApp, seedUsers, signIn, TEST_PASSWORD, type TestApp } from './support/test-app';
 
 type Agent = Awaited<ReturnType<typeof signIn>>;
 let t: TestApp;
 let admin: Agent, specialist: Agent, engineer: Agent, approver: Agent, approver2: Agent, dual: Agent;
 
-/** A low-power wearable whose every combination is exempt (Bluetooth LE at 4 dBm, duty 0.35). */
-const exemptDevice = {
-  format: 'fieldfile.device/1',
-  device: { name: 'Wren W1 badge', model: 'WR1-B', applicant: 'Halden Ridge Instruments', productType: 'wearable', hardwareVersion: 'PVT', firmwareVersion: '1.2.0' },
-  markets: [
-    { regime: 'fcc', tier: 'general' },
-    { regime: 'eu', tier: 'general' },
-  ],
-  antennas: [{ id: 'ANT-BT', gainDbi: 0.5, location: 'Top edge' }],
-  transmitters: [{ id: 'BT-LE', technology: 'Bluetooth LE', band: '2.4 GHz ISM', frequencyMinHz: 2402e6, frequencyMaxHz: 2480e6, maxTuneUpPowerDbm: 4, dutyCycle: 0.35, antennaId: 'ANT-BT' }],
-  usePositions: [{ id: 'lanyard', kind: 'body-worn', separations: [{ antennaId: 'ANT-BT', separationM: 0.005 }] }],
-  simultaneous: [],
-};
+const exemptDevice = EXEMPT_BADGE;
 
 async function addPerson(email: string, name: string, roles: string[]): Promise<Agent> {
   const created = await admin.post('/api/users').send({ email, name, roles });
@@ -41,7 +30,7 @@ async function addPerson(email: string, name: string, roles: string[]): Promise<
 }
 
 async function newExemptFiling(by: Agent = specialist, name = exemptDevice.device.name): Promise<number> {
-  const res = await by.post('/api/filings/import').send({ ...exemptDevice, device: { ...exemptDevice.device, name } });
+  const res = await by.post('/api/filings/import').send(exemptBadgeNamed(name));
   expect(res.status).toBe(201);
   return res.body.filing.id;
 }
