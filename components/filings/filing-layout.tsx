@@ -7,6 +7,7 @@ import { Pressable, ScrollView, StyleSheet, View } from 'react-native';
 import { palette, space } from '../../constants/theme';
 import { asProblem } from '../../hooks/api-client';
 import { useFilingQuery } from '../../hooks/queries/filings';
+import { useReadinessFollowsFiling } from '../../hooks/queries/review';
 import { useIsWide } from '../../hooks/use-is-wide';
 import { Icon } from '../icons';
 import { LoadFailed, Loading } from '../layout/query-states';
@@ -25,6 +26,7 @@ export function FilingLayout() {
   const filing = useFilingQuery(id);
   const wide = useIsWide();
   const pathname = usePathname();
+  useReadinessFollowsFiling(id, filing.dataUpdatedAt);
   // A malformed id never fetches (the query stays pending), so it is "not found" at once.
   if (!Number.isInteger(id) || id <= 0 || (filing.isError && asProblem(filing.error).status === 404)) {
     return (

@@ -4,7 +4,7 @@
  * the password field without ending the session; asking for review refused with the blocking
  * items named; a step's comments only on that step.
  */
-import { fireEvent, screen, waitFor } from '@testing-library/react-native';
+import { fireEvent, render, screen, waitFor } from '@testing-library/react-native';
 import type { FilingDetail } from '../../constants/schemas/filings';
 import { SIGNING_STATEMENT, type ReviewDto, type ReviewThreadDto } from '../../constants/schemas/review';
 import { FILING_PAGES, neighbours, pageOfPath, readinessWords, rowChoices } from '../../components/filings/filing-pages';
@@ -12,9 +12,9 @@ import { CommentThreads } from '../../components/review/comment-threads';
 import { RequestReviewAction, SignAction } from '../../components/review/review-actions';
 import { api } from '../../hooks/api-client';
 import { isSessionExpired, sessionRestored } from '../../hooks/connection-recovery';
-import type { FilingReadiness } from '../../hooks/queries/review';
+import { reviewKeys, useReadinessFollowsFiling, type FilingReadiness } from '../../hooks/queries/review';
 import { apiError, installFetchMock } from './support/fetch-mock';
-import { renderWithClient } from './support/render';
+import { Providers, renderWithClient, testQueryClient } from './support/render';
 
 jest.mock('expo-router', () => ({
   Link: ({ children }: { children: React.ReactNode }) => children,
@@ -200,5 +200,30 @@ describe('comments on a step', () => {
     expect(screen.getByTestId('thread-1-resolve')).toBeTruthy();
     expect(screen.getByTestId('thread-3-reopen')).toBeTruthy();
     expect(screen.queryByTestId('new-thread')).toBeNull();
+  });
+});
+
+describe('the checklist follows the filing', () => {
+  function Follower({ readAt }: { readAt: number }) {
+    useReadinessFollowsFiling(3, readAt);
+    return null;
+  }
+
+  it('is read again whenever the filing is (a save, an upload, lab data), not on the first read', () => {
+    const client = testQueryClient();
+    client.setQueryData(reviewKeys.readiness(3), readiness([]));
+    const state = () => client.getQueryState(reviewKeys.readiness(3))!;
+    const view = render(
+      <Providers client={client}>
+        <Follower readAt={1000} />
+      </Providers>,
+    );
+    expect(state().isInvalidated).toBe(false);
+    view.rerender(
+      <Providers client={client}>
+        <Follower readAt={2000} />
+      </Providers>,
+    );
+    expect(state().isInvalidated).toBe(true);
   });
 });
