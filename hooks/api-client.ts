@@ -3,7 +3,7 @@
  * problem (status, code, message, field messages); nothing else leaks out of here.
  */
 import type { z } from 'zod';
-import type { ApiErrorBody } from '../constants/schemas/errors';
+import { WRONG_PASSWORD_CODE, type ApiErrorBody } from '../constants/schemas/errors';
 import { markSessionExpired } from './connection-recovery';
 
 /** '' means same origin (npm start); `npm run dev` sets it to the API's own port. */
@@ -97,8 +97,10 @@ export async function api<S extends z.ZodType | undefined = undefined>(
   }
 
   if (!response.ok) {
-    // A signed-in request refused for want of a session: the session ended mid-work.
-    if (response.status === 401 && !path.startsWith('/api/auth/')) markSessionExpired();
+    // A signed-in request refused for want of a session: the session ended mid-work. A wrong
+    // password re-entered on a form (signing) is a field error, not the end of the session.
+    const wrongPassword = isErrorBody(json) && json.error.code === WRONG_PASSWORD_CODE;
+    if (response.status === 401 && !path.startsWith('/api/auth/') && !wrongPassword) markSessionExpired();
     if (isErrorBody(json)) {
       const { code, message, fields } = json.error;
       return { ok: false, problem: new ApiProblem({ status: response.status, code: code || 'error', message, fields, body: json }) };

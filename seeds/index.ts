@@ -16,6 +16,7 @@ import { DEMO_BUDGET, DEMO_INSTRUMENTS, DEMO_LIQUID_CHECKS, DEMO_MEASUREMENTS, D
 import { zMeasurementsBody } from '../constants/schemas/lab';
 import * as labRepo from '../server/repos/lab-repo';
 import { seedDemoEvidence } from './demo-evidence';
+import { seedReviewDemo } from './demo-review';
 import type { ByteStorage } from '../server/storage';
 
 export interface SeedResult {
@@ -27,20 +28,26 @@ export interface SeedResult {
 /** With `storage`, the demo filing also gets its evidence files (only when the filings are new). */
 export async function seedDemo(db: Db, demoPassword: string, storage?: ByteStorage): Promise<SeedResult> {
   const people = await seedPeople(db, demoPassword);
-  const createdFilings = seedFilings(db, people.organisationId);
+  const createdFilings = await seedFilings(db, people.organisationId, demoPassword);
   if (createdFilings && storage) await seedDemoEvidence(db, storage, people.organisationId);
   return { ...people, createdFilings };
 }
 
-/** The demo filings, created by the demo specialist, only into an organisation that has none. */
-function seedFilings(db: Db, organisationId: number): number {
+/**
+ * The demo filings, only into an organisation that has none. The tracker comes first, so it is
+ * filing 1 on a fresh install (the browser tests open it by that number); then the dock, then the
+ * badge in review and the gateway signed with a version 2 in draft, so every review state shows.
+ */
+async function seedFilings(db: Db, organisationId: number, demoPassword: string): Promise<number> {
   if (db.select({ id: filings.id }).from(filings).where(eq(filings.organisationId, organisationId)).get()) return 0;
   const specialist = usersRepo.findUserByEmail(db, 'specialist@fieldfile.test')!;
+  const approver = usersRepo.findUserByEmail(db, 'approver@fieldfile.test')!;
   const actor = { id: specialist.id, organisationId, roles: ['specialist' as const] };
   const tracker = importDeviceFile(db, actor, zDeviceFile.parse(DEMO_TRACKER));
   seedLab(db, tracker.version.id);
   createFiling(db, actor, DEMO_DOCK_DEVICE);
-  return 2;
+  const reviewed = await seedReviewDemo(db, organisationId, specialist, approver, demoPassword);
+  return 2 + reviewed;
 }
 
 /** The demo tracker's lab results (one liquid check out of tolerance), as the engineer would import them. */

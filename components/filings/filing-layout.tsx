@@ -4,10 +4,10 @@
  */
 import { Link, Slot, usePathname } from 'expo-router';
 import { Pressable, ScrollView, StyleSheet, View } from 'react-native';
-import { WIZARD_STEPS, type WizardStep } from '../../constants/schemas/filings';
 import { palette, space } from '../../constants/theme';
 import { asProblem } from '../../hooks/api-client';
 import { useFilingQuery } from '../../hooks/queries/filings';
+import { useReadinessFollowsFiling } from '../../hooks/queries/review';
 import { useIsWide } from '../../hooks/use-is-wide';
 import { Icon } from '../icons';
 import { LoadFailed, Loading } from '../layout/query-states';
@@ -16,19 +16,17 @@ import { Notice } from '../ui/notice';
 import { StatusBadge } from '../ui/status-badge';
 import { Text } from '../ui/text';
 import { STATE_LOOK } from './labels';
+import { pageOfPath } from './filing-pages';
 import { StepList } from './step-list';
 import { useFilingId } from './use-filing-id';
 
-export function activeStepOf(pathname: string): WizardStep | 'overview' {
-  const last = pathname.split('/').filter(Boolean).pop() ?? '';
-  return (WIZARD_STEPS as readonly string[]).includes(last) ? (last as WizardStep) : 'overview';
-}
 
 export function FilingLayout() {
   const id = useFilingId();
   const filing = useFilingQuery(id);
   const wide = useIsWide();
   const pathname = usePathname();
+  useReadinessFollowsFiling(id, filing.dataUpdatedAt);
   // A malformed id never fetches (the query stays pending), so it is "not found" at once.
   if (!Number.isInteger(id) || id <= 0 || (filing.isError && asProblem(filing.error).status === 404)) {
     return (
@@ -55,7 +53,7 @@ export function FilingLayout() {
   if (!wide) return <Slot />;
   const f = filing.data;
   const state = STATE_LOOK[f.version.state];
-  const active = activeStepOf(pathname);
+  const active = pageOfPath(pathname);
   return (
     <View style={styles.panes}>
       <ScrollView style={styles.left} contentContainerStyle={styles.leftContent} testID="filing-steps-pane">

@@ -9,7 +9,7 @@ import { useState } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
 import type { CheckKind, HighestReported, LabCheck, LabRow } from '../../calc/lab/lab-results';
 import { USE_POSITION_LABELS } from '../../constants/schemas/device-file';
-import type { FilingDetail } from '../../constants/schemas/filings';
+import { EDITABLE_STATES, type FilingDetail } from '../../constants/schemas/filings';
 import { layout, palette, radii, space } from '../../constants/theme';
 import { useLabResultsQuery, type FilingLabResults } from '../../hooks/queries/lab';
 import { hasRole, useCurrentUser } from '../../hooks/queries/session';
@@ -58,7 +58,7 @@ export function LabView({ filing }: { filing: FilingDetail }) {
   const user = useCurrentUser();
   const [opened, setOpened] = useState<Opened>(null);
   // `filing.editable` is the specialist's right; lab data is the engineer's, in an editable version.
-  const canImport = hasRole(user, 'engineer') && ['draft', 'changes-requested'].includes(filing.version.state);
+  const canImport = hasRole(user, 'engineer') && EDITABLE_STATES.includes(filing.version.state);
   if (lab.isPending) return <Loading label="Scaling every measurement…" />;
   if (lab.isError) return <LoadFailed what="the lab results" error={lab.error} onRetry={() => void lab.refetch()} />;
   const r = lab.data;

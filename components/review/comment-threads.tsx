@@ -1,42 +1,54 @@
 /**
- * Review comments as threads on a step (and optionally a row): approvers start them while a
- * version is in review, the specialist answers and resolves them. What a role may not do is
- * hidden; the server checks it anyway.
+ * Review comments as threads on a step (and optionally one of its rows): approvers start them
+ * while a version is in review, the specialist answers and resolves them (the approver may answer
+ * too). Given a `step`, only that step's threads are shown and a new comment is about that step.
+ * What a role may not do is hidden; the server checks it anyway.
  */
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { palette, radii, space } from '../../constants/theme';
+import type { FilingDetail } from '../../constants/schemas/filings';
 import type { ReviewDto, ReviewThreadDto } from '../../constants/schemas/review';
-import { WIZARD_STEPS } from '../../constants/schemas/filings';
 import { useAddThreadMutation, useReplyMutation, useResolveMutation } from '../../hooks/queries/review';
+import { FILING_PAGES, PAGE_LABELS, rowChoices, threadsOn } from '../filings/filing-pages';
 import { formatDateTime } from '../format';
 import { Button } from '../ui/button';
 import { ChoiceChips } from '../ui/choice-chips';
 import { InputBox } from '../ui/input-box';
 import { Notice } from '../ui/notice';
+import { SelectField } from '../ui/select-field';
 import { StatusBadge } from '../ui/status-badge';
 import { Text } from '../ui/text';
 import { stepWord } from './readiness-checklist';
 
-const where = (t: Pick<ReviewThreadDto, 'step' | 'rowRef'>) => `${t.step === 'overview' ? 'Overview' : stepWord(t.step)}${t.rowRef ? ` · row ${t.rowRef}` : ''}`;
+const where = (t: Pick<ReviewThreadDto, 'step' | 'rowRef'>) => `${t.step === 'overview' ? 'Overview' : stepWord(t.step)}${t.rowRef ? ` · ${t.rowRef}` : ''}`;
 const problemText = (e: unknown) => (e as { fields?: Record<string, string>; message?: string } | null)?.fields?.body ?? (e as Error | null)?.message;
 
-export function CommentThreads({ filingId, review }: { filingId: number; review: ReviewDto }) {
-  const open = review.threads.filter((t) => t.state === 'open').length;
+/** "2 threads, 1 open." */
+export function threadCountWords(threads: ReviewThreadDto[]): string {
+  if (!threads.length) return 'No comments yet.';
+  const open = threads.filter((t) => t.state === 'open').length;
+  return `${threads.length} thread${threads.length === 1 ? '' : 's'}, ${open} open.`;
+}
+
+export function CommentThreads({ filing, review, step }: { filing: FilingDetail; review: ReviewDto; step?: string }) {
+  const threads = step ? threadsOn(review.threads, step) : review.threads;
+  // Open threads first: they are what is left to do.
+  const ordered = [...threads].sort((a, b) => (a.state === b.state ? a.id - b.id : a.state === 'open' ? -1 : 1));
   return (
-    <View style={styles.wrap} testID="review-threads">
+    <View style={styles.wrap} testID={step ? `step-threads-${step}` : 'review-threads'}>
       <Text variant="small" tone="soft" testID="threads-count">
-        {review.threads.length ? `${review.threads.length} thread${review.threads.length === 1 ? '' : 's'}, ${open} open.` : 'No comments yet.'}
+        {threadCountWords(threads)}
       </Text>
-      {review.threads.map((t) => (
-        <Thread key={t.id} filingId={filingId} thread={t} review={review} />
+      {ordered.map((t) => (
+        <Thread key={t.id} filingId={filing.id} thread={t} review={review} showWhere={!step} />
       ))}
-      {review.can.comment.allowed ? <NewThread filingId={filingId} /> : null}
+      {review.can.comment.allowed ? <NewThread filing={filing} fixedStep={step} /> : null}
     </View>
   );
 }
 
-function Thread({ filingId, thread, review }: { filingId: number; thread: ReviewThreadDto; review: ReviewDto }) {
+function Thread({ filingId, thread, review, showWhere }: { filingId: number; thread: ReviewThreadDto; review: ReviewDto; showWhere: boolean }) {
   const [reply, setReply] = useState('');
   const replying = useReplyMutation(filingId);
   const resolving = useResolveMutation(filingId);
@@ -45,9 +57,9 @@ function Thread({ filingId, thread, review }: { filingId: number; thread: Review
     <View style={[styles.thread, resolved && styles.resolved]} testID={`thread-${thread.id}`}>
       <View style={styles.threadHead}>
         <Text variant="smallStrong" style={{ flex: 1 }}>
-          {where(thread)}
+          {showWhere || !thread.rowRef ? where(thread) : thread.rowRef}
         </Text>
-        <StatusBadge tone={resolved ? 'pass' : 'caution'} icon={resolved ? 'check' : 'info'} label={resolved ? 'Resolved' : 'Open'} />
+        <StatusBadge tone={resolved ? 'pass' : 'caution'} icon={resolved ? 'check' : 'info'} label={resolved ? 'Resolved' : 'Open'} testID={`thread-${thread.id}-state`} />
       </View>
       {thread.comments.map((c) => (
         <View key={c.id} style={styles.comment}>
@@ -57,7 +69,7 @@ function Thread({ filingId, thread, review }: { filingId: number; thread: Review
           <Text variant="body">{c.body}</Text>
         </View>
       ))}
-      {review.can.reply.allowed ? (
+      {review.can.reply.allowed && !resolved ? (
         <View style={styles.replyRow}>
           <InputBox
             label="Answer"
@@ -80,36 +92,63 @@ function Thread({ filingId, thread, review }: { filingId: number; thread: Review
             />
             {review.can.resolve.allowed ? (
               <Button
-                label={resolved ? 'Reopen' : 'Mark resolved'}
+                label="Mark resolved"
                 variant="secondary"
                 compact
-                icon={resolved ? undefined : 'check'}
+                icon="check"
                 busy={resolving.isPending}
-                onPress={() => resolving.mutate({ threadId: thread.id, resolved: !resolved })}
+                onPress={() => resolving.mutate({ threadId: thread.id, resolved: true })}
                 testID={`thread-${thread.id}-resolve`}
               />
             ) : null}
           </View>
         </View>
       ) : null}
+      {resolved && review.can.resolve.allowed ? (
+        <Button
+          label="Reopen"
+          variant="secondary"
+          compact
+          busy={resolving.isPending}
+          onPress={() => resolving.mutate({ threadId: thread.id, resolved: false })}
+          style={{ alignSelf: 'flex-start' }}
+          testID={`thread-${thread.id}-reopen`}
+        />
+      ) : null}
     </View>
   );
 }
 
-const STEP_CHOICES = [{ value: 'overview', label: 'Overview' }, ...WIZARD_STEPS.map((s) => ({ value: s, label: stepWord(s) }))];
+const STEP_CHOICES = [{ value: 'overview', label: 'Overview' }, ...FILING_PAGES.filter((p) => p !== 'review').map((p) => ({ value: p, label: PAGE_LABELS[p] }))];
+const WHOLE_STEP = '';
 
-function NewThread({ filingId }: { filingId: number }) {
-  const [step, setStep] = useState<string>('radios');
-  const [rowRef, setRowRef] = useState('');
+function NewThread({ filing, fixedStep }: { filing: FilingDetail; fixedStep?: string }) {
+  const [chosenStep, setStep] = useState<string>('radios');
+  const step = fixedStep ?? chosenStep;
+  const [rowRef, setRowRef] = useState(WHOLE_STEP);
   const [body, setBody] = useState('');
-  const adding = useAddThreadMutation(filingId);
+  const adding = useAddThreadMutation(filing.id);
+  const rows = rowChoices(filing.data, step);
   return (
     <View style={styles.newThread} testID="new-thread">
-      <Text variant="bodyStrong">New comment</Text>
-      <ChoiceChips label="About the step" choices={STEP_CHOICES} value={step} onChange={(v: string) => setStep(v)} testID="new-thread-step" />
-      <InputBox label="Row (optional)" hint="The id of a transmitter, antenna or use position, for example LTE-B2." value={rowRef} onChangeText={setRowRef} testID="new-thread-row" />
+      <Text variant="bodyStrong">{fixedStep ? `New comment on ${step === 'overview' ? 'the overview' : stepWord(step)}` : 'New comment'}</Text>
+      {!fixedStep ? (
+        <SelectField
+          label="About the step"
+          options={STEP_CHOICES}
+          value={step}
+          onChange={(v) => {
+            setStep(v);
+            setRowRef(WHOLE_STEP);
+          }}
+          testID="new-thread-step"
+        />
+      ) : null}
+      {rows.length ? (
+        <ChoiceChips label="About the row" choices={[{ value: WHOLE_STEP, label: 'The whole step' }, ...rows]} value={rowRef} onChange={setRowRef} testID="new-thread-row" />
+      ) : null}
       <InputBox label="Comment" value={body} onChangeText={setBody} multiline error={problemText(adding.error)} testID="new-thread-body" />
-      {adding.isSuccess && !body ? <Notice tone="success">Comment added.</Notice> : null}
+      {adding.isSuccess && !body ? <Notice tone="success">Comment added. Return the version when you have left every comment.</Notice> : null}
       <Button
         label="Add comment"
         icon="plus"
@@ -117,7 +156,7 @@ function NewThread({ filingId }: { filingId: number }) {
         busy={adding.isPending}
         disabled={!body.trim()}
         style={{ alignSelf: 'flex-start' }}
-        onPress={() => adding.mutate({ step, rowRef: rowRef.trim() || undefined, body }, { onSuccess: () => (setBody(''), setRowRef('')) })}
+        onPress={() => adding.mutate({ step, rowRef: rowRef || undefined, body }, { onSuccess: () => (setBody(''), setRowRef(WHOLE_STEP)) })}
         testID="new-thread-add"
       />
     </View>

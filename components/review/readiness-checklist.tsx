@@ -5,17 +5,16 @@
 import { Link } from 'expo-router';
 import { Pressable, StyleSheet, View } from 'react-native';
 import type { ReadinessItem } from '../../calc/readiness';
-import { STEP_LABELS, type WizardStep } from '../../constants/schemas/filings';
 import { palette, radii, space } from '../../constants/theme';
 import type { FilingReadiness } from '../../hooks/queries/review';
+import { PAGE_LABELS, type FilingPage } from '../filings/filing-pages';
 import { Icon, type IconName } from '../icons';
 import { StatusBadge, type BadgeTone } from '../ui/status-badge';
 import { Text } from '../ui/text';
 
-const STEP_WORDS: Record<string, string> = { ...STEP_LABELS, measurements: 'Measurements', 'co-transmission': 'Co-transmission', evidence: 'Evidence' };
-export const stepWord = (s: string) => STEP_WORDS[s as WizardStep] ?? s;
-/** Steps that exist as wizard screens today; others are named but not linked. */
-const LINKED_STEPS = new Set<string>(Object.keys(STEP_LABELS));
+export const stepWord = (s: string) => PAGE_LABELS[s as FilingPage] ?? s;
+/** Pages that exist as screens today; others are named but not linked. */
+const LINKED_STEPS = new Set<string>(Object.keys(PAGE_LABELS));
 
 function itemLook(i: ReadinessItem): { icon: IconName; tone: BadgeTone; word: string } {
   if (i.status === 'pass') return { icon: 'check', tone: 'pass', word: 'Holds' };
@@ -25,9 +24,11 @@ function itemLook(i: ReadinessItem): { icon: IconName; tone: BadgeTone; word: st
 
 export function ReadinessCounts({ readiness, testID = 'readiness-counts' }: { readiness: FilingReadiness; testID?: string }) {
   const { counts, ready } = readiness;
+  // A signed version is past signing: its checklist only says that nothing blocks.
+  const readyWord = readiness.state === 'signed' ? 'Nothing blocks signing' : 'Ready to sign';
   return (
     <View style={styles.counts} testID={testID}>
-      <StatusBadge tone={ready ? 'pass' : 'fail'} icon={ready ? 'check' : 'blocked'} label={ready ? 'Ready to sign' : 'Not ready'} testID="readiness-verdict" />
+      <StatusBadge tone={ready ? 'pass' : 'fail'} icon={ready ? 'check' : 'blocked'} label={ready ? readyWord : 'Not ready'} testID="readiness-verdict" />
       <Text variant="small" tone="soft">
         {counts.blocking} blocking · {counts.warnings} warning{counts.warnings === 1 ? '' : 's'} · {counts.passed} holding · {counts.notApplicable} not applicable
       </Text>

@@ -3,12 +3,14 @@
  * with a note or sign with their password (approver), start the next version (specialist, once
  * signed). Actions a role cannot take are not shown; a refusal from the server is shown inline.
  */
-import { useRouter } from 'expo-router';
+import { Link, useRouter } from 'expo-router';
 import { useState } from 'react';
-import { StyleSheet, View } from 'react-native';
-import { space } from '../../constants/theme';
+import { Pressable, StyleSheet, View } from 'react-native';
+import { palette, space } from '../../constants/theme';
 import type { ReviewDto } from '../../constants/schemas/review';
-import { useRequestReviewMutation, useReturnMutation, useSignMutation, useStartNextVersionMutation } from '../../hooks/queries/review';
+import { useRequestReviewMutation, useReturnMutation, useSignMutation, useStartNextVersionMutation, type FilingReadiness } from '../../hooks/queries/review';
+import { isFilingPage, PAGE_LABELS, type FilingPage } from '../filings/filing-pages';
+import { Icon } from '../icons';
 import { Button } from '../ui/button';
 import { InputBox } from '../ui/input-box';
 import { Notice } from '../ui/notice';
@@ -16,15 +18,34 @@ import { Text } from '../ui/text';
 
 const messageOf = (e: unknown) => (e as Error | null)?.message;
 const fieldsOf = (e: unknown) => (e as { fields?: Record<string, string> } | null)?.fields;
+export const blockingItemsOf = (r: FilingReadiness) => r.items.filter((i) => i.status === 'fail' && i.severity === 'blocks-signing');
 
-export function RequestReviewAction({ filingId, review, ready }: { filingId: number; review: ReviewDto; ready: boolean }) {
+export function RequestReviewAction({ filingId, review, readiness }: { filingId: number; review: ReviewDto; readiness: FilingReadiness }) {
   const asking = useRequestReviewMutation(filingId);
   if (!review.can['request-review'].allowed) return null;
+  const blocking = blockingItemsOf(readiness);
+  const open = review.threads.filter((t) => t.state === 'open').length;
   return (
-    <View style={styles.block}>
-      {!ready ? (
-        <Notice tone="caution" title="Not ready for review">
-          Items that block signing must be fixed before an approver can review this version.
+    <View style={styles.block} testID="request-review-form">
+      {blocking.length ? (
+        <Notice tone="caution" title={`Not ready for review: ${blocking.length} item${blocking.length === 1 ? '' : 's'} block${blocking.length === 1 ? 's' : ''} signing`} testID="request-review-blocked">
+          <View style={styles.items}>
+            {blocking.map((i) => (
+              <Link key={i.id} href={isFilingPage(i.step) ? `/filings/${filingId}/${i.step}` : `/filings/${filingId}/readiness`} asChild>
+                <Pressable accessibilityRole="link" style={styles.itemLink} testID={`blocking-${i.id}`}>
+                  <Text variant="smallStrong" tone="copper" style={{ flexShrink: 1 }}>
+                    {`${i.title} — fix under ${PAGE_LABELS[i.step as FilingPage] ?? i.step}`}
+                  </Text>
+                  <Icon name="chevronRight" size={14} color={palette.copper} />
+                </Pressable>
+              </Link>
+            ))}
+          </View>
+        </Notice>
+      ) : null}
+      {!blocking.length && open ? (
+        <Notice tone="info" testID="request-review-open-threads">
+          {`${open} comment${open === 1 ? ' is' : 's are'} still open. Answer ${open === 1 ? 'it' : 'them'}, and mark ${open === 1 ? 'it' : 'them'} resolved once fixed, so the approver sees what changed.`}
         </Notice>
       ) : null}
       {asking.error ? (
@@ -32,7 +53,15 @@ export function RequestReviewAction({ filingId, review, ready }: { filingId: num
           {messageOf(asking.error)}
         </Notice>
       ) : null}
-      <Button label="Ask for review" icon="chevronRight" disabled={!ready} busy={asking.isPending} onPress={() => asking.mutate()} style={styles.button} testID="request-review" />
+      <Button
+        label={review.version.state === 'returned' ? 'Ask for review again' : 'Ask for review'}
+        icon="chevronRight"
+        disabled={blocking.length > 0}
+        busy={asking.isPending}
+        onPress={() => asking.mutate()}
+        style={styles.button}
+        testID="request-review"
+      />
     </View>
   );
 }
@@ -42,7 +71,7 @@ export function ReturnAction({ filingId, review }: { filingId: number; review: R
   const returning = useReturnMutation(filingId);
   if (!review.can.return.allowed) return null;
   return (
-    <View style={styles.block} testID="return-form">
+    <View style={[styles.block, styles.separated]} testID="return-form">
       <Text variant="bodyStrong">Return for changes</Text>
       <Text variant="small" tone="soft">
         The specialist gets your open comments and this note by mail.
@@ -135,5 +164,9 @@ export function StartNextVersionAction({ filingId, review }: { filingId: number;
 const styles = StyleSheet.create({
   block: { gap: space.sm },
   button: { alignSelf: 'flex-start' },
+  items: { gap: space.xxs },
+  // Set apart from the signing form above it.
+  separated: { borderTopWidth: 1, borderTopColor: palette.line, paddingTop: space.md },
+  itemLink: { flexDirection: 'row', alignItems: 'center', gap: 4, minHeight: 32 },
   statement: { paddingLeft: space.md, borderLeftWidth: 3, borderLeftColor: '#B8652A' },
 });

@@ -11,12 +11,13 @@ import { useCompareQuery } from '../../hooks/queries/review';
 import { useIsWide } from '../../hooks/use-is-wide';
 import { BackLink } from '../filings/back-link';
 import { formatDb } from '../filings/format';
-import { regimeShort, RESULT_LOOK } from '../filings/labels';
+import { regimeShort, RESULT_LOOK, STATE_LOOK } from '../filings/labels';
 import { useFilingId } from '../filings/use-filing-id';
 import { LoadFailed, Loading } from '../layout/query-states';
 import { Screen } from '../layout/screen';
 import { stepWord } from '../review/readiness-checklist';
 import { Card } from '../ui/card';
+import { Notice } from '../ui/notice';
 import { Text } from '../ui/text';
 
 interface Line {
@@ -83,14 +84,30 @@ export function FilingCompareScreen() {
   const from = Number(params.from ?? to - 1);
   const query = useCompareQuery(id, from, to);
   const wide = useIsWide();
+  const valid = Number.isInteger(from) && Number.isInteger(to) && from > 0 && to > 0;
+  if (!valid) {
+    return (
+      <Screen title="Compare versions" testID="compare-screen">
+        <Notice tone="caution">Say which two versions to compare, for example ?from=1&amp;to=2 (each a version number of this filing).</Notice>
+        <BackLink href={`/filings/${id}`} label="Overview" />
+      </Screen>
+    );
+  }
   if (!query.data) {
     return <Screen title="Compare versions">{query.isError ? <LoadFailed what="the comparison" error={query.error} /> : <Loading />}</Screen>;
   }
   const c = query.data;
+  const all = sections(c);
+  const changed = all.reduce((n, s) => n + s.lines.length, 0);
   return (
-    <Screen eyebrow="Compare versions" title={`Version ${c.from.number} → version ${c.to.number}`} testID="compare-screen">
-      <BackLink href={`/filings/${id}/review`} label="Review and versions" />
-      {sections(c).map((s) => (
+    <Screen eyebrow="Compare versions" title={`Version ${c.from.number} → version ${c.to.number}`} pageTitle={`Compare versions ${c.from.number} and ${c.to.number}`} testID="compare-screen">
+      <BackLink href={`/filings/${id}`} label="Overview" />
+      <Text tone="soft" testID="compare-summary">
+        {changed
+          ? `${c.fields.length} field${c.fields.length === 1 ? '' : 's'} changed; ${changed - c.fields.length} result${changed - c.fields.length === 1 ? '' : 's'} moved. Version ${c.from.number} is ${STATE_LOOK[c.from.state].label.toLowerCase()}, version ${c.to.number} ${STATE_LOOK[c.to.state].label.toLowerCase()}.`
+          : `Nothing differs: version ${c.to.number} holds the same data as version ${c.from.number}, and no result moved.`}
+      </Text>
+      {all.map((s) => (
         <Card key={s.title} title={`${s.title} (${s.lines.length})`} testID={s.testID}>
           {!s.lines.length ? (
             <Text tone="muted">{s.empty}</Text>

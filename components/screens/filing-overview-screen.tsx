@@ -1,4 +1,7 @@
-/** /filings/[id]: the device, version and state, each step's completion, and the device file export. */
+/**
+ * /filings/[id]: the device, version and state, each step's completion, readiness, the review
+ * and what to do next, the versions, the timeline, the device file export and the package.
+ */
 import { useRouter } from 'expo-router';
 import { Linking, StyleSheet, View } from 'react-native';
 import { PRODUCT_TYPE_LABELS, REGIME_LABELS, type MarketRegime } from '../../constants/schemas/device-file';
@@ -20,6 +23,7 @@ import { StatusBadge } from '../ui/status-badge';
 import { Text } from '../ui/text';
 import { PackageCard } from '../packages/package-card';
 import { Fact } from '../ui/fact';
+import { ReadinessCard, ReviewCard, TimelineCard, VersionsCard } from '../review/overview-cards';
 
 export function FilingOverviewScreen() {
   const id = useFilingId();
@@ -52,6 +56,8 @@ export function FilingOverviewScreen() {
         {!wide ? <StepList filing={f} activeStep="overview" /> : null}
         <Button label={`Go to ${STEP_LABELS[next.step]}`} icon="chevronRight" onPress={() => router.push(`/filings/${f.id}/${next.step}`)} style={{ alignSelf: 'flex-start' }} testID="overview-continue" />
       </Card>
+      <ReadinessCard filingId={f.id} />
+      <ReviewCard filing={f} />
       <Card title="Device">
         <View style={styles.facts}>
           <Fact label="Product type" value={PRODUCT_TYPE_LABELS[d.productType] ?? d.productType} />
@@ -87,6 +93,8 @@ export function FilingOverviewScreen() {
         <Button label="Export device.json" variant="secondary" icon="link" onPress={() => void Linking.openURL(deviceFileUrl(f.id))} style={{ alignSelf: 'flex-start' }} testID="export-device-file" />
       </Card>
       <PackageCard filingId={f.id} versionNumber={f.version.number} />
+      <VersionsCard filingId={f.id} />
+      <TimelineCard filingId={f.id} />
     </Screen>
   );
 }

@@ -7,3 +7,10 @@ export interface ApiErrorBody {
     fields?: Record<string, string>;
   };
 }
+
+/**
+ * The code of a 401 that answers a password typed into a form (signing a version asks for it
+ * again): the session is fine, so the app shows the message on the field instead of asking the
+ * person to sign in again.
+ */
+export const WRONG_PASSWORD_CODE = 'wrong_password';

@@ -4,6 +4,7 @@
  * Every action invalidates the filing, so state badges and step lists follow.
  */
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { useEffect, useRef } from 'react';
 import { z } from 'zod';
 import type { ReadinessChecklist } from '../../calc/readiness';
 import type { ComparisonDto } from '../../constants/schemas/compare';
@@ -47,6 +48,23 @@ export function useReadinessQuery(id: number, version?: number) {
     queryFn: ({ signal }) => apiOrThrow(`/api/filings/${id}/readiness${version === undefined ? '' : `?version=${version}`}`, { schema: zReadiness, signal }),
     enabled: Number.isInteger(id) && id > 0,
   });
+}
+
+/**
+ * The checklist is computed from the filing's data, so whenever the filing is read again (a step
+ * saved, lab data imported, evidence uploaded: each sets or refetches the filing), so is its
+ * checklist. `filingReadAt` is the filing query's `dataUpdatedAt`; the first read needs nothing.
+ */
+export function useReadinessFollowsFiling(id: number, filingReadAt: number) {
+  const queryClient = useQueryClient();
+  const first = useRef(true);
+  useEffect(() => {
+    if (first.current) {
+      first.current = false;
+      return;
+    }
+    void queryClient.invalidateQueries({ queryKey: reviewKeys.readiness(id) });
+  }, [queryClient, id, filingReadAt]);
 }
 
 export function useReviewQuery(id: number) {

@@ -63,13 +63,21 @@ function show(field: string, v: unknown): string {
 
 type Flat = Map<string, { step: string; label: string; value: string }>;
 
+/**
+ * Fields that name a stored row rather than describe the device: a new version copies every row
+ * under new row ids, so comparing them would report an unchanged copy as changed. Rows are matched
+ * by their natural keys (the labels a user types: transmitter, antenna and use-position ids, the
+ * market's regime) instead.
+ */
+const ROW_IDENTITY_FIELDS = new Set(['id', 'rowId']);
+
 function flatten(v: VersionData): Flat {
   const out: Flat = new Map();
   const put = (step: string, key: string, label: string, field: string, value: unknown) => out.set(`${step}|${key}|${field}`, { step, label: `${label} · ${FIELD_WORDS[field] ?? field}`, value: show(field, value) });
   const items = (step: string, kind: string, list: { id: string }[]) => {
-    for (const item of list) for (const [field, value] of Object.entries(item)) if (field !== 'id' && typeof value !== 'object') put(step, `${kind}:${item.id}`, `${kind} ${item.id}`, field, value);
+    for (const item of list) for (const [field, value] of Object.entries(item)) if (!ROW_IDENTITY_FIELDS.has(field) && typeof value !== 'object') put(step, `${kind}:${item.id}`, `${kind} ${item.id}`, field, value);
   };
-  for (const [field, value] of Object.entries(v.data.device)) put('device', 'device', 'Device', field, value);
+  for (const [field, value] of Object.entries(v.data.device)) if (!ROW_IDENTITY_FIELDS.has(field)) put('device', 'device', 'Device', field, value);
   items('radios', 'Antenna', v.data.radios.antennas);
   items('radios', 'Transmitter', v.data.radios.transmitters);
   items('use-positions', 'Use position', v.data['use-positions'].usePositions);

@@ -22,6 +22,7 @@ import {
   type VersionDto,
 } from '../../constants/schemas/review';
 import type { ReadinessChecklist } from '../../calc/readiness';
+import { WRONG_PASSWORD_CODE } from '../../constants/schemas/errors';
 import { renderReturnedMail, renderReviewRequestedMail, renderSignedMail } from '../../templates/mail/review';
 import { conflict, forbidden, HttpError, notFound, unprocessable } from '../http-error';
 import { carryEvidenceForward } from '../repos/evidence-repo';
@@ -286,7 +287,7 @@ export async function signVersion(ctx: ReviewContext, actor: ReviewActor, filing
   if (!hash || !(await verifyPassword(input.password, hash))) {
     const attempt = wrongPasswordCount(db, actor, filingId, version.number) + 1;
     audit(db, actor, filingId, 'version.sign-refused', { version: version.number, reason: 'wrong password', attempt });
-    throw new HttpError(401, 'wrong_password', 'That password is not right; the version was not signed.', { password: 'That password is not right.' });
+    throw new HttpError(401, WRONG_PASSWORD_CODE, 'That password is not right; the version was not signed.', { password: 'That password is not right.' });
   }
   const { checklist } = versionReadiness(db, version, row.filing.deviceId);
   refuseWhenBlocked(checklist, 'This version cannot be signed');

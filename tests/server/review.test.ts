@@ -12,25 +12,14 @@ import { openDatabase } from '../../db/client';
 import { SIGNING_STATEMENT } from '../../constants/schemas/review';
 import { versionContentSha256 } from '../../server/services/version-content';
 import { makePdf } from '../../seeds/documents';
+import { EXEMPT_BADGE, exemptBadgeNamed } from '../fixtures/exempt-badge';
 import { createTestApp, seedUsers, signIn, TEST_PASSWORD, type TestApp } from './support/test-app';
 
 type Agent = Awaited<ReturnType<typeof signIn>>;
 let t: TestApp;
 let admin: Agent, specialist: Agent, engineer: Agent, approver: Agent, approver2: Agent, dual: Agent;
 
-/** A low-power wearable whose every combination is exempt (Bluetooth LE at 4 dBm, duty 0.35). */
-const exemptDevice = {
-  format: 'fieldfile.device/1',
-  device: { name: 'Wren W1 badge', model: 'WR1-B', applicant: 'Halden Ridge Instruments', productType: 'wearable', hardwareVersion: 'PVT', firmwareVersion: '1.2.0' },
-  markets: [
-    { regime: 'fcc', tier: 'general' },
-    { regime: 'eu', tier: 'general' },
-  ],
-  antennas: [{ id: 'ANT-BT', gainDbi: 0.5, location: 'Top edge' }],
-  transmitters: [{ id: 'BT-LE', technology: 'Bluetooth LE', band: '2.4 GHz ISM', frequencyMinHz: 2402e6, frequencyMaxHz: 2480e6, maxTuneUpPowerDbm: 4, dutyCycle: 0.35, antennaId: 'ANT-BT' }],
-  usePositions: [{ id: 'lanyard', kind: 'body-worn', separations: [{ antennaId: 'ANT-BT', separationM: 0.005 }] }],
-  simultaneous: [],
-};
+const exemptDevice = EXEMPT_BADGE;
 
 async function addPerson(email: string, name: string, roles: string[]): Promise<Agent> {
   const created = await admin.post('/api/users').send({ email, name, roles });
@@ -49,7 +38,7 @@ const EXEMPT_EVIDENCE: [category: string, title: string, lines: string[]][] = [
 ];
 
 async function newExemptFiling(by: Agent = specialist, name = exemptDevice.device.name): Promise<number> {
-  const res = await by.post('/api/filings/import').send({ ...exemptDevice, device: { ...exemptDevice.device, name } });
+  const res = await by.post('/api/filings/import').send(exemptBadgeNamed(name));
   expect(res.status).toBe(201);
   const id = res.body.filing.id;
   for (const [category, title, lines] of EXEMPT_EVIDENCE) {
@@ -280,6 +269,10 @@ describe('the review flow, role by role', () => {
     const v2 = (await specialist.get(`/api/filings/${id}`)).body.filing;
     expect(v2.version).toMatchObject({ number: 2, state: 'draft' });
     expect(v2.editable).toBe(true);
+    // An unchanged copy compares equal: the copy's rows have new row ids, which are not changes.
+    const same = (await engineer.get(`/api/filings/${id}/compare?from=1&to=2`)).body.comparison;
+    expect(same.fields).toEqual([]);
+    expect(same.impact).toEqual({ screening: [], checklist: [], markets: [], lab: [] });
     // The copy: same data as version 1.
     const usePositions = { usePositions: [{ id: 'lanyard', kind: 'body-worn', separations: [{ antennaId: 'ANT-BT', separationM: 0.005 }] }, { id: 'wrist', kind: 'extremity', separations: [{ antennaId: 'ANT-BT', separationM: 0 }] }] };
     const radios = { antennas: exemptDevice.antennas, transmitters: [{ ...exemptDevice.transmitters[0], maxTuneUpPowerDbm: 20, dutyCycle: 1 }] };

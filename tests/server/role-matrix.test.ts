@@ -13,6 +13,7 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { SIGNING_STATEMENT } from '../../constants/schemas/review';
+import { DEMO_DOCK_DEVICE } from '../../seeds/demo-filing';
 import { apiRouteTable } from './support/route-table';
 import { createTestApp, OTHER_ORG, seedOtherOrganisation, seedUsers, signIn, type TestApp } from './support/test-app';
 
@@ -116,7 +117,7 @@ export const MATRIX: Record<string, Row> = {
   ),
   'POST /api/filings/:id/measurements/import': { expect: onlyEngineer(400) },
   'GET /api/filings/:id/lab-results': { expect: ownOrganisation(200) },
-  // Review and signing of the demo organisation's newest filing (a draft that is not ready):
+  // Review and signing of the demo organisation's charging dock (a draft that is not ready):
   // the role is checked after the filing is found, so the other organisation always gets 404.
   'GET /api/filings/:id/readiness': { expect: ownOrganisation(200) },
   'GET /api/filings/:id/review': { expect: ownOrganisation(200) },
@@ -176,9 +177,10 @@ beforeAll(async () => {
   const users = (await admin.get('/api/users')).body.users as { id: number; email: string }[];
   // One mail in the demo organisation's outbox, for the message route.
   await admin.post('/api/users').send({ email: 'matrix.invitee@fieldfile.test', name: 'Matrix Invitee', roles: ['engineer'] });
-  const filings = (await agents.get('specialist')!.get('/api/filings')).body.filings as { id: number }[];
+  // The dock: a draft that is not ready (the demo also holds filings in review and signed).
+  const filings = (await agents.get('specialist')!.get('/api/filings')).body.filings as { id: number; device: { model: string } }[];
   fx = {
-    filingId: filings[0].id,
+    filingId: filings.find((f) => f.device.model === DEMO_DOCK_DEVICE.model)!.id,
     engineerUserId: users.find((u) => u.email === 'engineer@fieldfile.test')!.id,
     mailId: (await admin.get('/api/outbox')).body.messages[0].id,
   };

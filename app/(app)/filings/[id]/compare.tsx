@@ -1,0 +1,3 @@
+import { FilingCompareScreen } from '../../../../components/screens/filing-compare-screen';
+
+export default FilingCompareScreen;

@@ -1,0 +1,3 @@
+import { FilingReadinessScreen } from '../../../../components/screens/filing-review-screens';
+
+export default FilingReadinessScreen;

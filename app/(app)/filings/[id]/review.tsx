@@ -1,0 +1,3 @@
+import { FilingReviewScreen } from '../../../../components/screens/filing-review-screens';
+
+export default FilingReviewScreen;
