@@ -2,6 +2,7 @@
  * A fresh app on a fresh temporary database with migrations applied, a real SMTP catcher on a
  * free port, and named seed helpers. Each test file gets its own.
  */
+import { createStorages } from '../../../server/storage';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -70,7 +71,7 @@ export async function createTestApp(opts: TestAppOptions = {}): Promise<TestApp>
 
 /** The demo organisation and its four users (admin@, specialist@, engineer@, approver@fieldfile.test). */
 export function seedUsers(t: TestApp) {
-  return seedDemo(t.handle.db, TEST_PASSWORD);
+  return seedDemo(t.handle.db, TEST_PASSWORD, createStorages(t.config).uploads, { trackerEvidence: false });
 }
 
 /** A supertest agent (keeps cookies) signed in as the given user. */
