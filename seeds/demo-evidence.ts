@@ -16,7 +16,7 @@ import { READ_BACK_CATEGORIES } from '../server/services/version-readback';
 import { makePdf } from './documents';
 import { DEMO_TRACKER } from './demo-filing';
 
-export interface DemoDocument {
+interface DemoDocument {
   category: EvidenceCategoryId;
   title: string;
   fileName: string;
@@ -65,19 +65,13 @@ export async function seedDemoEvidence(db: Db, storage: ByteStorage, organisatio
     .innerJoin(devices, eq(devices.id, filings.deviceId))
     .where(and(eq(filings.organisationId, organisationId), eq(devices.model, DEMO_TRACKER.device.model), eq(filingVersions.number, 1)))
     .get();
-  if (!version) return 0;
-  return fileDemoDocuments(db, storage, version.id, DOCUMENTS);
-}
-
-/** Stores generated PDFs as the demo engineer's evidence of one version, read back like uploads. */
-export async function fileDemoDocuments(db: Db, storage: ByteStorage, versionId: number, documents: DemoDocument[]): Promise<number> {
   const engineer = db.select({ id: users.id }).from(users).where(eq(users.email, 'engineer@fieldfile.test')).get();
-  if (!engineer) return 0;
-  for (const d of documents) {
+  if (!version || !engineer) return 0;
+  for (const d of DOCUMENTS) {
     const bytes = await makePdf(d.pages, d.title);
     const stored = await storage.put(Readable.from([bytes]));
     insertEvidence(db, {
-      versionId,
+      versionId: version.id,
       category: d.category,
       title: d.title,
       fileName: d.fileName,
@@ -89,5 +83,5 @@ export async function fileDemoDocuments(db: Db, storage: ByteStorage, versionId:
     });
     if (READ_BACK_CATEGORIES.includes(d.category)) await readBack(db, storage, stored.sha256);
   }
-  return documents.length;
+  return DOCUMENTS.length;
 }

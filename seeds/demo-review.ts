@@ -5,8 +5,6 @@
  * the fictional Halden Ridge Instruments; every combination is exempt, so the checklist is clear.
  */
 import type { Db } from '../db/client';
-import type { ByteStorage } from '../server/storage';
-import { fileDemoDocuments, type DemoDocument } from './demo-evidence';
 import type { Config } from '../server/env';
 import { SIGNING_STATEMENT } from '../constants/schemas/review';
 import { DEVICE_FILE_FORMAT, zDeviceFile, type DeviceFileInput } from '../constants/schemas/device-file';
@@ -40,38 +38,18 @@ export const DEMO_GATEWAY: DeviceFileInput = {
   simultaneous: [],
 };
 
-/** Each device's required evidence (tune-up table, manual with its separation, label), so nothing blocks. */
-const BADGE_DOCUMENTS: DemoDocument[] = [
-  { category: 'tune-up-table', title: 'Tune-up power table', fileName: 'WR1-B tune-up table.pdf', pages: [['Tune-up power table, WR1-B', 'Bluetooth LE 2.4 GHz ISM: 4.0 dBm']] },
-  { category: 'user-manual', title: 'User manual, RF-exposure page', fileName: 'WR1-B manual RF exposure.pdf', pages: [['RF exposure', 'Wear the badge on its lanyard, at least 5 mm from the body.']] },
-  { category: 'label-drawing', title: 'Label drawing', fileName: 'WR1-B label.pdf', pages: [['Label WR1-B, on the back cover']] },
-];
-const GATEWAY_DOCUMENTS: DemoDocument[] = [
-  { category: 'tune-up-table', title: 'Tune-up power table', fileName: 'KS1-G tune-up table.pdf', pages: [['Tune-up power table, KS1-G', 'Wi-Fi 2.4 GHz: 17.0 dBm']] },
-  {
-    category: 'user-manual-bilingual',
-    title: 'Installation guide, RF-exposure page (English and French)',
-    fileName: 'KS1-G installation RF exposure EN-FR.pdf',
-    pages: [['RF exposure', 'Install the gateway so that its antenna is at least 20 cm from people.', 'Exposition aux RF', "Installez la passerelle de sorte que son antenne soit à au moins 20 cm des personnes."]],
-  },
-  { category: 'exemption-analysis', title: 'RF exposure exemption analysis', fileName: 'KS1-G exemption analysis.pdf', pages: [['RF exposure exemption analysis, KS1-G', 'Wi-Fi 2.4 GHz at 20 cm: exempt (47 CFR 1.1307(b)(3); RSS-102)']] },
-  { category: 'label-drawing', title: 'Label drawing', fileName: 'KS1-G label.pdf', pages: [['Label KS1-G, on the underside']] },
-];
-
 interface Person {
   id: number;
   name: string;
 }
 
 /** Review steps run through the same services as the API; the demo sends no mail. */
-export async function seedReviewDemo(db: Db, storage: ByteStorage, organisationId: number, specialist: Person, approver: Person, demoPassword: string): Promise<number> {
+export async function seedReviewDemo(db: Db, organisationId: number, specialist: Person, approver: Person, demoPassword: string): Promise<number> {
   const ctx: ReviewContext = { db, config: { publicUrl: '' } as Config, mailer: { send: async () => undefined } };
   const spec = { id: specialist.id, name: specialist.name, organisationId, roles: ['specialist'] as Role[] };
   const appr = { id: approver.id, name: approver.name, organisationId, roles: ['approver'] as Role[] };
 
-  const badgeFiling = importDeviceFile(db, spec, zDeviceFile.parse(DEMO_BADGE));
-  await fileDemoDocuments(db, storage, badgeFiling.version.id, BADGE_DOCUMENTS);
-  const badge = badgeFiling.id;
+  const badge = importDeviceFile(db, spec, zDeviceFile.parse(DEMO_BADGE)).id;
   await requestReview(ctx, spec, badge);
   const thread = addThread(db, appr, badge, {
     step: 'use-positions',
@@ -80,9 +58,7 @@ export async function seedReviewDemo(db: Db, storage: ByteStorage, organisationI
   });
   replyToThread(db, spec, badge, thread.id, { body: 'Yes — measured on the DVT samples: 5 mm with the clip fully open, 9 mm closed.' });
 
-  const gatewayFiling = importDeviceFile(db, spec, zDeviceFile.parse(DEMO_GATEWAY));
-  await fileDemoDocuments(db, storage, gatewayFiling.version.id, GATEWAY_DOCUMENTS);
-  const gateway = gatewayFiling.id;
+  const gateway = importDeviceFile(db, spec, zDeviceFile.parse(DEMO_GATEWAY)).id;
   await requestReview(ctx, spec, gateway);
   await signVersion(ctx, appr, gateway, { password: demoPassword, statement: SIGNING_STATEMENT });
   startNextVersion(db, spec, gateway);

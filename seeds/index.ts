@@ -25,14 +25,11 @@ export interface SeedResult {
   createdFilings: number;
 }
 
-/**
- * The demo people and filings with their evidence files in `storage` (only when the filings are
- * new). `trackerEvidence: false` leaves the tracker without documents (API tests file their own).
- */
-export async function seedDemo(db: Db, demoPassword: string, storage: ByteStorage, { trackerEvidence = true }: { trackerEvidence?: boolean } = {}): Promise<SeedResult> {
+/** With `storage`, the demo filing also gets its evidence files (only when the filings are new). */
+export async function seedDemo(db: Db, demoPassword: string, storage?: ByteStorage): Promise<SeedResult> {
   const people = await seedPeople(db, demoPassword);
-  const createdFilings = await seedFilings(db, storage, people.organisationId, demoPassword);
-  if (createdFilings && trackerEvidence) await seedDemoEvidence(db, storage, people.organisationId);
+  const createdFilings = await seedFilings(db, people.organisationId, demoPassword);
+  if (createdFilings && storage) await seedDemoEvidence(db, storage, people.organisationId);
   return { ...people, createdFilings };
 }
 
@@ -41,7 +38,7 @@ export async function seedDemo(db: Db, demoPassword: string, storage: ByteStorag
  * filing 1 on a fresh install (the browser tests open it by that number); then the dock, then the
  * badge in review and the gateway signed with a version 2 in draft, so every review state shows.
  */
-async function seedFilings(db: Db, storage: ByteStorage, organisationId: number, demoPassword: string): Promise<number> {
+async function seedFilings(db: Db, organisationId: number, demoPassword: string): Promise<number> {
   if (db.select({ id: filings.id }).from(filings).where(eq(filings.organisationId, organisationId)).get()) return 0;
   const specialist = usersRepo.findUserByEmail(db, 'specialist@fieldfile.test')!;
   const approver = usersRepo.findUserByEmail(db, 'approver@fieldfile.test')!;
@@ -49,7 +46,7 @@ async function seedFilings(db: Db, storage: ByteStorage, organisationId: number,
   const tracker = importDeviceFile(db, actor, zDeviceFile.parse(DEMO_TRACKER));
   seedLab(db, tracker.version.id);
   createFiling(db, actor, DEMO_DOCK_DEVICE);
-  const reviewed = await seedReviewDemo(db, storage, organisationId, specialist, approver, demoPassword);
+  const reviewed = await seedReviewDemo(db, organisationId, specialist, approver, demoPassword);
   return 2 + reviewed;
 }
 

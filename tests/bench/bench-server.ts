@@ -2,7 +2,6 @@
  * The real app for HTTP bench cases: a fresh data folder, migrations, the demo seed, a loopback
  * listener and a signed-in specialist's cookie, with one call to take it all down again.
  */
-import { createStorages } from '../../server/storage';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -33,7 +32,7 @@ export async function startBenchServer(env: Record<string, string> = {}): Promis
   const config = loadConfig({ NODE_ENV: 'test', FIELDFILE_DATA_DIR: dataDir, ...env });
   const handle = openDatabase(path.join(dataDir, 'fieldfile.db'));
   applyMigrations(handle.db);
-  await seedDemo(handle.db, PASSWORD, createStorages(config).uploads);
+  await seedDemo(handle.db, PASSWORD);
   const { app, close } = createApp({ handle, config, mailer: { send: async () => {} }, serveWeb: false });
   const server: Server = await new Promise((resolve) => {
     const s = app.listen(0, '127.0.0.1', () => resolve(s));

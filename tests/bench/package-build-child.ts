@@ -19,7 +19,7 @@ async function main() {
   const list = JSON.parse(fs.readFileSync(listFile, 'utf8')) as { category: string; fileName: string; sizeBytes: number; sha256: string; path: string }[];
   const handle = openDatabase(path.join(outDir, 'bench.db'));
   applyMigrations(handle.db);
-  const { organisationId } = await seedDemo(handle.db, 'bench-password-123', createLocalDiskStorage(path.join(outDir, 'uploads')));
+  const { organisationId } = await seedDemo(handle.db, 'bench-password-123');
   const sources = { ...defaultExhibitSources, evidence: () => list.map((e) => ({ ...e, open: () => fs.createReadStream(e.path, { highWaterMark: 1 << 20 }) })) };
   const storage = createLocalDiskStorage(path.join(outDir, 'packages'));
   const t0 = process.hrtime.bigint();

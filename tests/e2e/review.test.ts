@@ -9,8 +9,7 @@
  */
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { makePdf } from '../../seeds/documents';
-import { EXEMPT_BADGE_EVIDENCE, exemptBadgeNamed } from '../fixtures/exempt-badge';
+import { exemptBadgeNamed } from '../fixtures/exempt-badge';
 import { DESKTOP, openBrowser, PHONE, screenshot, signInAt, waitSaved } from './support/browser';
 import { startServer, type RunningServer } from './support/server';
 
@@ -62,13 +61,6 @@ describe.each([
       const created = await page.request.post(`${server.baseUrl}/api/filings/import`, { data: exemptBadgeNamed(`Wren W2 badge (${size})`) });
       expect(created.status()).toBe(201);
       const id = (await created.json()).filing.id as number;
-      // With the evidence every exempt badge needs, nothing blocks.
-      for (const [category, title, lines] of EXEMPT_BADGE_EVIDENCE) {
-        const up = await page.request.post(`${server.baseUrl}/api/filings/${id}/evidence`, {
-          multipart: { category, title, file: { name: `${category}.pdf`, mimeType: 'application/pdf', buffer: await makePdf([lines], title) } },
-        });
-        expect(up.status()).toBe(201);
-      }
       await page.goto(`${server.baseUrl}/filings/${id}`);
       await page.getByTestId('overview-blocking-count').filter({ hasText: '0' }).waitFor();
       expect(await text(page, 'overview-review-state')).toContain('Draft');

@@ -4,7 +4,6 @@
  * version 1 is signed (and verifies) with a version 2 in draft whose change the comparison shows.
  * Seeding again adds nothing.
  */
-import { createStorages } from '../../server/storage';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { seedDemo } from '../../seeds';
 import { createTestApp, seedUsers, signIn, TEST_PASSWORD, type TestApp } from './support/test-app';
@@ -66,7 +65,7 @@ describe('the demo seed', () => {
   });
 
   it('seeding again adds no filing', async () => {
-    const again = await seedDemo(t.handle.db, TEST_PASSWORD, createStorages(t.config).uploads);
+    const again = await seedDemo(t.handle.db, TEST_PASSWORD);
     expect(again.createdFilings).toBe(0);
     expect((await approver.get('/api/filings')).body.filings).toHaveLength(4);
   });

@@ -8,7 +8,6 @@
  * cheap on a shared machine; set it to 1024 for the issue's 1 GB case). 180 of the files are
  * incompressible binaries (stored), 20 are CSV text (deflated).
  */
-import { createLocalDiskStorage } from '../../../server/storage';
 import { spawnSync } from 'node:child_process';
 import { createHash, randomBytes } from 'node:crypto';
 import fs from 'node:fs';
@@ -109,7 +108,7 @@ export const exhibitPdfCase: BenchCase = {
     const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'fieldfile-bench-pdf-'));
     const handle = openDatabase(path.join(dataDir, 'fieldfile.db'));
     applyMigrations(handle.db);
-    const { organisationId } = await seedDemo(handle.db, 'bench-password-123', createLocalDiskStorage(path.join(dataDir, 'uploads')));
+    const { organisationId } = await seedDemo(handle.db, 'bench-password-123');
     const model = assembleExhibit(handle.db, organisationId, 1, 1, defaultExhibitSources)!.model;
     pdfCleanup = () => {
       handle.sqlite.close();

@@ -4,7 +4,6 @@
  * the time from navigation to the first rows on screen, under 1 s. Also reports the long tasks
  * (> 100 ms) seen while scrolling the page to its end.
  */
-import { createStorages } from '../../../server/storage';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -63,7 +62,7 @@ export const screeningPageCase: BenchCase = {
     if (webBuildIsStale(config.distDir)) buildWeb(config.distDir);
     const handle = openDatabase(path.join(dataDir, 'fieldfile.db'));
     applyMigrations(handle.db);
-    await seedDemo(handle.db, PASSWORD, createStorages(config).uploads);
+    await seedDemo(handle.db, PASSWORD);
     const { app, close } = createApp({ handle, config, mailer: { send: async () => {} }, serveWeb: true });
     const server: Server = await new Promise((resolve) => {
       const s = app.listen(0, '127.0.0.1', () => resolve(s));

@@ -18,7 +18,7 @@ async function main() {
   const dataDir = process.argv[2];
   const handle = openDatabase(path.join(dataDir, 'fieldfile.db'));
   applyMigrations(handle.db);
-  const { organisationId } = await seedDemo(handle.db, 'child-password-123', createLocalDiskStorage(path.join(dataDir, 'uploads')));
+  const { organisationId } = await seedDemo(handle.db, 'child-password-123');
   const endless = () =>
     new Readable({
       read() {

@@ -2,7 +2,6 @@
  * A fresh app on a fresh temporary database with migrations applied, a real SMTP catcher on a
  * free port, and named seed helpers. Each test file gets its own.
  */
-import { createStorages } from '../../../server/storage';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -71,7 +70,7 @@ export async function createTestApp(opts: TestAppOptions = {}): Promise<TestApp>
 
 /** The demo organisation and its four users (admin@, specialist@, engineer@, approver@fieldfile.test). */
 export function seedUsers(t: TestApp) {
-  return seedDemo(t.handle.db, TEST_PASSWORD, createStorages(t.config).uploads, { trackerEvidence: false });
+  return seedDemo(t.handle.db, TEST_PASSWORD);
 }
 
 /** A supertest agent (keeps cookies) signed in as the given user. */
