@@ -43,6 +43,24 @@ const DOCUMENTS: DemoDocument[] = [
     pages: [['Calibration certificate', 'Isotropic E-field probe, serial 4471 (fictional)', 'Calibrated on 2026-03-02']],
   },
   {
+    category: 'report-appendix',
+    title: 'SAR report appendix: plots',
+    fileName: 'TH4-LW2 SAR plots.pdf',
+    pages: [['Appendix B - SAR plots (fictional)', 'Highest reported SAR per band and position: area and zoom scans']],
+  },
+  {
+    category: 'check-records',
+    title: 'Liquid and system check records',
+    fileName: 'check-records.pdf',
+    pages: [['Liquid and system checks (fictional)', 'Head and body liquids, 750-2450 MHz, measured 2026-03-10']],
+  },
+  {
+    category: 'setup-photos',
+    title: 'Test setup photos',
+    fileName: 'setup-photos.pdf',
+    pages: [['Test setup photos (fictional)', 'Belt clip against the flat phantom, 10 mm', 'Wrist strap against the flat phantom']],
+  },
+  {
     category: 'tune-up-table',
     title: 'Tune-up power table',
     fileName: 'tune-up-table.pdf',

@@ -96,6 +96,12 @@ describe.each([
       await screenshot(page, `review-comment-${size}`);
       await page.goto(`${server.baseUrl}/filings/${id}/review`);
       await page.getByTestId('return-form').waitFor();
+      // Every step to read in place, read-only, with its comments.
+      await page.getByTestId('read-step-radios-toggle').click();
+      await page.getByTestId('read-step-radios').getByTestId('step-read-only').waitFor();
+      expect(await page.getByTestId('read-step-radios').getByTestId('step-threads-radios').textContent()).toContain('1 thread, 1 open.');
+      await page.getByTestId('read-step-radios').scrollIntoViewIfNeeded();
+      await screenshot(page, `review-read-step-${size}`);
       await page.getByTestId('review-actions').scrollIntoViewIfNeeded();
       await screenshot(page, `review-approver-in-review-${size}`);
       await page.getByTestId('return-version').click();
@@ -138,6 +144,7 @@ describe.each([
       await page.getByTestId('review-state').filter({ hasText: 'Signed' }).waitFor();
       await page.getByTestId('signature-v1').waitFor();
       expect(await text(page, 'signature-hash-v1')).toMatch(/SHA-256 [0-9a-f]{64}/);
+      await page.getByTestId('signature-v1').scrollIntoViewIfNeeded();
       await screenshot(page, `review-signed-${size}`);
 
       // Editing the signed filing starts version 2; the changed power shows in the comparison.
