@@ -16,7 +16,7 @@ import { READ_BACK_CATEGORIES } from '../server/services/version-readback';
 import { makePdf } from './documents';
 import { DEMO_TRACKER } from './demo-filing';
 
-interface DemoDocument {
+export interface DemoDocument {
   category: EvidenceCategoryId;
   title: string;
   fileName: string;
@@ -43,6 +43,24 @@ const DOCUMENTS: DemoDocument[] = [
     pages: [['Calibration certificate', 'Isotropic E-field probe, serial 4471 (fictional)', 'Calibrated on 2026-03-02']],
   },
   {
+    category: 'report-appendix',
+    title: 'SAR report appendix: plots',
+    fileName: 'TH4-LW2 SAR plots.pdf',
+    pages: [['Appendix B - SAR plots (fictional)', 'Highest reported SAR per band and position: area and zoom scans']],
+  },
+  {
+    category: 'check-records',
+    title: 'Liquid and system check records',
+    fileName: 'check-records.pdf',
+    pages: [['Liquid and system checks (fictional)', 'Head and body liquids, 750-2450 MHz, measured 2026-03-10']],
+  },
+  {
+    category: 'setup-photos',
+    title: 'Test setup photos',
+    fileName: 'setup-photos.pdf',
+    pages: [['Test setup photos (fictional)', 'Belt clip against the flat phantom, 10 mm', 'Wrist strap against the flat phantom']],
+  },
+  {
     category: 'tune-up-table',
     title: 'Tune-up power table',
     fileName: 'tune-up-table.pdf',
@@ -67,11 +85,16 @@ export async function seedDemoEvidence(db: Db, storage: ByteStorage, organisatio
     .get();
   const engineer = db.select({ id: users.id }).from(users).where(eq(users.email, 'engineer@fieldfile.test')).get();
   if (!version || !engineer) return 0;
-  for (const d of DOCUMENTS) {
+  return fileDemoDocuments(db, storage, version.id, engineer.id, DOCUMENTS);
+}
+
+/** Generates each document as a PDF, stores its bytes and files it in the version (read back where an upload would be). */
+export async function fileDemoDocuments(db: Db, storage: ByteStorage, versionId: number, uploadedByUserId: number, documents: DemoDocument[]): Promise<number> {
+  for (const d of documents) {
     const bytes = await makePdf(d.pages, d.title);
     const stored = await storage.put(Readable.from([bytes]));
     insertEvidence(db, {
-      versionId: version.id,
+      versionId,
       category: d.category,
       title: d.title,
       fileName: d.fileName,
@@ -79,9 +102,9 @@ export async function seedDemoEvidence(db: Db, storage: ByteStorage, organisatio
       mediaType: 'application/pdf',
       sha256: stored.sha256,
       documentDate: d.documentDate ?? null,
-      uploadedByUserId: engineer.id,
+      uploadedByUserId,
     });
     if (READ_BACK_CATEGORIES.includes(d.category)) await readBack(db, storage, stored.sha256);
   }
-  return DOCUMENTS.length;
+  return documents.length;
 }

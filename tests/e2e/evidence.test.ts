@@ -78,7 +78,8 @@ async function fileThree(size: 'phone' | 'desktop') {
     await screenshot(page, `evidence-uploads-${size}`);
     await labelState.filter({ hasText: 'Present' }).waitFor();
     expect(await page.getByTestId('evidence-required-summary').textContent()).toContain('All present');
-    expect(await page.getByTestId('evidence-record').count()).toBe(6);
+    // The seven the demo filed, and the two just filed.
+    expect(await page.getByTestId('evidence-record').count()).toBe(9);
     await screenshot(page, `evidence-after-${size}`);
     expect(s.pageErrors.filter((e) => !/status of 415/.test(e))).toEqual([]);
     expect(s.externalRequests).toEqual([]);
