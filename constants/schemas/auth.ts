@@ -18,6 +18,7 @@ export const zLogin = z.strictObject({
     .max(PASSWORD_MAX, `A password has at most ${PASSWORD_MAX} characters.`),
 });
 export type LoginInput = z.input<typeof zLogin>;
+export type LoginOutput = z.output<typeof zLogin>;
 
 export const zNewPassword = z
   .string({ error: 'Choose a password.' })

@@ -17,7 +17,7 @@ import { ROLE_LABELS, sortRoles } from '../../constants/schemas/roles';
 import { renderInvitationMail } from '../../templates/mail/invitation';
 import { conflict, forbidden, notFound, unprocessable } from '../http-error';
 import * as repo from '../repos/users-repo';
-import { recordAudit } from './audit';
+import { recordAudit, type AuditEntry } from './audit';
 import type { Mailer } from './mailer';
 import { decoyPasswordHash, hashPassword, verifyPassword } from './passwords';
 
@@ -64,19 +64,53 @@ export function loadSessionUser(db: Db, userId: number, organisationId?: number)
 
 export type CredentialCheck = { ok: true; user: SessionUser } | { ok: false };
 
-/** Checks an e-mail and password; the same answer and similar timing whichever part is wrong. */
-export async function checkCredentials(db: Db, email: string, password: string): Promise<CredentialCheck> {
+/**
+ * Writes one audit entry into the trail of every organisation the account has joined: what
+ * happens to an account (a failed sign-in, a new password) concerns each of them.
+ */
+function recordForAccount(db: Db, userId: number, entry: Omit<AuditEntry, 'organisationId'>): void {
+  const organisations = repo.listMembershipsWithRoles(db, userId).filter((m) => m.acceptedAt !== null);
+  for (const m of organisations) recordAudit(db, { ...entry, organisationId: m.organisationId });
+}
+
+/**
+ * Checks an e-mail and password; the same answer and similar timing whichever part is wrong. A
+ * failed sign-in of a known account goes into its organisations' audit trails (the caller learns
+ * nothing from that: the answer is the same).
+ */
+export async function checkCredentials(db: Db, email: string, password: string, context: { address?: string } = {}): Promise<CredentialCheck> {
   const user = repo.findUserByEmail(db, email.trim().toLowerCase());
   const hash = user?.passwordHash ?? (await decoyPasswordHash());
   const matches = await verifyPassword(password, hash);
   const sessionUser = user && user.passwordHash && matches ? loadSessionUser(db, user.id) : undefined;
   if (!user || !sessionUser) {
-    recordAudit(db, { actorUserId: user?.id ?? null, action: 'auth.sign-in-failed', details: { email: email.slice(0, 254) } });
+    if (user) {
+      recordForAccount(db, user.id, {
+        actorUserId: user.id,
+        action: 'auth.sign-in-failed',
+        targetType: 'user',
+        targetId: user.id,
+        details: { email: user.email, address: context.address ?? null, reason: matches && user.passwordHash ? 'no-access' : 'wrong-password' },
+      });
+    }
     return { ok: false };
   }
   repo.touchLastSignIn(db, user.id);
   recordAudit(db, { organisationId: sessionUser.organisation.id, actorUserId: user.id, action: 'auth.sign-in' });
   return { ok: true, user: sessionUser };
+}
+
+/** A sign-in limit closed for an e-mail: if it is an account, its organisations learn of it. */
+export function recordSignInBlocked(db: Db, email: string, context: { address?: string; scope: string }): void {
+  const user = repo.findUserByEmail(db, email);
+  if (!user) return;
+  recordForAccount(db, user.id, {
+    actorUserId: user.id,
+    action: 'auth.sign-in-blocked',
+    targetType: 'user',
+    targetId: user.id,
+    details: { email: user.email, address: context.address ?? null, limit: context.scope },
+  });
 }
 
 export function listUsers(db: Db, organisationId: number): UserDto[] {
