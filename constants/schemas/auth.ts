@@ -1,5 +1,6 @@
 import { z } from 'zod';
-import { EMAIL_MAX, PASSWORD_MAX, PASSWORD_MIN, TOKEN_MAX } from './limits';
+import { EMAIL_MAX, PASSWORD_MAX, TOKEN_MAX } from './limits';
+import { normalisePassword, zNewPassword, zNewPasswordFor } from './password-policy';
 import { zRole } from './roles';
 
 export const zEmail = z
@@ -20,23 +21,20 @@ export const zLogin = z.strictObject({
 export type LoginInput = z.input<typeof zLogin>;
 export type LoginOutput = z.output<typeof zLogin>;
 
-export const zNewPassword = z
-  .string({ error: 'Choose a password.' })
-  .min(PASSWORD_MIN, `Use at least ${PASSWORD_MIN} characters.`)
-  .max(PASSWORD_MAX, `A password has at most ${PASSWORD_MAX} characters.`);
-
-/** The set-password form: the token comes from the invitation link. */
-export const zSetPasswordForm = z
-  .strictObject({
-    token: z.string().min(1, 'The link is missing its token.').max(TOKEN_MAX),
-    password: zNewPassword,
-    confirmPassword: z.string(),
-  })
-  .refine((v) => v.password === v.confirmPassword, {
-    path: ['confirmPassword'],
-    message: 'The two passwords differ.',
-  });
-export type SetPasswordFormInput = z.input<typeof zSetPasswordForm>;
+/** The set-password form for this person (from the link): the policy, checked before sending. */
+export function zSetPasswordFormFor(person: { email?: string; name?: string }) {
+  return z
+    .strictObject({
+      token: z.string().min(1, 'The link is missing its token.').max(TOKEN_MAX),
+      password: zNewPasswordFor(person),
+      confirmPassword: z.string().transform(normalisePassword),
+    })
+    .refine((v) => v.password === v.confirmPassword, {
+      path: ['confirmPassword'],
+      message: 'The two passwords differ.',
+    });
+}
+export type SetPasswordFormInput = z.input<ReturnType<typeof zSetPasswordFormFor>>;
 
 export const zSetPassword = z.strictObject({
   token: z.string().min(1).max(TOKEN_MAX),

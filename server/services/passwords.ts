@@ -10,6 +10,7 @@
  * in line; the sign-in guard (server/auth/sign-in-guard.ts) keeps that line short.
  */
 import { randomBytes, scrypt as scryptCb, timingSafeEqual, type ScryptOptions } from 'node:crypto';
+import { normalisePassword } from '../../constants/schemas/password-policy';
 
 const KEY_LENGTH = 32;
 const DEFAULT_COST = { N: 2 ** 17, r: 8, p: 1 };
@@ -56,14 +57,15 @@ function scrypt(password: string, salt: Buffer, keylen: number, options: ScryptO
 
 const maxmem = (N: number, r: number) => 128 * N * r * 2;
 
+/** Hashes the password's NFKC form (constants/schemas/password-policy.ts says why). */
 export async function hashPassword(password: string): Promise<string> {
   const { N, r, p } = cost;
   const salt = randomBytes(16);
-  const key = await scrypt(password, salt, KEY_LENGTH, { N, r, p, maxmem: maxmem(N, r) });
+  const key = await scrypt(normalisePassword(password), salt, KEY_LENGTH, { N, r, p, maxmem: maxmem(N, r) });
   return `scrypt$${N}$${r}$${p}$${salt.toString('base64')}$${key.toString('base64')}`;
 }
 
-export async function verifyPassword(password: string, stored: string): Promise<boolean> {
+async function matchesHash(password: string, stored: string): Promise<boolean> {
   const parts = stored.split('$');
   if (parts.length !== 6 || parts[0] !== 'scrypt') return false;
   const [N, r, p] = parts.slice(1, 4).map(Number);
@@ -71,6 +73,17 @@ export async function verifyPassword(password: string, stored: string): Promise<
   const expected = Buffer.from(parts[5], 'base64');
   const key = await scrypt(password, salt, expected.length, { N, r, p, maxmem: maxmem(N, r) });
   return key.length === expected.length && timingSafeEqual(key, expected);
+}
+
+/**
+ * Checks the password's NFKC form against the hash. A password that NFKC changes is also tried
+ * as typed, for hashes made before passwords were normalised (one more hash, and only for
+ * passwords with compatibility characters in them).
+ */
+export async function verifyPassword(password: string, stored: string): Promise<boolean> {
+  const normalised = normalisePassword(password);
+  if (await matchesHash(normalised, stored)) return true;
+  return normalised !== password && (await matchesHash(password, stored));
 }
 
 /** A hash of a random password, verified against when the e-mail is unknown so that timing

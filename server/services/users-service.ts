@@ -20,6 +20,8 @@ import * as repo from '../repos/users-repo';
 import { recordAudit, type AuditEntry } from './audit';
 import type { Mailer } from './mailer';
 import { decoyPasswordHash, hashPassword, verifyPassword } from './passwords';
+import { passwordUserInputs } from '../../constants/schemas/password-policy';
+import { passwordStrengthProblem } from '../../constants/schemas/password-strength';
 
 export const INVITATION_TTL_MS = 7 * 24 * 3600 * 1000;
 
@@ -279,8 +281,21 @@ function liveTokenForNewPassword(db: Db, token: string) {
   return { row, user };
 }
 
+/** Throws a 422 on `field` when the password is too easy to guess for this person. */
+export function refuseGuessablePassword(password: string, person: { email: string; name?: string }, field = 'password'): void {
+  const problem = passwordStrengthProblem(password, passwordUserInputs(person));
+  if (problem) throw unprocessable(problem, { [field]: problem });
+}
+
+/** The names the account goes by: its own and each organisation's, for the guessability check. */
+function accountNames(db: Db, user: repo.UserRow): string {
+  return [user.name, ...repo.listMembershipsWithRoles(db, user.id).map((m) => m.name)].join(' ');
+}
+
 export async function setPasswordWithToken(db: Db, token: string, password: string): Promise<{ email: string }> {
-  liveTokenForNewPassword(db, token); // refuse a dead link before spending a hash on it
+  // Refuse a dead link before judging the password or spending a hash on it.
+  const { user: owner } = liveTokenForNewPassword(db, token);
+  refuseGuessablePassword(password, { email: owner.email, name: accountNames(db, owner) });
   const hash = await hashPassword(password);
   return db.transaction((tx) => {
     const { row, user } = liveTokenForNewPassword(tx, token);
