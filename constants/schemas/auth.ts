@@ -41,6 +41,32 @@ export const zSetPassword = z.strictObject({
   password: zNewPassword,
 });
 
+/** "Forgot your password?": the address to send a reset link to. */
+export const zForgotPassword = z.strictObject({ email: zEmail });
+export type ForgotPasswordInput = z.input<typeof zForgotPassword>;
+
+/** What the server answers to every reset request, whether or not the address has an account. */
+export const RESET_REQUESTED_MESSAGE =
+  'If an account uses this address, a link to choose a new password is on its way to it. The link works once, for an hour. Nothing arrived? Check the spam folder, or ask again in a few minutes.';
+
+/** Changing the password from the profile: the current one proves it is you. */
+export const zChangePassword = z.strictObject({
+  currentPassword: zLogin.shape.password,
+  newPassword: zNewPassword,
+});
+
+/** The profile's change-password form for this person: the policy, checked before sending. */
+export function zChangePasswordFormFor(person: { email?: string; name?: string }) {
+  return z
+    .strictObject({
+      currentPassword: z.string().min(1, 'Enter your current password.').max(PASSWORD_MAX, `A password has at most ${PASSWORD_MAX} characters.`),
+      newPassword: zNewPasswordFor(person),
+      confirmPassword: z.string().transform(normalisePassword),
+    })
+    .refine((v) => v.newPassword === v.confirmPassword, { path: ['confirmPassword'], message: 'The two passwords differ.' })
+    .refine((v) => v.newPassword !== normalisePassword(v.currentPassword), { path: ['newPassword'], message: 'Choose a password other than your current one.' });
+}
+
 /** Joining another organisation with an existing account: its own password confirms it. */
 export const zAcceptInvitation = z.strictObject({
   token: z.string().min(1).max(TOKEN_MAX),

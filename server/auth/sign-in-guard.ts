@@ -234,3 +234,37 @@ export function createSignInGuard(options: SignInGuardOptions = {}) {
 }
 
 export type SignInGuard = ReturnType<typeof createSignInGuard>;
+
+/**
+ * Reset-link requests: from one address at most RESET_REQUEST_LIMITS.address an hour (then 429,
+ * which says nothing about any account); for one e-mail address at most
+ * RESET_REQUEST_LIMITS.email links an hour, beyond which the request is answered as always but
+ * no mail goes out (so nobody can fill an inbox, and nobody learns that they tried to).
+ */
+export const RESET_REQUEST_LIMITS = {
+  address: { points: 10, duration: 60 * 60 },
+  email: { points: 3, duration: 60 * 60 },
+} as const;
+
+export function createResetRequestLimits() {
+  const byAddress = new RateLimiterMemory({ keyPrefix: 'reset-address', ...RESET_REQUEST_LIMITS.address });
+  const byEmail = new RateLimiterMemory({ keyPrefix: 'reset-email', ...RESET_REQUEST_LIMITS.email });
+  return {
+    /** Throws a 429 for an address over its limit; false when this e-mail has had its links for the hour. */
+    async admit(email: string, address: string | undefined): Promise<boolean> {
+      try {
+        await byAddress.consume(addressKey(address));
+      } catch (rejection) {
+        if (!(rejection instanceof RateLimiterRes)) throw rejection;
+        throw tooManyRequests('too_many_attempts', `Too many reset requests from your network. Try again ${retryInWords(rejection.msBeforeNext)}.`, rejection.msBeforeNext / 1000);
+      }
+      try {
+        await byEmail.consume(email);
+        return true;
+      } catch (rejection) {
+        if (!(rejection instanceof RateLimiterRes)) throw rejection;
+        return false;
+      }
+    },
+  };
+}

@@ -24,6 +24,12 @@ import { passwordUserInputs } from '../../constants/schemas/password-policy';
 import { passwordStrengthProblem } from '../../constants/schemas/password-strength';
 
 export const INVITATION_TTL_MS = 7 * 24 * 3600 * 1000;
+/** A password-reset link works for an hour (and once). */
+export const RESET_TTL_MS = 3600 * 1000;
+
+/** What a dead link (expired, used, unknown) is answered with, whichever kind it was. */
+export const DEAD_LINK_MESSAGE =
+  'This link has expired or was already used. For a new password link, use “Forgot your password?” on the sign-in page; for a new invitation, ask your admin.';
 
 const sha256 = (s: string) => createHash('sha256').update(s).digest('hex');
 
@@ -70,7 +76,7 @@ export type CredentialCheck = { ok: true; user: SessionUser } | { ok: false };
  * Writes one audit entry into the trail of every organisation the account has joined: what
  * happens to an account (a failed sign-in, a new password) concerns each of them.
  */
-function recordForAccount(db: Db, userId: number, entry: Omit<AuditEntry, 'organisationId'>): void {
+export function recordForAccount(db: Db, userId: number, entry: Omit<AuditEntry, 'organisationId'>): void {
   const organisations = repo.listMembershipsWithRoles(db, userId).filter((m) => m.acceptedAt !== null);
   for (const m of organisations) recordAudit(db, { ...entry, organisationId: m.organisationId });
 }
@@ -119,9 +125,10 @@ export function listUsers(db: Db, organisationId: number): UserDto[] {
   return repo.listOrganisationUsers(db, organisationId).map((u) => toDto(u.user, u.membership, u.roles));
 }
 
-function issueToken(db: Db, userId: number, purpose: 'invitation' | 'reset', organisationId: number | null): { token: string; expiresAt: Date } {
+/** A one-time link's token: only its SHA-256 is stored. */
+export function issueToken(db: Db, userId: number, purpose: 'invitation' | 'reset', organisationId: number | null): { token: string; expiresAt: Date } {
   const token = randomBytes(32).toString('base64url');
-  const expiresAt = new Date(Date.now() + INVITATION_TTL_MS);
+  const expiresAt = new Date(Date.now() + (purpose === 'reset' ? RESET_TTL_MS : INVITATION_TTL_MS));
   repo.insertPasswordToken(db, { userId, tokenSha256: sha256(token), purpose, organisationId, expiresAt: expiresAt.toISOString() });
   return { token, expiresAt };
 }
@@ -247,6 +254,8 @@ function findLiveToken(db: Db, token: string) {
 }
 
 export interface TokenOwner {
+  /** An invitation (set a first password or join) or a reset (choose a new password). */
+  purpose: 'invitation' | 'reset';
   email: string;
   name: string;
   /** True when the link accepts an invitation into an existing account (no new password). */
@@ -262,6 +271,7 @@ export function describePasswordToken(db: Db, token: string): TokenOwner | undef
   const membership = row.organisationId !== null ? repo.findMembership(db, user.id, row.organisationId) : undefined;
   const org = row.organisationId !== null ? repo.findOrganisation(db, row.organisationId) : undefined;
   return {
+    purpose: row.purpose,
     email: user.email,
     name: membership?.name ?? user.name,
     existingAccount: row.purpose === 'invitation' && user.passwordHash !== null,
@@ -269,8 +279,7 @@ export function describePasswordToken(db: Db, token: string): TokenOwner | undef
   };
 }
 
-const deadLink = () =>
-  unprocessable('This link has expired or was already used. Ask your admin for a new invitation.', { token: 'This link has expired or was already used.' });
+const deadLink = () => unprocessable(DEAD_LINK_MESSAGE, { token: 'This link has expired or was already used.' });
 
 function liveTokenForNewPassword(db: Db, token: string) {
   const row = findLiveToken(db, token);
@@ -288,11 +297,16 @@ export function refuseGuessablePassword(password: string, person: { email: strin
 }
 
 /** The names the account goes by: its own and each organisation's, for the guessability check. */
-function accountNames(db: Db, user: repo.UserRow): string {
+export function accountNames(db: Db, user: repo.UserRow): string {
   return [user.name, ...repo.listMembershipsWithRoles(db, user.id).map((m) => m.name)].join(' ');
 }
 
-export async function setPasswordWithToken(db: Db, token: string, password: string): Promise<{ email: string }> {
+/**
+ * Sets the password from a one-time link. An invitation also accepts the membership; a reset ends
+ * every session of the account (whoever knew the old password is signed out) and is recorded in
+ * each of its organisations' trails.
+ */
+export async function setPasswordWithToken(db: Db, token: string, password: string): Promise<{ email: string; purpose: 'invitation' | 'reset' }> {
   // Refuse a dead link before judging the password or spending a hash on it.
   const { user: owner } = liveTokenForNewPassword(db, token);
   refuseGuessablePassword(password, { email: owner.email, name: accountNames(db, owner) });
@@ -301,16 +315,22 @@ export async function setPasswordWithToken(db: Db, token: string, password: stri
     const { row, user } = liveTokenForNewPassword(tx, token);
     repo.setPasswordHash(tx, user.id, hash);
     repo.markPasswordTokenUsed(tx, row.id);
-    if (row.purpose === 'invitation') repo.acceptPendingMemberships(tx, user.id, row.organisationId);
-    recordAudit(tx, {
-      organisationId: row.organisationId,
-      actorUserId: user.id,
-      action: 'auth.set-password',
-      targetType: 'user',
-      targetId: user.id,
-      details: { purpose: row.purpose },
-    });
-    return { email: user.email };
+    if (row.purpose === 'invitation') {
+      repo.acceptPendingMemberships(tx, user.id, row.organisationId);
+      recordAudit(tx, {
+        organisationId: row.organisationId,
+        actorUserId: user.id,
+        action: 'auth.set-password',
+        targetType: 'user',
+        targetId: user.id,
+        details: { purpose: row.purpose },
+      });
+    } else {
+      repo.retirePasswordTokens(tx, user.id, 'reset', null);
+      const ended = repo.endUserSessions(tx, user.id);
+      recordForAccount(tx, user.id, { actorUserId: user.id, action: 'auth.password-reset', targetType: 'user', targetId: user.id, details: { sessionsEnded: ended } });
+    }
+    return { email: user.email, purpose: row.purpose };
   });
 }
 
