@@ -16,7 +16,7 @@ import { READ_BACK_CATEGORIES } from '../server/services/version-readback';
 import { makePdf } from './documents';
 import { DEMO_TRACKER } from './demo-filing';
 
-interface DemoDocument {
+export interface DemoDocument {
   category: EvidenceCategoryId;
   title: string;
   fileName: string;
@@ -67,11 +67,16 @@ export async function seedDemoEvidence(db: Db, storage: ByteStorage, organisatio
     .get();
   const engineer = db.select({ id: users.id }).from(users).where(eq(users.email, 'engineer@fieldfile.test')).get();
   if (!version || !engineer) return 0;
-  for (const d of DOCUMENTS) {
+  return fileDemoDocuments(db, storage, version.id, engineer.id, DOCUMENTS);
+}
+
+/** Generates each document as a PDF, stores its bytes and files it in the version (read back where an upload would be). */
+export async function fileDemoDocuments(db: Db, storage: ByteStorage, versionId: number, uploadedByUserId: number, documents: DemoDocument[]): Promise<number> {
+  for (const d of documents) {
     const bytes = await makePdf(d.pages, d.title);
     const stored = await storage.put(Readable.from([bytes]));
     insertEvidence(db, {
-      versionId: version.id,
+      versionId,
       category: d.category,
       title: d.title,
       fileName: d.fileName,
@@ -79,9 +84,9 @@ export async function seedDemoEvidence(db: Db, storage: ByteStorage, organisatio
       mediaType: 'application/pdf',
       sha256: stored.sha256,
       documentDate: d.documentDate ?? null,
-      uploadedByUserId: engineer.id,
+      uploadedByUserId,
     });
     if (READ_BACK_CATEGORIES.includes(d.category)) await readBack(db, storage, stored.sha256);
   }
-  return DOCUMENTS.length;
+  return documents.length;
 }

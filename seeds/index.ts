@@ -27,29 +27,36 @@ export interface SeedResult {
   createdFilings: number;
 }
 
-/** With `storage`, the demo filing also gets its evidence files (only when the filings are new). */
+/**
+ * With `storage`, the demo tracker also gets its evidence files, and the review demo is added (a
+ * badge in review with a comment thread, a gateway signed as version 1 with a version 2 in draft):
+ * its filings need their evidence files to be ready for review. Only when the filings are new.
+ */
 export async function seedDemo(db: Db, demoPassword: string, storage?: ByteStorage): Promise<SeedResult> {
   const people = await seedPeople(db, demoPassword);
-  const createdFilings = await seedFilings(db, people.organisationId, demoPassword);
-  if (createdFilings && storage) await seedDemoEvidence(db, storage, people.organisationId);
+  let createdFilings = seedFilings(db, people.organisationId);
+  if (createdFilings && storage) {
+    await seedDemoEvidence(db, storage, people.organisationId);
+    const specialist = usersRepo.findUserByEmail(db, 'specialist@fieldfile.test')!;
+    const approver = usersRepo.findUserByEmail(db, 'approver@fieldfile.test')!;
+    createdFilings += await seedReviewDemo(db, storage, people.organisationId, specialist, approver, demoPassword);
+  }
   return { ...people, createdFilings };
 }
 
 /**
- * The demo filings, only into an organisation that has none. The tracker comes first, so it is
- * filing 1 on a fresh install (the browser tests open it by that number); then the dock, then the
- * badge in review and the gateway signed with a version 2 in draft, so every review state shows.
+ * The demo tracker and dock, created by the demo specialist, only into an organisation that has
+ * none. The tracker comes first, so it is filing 1 on a fresh install (the browser tests open it by
+ * that number).
  */
-async function seedFilings(db: Db, organisationId: number, demoPassword: string): Promise<number> {
+function seedFilings(db: Db, organisationId: number): number {
   if (db.select({ id: filings.id }).from(filings).where(eq(filings.organisationId, organisationId)).get()) return 0;
   const specialist = usersRepo.findUserByEmail(db, 'specialist@fieldfile.test')!;
-  const approver = usersRepo.findUserByEmail(db, 'approver@fieldfile.test')!;
   const actor = { id: specialist.id, organisationId, roles: ['specialist' as const] };
   const tracker = importDeviceFile(db, actor, zDeviceFile.parse(DEMO_TRACKER));
   seedLab(db, tracker.version.id);
   createFiling(db, actor, DEMO_DOCK_DEVICE);
-  const reviewed = await seedReviewDemo(db, organisationId, specialist, approver, demoPassword);
-  return 2 + reviewed;
+  return 2;
 }
 
 /** The demo tracker's lab results (one liquid check out of tolerance), as the engineer would import them. */

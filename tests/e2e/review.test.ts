@@ -9,7 +9,8 @@
  */
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { exemptBadgeNamed } from '../fixtures/exempt-badge';
+import { makePdf } from '../../seeds/documents';
+import { EXEMPT_EVIDENCE, exemptBadgeNamed } from '../fixtures/exempt-badge';
 import { DESKTOP, openBrowser, PHONE, screenshot, signInAt, waitSaved } from './support/browser';
 import { startServer, type RunningServer } from './support/server';
 
@@ -57,10 +58,17 @@ describe.each([
       await page.getByTestId('overview-review').scrollIntoViewIfNeeded();
       await screenshot(page, `review-overview-blocked-${size}`);
 
-      // A ready badge, imported through the API.
+      // A ready badge, imported through the API…
       const created = await page.request.post(`${server.baseUrl}/api/filings/import`, { data: exemptBadgeNamed(`Wren W2 badge (${size})`) });
       expect(created.status()).toBe(201);
       const id = (await created.json()).filing.id as number;
+      // …with the evidence it needs, uploaded as a lab script would.
+      for (const [category, title, lines] of EXEMPT_EVIDENCE) {
+        const up = await page.request.post(`${server.baseUrl}/api/filings/${id}/evidence`, {
+          multipart: { category, title, file: { name: `${category}.pdf`, mimeType: 'application/pdf', buffer: await makePdf([lines], title) } },
+        });
+        expect(up.status()).toBe(201);
+      }
       await page.goto(`${server.baseUrl}/filings/${id}`);
       await page.getByTestId('overview-blocking-count').filter({ hasText: '0' }).waitFor();
       expect(await text(page, 'overview-review-state')).toContain('Draft');

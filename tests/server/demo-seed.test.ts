@@ -1,12 +1,13 @@
 /**
- * The demo a first start seeds: the tracker is filing 1 (the browser tests open it by number),
- * and every review state shows — a badge in review with a comment thread, a gateway whose
- * version 1 is signed (and verifies) with a version 2 in draft whose change the comparison shows.
- * Seeding again adds nothing.
+ * The demo a first start seeds (with its byte storage, as server/start.ts does): the tracker is
+ * filing 1 (the browser tests open it by number), and every review state shows — a badge in
+ * review with a comment thread, a gateway whose version 1 is signed (and verifies) with a
+ * version 2 in draft whose change the comparison shows. Seeding again adds nothing.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { seedDemo } from '../../seeds';
-import { createTestApp, seedUsers, signIn, TEST_PASSWORD, type TestApp } from './support/test-app';
+import { createStorages } from '../../server/storage';
+import { createTestApp, signIn, TEST_PASSWORD, type TestApp } from './support/test-app';
 
 type Agent = Awaited<ReturnType<typeof signIn>>;
 let t: TestApp;
@@ -15,7 +16,8 @@ let byName: Record<string, { id: number; version: { number: number; state: strin
 
 beforeAll(async () => {
   t = await createTestApp();
-  await seedUsers(t);
+  const seeded = await seedDemo(t.handle.db, TEST_PASSWORD, createStorages(t.config).uploads);
+  expect(seeded.createdFilings).toBe(4);
   approver = await signIn(t, 'approver@fieldfile.test');
   const list = (await approver.get('/api/filings?sort=name')).body.filings as { id: number; device: { name: string }; version: { number: number; state: string } }[];
   byName = Object.fromEntries(list.map((f) => [f.device.name, f]));
@@ -40,7 +42,9 @@ describe('the demo seed', () => {
     // The approver can act on it at once: sign or return.
     expect(review.can.sign.allowed).toBe(true);
     expect(review.can.return.allowed).toBe(true);
-    expect((await approver.get(`/api/filings/${badge.id}/readiness`)).body.ready).toBe(true);
+    const readiness = (await approver.get(`/api/filings/${badge.id}/readiness`)).body;
+    expect(readiness.items.filter((i: { status: string; severity: string }) => i.status === 'fail' && i.severity === 'blocks-signing')).toEqual([]);
+    expect(readiness.ready).toBe(true);
   });
 
   it('has a gateway signed as version 1 (its hash verifies) with version 2 in draft', async () => {
@@ -54,6 +58,9 @@ describe('the demo seed', () => {
     expect(review.versions[0].signature.signer).toMatchObject({ name: 'Jonas Weber', role: 'approver' });
     const verify = await approver.post(`/api/filings/${gateway.id}/versions/1/verify`);
     expect(verify.body.verification.matches).toBe(true);
+    // The evidence it was signed with is carried into version 2 by reference.
+    const evidence = (await approver.get(`/api/filings/${gateway.id}/evidence`)).body;
+    expect(JSON.stringify(evidence)).toContain('user-manual-bilingual');
   });
 
   it('the gateway’s comparison shows the one change (the Wi-Fi tune-up power) and the results it moved', async () => {
@@ -65,7 +72,7 @@ describe('the demo seed', () => {
   });
 
   it('seeding again adds no filing', async () => {
-    const again = await seedDemo(t.handle.db, TEST_PASSWORD);
+    const again = await seedDemo(t.handle.db, TEST_PASSWORD, createStorages(t.config).uploads);
     expect(again.createdFilings).toBe(0);
     expect((await approver.get('/api/filings')).body.filings).toHaveLength(4);
   });

@@ -12,7 +12,7 @@ import { openDatabase } from '../../db/client';
 import { SIGNING_STATEMENT } from '../../constants/schemas/review';
 import { versionContentSha256 } from '../../server/services/version-content';
 import { makePdf } from '../../seeds/documents';
-import { EXEMPT_BADGE, exemptBadgeNamed } from '../fixtures/exempt-badge';
+import { EXEMPT_BADGE, EXEMPT_EVIDENCE, exemptBadgeNamed } from '../fixtures/exempt-badge';
 import { createTestApp, seedUsers, signIn, TEST_PASSWORD, type TestApp } from './support/test-app';
 
 type Agent = Awaited<ReturnType<typeof signIn>>;
@@ -29,13 +29,6 @@ async function addPerson(email: string, name: string, roles: string[]): Promise<
   expect((await request(t.app).post('/api/auth/set-password').send({ token, password: TEST_PASSWORD })).status).toBe(200);
   return signIn(t, email);
 }
-
-/** What an exempt FCC + EU body-worn filing must carry (evidence-required): the tune-up table, the manual, the label. */
-const EXEMPT_EVIDENCE: [category: string, title: string, lines: string[]][] = [
-  ['tune-up-table', 'Tune-up power table', ['Tune-up power table, WR1-B', 'Bluetooth LE 2.4 GHz ISM: 4.0 dBm']],
-  ['user-manual', 'User manual, RF-exposure page', ['RF exposure', 'Wear the badge on its lanyard, at least 5 mm from the body.']],
-  ['label-drawing', 'Label drawing', ['Label WR1-B, on the back cover']],
-];
 
 async function newExemptFiling(by: Agent = specialist, name = exemptDevice.device.name): Promise<number> {
   const res = await by.post('/api/filings/import').send(exemptBadgeNamed(name));
