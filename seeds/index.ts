@@ -5,6 +5,8 @@
 import { eq } from 'drizzle-orm';
 import type { Db } from '../db/client';
 import { hashPassword } from '../server/services/passwords';
+import { passwordUserInputs, zNewPassword } from '../constants/schemas/password-policy';
+import { passwordStrengthProblem } from '../constants/schemas/password-strength';
 import * as usersRepo from '../server/repos/users-repo';
 import { recordAudit } from '../server/services/audit';
 import { DEMO_ORGANISATION, DEMO_USERS } from './demo-people';
@@ -68,7 +70,20 @@ function seedLab(db: Db, versionId: number) {
   });
 }
 
+/** Why the demo password would be refused to a person choosing it, or null (the policy in constants/schemas/password-policy.ts). */
+export function demoPasswordProblem(demoPassword: string): string | null {
+  const length = zNewPassword.safeParse(demoPassword);
+  if (!length.success) return length.error.issues[0].message;
+  for (const person of DEMO_USERS) {
+    const problem = passwordStrengthProblem(demoPassword, passwordUserInputs(person));
+    if (problem) return `${problem} (for ${person.email})`;
+  }
+  return null;
+}
+
 async function seedPeople(db: Db, demoPassword: string) {
+  const problem = demoPasswordProblem(demoPassword);
+  if (problem) throw new Error(`The demo password does not meet the password policy: ${problem} Choose another FIELDFILE_DEMO_PASSWORD.`);
   const passwordHash = await hashPassword(demoPassword);
   return db.transaction((tx) => {
     const org = usersRepo.findOrganisationBySlug(tx, DEMO_ORGANISATION.slug) ?? usersRepo.insertOrganisation(tx, DEMO_ORGANISATION);

@@ -113,6 +113,8 @@ export interface CreateAppOptions {
 }
 
 export function createApp({ handle, config, mailer, serveWeb = true, storage = createStorages(config), exhibitSources, queue }: CreateAppOptions) {
+  // New hashes at the configured cost (tests choose a cheaper one; see server/env.ts).
+  setPasswordHashCost(config.scryptLog2N);
   const calcPool = createCalcPool({ timeLimitMs: config.calcTimeLimitMs });
   const ctx: AppContext = { db: handle.db, config, mailer, storage, calcPool };
   const packages: PackageDeps = {
@@ -161,6 +163,9 @@ export function createApp({ handle, config, mailer, serveWeb = true, storage = c
   api.use(express.json({ limit: JSON_LIMIT, verify: noteInvalidUtf8 }));
   api.use(refuseMalformedJson);
   api.use(originGuard(config.devWebOrigin));
+  const auth = authRoutes(ctx);
+  // Before the session: a sign-in the guard refuses costs no session work (server/auth/sign-in-guard.ts).
+  api.use('/auth', auth.gate);
   api.use(
     session({
       name: SESSION_COOKIE,
@@ -175,7 +180,7 @@ export function createApp({ handle, config, mailer, serveWeb = true, storage = c
   api.use(passport.session());
   api.use(endSessionsPastAbsoluteLifetime);
   api.use('/health', healthRoutes(ctx));
-  api.use('/auth', authRoutes(ctx, passport));
+  api.use('/auth', auth.routes);
   api.use('/users', userRoutes(ctx));
   api.use('/outbox', outboxRoutes(ctx));
   api.use('/audit', auditRoutes(ctx));

@@ -5,6 +5,7 @@
 import path from 'node:path';
 import { z } from 'zod';
 import { DEFAULT_MAX_FILE_BYTES, DEFAULT_MAX_FILING_BYTES } from '../constants/schemas/evidence';
+import { PASSWORD_MIN } from '../constants/schemas/limits';
 
 const zBool = z
   .enum(['true', 'false', '1', '0', ''])
@@ -39,7 +40,8 @@ const zEnv = z.object({
   FIELDFILE_SESSION_SECRET: z.string().min(16).optional(),
   /** log2 of scrypt's N for new password hashes; below 17 only for tests. */
   FIELDFILE_SCRYPT_LOG2N: z.coerce.number().int().min(10).max(20).default(17),
-  FIELDFILE_DEMO_PASSWORD: z.string().min(8).default('fieldfile-demo-2026'),
+  /** Must meet the password policy (seeding refuses one that does not). */
+  FIELDFILE_DEMO_PASSWORD: z.string().min(PASSWORD_MIN).default('fieldfile-demo-2026'),
   /** Port of the in-process SMTP catcher (used when SMTP_HOST is not set). */
   FIELDFILE_MAIL_CATCHER_PORT: z.coerce.number().int().min(0).max(65535).default(2525),
   /** Largest evidence file, bytes (default 100 MB). */

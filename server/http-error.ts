@@ -20,3 +20,16 @@ export const forbidden = (message = 'Your role does not allow this.') => new Htt
 export const notFound = (message = 'Not found.') => new HttpError(404, 'not_found', message);
 export const conflict = (message: string, fields?: Record<string, string>) =>
   new HttpError(409, 'conflict', message, fields);
+
+/** A 429: the caller may try again after `retryAfterSec` (sent as Retry-After). */
+export class RetryLaterError extends HttpError {
+  constructor(
+    code: string,
+    message: string,
+    readonly retryAfterSec: number,
+  ) {
+    super(429, code, message);
+  }
+}
+export const tooManyRequests = (code: 'too_many_attempts' | 'busy', message: string, retryAfterSec: number) =>
+  new RetryLaterError(code, message, Math.max(1, Math.ceil(retryAfterSec)));

@@ -1,9 +1,13 @@
-/** Choosing a password from an invitation link, checked with the shared zSetPasswordForm. */
+/**
+ * Choosing a password from an invitation or reset link, checked with the shared schema for this
+ * person (length, and not easy to guess given their e-mail and name) before anything is sent.
+ */
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm } from 'react-hook-form';
 import { View } from 'react-native';
 import type { z } from 'zod';
-import { zSetPasswordForm } from '../../constants/schemas/auth';
+import { useMemo } from 'react';
+import { zSetPasswordFormFor } from '../../constants/schemas/auth';
 import { PASSWORD_MIN } from '../../constants/schemas/limits';
 import { space } from '../../constants/theme';
 import { useSetPasswordMutation } from '../../hooks/queries/password-token';
@@ -12,13 +16,27 @@ import { Button } from '../ui/button';
 import { Notice } from '../ui/notice';
 import { FormTextField } from '../ui/text-field';
 
-type FormIn = z.input<typeof zSetPasswordForm>;
-type FormOut = z.output<typeof zSetPasswordForm>;
+type Schema = ReturnType<typeof zSetPasswordFormFor>;
+type FormIn = z.input<Schema>;
+type FormOut = z.output<Schema>;
 
-export function SetPasswordForm({ token, onDone }: { token: string; onDone: (email: string) => void }) {
+export function SetPasswordForm({
+  token,
+  person,
+  submitLabel = 'Set password',
+  onDone,
+}: {
+  token: string;
+  /** Whose password it is: their e-mail and name count as easy guesses. */
+  person: { email: string; name: string };
+  submitLabel?: string;
+  onDone: (email: string) => void;
+}) {
   const setPassword = useSetPasswordMutation();
+  const { email, name } = person;
+  const schema = useMemo(() => zSetPasswordFormFor({ email, name }), [email, name]);
   const { control, handleSubmit, setError, formState } = useForm<FormIn, unknown, FormOut>({
-    resolver: zodResolver(zSetPasswordForm),
+    resolver: zodResolver(schema),
     defaultValues: { token, password: '', confirmPassword: '' },
   });
 
@@ -38,7 +56,7 @@ export function SetPasswordForm({ token, onDone }: { token: string; onDone: (ema
         control={control}
         name="password"
         label="New password"
-        hint={`At least ${PASSWORD_MIN} characters. A few unrelated words make a strong one.`}
+        hint={`At least ${PASSWORD_MIN} characters, and not easy to guess. A few unrelated words make a strong one.`}
         testID="set-password-password"
         autoComplete="new-password"
         secureTextEntry
@@ -58,7 +76,7 @@ export function SetPasswordForm({ token, onDone }: { token: string; onDone: (ema
           {rootError}
         </Notice>
       ) : null}
-      <Button label="Set password" busyLabel="Saving…" busy={formState.isSubmitting} onPress={onSubmit} testID="set-password-submit" />
+      <Button label={submitLabel} busyLabel="Saving…" busy={formState.isSubmitting} onPress={onSubmit} testID="set-password-submit" />
     </View>
   );
 }

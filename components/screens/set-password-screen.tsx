@@ -63,7 +63,7 @@ export function SetPasswordScreen() {
             {owner.data.email}
           </Text>
         </View>
-        {joining ? <AcceptInvitationForm token={token} onDone={joined} /> : <SetPasswordForm token={token} onDone={done} />}
+        {joining ? <AcceptInvitationForm token={token} onDone={joined} /> : <SetPasswordForm token={token} person={owner.data} onDone={done} />}
       </>
     );
   }

@@ -3,7 +3,7 @@
  * failures become 400s; anything else is logged and answered with a plain 500 (no stack traces).
  */
 import type { ErrorRequestHandler, RequestHandler } from 'express';
-import { HttpError, notFound } from '../http-error';
+import { HttpError, notFound, RetryLaterError } from '../http-error';
 
 /** The start of the message the signed-version triggers raise (db/migrations/*_signed_versions_frozen.sql). */
 export const FROZEN_MESSAGE = 'signed version is frozen';
@@ -14,6 +14,7 @@ export const apiNotFound: RequestHandler = (req, _res, next) => {
 
 export const errorHandler: ErrorRequestHandler = (err, _req, res, _next) => {
   if (err instanceof HttpError) {
+    if (err instanceof RetryLaterError) res.set('Retry-After', String(err.retryAfterSec));
     res.status(err.status).json({ error: { code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}) } });
     return;
   }

@@ -1,5 +1,5 @@
 /** Drizzle queries for users, memberships, roles and one-time password links. No rules here. */
-import { and, asc, eq, isNull } from 'drizzle-orm';
+import { and, asc, eq, isNull, sql } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 import { membershipRoles, memberships, organisations, passwordTokens, users } from '../../db/schema';
 import { sortRoles, type Role } from '../../constants/schemas/roles';
@@ -160,4 +160,14 @@ export function retirePasswordTokens(db: Db, userId: number, purpose: PasswordTo
   const where = [eq(passwordTokens.userId, userId), eq(passwordTokens.purpose, purpose), isNull(passwordTokens.usedAt)];
   if (organisationId !== null) where.push(eq(passwordTokens.organisationId, organisationId));
   db.update(passwordTokens).set({ usedAt: nowIso() }).where(and(...where)).run();
+}
+
+/**
+ * Ends the user's sessions (all, or all but `keepSid`). Sessions live in the session store's own
+ * `sessions` table (server/auth/session-store.ts), its `sess` column the JSON express-session
+ * keeps, with passport's user under `passport.user`. Returns how many ended.
+ */
+export function endUserSessions(db: Db, userId: number, keepSid?: string): number {
+  const keep = keepSid === undefined ? sql`` : sql` AND sid <> ${keepSid}`;
+  return db.run(sql`DELETE FROM sessions WHERE json_extract(sess, '$.passport.user.id') = ${userId}${keep}`).changes;
 }

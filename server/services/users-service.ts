@@ -17,11 +17,19 @@ import { ROLE_LABELS, sortRoles } from '../../constants/schemas/roles';
 import { renderInvitationMail } from '../../templates/mail/invitation';
 import { conflict, forbidden, notFound, unprocessable } from '../http-error';
 import * as repo from '../repos/users-repo';
-import { recordAudit } from './audit';
+import { recordAudit, type AuditEntry } from './audit';
 import type { Mailer } from './mailer';
 import { decoyPasswordHash, hashPassword, verifyPassword } from './passwords';
+import { passwordUserInputs } from '../../constants/schemas/password-policy';
+import { passwordStrengthProblem } from '../../constants/schemas/password-strength';
 
 export const INVITATION_TTL_MS = 7 * 24 * 3600 * 1000;
+/** A password-reset link works for an hour (and once). */
+export const RESET_TTL_MS = 3600 * 1000;
+
+/** What a dead link (expired, used, unknown) is answered with, whichever kind it was. */
+export const DEAD_LINK_MESSAGE =
+  'This link has expired or was already used. For a new password link, use “Forgot your password?” on the sign-in page; for a new invitation, ask your admin.';
 
 const sha256 = (s: string) => createHash('sha256').update(s).digest('hex');
 
@@ -64,14 +72,35 @@ export function loadSessionUser(db: Db, userId: number, organisationId?: number)
 
 export type CredentialCheck = { ok: true; user: SessionUser } | { ok: false };
 
-/** Checks an e-mail and password; the same answer and similar timing whichever part is wrong. */
-export async function checkCredentials(db: Db, email: string, password: string): Promise<CredentialCheck> {
+/**
+ * Writes one audit entry into the trail of every organisation the account has joined: what
+ * happens to an account (a failed sign-in, a new password) concerns each of them.
+ */
+export function recordForAccount(db: Db, userId: number, entry: Omit<AuditEntry, 'organisationId'>): void {
+  const organisations = repo.listMembershipsWithRoles(db, userId).filter((m) => m.acceptedAt !== null);
+  for (const m of organisations) recordAudit(db, { ...entry, organisationId: m.organisationId });
+}
+
+/**
+ * Checks an e-mail and password; the same answer and similar timing whichever part is wrong. A
+ * failed sign-in of a known account goes into its organisations' audit trails (the caller learns
+ * nothing from that: the answer is the same).
+ */
+export async function checkCredentials(db: Db, email: string, password: string, context: { address?: string } = {}): Promise<CredentialCheck> {
   const user = repo.findUserByEmail(db, email.trim().toLowerCase());
   const hash = user?.passwordHash ?? (await decoyPasswordHash());
   const matches = await verifyPassword(password, hash);
   const sessionUser = user && user.passwordHash && matches ? loadSessionUser(db, user.id) : undefined;
   if (!user || !sessionUser) {
-    recordAudit(db, { actorUserId: user?.id ?? null, action: 'auth.sign-in-failed', details: { email: email.slice(0, 254) } });
+    if (user) {
+      recordForAccount(db, user.id, {
+        actorUserId: user.id,
+        action: 'auth.sign-in-failed',
+        targetType: 'user',
+        targetId: user.id,
+        details: { email: user.email, address: context.address ?? null, reason: matches && user.passwordHash ? 'no-access' : 'wrong-password' },
+      });
+    }
     return { ok: false };
   }
   repo.touchLastSignIn(db, user.id);
@@ -79,13 +108,27 @@ export async function checkCredentials(db: Db, email: string, password: string):
   return { ok: true, user: sessionUser };
 }
 
+/** A sign-in limit closed for an e-mail: if it is an account, its organisations learn of it. */
+export function recordSignInBlocked(db: Db, email: string, context: { address?: string; scope: string }): void {
+  const user = repo.findUserByEmail(db, email);
+  if (!user) return;
+  recordForAccount(db, user.id, {
+    actorUserId: user.id,
+    action: 'auth.sign-in-blocked',
+    targetType: 'user',
+    targetId: user.id,
+    details: { email: user.email, address: context.address ?? null, limit: context.scope },
+  });
+}
+
 export function listUsers(db: Db, organisationId: number): UserDto[] {
   return repo.listOrganisationUsers(db, organisationId).map((u) => toDto(u.user, u.membership, u.roles));
 }
 
-function issueToken(db: Db, userId: number, purpose: 'invitation' | 'reset', organisationId: number | null): { token: string; expiresAt: Date } {
+/** A one-time link's token: only its SHA-256 is stored. */
+export function issueToken(db: Db, userId: number, purpose: 'invitation' | 'reset', organisationId: number | null): { token: string; expiresAt: Date } {
   const token = randomBytes(32).toString('base64url');
-  const expiresAt = new Date(Date.now() + INVITATION_TTL_MS);
+  const expiresAt = new Date(Date.now() + (purpose === 'reset' ? RESET_TTL_MS : INVITATION_TTL_MS));
   repo.insertPasswordToken(db, { userId, tokenSha256: sha256(token), purpose, organisationId, expiresAt: expiresAt.toISOString() });
   return { token, expiresAt };
 }
@@ -211,6 +254,8 @@ function findLiveToken(db: Db, token: string) {
 }
 
 export interface TokenOwner {
+  /** An invitation (set a first password or join) or a reset (choose a new password). */
+  purpose: 'invitation' | 'reset';
   email: string;
   name: string;
   /** True when the link accepts an invitation into an existing account (no new password). */
@@ -226,6 +271,7 @@ export function describePasswordToken(db: Db, token: string): TokenOwner | undef
   const membership = row.organisationId !== null ? repo.findMembership(db, user.id, row.organisationId) : undefined;
   const org = row.organisationId !== null ? repo.findOrganisation(db, row.organisationId) : undefined;
   return {
+    purpose: row.purpose,
     email: user.email,
     name: membership?.name ?? user.name,
     existingAccount: row.purpose === 'invitation' && user.passwordHash !== null,
@@ -233,8 +279,7 @@ export function describePasswordToken(db: Db, token: string): TokenOwner | undef
   };
 }
 
-const deadLink = () =>
-  unprocessable('This link has expired or was already used. Ask your admin for a new invitation.', { token: 'This link has expired or was already used.' });
+const deadLink = () => unprocessable(DEAD_LINK_MESSAGE, { token: 'This link has expired or was already used.' });
 
 function liveTokenForNewPassword(db: Db, token: string) {
   const row = findLiveToken(db, token);
@@ -245,23 +290,47 @@ function liveTokenForNewPassword(db: Db, token: string) {
   return { row, user };
 }
 
-export async function setPasswordWithToken(db: Db, token: string, password: string): Promise<{ email: string }> {
-  liveTokenForNewPassword(db, token); // refuse a dead link before spending a hash on it
+/** Throws a 422 on `field` when the password is too easy to guess for this person. */
+export function refuseGuessablePassword(password: string, person: { email: string; name?: string }, field = 'password'): void {
+  const problem = passwordStrengthProblem(password, passwordUserInputs(person));
+  if (problem) throw unprocessable(problem, { [field]: problem });
+}
+
+/** The names the account goes by: its own and each organisation's, for the guessability check. */
+export function accountNames(db: Db, user: repo.UserRow): string {
+  return [user.name, ...repo.listMembershipsWithRoles(db, user.id).map((m) => m.name)].join(' ');
+}
+
+/**
+ * Sets the password from a one-time link. An invitation also accepts the membership; a reset ends
+ * every session of the account (whoever knew the old password is signed out) and is recorded in
+ * each of its organisations' trails.
+ */
+export async function setPasswordWithToken(db: Db, token: string, password: string): Promise<{ email: string; purpose: 'invitation' | 'reset' }> {
+  // Refuse a dead link before judging the password or spending a hash on it.
+  const { user: owner } = liveTokenForNewPassword(db, token);
+  refuseGuessablePassword(password, { email: owner.email, name: accountNames(db, owner) });
   const hash = await hashPassword(password);
   return db.transaction((tx) => {
     const { row, user } = liveTokenForNewPassword(tx, token);
     repo.setPasswordHash(tx, user.id, hash);
     repo.markPasswordTokenUsed(tx, row.id);
-    if (row.purpose === 'invitation') repo.acceptPendingMemberships(tx, user.id, row.organisationId);
-    recordAudit(tx, {
-      organisationId: row.organisationId,
-      actorUserId: user.id,
-      action: 'auth.set-password',
-      targetType: 'user',
-      targetId: user.id,
-      details: { purpose: row.purpose },
-    });
-    return { email: user.email };
+    if (row.purpose === 'invitation') {
+      repo.acceptPendingMemberships(tx, user.id, row.organisationId);
+      recordAudit(tx, {
+        organisationId: row.organisationId,
+        actorUserId: user.id,
+        action: 'auth.set-password',
+        targetType: 'user',
+        targetId: user.id,
+        details: { purpose: row.purpose },
+      });
+    } else {
+      repo.retirePasswordTokens(tx, user.id, 'reset', null);
+      const ended = repo.endUserSessions(tx, user.id);
+      recordForAccount(tx, user.id, { actorUserId: user.id, action: 'auth.password-reset', targetType: 'user', targetId: user.id, details: { sessionsEnded: ended } });
+    }
+    return { email: user.email, purpose: row.purpose };
   });
 }
 

@@ -81,6 +81,8 @@ export const MATRIX: Record<string, Row> = {
   'GET /api/auth/password-token/:token': { expect: everyone(404) },
   'POST /api/auth/set-password': { expect: everyone(422) },
   'POST /api/auth/accept-invitation': { expect: everyone(422) },
+  'POST /api/auth/forgot-password': { expect: everyone(422) },
+  'POST /api/auth/change-password': { expect: signedIn(422) },
 
   'GET /api/users': { expect: onlyRole('admin', 200, 200) },
   'POST /api/users': { expect: onlyRole('admin', 422, 422) },

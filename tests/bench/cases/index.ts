@@ -10,5 +10,6 @@ import { evidenceUploadCase, readBackCase } from './evidence';
 import { compareCase, readinessCase } from './readiness';
 import { exhibitPdfCase, packageBuildCase } from './package-build';
 import { healthUnderCalcCase, readsUnderCalcCase } from './calc-under-load';
+import { signInFloodCase } from './sign-in-flood';
 
-export const benchCases: BenchCase[] = [filingEvaluationCase, planeWaveProfileCase, screeningCase, screeningApiCase, screeningPageCase, labRecomputeCase, labImportCase, evidenceUploadCase, readBackCase, readinessCase, compareCase, exhibitPdfCase, packageBuildCase, healthUnderCalcCase, readsUnderCalcCase];
+export const benchCases: BenchCase[] = [filingEvaluationCase, planeWaveProfileCase, screeningCase, screeningApiCase, screeningPageCase, labRecomputeCase, labImportCase, evidenceUploadCase, readBackCase, readinessCase, compareCase, exhibitPdfCase, packageBuildCase, healthUnderCalcCase, readsUnderCalcCase, signInFloodCase];
