@@ -32,7 +32,7 @@ import { evidenceRoutes } from './routes/evidence';
 import { reviewRoutes } from './routes/review';
 import { packageRoutes } from './routes/packages';
 import { createInProcessQueue, type JobQueue } from './jobs/queue';
-import { defaultExhibitSources, type ExhibitSources } from './services/exhibit-sources';
+import { storedEvidence, type ExhibitSources } from './services/exhibit-sources';
 import { registerPackageJobs, type PackageDeps } from './services/package-service';
 import { version as productVersion } from '../package.json';
 
@@ -107,7 +107,7 @@ export interface CreateAppOptions {
   serveWeb?: boolean;
   /** Byte storage; defaults to local disk under config.dataDir. */
   storage?: Storages;
-  /** Where the exhibit takes lab results, readiness, signature and evidence from. */
+  /** Where the package takes the evidence files from (default: the uploads storage). */
   exhibitSources?: Partial<ExhibitSources>;
   queue?: JobQueue;
 }
@@ -119,7 +119,7 @@ export function createApp({ handle, config, mailer, serveWeb = true, storage = c
     db: handle.db,
     queue: queue ?? createInProcessQueue(handle.db),
     storage: storage.packages,
-    sources: { ...defaultExhibitSources, ...exhibitSources },
+    sources: { ...storedEvidence(storage.uploads), ...exhibitSources },
     producer: `Fieldfile ${productVersion}`,
   };
   registerPackageJobs(packages);

@@ -45,7 +45,7 @@ export interface Manifest {
   documentDate: string;
   engine: { version: string; ruleSetVersion: string; ruleSetDocuments: string[] };
   signature: AssembledExhibit['model']['signature'];
-  readiness: { asOf: string; met: number; open: number; items: { label: string; met: boolean }[] } | null;
+  readiness: { basis: 'at-signing' | 'current'; asOf: string; ready: boolean; counts: { blocking: number; warnings: number; passed: number; notApplicable: number }; items: { id: string; status: string }[] } | null;
   files: ManifestFile[];
 }
 
@@ -125,7 +125,7 @@ export async function buildPackage(a: AssembledExhibit, sink: ZipSink, opts: { p
   ];
   const files: ManifestFile[] = [
     ...generated.map((g) => ({ path: g.path, sizeBytes: g.data.length, category: g.category, sha256: sha256(g.data) })),
-    ...a.evidence.map((e) => ({ path: e.path, sizeBytes: e.sizeBytes, category: `evidence/${e.category}`, sha256: e.sha256 })),
+    ...a.evidence.map((e) => ({ path: e.path, sizeBytes: e.sizeBytes, category: `evidence/${e.categoryId}`, sha256: e.sha256 })),
   ];
   const manifest: Manifest = {
     format: PACKAGE_FORMAT,
@@ -136,10 +136,11 @@ export async function buildPackage(a: AssembledExhibit, sink: ZipSink, opts: { p
     engine: { version: m.screening.engineVersion, ruleSetVersion: m.screening.ruleSetVersion, ruleSetDocuments: m.screening.ruleSetDocuments },
     signature: m.signature,
     readiness: m.readiness && {
+      basis: m.readiness.basis,
       asOf: m.readiness.asOf,
-      met: m.readiness.items.filter((i) => i.met).length,
-      open: m.readiness.items.filter((i) => !i.met).length,
-      items: m.readiness.items.map((i) => ({ label: i.label, met: i.met })),
+      ready: m.readiness.ready,
+      counts: m.readiness.counts,
+      items: m.readiness.items.map((i) => ({ id: i.id, status: i.status })),
     },
     files,
   };
