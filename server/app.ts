@@ -33,7 +33,7 @@ import { reviewRoutes } from './routes/review';
 import { packageRoutes } from './routes/packages';
 import { createInProcessQueue, type JobQueue } from './jobs/queue';
 import { storedEvidence, type ExhibitSources } from './services/exhibit-sources';
-import { registerPackageJobs, type PackageDeps } from './services/package-service';
+import { buildOnSigning, registerPackageJobs, type PackageDeps } from './services/package-service';
 import { version as productVersion } from '../package.json';
 
 export const SESSION_COOKIE = 'fieldfile.sid';
@@ -123,6 +123,7 @@ export function createApp({ handle, config, mailer, serveWeb = true, storage = c
     producer: `Fieldfile ${productVersion}`,
   };
   registerPackageJobs(packages);
+  ctx.onVersionSigned = buildOnSigning(packages);
   packages.queue.recoverInterrupted();
   const app = express();
   app.disable('x-powered-by');

@@ -199,10 +199,15 @@ describe('a signed package', () => {
   });
   afterAll(() => t.close());
 
-  it('is built and downloaded by the approver, and an engineer may neither build nor download it', async () => {
+  it('is built by itself when the version is signed, and downloaded by the approver; an engineer may neither build nor download it', async () => {
+    // Signing queued the build: the status shows its job, requested by the signer, before anyone asks.
+    const status = await approver.get(`/api/filings/${id}/versions/1/package/status`);
+    expect(status.body).toMatchObject({ kind: 'signed', job: { kind: 'package.build' } });
+    const job = t.handle.sqlite.prepare('select requested_by_user_id as by from jobs where id = ?').get(status.body.job.id) as { by: number };
+    expect(job.by).toBe((t.handle.sqlite.prepare("select id from users where email = 'approver@fieldfile.test'").get() as { id: number }).id);
+    const done = await t.packages.queue.result(status.body.job.id);
+    expect(done).toMatchObject({ state: 'done', result: { kind: 'signed', fileName: 'wren-w2-asset-tag-v1.zip' } });
     expect((await engineer.post(`/api/filings/${id}/versions/1/package`)).status).toBe(403);
-    const statuses = await buildAndWait(approver, id, 1);
-    expect(statuses.at(-1)).toMatchObject({ state: 'done' });
     const res = await download(approver, id, 1);
     expect(res.status).toBe(200);
     expect(res.headers['content-disposition']).toBe('attachment; filename="wren-w2-asset-tag-v1.zip"');
