@@ -137,7 +137,7 @@ describe('a DRAFT preview of the demo filing', () => {
 
   it('says DRAFT on every page of the PDF and every transmitter is in its text', async () => {
     const zip = await JSZip.loadAsync(zipBytes);
-    const pdf = await zip.file(/\.pdf$/)[0].async('uint8array');
+    const pdf = await zip.file(/^exhibit\/.*\.pdf$/)[0].async('uint8array');
     const pages = await pdfText(pdf);
     expect(pages.length).toBeGreaterThan(10);
     pages.forEach((p, i) => {
@@ -271,7 +271,7 @@ describe('a signed package', () => {
 
   it('has a PDF without DRAFT with the reported SAR of every scan, each highest reported SAR, the evidence hashes and the signer', async () => {
     const zip = await JSZip.loadAsync(zipBytes);
-    const pdf = Buffer.from(await zip.file(/\.pdf$/)[0].async('uint8array'));
+    const pdf = Buffer.from(await zip.file(/^exhibit\/.*\.pdf$/)[0].async('uint8array'));
     const pages = await pdfText(pdf);
     const all = pages.join('\n');
     expect(all).not.toContain('DRAFT');
@@ -303,7 +303,7 @@ describe('a signed package', () => {
 
   it('has a DOCX whose document.xml has real headings and tables and the same figures, hashes and signer', async () => {
     const zip = await JSZip.loadAsync(zipBytes);
-    const docx = await JSZip.loadAsync(await zip.file(/\.docx$/)[0].async('nodebuffer'));
+    const docx = await JSZip.loadAsync(await zip.file(/^exhibit\/.*\.docx$/)[0].async('nodebuffer'));
     const xml = await docx.file('word/document.xml')!.async('string');
     for (const tx of tagTransmitters) expect(xml).toContain(tx);
     for (const h of lab.highest.filter((x) => x.reportedSarWPerKg !== null)) expect(xml).toContain(`${h.reportedSarWPerKg!.toFixed(2)} W/kg`);
