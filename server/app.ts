@@ -32,8 +32,8 @@ import { evidenceRoutes } from './routes/evidence';
 import { reviewRoutes } from './routes/review';
 import { packageRoutes } from './routes/packages';
 import { createInProcessQueue, type JobQueue } from './jobs/queue';
-import { defaultExhibitSources, type ExhibitSources } from './services/exhibit-sources';
-import { registerPackageJobs, type PackageDeps } from './services/package-service';
+import { storedEvidence, type ExhibitSources } from './services/exhibit-sources';
+import { buildOnSigning, registerPackageJobs, type PackageDeps } from './services/package-service';
 import { version as productVersion } from '../package.json';
 
 export const SESSION_COOKIE = 'fieldfile.sid';
@@ -107,7 +107,7 @@ export interface CreateAppOptions {
   serveWeb?: boolean;
   /** Byte storage; defaults to local disk under config.dataDir. */
   storage?: Storages;
-  /** Where the exhibit takes lab results, readiness, signature and evidence from. */
+  /** Where the package takes the evidence files from (default: the uploads storage). */
   exhibitSources?: Partial<ExhibitSources>;
   queue?: JobQueue;
 }
@@ -121,10 +121,11 @@ export function createApp({ handle, config, mailer, serveWeb = true, storage = c
     db: handle.db,
     queue: queue ?? createInProcessQueue(handle.db),
     storage: storage.packages,
-    sources: { ...defaultExhibitSources, ...exhibitSources },
+    sources: { ...storedEvidence(storage.uploads), ...exhibitSources },
     producer: `Fieldfile ${productVersion}`,
   };
   registerPackageJobs(packages);
+  ctx.onVersionSigned = buildOnSigning(packages);
   packages.queue.recoverInterrupted();
   const app = express();
   app.disable('x-powered-by');

@@ -5,6 +5,14 @@ import type { Config } from './env';
 import type { Mailer } from './services/mailer';
 import type { Storages } from './storage';
 
+/** A version that was just signed (the signing transaction has committed). */
+export interface SignedVersion {
+  organisationId: number;
+  filingId: number;
+  versionNumber: number;
+  signerUserId: number;
+}
+
 export interface AppContext {
   db: Db;
   config: Config;
@@ -13,4 +21,6 @@ export interface AppContext {
   storage: Storages;
   /** Worker threads for calculations through the API (off the event loop, with a time limit). */
   calcPool: CalcPool;
+  /** Called once a version is signed: the app queues the build of its package. */
+  onVersionSigned?: (signed: SignedVersion) => void;
 }

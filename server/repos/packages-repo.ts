@@ -1,5 +1,5 @@
 /** Drizzle queries for submission packages and the filing versions they are built from. */
-import { and, desc, eq, max } from 'drizzle-orm';
+import { and, desc, eq, max, sql } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 import { devices, filings, filingVersions, organisations, packages, screeningResults } from '../../db/schema';
 
@@ -9,7 +9,8 @@ export function findVersion(db: Db, organisationId: number, filingId: number, nu
     .select({ filing: filings, device: devices, version: filingVersions, organisationName: organisations.name })
     .from(filingVersions)
     .innerJoin(filings, eq(filings.id, filingVersions.filingId))
-    .innerJoin(devices, eq(devices.id, filings.deviceId))
+    // The version's own device row (an older version keeps the name and model it was filed with).
+    .innerJoin(devices, eq(devices.id, sql`coalesce(${filingVersions.deviceId}, ${filings.deviceId})`))
     .innerJoin(organisations, eq(organisations.id, filings.organisationId))
     .where(and(eq(filings.organisationId, organisationId), eq(filings.id, filingId), eq(filingVersions.number, number)))
     .get();
@@ -55,7 +56,8 @@ export function findPackagesBy(db: Db, column: 'sha256' | 'manifestSha256', sha2
     .from(packages)
     .innerJoin(filingVersions, eq(filingVersions.id, packages.versionId))
     .innerJoin(filings, eq(filings.id, filingVersions.filingId))
-    .innerJoin(devices, eq(devices.id, filings.deviceId))
+    // The version's own device row (an older version keeps the name and model it was filed with).
+    .innerJoin(devices, eq(devices.id, sql`coalesce(${filingVersions.deviceId}, ${filings.deviceId})`))
     .where(eq(packages[column], sha256))
     .orderBy(desc(packages.id))
     .all();

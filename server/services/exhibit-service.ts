@@ -1,8 +1,8 @@
 /**
  * Assembles the exhibit's data (templates/exhibit/model.ts) from one filing version: the device,
  * radios, use positions and markets as stored for that version, the screening with every
- * figure's derivation, a SAR-against-depth estimate, and — through ExhibitSources — the lab
- * results, readiness checklist, signature and evidence that other parts of Fieldfile record.
+ * figure's derivation, a SAR-against-depth estimate, the version's lab results, readiness
+ * checklist and signature (exhibit-sources.ts), and its evidence files through ExhibitSources.
  */
 import { createHash } from 'node:crypto';
 import type { Db } from '../../db/client';
@@ -14,7 +14,8 @@ import type { ExhibitDepthProfile, ExhibitModel, ExhibitScreeningRow } from '../
 import { CAUTIONS, REGIME_SHORT } from '../../templates/exhibit/texts';
 import * as filingsRepo from '../repos/filings-repo';
 import * as packagesRepo from '../repos/packages-repo';
-import type { ExhibitSources, PackageEvidence } from './exhibit-sources';
+import * as reviewRepo from '../repos/review-repo';
+import { labSection, readinessSection, signatureSection, type ExhibitSources, type PackageEvidence } from './exhibit-sources';
 import { depthProfileOf } from './screening-service';
 
 const THRESHOLD_UNITS: [keyof ScreeningRow, string][] = [
@@ -34,11 +35,11 @@ function threshold(row: ScreeningRow): { threshold: number | null; thresholdUnit
 
 const categorySlug = (s: string) => s.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'other';
 
-/** Evidence paths inside the zip: evidence/<category>/<file>, unique, in a fixed order. */
+/** Evidence paths inside the zip: evidence/<category id>/<file>, unique, in a fixed order. */
 export function evidencePaths(items: PackageEvidence[]): string[] {
   const used = new Set<string>();
   return items.map((e) => {
-    const base = `evidence/${categorySlug(e.category)}/${e.fileName.replace(/[\\/]/g, '_')}`;
+    const base = `evidence/${categorySlug(e.categoryId)}/${e.fileName.replace(/[\\/]/g, '_')}`;
     let candidate = base;
     for (let i = 2; used.has(candidate); i++) candidate = base.replace(/(\.[^./]*)?$/, (ext) => `-${i}${ext}`);
     used.add(candidate);
@@ -93,8 +94,8 @@ function depthProfile(input: ScreeningInput, rows: ScreeningRow[], ref: string):
 }
 
 /**
- * The exhibit model of one version. `sources` supplies what other modules record (lab results,
- * readiness, signature, evidence); without them those sections say that nothing is recorded.
+ * The exhibit model of one version, read from that version's own rows; `sources` supplies the
+ * evidence files (with their bytes).
  */
 export function assembleExhibit(db: Db, organisationId: number, filingId: number, versionNumber: number, sources: ExhibitSources): AssembledExhibit | undefined {
   const version = packagesRepo.findVersion(db, organisationId, filingId, versionNumber);
@@ -137,9 +138,10 @@ export function assembleExhibit(db: Db, organisationId: number, filingId: number
   const depth = depthProfile(input, screening.rows, 'D1');
   if (depth) appendix.push({ ref: 'D1', title: `SAR against depth, ${depth.profile.transmitterId} at ${depth.profile.usePositionId} (estimate)`, derivation: depth.derivation });
 
-  const lab = sources.lab(db, versionId);
-  for (const [i, r] of (lab?.sarResults ?? []).entries()) r.appendixRef ??= `L${i + 1}`;
-  const signature = version.version.state === 'signed' ? sources.signature(db, versionId) : null;
+  const lab = labSection(db, versionId, { markets: markets.markets, transmitters: radios.transmitters, usePositions: positions.usePositions }, screening.rows);
+  if (lab) appendix.push(...lab.appendix);
+  const signed = version.version.state === 'signed' ? reviewRepo.findSignature(db, versionId) : undefined;
+  const signature = signed ? signatureSection(signed) : null;
   const evidenceItems = sources.evidence(db, versionId);
   const paths = evidencePaths(evidenceItems);
   const evidence = evidenceItems.map((e, i) => ({ ...e, path: paths[i] }));
@@ -168,10 +170,10 @@ export function assembleExhibit(db: Db, organisationId: number, filingId: number
     simultaneousGroups: filingsRepo.readSimultaneous(db, versionId),
     screening: { engineVersion: ENGINE_VERSION, ruleSetVersion: RULE_SET_VERSION, ruleSetDocuments: [...RULE_SET_DOCUMENTS], rows, gaps: screening.gaps },
     depthProfile: depth?.profile ?? null,
-    lab,
-    readiness: sources.readiness(db, versionId),
+    lab: lab?.lab ?? null,
+    readiness: readinessSection(db, version.version, version.filing.deviceId, signed, documentDate),
     signature,
-    evidence: evidence.map((e) => ({ category: e.category, path: e.path, fileName: e.fileName, sizeBytes: e.sizeBytes, sha256: e.sha256 })),
+    evidence: evidence.map((e) => ({ categoryId: e.categoryId, category: e.category, title: e.title, path: e.path, fileName: e.fileName, sizeBytes: e.sizeBytes, sha256: e.sha256, uploadedAt: e.uploadedAt })),
     appendix,
     cautions: [...CAUTIONS, ...SCREENING_CAUTIONS],
   };

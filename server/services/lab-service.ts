@@ -100,15 +100,21 @@ export function replaceLabSet(db: Db, actor: FilingActor, filingId: number, set:
   return readLabSet(db, actor, filingId, set);
 }
 
-/** The engine input for a filing's lab results: device data, screening rows and lab data. */
-export function labInputFor(db: Db, detail: ReturnType<typeof getFiling>, lab: LabData = repo.readLabData(db, detail.version.id)): LabResultsInput {
-  const screening = screenParsed(screeningInputFor(detail));
+/** The version data the lab results are computed from (the wizard's steps, as stored). */
+export interface LabVersionData {
+  markets: { regime: string; tier: string }[];
+  transmitters: unknown[];
+  usePositions: unknown[];
+}
+
+/** The engine input for one version: its device data, screening rows and lab data. */
+export function labInputOf(db: Db, versionId: number, data: LabVersionData, screeningRows: Parameters<typeof labScreeningRows>[0], lab: LabData = repo.readLabData(db, versionId)): LabResultsInput {
   return labResultsInput.parse({
-    markets: detail.data.markets.markets.map((m) => ({ regime: m.regime, tier: m.tier })),
-    transmitters: detail.data.radios.transmitters,
-    usePositions: detail.data['use-positions'].usePositions,
-    simultaneous: filingsRepo.readSimultaneous(db, detail.version.id),
-    screening: labScreeningRows(screening.rows),
+    markets: data.markets.map((m) => ({ regime: m.regime, tier: m.tier })),
+    transmitters: data.transmitters,
+    usePositions: data.usePositions,
+    simultaneous: filingsRepo.readSimultaneous(db, versionId),
+    screening: labScreeningRows(screeningRows),
     measurements: lab.measurements,
     liquidChecks: lab.liquidChecks,
     systemChecks: lab.systemChecks,
@@ -117,20 +123,33 @@ export function labInputFor(db: Db, detail: ReturnType<typeof getFiling>, lab: L
   });
 }
 
+/** The engine input for a filing's lab results: device data, screening rows and lab data. */
+export function labInputFor(db: Db, detail: ReturnType<typeof getFiling>, lab: LabData = repo.readLabData(db, detail.version.id)): LabResultsInput {
+  const screening = screenParsed(screeningInputFor(detail));
+  const { markets } = detail.data.markets;
+  return labInputOf(db, detail.version.id, { markets, transmitters: detail.data.radios.transmitters, usePositions: detail.data['use-positions'].usePositions }, screening.rows, lab);
+}
+
 /**
- * The lab results of a filing's current data as a JSON body. Each distinct input is computed once
- * and stored with the engine and rule-set versions; an unchanged filing is answered from the store.
+ * The stored lab results of a version for this input (JSON text of the output without its top
+ * derivation). Each distinct input is computed once and stored with the engine and rule-set
+ * versions; lab results are derived, so a signed version may gain a stored result too.
  */
-export function labResultsForFiling(db: Db, actor: FilingActor, filingId: number): string {
-  const detail = getFiling(db, actor, filingId);
-  const input = labInputFor(db, detail);
+export function storedLabResults(db: Db, versionId: number, input: LabResultsInput): { output: string; computedAt: string } {
   const inputJson = JSON.stringify(input);
   const inputSha256 = createHash('sha256').update(inputJson).digest('hex');
-  let stored = repo.findLabResult(db, detail.version.id, inputSha256, ENGINE_VERSION, RULE_SET_VERSION);
+  let stored = repo.findLabResult(db, versionId, inputSha256, ENGINE_VERSION, RULE_SET_VERSION);
   if (!stored) {
     const { derivation: _d, ...output } = computeLabResults(input);
-    stored = repo.insertLabResult(db, { versionId: detail.version.id, engineVersion: ENGINE_VERSION, ruleSetVersion: RULE_SET_VERSION, inputSha256, input: inputJson, output: JSON.stringify(output) });
+    stored = repo.insertLabResult(db, { versionId, engineVersion: ENGINE_VERSION, ruleSetVersion: RULE_SET_VERSION, inputSha256, input: inputJson, output: JSON.stringify(output) });
   }
+  return stored;
+}
+
+/** The lab results of a filing's current data as a JSON body; an unchanged filing is answered from the store. */
+export function labResultsForFiling(db: Db, actor: FilingActor, filingId: number): string {
+  const detail = getFiling(db, actor, filingId);
+  const stored = storedLabResults(db, detail.version.id, labInputFor(db, detail));
   const meta = {
     filingId,
     version: detail.version.number,

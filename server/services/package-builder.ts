@@ -1,18 +1,17 @@
 /**
- * Builds one submission package: the exhibit (PDF, DOCX), the results (CSV), the evidence in
- * folders by category and manifest.json, streamed by archiver into a temporary file that the
- * store moves into place only when the zip is complete. Deterministic: a fixed file order, every
+ * Builds one submission package: the evidence in folders by category, the exhibit (PDF, DOCX),
+ * the results (CSV) and manifest.json, streamed by archiver into a temporary file that the store
+ * moves into place only when the zip is complete. Deterministic: a fixed file order, every
  * entry dated with the document date, fixed permissions, PDF/DOCX without any build-time value;
  * already-compressed types are stored and text is deflated. Evidence hashes come from upload
  * time, so the build reads each evidence file once.
  */
 import { createHash } from 'node:crypto';
 import fs from 'node:fs';
-import { PassThrough, type Readable } from 'node:stream';
+import { Readable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
 import { ZipArchive } from 'archiver';
-import { renderExhibitPdf } from '../../templates/exhibit/pdf';
-import { renderExhibitDocx } from '../../templates/exhibit/docx';
+import { renderInChild, type ExhibitDocument } from '../jobs/exhibit-render';
 import { labCsv, screeningCsv } from '../../templates/exhibit/csv';
 import type { AssembledExhibit } from './exhibit-service';
 
@@ -45,7 +44,7 @@ export interface Manifest {
   documentDate: string;
   engine: { version: string; ruleSetVersion: string; ruleSetDocuments: string[] };
   signature: AssembledExhibit['model']['signature'];
-  readiness: { asOf: string; met: number; open: number; items: { label: string; met: boolean }[] } | null;
+  readiness: { basis: 'at-signing' | 'current'; asOf: string; ready: boolean; counts: { blocking: number; warnings: number; passed: number; notApplicable: number }; items: { id: string; status: string }[] } | null;
   files: ManifestFile[];
 }
 
@@ -55,28 +54,31 @@ export interface BuildResult {
   sha256: string;
   manifestSha256: string;
   manifest: Manifest;
+  /** The larger peak resident memory of the two render processes (0 when rendered in process). */
+  renderMaxRssMb: number;
 }
 
 export type Progress = (stage: string, percent: number) => void;
 
 /**
- * The evidence file's bytes, failing the build if their count differs from the size recorded at
- * upload (the manifest states that size and the upload-time hash; the build does not re-hash).
+ * The evidence file's bytes, opened only when the zip reaches the file (so one file is open at a
+ * time and memory stays flat however many there are), failing the build if their count differs
+ * from the size recorded at upload (the manifest states that size and the upload-time hash; the
+ * build does not re-hash).
  */
-function countedStream(e: AssembledExhibit['evidence'][number]): Readable {
-  let seen = 0;
-  const counter = new PassThrough({
-    transform(chunk: Buffer, _enc, done) {
-      seen += chunk.length;
-      done(null, chunk);
-    },
-    flush(done) {
-      done(seen === e.sizeBytes ? null : new Error(`Evidence file ${e.path} has ${seen} bytes; ${e.sizeBytes} were recorded at upload.`));
-    },
-  });
-  const source = e.open();
-  source.on('error', (err) => counter.destroy(err));
-  return source.pipe(counter);
+function evidenceStream(e: AssembledExhibit['evidence'][number], onBytes: (n: number) => void): Readable {
+  return Readable.from(
+    (async function* () {
+      let seen = 0;
+      for await (const chunk of e.open()) {
+        seen += (chunk as Buffer).length;
+        onBytes((chunk as Buffer).length);
+        yield chunk as Buffer;
+      }
+      if (seen !== e.sizeBytes) throw new Error(`Evidence file ${e.path} has ${seen} bytes; ${e.sizeBytes} were recorded at upload.`);
+    })(),
+    { objectMode: false },
+  );
 }
 
 const slug = (s: string) => s.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'device';
@@ -104,28 +106,73 @@ export function fileSink(file: string): ZipSink {
   };
 }
 
+/** Renders one exhibit document; the server renders in a child process (server/jobs/exhibit-render.ts). */
+export type ExhibitRenderer = (document: ExhibitDocument, model: AssembledExhibit['model'], producer: string, signal: AbortSignal) => Promise<{ bytes: Buffer; maxRssMb?: number }>;
+
+export interface BuildOptions {
+  producer: string;
+  onProgress?: Progress;
+  render?: ExhibitRenderer;
+}
+
 /**
- * Streams the package zip into `sink` and returns its hashes. Nothing is visible until the sink
- * has the complete zip; when this throws, the sink keeps nothing.
+ * Streams the package zip into `sink` and returns its hashes. The evidence goes into the zip
+ * first, while the exhibit's PDF and DOCX are rendered (in child processes); the exhibit, the
+ * CSVs and manifest.json (which lists every file's SHA-256) follow. Nothing is visible until the
+ * sink has the complete zip; when this throws, the sink keeps nothing.
  */
-export async function buildPackage(a: AssembledExhibit, sink: ZipSink, opts: { producer: string; onProgress?: Progress }): Promise<BuildResult> {
-  const progress = opts.onProgress ?? (() => {});
+export async function buildPackage(a: AssembledExhibit, sink: ZipSink, opts: BuildOptions): Promise<BuildResult> {
+  const render = opts.render ?? renderInChild;
+  let last = 0;
+  const progress: Progress = (stage, percent) => {
+    last = Math.max(last, percent);
+    opts.onProgress?.(stage, last);
+  };
   const m = a.model;
   const stem = `${slug(m.device.name)}-v${m.versionNumber}`;
-  progress('exhibit-pdf', 5);
-  const pdf = Buffer.from(await renderExhibitPdf(m, { producer: opts.producer }));
-  progress('exhibit-docx', 25);
-  const docx = await renderExhibitDocx(m, { producer: opts.producer });
-  progress('results', 35);
+  const date = new Date(m.documentDate);
+  const entry = (name: string) => ({ name, date, mode: FILE_MODE, store: storeUncompressed(name) });
+
+  const zip = new ZipArchive({ zlib: { level: 6 }, forceLocalTime: false });
+  zip.on('warning', (e) => zip.destroy(e));
+  // With evidence the stage is "evidence" until its last byte, by bytes read (the exhibit is
+  // rendered meanwhile); without, the stages are the two documents.
+  const evidenceBytes = a.evidence.reduce((s, e) => s + e.sizeBytes, 0);
+  let read = 0;
+  const onBytes = (n: number) => {
+    const before = Math.floor((80 * read) / evidenceBytes);
+    read += n;
+    const after = Math.floor((80 * read) / evidenceBytes);
+    if (after !== before) progress('evidence', Math.min(85, 5 + after));
+  };
+  progress(evidenceBytes ? 'evidence' : 'exhibit-pdf', 2);
+  const written = sink(zip);
+  // A sink that fails (a short evidence file, a full disk) stops the renderers too.
+  const abort = new AbortController();
+  written.catch((err: unknown) => abort.abort(err));
+  for (const e of a.evidence) zip.append(evidenceStream(e, onBytes), entry(e.path));
+
+  let pdf: { bytes: Buffer; maxRssMb?: number };
+  let docx: { bytes: Buffer; maxRssMb?: number };
+  try {
+    pdf = await render('pdf', m, opts.producer, abort.signal);
+    if (!evidenceBytes) progress('exhibit-docx', 45);
+    docx = await render('docx', m, opts.producer, abort.signal);
+  } catch (err) {
+    zip.destroy(err as Error);
+    await written.catch(() => undefined);
+    throw err;
+  }
+  if (!evidenceBytes) progress('results', 88);
   const generated: { path: string; category: string; data: Buffer }[] = [
-    { path: `exhibit/${stem}-rf-exposure-exhibit.pdf`, category: 'exhibit', data: pdf },
-    { path: `exhibit/${stem}-rf-exposure-exhibit.docx`, category: 'exhibit', data: docx },
+    { path: `exhibit/${stem}-rf-exposure-exhibit.pdf`, category: 'exhibit', data: pdf.bytes },
+    { path: `exhibit/${stem}-rf-exposure-exhibit.docx`, category: 'exhibit', data: docx.bytes },
     { path: 'results/screening.csv', category: 'results', data: Buffer.from(screeningCsv(m)) },
     { path: 'results/lab-sar.csv', category: 'results', data: Buffer.from(labCsv(m)) },
   ];
   const files: ManifestFile[] = [
     ...generated.map((g) => ({ path: g.path, sizeBytes: g.data.length, category: g.category, sha256: sha256(g.data) })),
-    ...a.evidence.map((e) => ({ path: e.path, sizeBytes: e.sizeBytes, category: `evidence/${e.category}`, sha256: e.sha256 })),
+    ...a.evidence.map((e) => ({ path: e.path, sizeBytes: e.sizeBytes, category: `evidence/${e.categoryId}`, sha256: e.sha256 })),
   ];
   const manifest: Manifest = {
     format: PACKAGE_FORMAT,
@@ -136,30 +183,27 @@ export async function buildPackage(a: AssembledExhibit, sink: ZipSink, opts: { p
     engine: { version: m.screening.engineVersion, ruleSetVersion: m.screening.ruleSetVersion, ruleSetDocuments: m.screening.ruleSetDocuments },
     signature: m.signature,
     readiness: m.readiness && {
+      basis: m.readiness.basis,
       asOf: m.readiness.asOf,
-      met: m.readiness.items.filter((i) => i.met).length,
-      open: m.readiness.items.filter((i) => !i.met).length,
-      items: m.readiness.items.map((i) => ({ label: i.label, met: i.met })),
+      ready: m.readiness.ready,
+      counts: m.readiness.counts,
+      items: m.readiness.items.map((i) => ({ id: i.id, status: i.status })),
     },
     files,
   };
   const manifestJson = Buffer.from(`${JSON.stringify(manifest, null, 2)}\n`);
 
-  const date = new Date(m.documentDate);
-  const zip = new ZipArchive({ zlib: { level: 6 }, forceLocalTime: false });
-  const evidenceBytes = a.evidence.reduce((s, e) => s + e.sizeBytes, 0);
-  zip.on('progress', (p) => {
-    if (evidenceBytes) progress('evidence', Math.min(98, 40 + Math.floor((58 * Math.max(0, p.fs.processedBytes)) / evidenceBytes)));
-  });
-  zip.on('warning', (e) => zip.destroy(e));
-  const written = sink(zip);
-  const entry = (name: string) => ({ name, date, mode: FILE_MODE, store: storeUncompressed(name) });
-  zip.append(manifestJson, entry('manifest.json'));
   for (const g of generated) zip.append(g.data, entry(g.path));
-  progress('evidence', 40);
-  for (const e of a.evidence) zip.append(countedStream(e), entry(e.path));
+  zip.append(manifestJson, entry('manifest.json'));
   void zip.finalize().catch((e) => zip.destroy(e));
   const { sha256: zipSha256, sizeBytes } = await written;
   progress('finishing', 99);
-  return { fileName: packageFileName(a), sizeBytes, sha256: zipSha256, manifestSha256: sha256(manifestJson), manifest };
+  return {
+    fileName: packageFileName(a),
+    sizeBytes,
+    sha256: zipSha256,
+    manifestSha256: sha256(manifestJson),
+    manifest,
+    renderMaxRssMb: Math.max(pdf.maxRssMb ?? 0, docx.maxRssMb ?? 0),
+  };
 }

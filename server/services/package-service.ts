@@ -19,6 +19,7 @@ import { assembleExhibit, type AssembledExhibit } from './exhibit-service';
 import type { ExhibitSources } from './exhibit-sources';
 import { buildPackage, PACKAGE_FORMAT, type Manifest } from './package-builder';
 import type { ByteStorage } from '../storage';
+import type { SignedVersion } from '../context';
 
 export const PACKAGE_JOB = 'package.build';
 
@@ -100,14 +101,26 @@ export function startBuild(deps: PackageDeps, actor: PackageActor, filingId: num
 }
 
 /**
- * Queues the build of a version's package; signing calls this once the version is signed. A
- * build already queued or running for the version is returned instead of starting another.
+ * Queues the build of a version's package. A build already queued or running for the version is
+ * returned instead of starting another.
  */
 export function enqueueBuild(deps: PackageDeps, organisationId: number, a: AssembledExhibit, requestedByUserId: number | null): JobStatus {
-  const versionId = a.version.version.id;
-  const last = jobsRepo.latestJobFor(deps.db, PACKAGE_JOB, organisationId, 'versionId', versionId);
+  return enqueueVersionBuild(deps, organisationId, { versionId: a.version.version.id, filingId: a.model.filingId, versionNumber: a.model.versionNumber }, requestedByUserId);
+}
+
+function enqueueVersionBuild(deps: PackageDeps, organisationId: number, v: { versionId: number; filingId: number; versionNumber: number }, requestedByUserId: number | null): JobStatus {
+  const last = jobsRepo.latestJobFor(deps.db, PACKAGE_JOB, organisationId, 'versionId', v.versionId);
   if (last && (last.state === 'queued' || last.state === 'running')) return deps.queue.get(last.id)!;
-  return deps.queue.enqueue(PACKAGE_JOB, organisationId, { versionId, filingId: a.model.filingId, versionNumber: a.model.versionNumber }, requestedByUserId);
+  return deps.queue.enqueue(PACKAGE_JOB, organisationId, v, requestedByUserId);
+}
+
+/** The signing hook (AppContext.onVersionSigned): the signed package is built as soon as the version is signed. */
+export function buildOnSigning(deps: PackageDeps): (signed: SignedVersion) => void {
+  return (s) => {
+    const v = repo.findVersion(deps.db, s.organisationId, s.filingId, s.versionNumber);
+    if (!v) throw new Error(`No version ${s.versionNumber} of filing ${s.filingId} to build.`);
+    enqueueVersionBuild(deps, s.organisationId, { versionId: v.version.id, filingId: s.filingId, versionNumber: s.versionNumber }, s.signerUserId);
+  };
 }
 
 /** The queue's handler: assemble, build into a temporary file, move into place, record. */

@@ -37,7 +37,7 @@ import { storeScreeningOf } from './screening-service';
 import { CONTENT_FORMAT, versionContentSha256 } from './version-content';
 
 /** What review actions need from the app (the seed passes its own, with no mail). */
-export type ReviewContext = Pick<AppContext, 'db' | 'config' | 'mailer'>;
+export type ReviewContext = Pick<AppContext, 'db' | 'config' | 'mailer' | 'onVersionSigned'>;
 
 export interface ReviewActor extends FilingActor {
   name: string;
@@ -314,6 +314,15 @@ export async function signVersion(ctx: ReviewContext, actor: ReviewActor, filing
     audit(tx, actor, filingId, 'version.signed', { version: version.number, contentSha256, warnings: checklist.counts.warnings });
     return s;
   });
+
+  // The signed package is built from here on; signing stands even if queuing the build fails
+  // (the approver or specialist can start it from the filing).
+  try {
+    ctx.onVersionSigned?.({ organisationId: actor.organisationId, filingId, versionNumber: version.number, signerUserId: actor.id });
+  } catch (err) {
+    console.error('[fieldfile] queuing the signed package failed', err);
+    audit(db, actor, filingId, 'package.build-not-queued', { version: version.number });
+  }
 
   const link = reviewLink(ctx, filingId);
   await sendAll(

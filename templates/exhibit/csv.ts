@@ -59,32 +59,48 @@ export function screeningCsv(m: ExhibitModel): string {
 }
 
 export const LAB_CSV_HEADER = [
+  'measurement_id',
   'transmitter_id',
   'use_position_id',
   'exposure_condition',
+  'test_position',
+  'channel',
   'frequency_Hz',
-  'averaging_mass_kg',
-  'measured_sar_W_per_kg',
+  'test_separation_m',
+  'test_date',
+  'measured_power_dBm',
+  'tune_up_power_dBm',
   'scaling_factor',
-  'reported_sar_W_per_kg',
-  'limit_W_per_kg',
+  'measured_sar_1g_W_per_kg',
+  'measured_sar_10g_W_per_kg',
+  'reported_sar_1g_W_per_kg',
+  'reported_sar_10g_W_per_kg',
   'power_drift_dB',
+  'appendix_ref',
 ];
 
 export function labCsv(m: ExhibitModel): string {
   return csv(
     LAB_CSV_HEADER,
     (m.lab?.sarResults ?? []).map((r) => [
+      r.measurementId,
       r.transmitterId,
       r.usePositionId,
       r.exposureCondition,
+      r.testPosition,
+      r.channel,
       r.frequencyHz,
-      r.averagingMassKg,
-      r.measuredSarWPerKg,
+      r.testSeparationM,
+      r.testDate,
+      r.measuredPowerDbm,
+      r.tuneUpPowerDbm,
       r.scalingFactor,
-      r.reportedSarWPerKg,
-      r.limitWPerKg,
+      r.measuredSar1gWPerKg,
+      r.measuredSar10gWPerKg,
+      r.reportedSar1gWPerKg,
+      r.reportedSar10gWPerKg,
       r.powerDriftDb,
+      r.appendixRef,
     ]),
   );
 }

@@ -36,7 +36,8 @@ function cellParagraph(text: string, opts: { bold?: boolean; align?: 'left' | 'r
   return new Paragraph({
     alignment: opts.align === 'right' ? AlignmentType.RIGHT : AlignmentType.LEFT,
     spacing: { before: 20, after: 20 },
-    children: [new TextRun({ text, bold: opts.bold, size: 15, font: opts.mono ? DOCX_MONO_FAMILY : undefined })],
+    // A line break in the cell's text is a Word line break, not a run of its own paragraph.
+    children: text.split('\n').map((line, i) => new TextRun({ text: line, break: i ? 1 : undefined, bold: opts.bold, size: 15, font: opts.mono ? DOCX_MONO_FAMILY : undefined })),
   });
 }
 
@@ -91,7 +92,7 @@ function render(block: Block): (Paragraph | Table | TableOfContents)[] {
         }),
       ];
     case 'table':
-      return [table(block.columns, block.rows), spacer()];
+      return [table(block.columns, block.rows, block.header !== false), spacer()];
     case 'keyValue':
       return [keyValue(block.rows), spacer()];
     case 'marginChart':

@@ -5,7 +5,7 @@
  */
 import type { Derivation, Quantity } from '../../calc/types';
 import type { ExhibitAppendixEntry, ExhibitDepthProfile, ExhibitModel } from './model';
-import { CAUTIONS, INTRO, REGIME_SHORT, RESULT_MARKS, RESULT_WORDS, SECTION, formatDateTime } from './texts';
+import { CAUTIONS, CHECK_KIND_LABELS, CHECK_STATUS_WORDS, INTRO, READINESS_STATUS_WORDS, REGIME_SHORT, RESULT_MARKS, RESULT_WORDS, SECTION, formatDateTime } from './texts';
 
 export interface Column {
   title: string;
@@ -23,7 +23,7 @@ export interface MarginBar {
 export type Block =
   | { kind: 'heading'; level: 1 | 2; text: string }
   | { kind: 'paragraph'; text: string; style?: 'normal' | 'small' | 'caution' }
-  | { kind: 'table'; columns: Column[]; rows: string[][] }
+  | { kind: 'table'; columns: Column[]; rows: string[][]; header?: boolean }
   | { kind: 'keyValue'; rows: [string, string][] }
   | { kind: 'marginChart'; markets: { market: string; bars: MarginBar[] }[] }
   | { kind: 'depthChart'; profile: ExhibitDepthProfile }
@@ -61,11 +61,20 @@ export function quantityText(qty: Quantity): string {
   return qty.unit && qty.unit !== '1' && qty.unit !== 'text' ? `${value} ${qty.unit}` : value;
 }
 
+/**
+ * A derivation as labelled rows: the formula, then the inputs, intermediate values and results
+ * each as one list of "name = value" (so an entry takes a few lines, not one line per figure),
+ * the source and each note.
+ */
 export function derivationRows(d: Derivation): [string, string][] {
+  const list = (q: Record<string, Quantity>) =>
+    Object.entries(q)
+      .map(([k, v]) => `${k} = ${quantityText(v)}`)
+      .join(';  ');
   const rows: [string, string][] = [['Formula', d.formula]];
-  for (const [k, v] of Object.entries(d.inputs)) rows.push([k, quantityText(v)]);
-  for (const [k, v] of Object.entries(d.intermediate)) rows.push([k, quantityText(v)]);
-  for (const [k, v] of Object.entries(d.result)) rows.push([`→ ${k}`, quantityText(v)]);
+  if (Object.keys(d.inputs).length) rows.push(['Inputs', list(d.inputs)]);
+  if (Object.keys(d.intermediate).length) rows.push(['Intermediate values', list(d.intermediate)]);
+  rows.push(['Result', list(d.result)]);
   rows.push(['Source', d.source]);
   for (const note of d.notes) rows.push(['Note', note]);
   return rows;
@@ -105,7 +114,7 @@ function summaryBlocks(m: ExhibitModel): Block[] {
   ];
   if (m.lab?.highestReported.length) {
     blocks.push(
-      { kind: 'heading', level: 2, text: 'Highest reported SAR per exposure condition' },
+      { kind: 'heading', level: 2, text: 'Highest reported SAR per market and exposure condition' },
       highestSarTable(m),
     );
   }
@@ -115,17 +124,36 @@ function summaryBlocks(m: ExhibitModel): Block[] {
   return blocks;
 }
 
+const sar = (x: number | null) => (x === null ? '—' : `${fixed(x, 2)} W/kg`);
+const mass = (kg: number) => `${num(kg * 1000)} g`;
+
 function highestSarTable(m: ExhibitModel): Block {
   return {
     kind: 'table',
     columns: [
-      { title: 'Exposure condition', width: 0.24 },
-      { title: 'Transmitter', width: 0.2 },
-      { title: 'Use position', width: 0.2 },
-      { title: 'Highest reported SAR', width: 0.18, align: 'right' },
-      { title: 'Limit', width: 0.18, align: 'right' },
+      { title: 'Market', width: 0.09 },
+      { title: 'Exposure condition', width: 0.2 },
+      { title: 'Mass', width: 0.05, align: 'right' },
+      { title: 'Highest reported SAR', width: 0.12, align: 'right' },
+      { title: 'Limit', width: 0.08, align: 'right' },
+      { title: 'Margin', width: 0.07, align: 'right' },
+      { title: 'Transmitter', width: 0.1 },
+      { title: 'Use position', width: 0.12 },
+      { title: 'Scan', width: 0.06 },
+      { title: 'Outcome', width: 0.11 },
     ],
-    rows: m.lab!.highestReported.map((h) => [h.exposureCondition, h.transmitterId, h.usePositionId, `${fixed(h.reportedSarWPerKg, 2)} W/kg`, `${num(h.limitWPerKg)} W/kg`]),
+    rows: m.lab!.highestReported.map((h) => [
+      h.market,
+      h.exposureCondition,
+      mass(h.averagingMassKg),
+      h.reportedSarWPerKg === null ? 'not measured' : sar(h.reportedSarWPerKg),
+      `${num(h.limitWPerKg)} W/kg`,
+      h.marginDb === null ? '—' : `${fixed(h.marginDb, 1)} dB`,
+      h.transmitterId ?? '—',
+      h.usePositionId ?? '—',
+      h.measurementId ?? '—',
+      h.withinLimit === null ? '—' : h.withinLimit ? '✓ Within' : '× Over',
+    ]),
   };
 }
 
@@ -263,36 +291,59 @@ function screeningBlocks(m: ExhibitModel): Block[] {
 function labBlocks(m: ExhibitModel): Block[] {
   const blocks: Block[] = [{ kind: 'heading', level: 1, text: SECTION.lab }];
   if (!m.lab || !m.lab.sarResults.length) return [...blocks, { kind: 'paragraph', text: INTRO.labMissing }];
-  blocks.push({
-    kind: 'table',
-    columns: [
-      { title: 'Transmitter', width: 0.12 },
-      { title: 'Position', width: 0.12 },
-      { title: 'Condition', width: 0.12 },
-      { title: 'Frequency', width: 0.11, align: 'right' },
-      { title: 'Mass', width: 0.06, align: 'right' },
-      { title: 'Measured', width: 0.1, align: 'right' },
-      { title: 'Scaling', width: 0.08, align: 'right' },
-      { title: 'Reported SAR', width: 0.11, align: 'right' },
-      { title: 'Limit', width: 0.09, align: 'right' },
-      { title: 'Drift', width: 0.09, align: 'right' },
-    ],
-    rows: m.lab.sarResults.map((r) => [
-      r.transmitterId,
-      r.usePositionId,
-      r.exposureCondition,
-      hz(r.frequencyHz),
-      `${num(r.averagingMassKg * 1000)} g`,
-      `${fixed(r.measuredSarWPerKg, 3)} W/kg`,
-      num(r.scalingFactor, 4),
-      `${fixed(r.reportedSarWPerKg, 2)} W/kg`,
-      `${num(r.limitWPerKg)} W/kg`,
-      r.powerDriftDb === null ? '—' : `${fixed(r.powerDriftDb, 2)} dB`,
-    ]),
-  });
-  if (m.lab.highestReported.length) blocks.push({ kind: 'heading', level: 2, text: 'Highest reported SAR per exposure condition' }, highestSarTable(m));
+  const lab = m.lab;
+  blocks.push(
+    { kind: 'paragraph', text: INTRO.lab },
+    {
+      kind: 'table',
+      columns: [
+        { title: 'Scan', width: 0.055 },
+        { title: 'Transmitter', width: 0.095 },
+        { title: 'Use position (as tested)', width: 0.17 },
+        { title: 'Frequency', width: 0.085, align: 'right' },
+        { title: 'Sep.', width: 0.055, align: 'right' },
+        { title: 'Power / tune-up (dBm)', width: 0.11, align: 'right' },
+        { title: 'Scaling', width: 0.065, align: 'right' },
+        { title: 'Measured 1 g / 10 g', width: 0.12, align: 'right' },
+        { title: 'Reported 1 g / 10 g', width: 0.12, align: 'right' },
+        { title: 'Drift (dB)', width: 0.065, align: 'right' },
+        { title: 'Ref.', width: 0.06, align: 'right' },
+      ],
+      rows: lab.sarResults.map((r) => [
+        r.measurementId,
+        r.transmitterId,
+        `${r.usePositionId}${r.testPosition ? ` (${r.testPosition})` : ''}`,
+        hz(r.frequencyHz),
+        mm(r.testSeparationM),
+        `${num(r.measuredPowerDbm)} / ${num(r.tuneUpPowerDbm)}`,
+        num(r.scalingFactor, 4),
+        `${fixed(r.measuredSar1gWPerKg, 3)} / ${fixed(r.measuredSar10gWPerKg, 3)}`,
+        `${fixed(r.reportedSar1gWPerKg, 2)} / ${fixed(r.reportedSar10gWPerKg, 2)}`,
+        r.powerDriftDb === null ? '—' : fixed(r.powerDriftDb, 2),
+        r.appendixRef,
+      ]),
+    },
+    { kind: 'paragraph', style: 'small', text: INTRO.labUnits },
+  );
+  if (lab.highestReported.length) blocks.push({ kind: 'heading', level: 2, text: 'Highest reported SAR per market and exposure condition' }, highestSarTable(m));
+  if (lab.coverage.some((c) => c.status !== 'not-required')) {
+    blocks.push({ kind: 'heading', level: 2, text: 'Coverage against the screening' }, { kind: 'paragraph', text: INTRO.coverage }, {
+      kind: 'table',
+      columns: [
+        { title: 'Transmitter', width: 0.15 },
+        { title: 'Use position', width: 0.17 },
+        { title: 'Condition', width: 0.17 },
+        { title: 'SAR evaluation needed in', width: 0.2 },
+        { title: 'Scans', width: 0.16 },
+        { title: 'State', width: 0.15 },
+      ],
+      rows: lab.coverage.map((c) => [c.transmitterId, c.usePositionId, c.exposureCondition, c.markets.join(', ') || '—', c.measurementIds.join(', ') || '—', COVERAGE_WORDS[c.status]]),
+    });
+  }
   return blocks;
 }
+
+const COVERAGE_WORDS = { measured: '✓ Measured', missing: '× Not measured', 'not-required': '– Not required' } as const;
 
 function coTransmissionBlocks(m: ExhibitModel): Block[] {
   const blocks: Block[] = [{ kind: 'heading', level: 1, text: SECTION.coTransmission }];
@@ -307,49 +358,118 @@ function coTransmissionBlocks(m: ExhibitModel): Block[] {
     });
   }
   if (!m.lab?.coTransmission.length) return [...blocks, { kind: 'paragraph', text: INTRO.coTransmissionMissing }];
-  blocks.push({
+  blocks.push({ kind: 'paragraph', text: INTRO.coTransmission }, {
     kind: 'table',
     columns: [
-      { title: 'Exposure condition', width: 0.22 },
-      { title: 'Transmitters', width: 0.34 },
-      { title: 'Sum of SAR', width: 0.14, align: 'right' },
-      { title: 'Limit', width: 0.12, align: 'right' },
-      { title: 'Outcome', width: 0.18 },
+      { title: 'Market', width: 0.09 },
+      { title: 'Use position', width: 0.12 },
+      { title: 'Transmitters and their parts', width: 0.37 },
+      { title: 'Sum', width: 0.1, align: 'right' },
+      { title: 'Limit', width: 0.08, align: 'right' },
+      { title: 'Outcome', width: 0.19 },
+      { title: 'Ref.', width: 0.05, align: 'right' },
     ],
-    rows: m.lab.coTransmission.map((c) => [c.exposureCondition, c.transmitterIds.join(' + '), c.sumSarWPerKg === null ? '—' : `${fixed(c.sumSarWPerKg, 2)} W/kg`, c.limitWPerKg === null ? '—' : `${num(c.limitWPerKg)} W/kg`, c.outcome]),
+    rows: m.lab.coTransmission.map((c) => [
+      c.market,
+      `${c.usePositionId} (${c.exposureCondition})`,
+      c.contributions.join('; '),
+      c.sum === null ? '—' : c.unit === 'W/kg' ? `${fixed(c.sum, 2)} W/kg` : num(c.sum, 3),
+      c.unit === 'W/kg' ? `${num(c.limit)} W/kg` : num(c.limit),
+      `${c.pass ? '✓' : '×'} ${c.outcome}`,
+      c.appendixRef,
+    ]),
   });
   return blocks;
 }
 
+/** The per-scan checks in the order the matrix shows them. */
+const SCAN_CHECK_ORDER = ['power', 'separation', 'band', 'drift', 'liquid', 'system-check', 'calibration', 'repeats', 'mass', 'limit'] as const;
+const STATUS_RANK = { pass: 0, warning: 1, fail: 2 } as const;
+const STATUS_MARK = { pass: '✓', warning: '!', fail: '×' } as const;
+
 function checkBlocks(m: ExhibitModel): Block[] {
   const blocks: Block[] = [{ kind: 'heading', level: 1, text: SECTION.checks }];
   if (!m.lab || (!m.lab.checks.length && !m.lab.instruments.length)) return [...blocks, { kind: 'paragraph', text: INTRO.checksMissing }];
-  if (m.lab.checks.length) {
-    blocks.push({
+  const lab = m.lab;
+  const s = lab.summary;
+  blocks.push({ kind: 'paragraph', text: `${INTRO.checks} ${lab.checks.length} checks in all: ${s.failing} outside tolerance (${s.blocking} of them stop signing), ${s.warnings} to look at.` });
+  const sources: string[] = [];
+  const ref = (source: string) => {
+    let i = sources.indexOf(source);
+    if (i < 0) i = sources.push(source) - 1;
+    return `[${i + 1}]`;
+  };
+  const setup = lab.checks.filter((c) => c.subjectType === 'liquid-check' || c.subjectType === 'system-check' || c.subjectType === 'instrument' || c.subjectType === 'uncertainty');
+  if (setup.length) {
+    blocks.push({ kind: 'heading', level: 2, text: 'Liquid, system, calibration and uncertainty checks' }, {
       kind: 'table',
       columns: [
         { title: 'Check', width: 0.14 },
-        { title: 'What', width: 0.22 },
-        { title: 'Date', width: 0.11 },
-        { title: 'Measured', width: 0.13, align: 'right' },
-        { title: 'Target', width: 0.13, align: 'right' },
-        { title: 'Deviation', width: 0.09, align: 'right' },
-        { title: 'Tolerance', width: 0.09, align: 'right' },
-        { title: 'Outcome', width: 0.09 },
+        { title: 'Of', width: 0.1 },
+        { title: 'Value', width: 0.36 },
+        { title: 'Tolerance', width: 0.22 },
+        { title: 'Outcome', width: 0.1 },
+        { title: 'Source', width: 0.08 },
       ],
-      rows: m.lab.checks.map((c) => [c.kind, c.label, c.date, c.measured, c.target, c.deviationPercent === null ? '—' : `${fixed(c.deviationPercent, 1)} %`, c.tolerancePercent === null ? '—' : `±${num(c.tolerancePercent)} %`, c.pass ? '✓ Within' : '× Outside']),
+      rows: setup.map((c) => [c.kind, c.subject, c.status === 'pass' ? c.value : `${c.value}. ${c.message}`, c.tolerance, CHECK_STATUS_WORDS[c.status] ?? c.status, ref(c.source)]),
     });
   }
-  if (m.lab.instruments.length) {
+  const perScan = lab.checks.filter((c) => c.subjectType === 'measurement');
+  if (perScan.length) {
+    const kinds = SCAN_CHECK_ORDER.filter((k) => perScan.some((c) => c.kindId === k));
+    const cell = (scan: string, kind: string) => {
+      const found = perScan.filter((c) => c.subject === scan && c.kindId === kind);
+      if (!found.length) return '–';
+      return STATUS_MARK[found.reduce((w, c) => (STATUS_RANK[c.status] > STATUS_RANK[w] ? c.status : w), 'pass' as keyof typeof STATUS_RANK)];
+    };
+    blocks.push(
+      { kind: 'heading', level: 2, text: 'Checks of each scan' },
+      { kind: 'paragraph', style: 'small', text: INTRO.scanChecks },
+      {
+        kind: 'table',
+        columns: [{ title: 'Scan', width: 0.1 }, ...kinds.map((k) => ({ title: CHECK_KIND_LABELS[k] ?? k, width: 0.9 / kinds.length }))],
+        rows: lab.sarResults.map((r) => [r.measurementId, ...kinds.map((k) => cell(r.measurementId, k))]),
+      },
+    );
+    const findings = perScan.filter((c) => c.status !== 'pass');
+    if (findings.length) {
+      blocks.push({
+        kind: 'table',
+        columns: [
+          { title: 'Scan', width: 0.08 },
+          { title: 'Check', width: 0.14 },
+          { title: 'Finding', width: 0.5 },
+          { title: 'Tolerance', width: 0.2 },
+          { title: 'Source', width: 0.08 },
+        ],
+        rows: findings.map((c) => [c.subject, `${STATUS_MARK[c.status]} ${c.kind}`, c.value === '—' ? c.message : `${c.message} (${c.value})`, c.tolerance, ref(c.source)]),
+      });
+    }
+  }
+  if (lab.instruments.length) {
     blocks.push({ kind: 'heading', level: 2, text: 'Instruments' }, {
       kind: 'table',
       columns: [
-        { title: 'Instrument', width: 0.4 },
-        { title: 'Serial', width: 0.2 },
-        { title: 'Calibrated', width: 0.2 },
-        { title: 'Calibration due', width: 0.2 },
+        { title: 'Id', width: 0.1 },
+        { title: 'Kind', width: 0.18 },
+        { title: 'Model', width: 0.22 },
+        { title: 'Serial', width: 0.14 },
+        { title: 'Calibrated', width: 0.12 },
+        { title: 'Due', width: 0.12 },
+        { title: 'On test dates', width: 0.12 },
       ],
-      rows: m.lab.instruments.map((i) => [i.name, i.serial, i.calibratedOn, i.calibrationDueOn]),
+      rows: lab.instruments.map((i) => [i.id, i.kind, i.model || '—', i.serial || '—', i.calibratedOn, i.calibrationDueOn, i.inCalibration ? '✓ In calibration' : '× Not in calibration']),
+    });
+  }
+  if (sources.length) {
+    blocks.push({ kind: 'heading', level: 2, text: 'Sources of the tolerances' }, {
+      kind: 'table',
+      header: false,
+      columns: [
+        { title: '', width: 0.06 },
+        { title: '', width: 0.94 },
+      ],
+      rows: sources.map((src, i) => [`[${i + 1}]`, src]),
     });
   }
   return blocks;
@@ -357,34 +477,51 @@ function checkBlocks(m: ExhibitModel): Block[] {
 
 function uncertaintyBlocks(m: ExhibitModel): Block[] {
   const blocks: Block[] = [{ kind: 'heading', level: 1, text: SECTION.uncertainty }];
-  if (!m.lab?.uncertainty.length) return [...blocks, { kind: 'paragraph', text: INTRO.uncertaintyMissing }];
-  for (const u of m.lab.uncertainty) {
-    blocks.push({ kind: 'heading', level: 2, text: `${u.label}: expanded uncertainty ${fixed(u.expandedUncertaintyPercent, 1)} % (k = ${num(u.coverageFactor)})` }, {
+  const u = m.lab?.uncertainty;
+  if (!u) return [...blocks, { kind: 'paragraph', text: INTRO.uncertaintyMissing }];
+  const highest = u.highestMeasuredSarWPerKg === null ? 'no SAR measured' : `highest measured SAR ${fixed(u.highestMeasuredSarWPerKg, 3)} W/kg (${u.highestMeasuredMass})`;
+  blocks.push({
+    kind: 'keyValue',
+    rows: [
+      ['Budget required', `${u.required ? 'Yes' : 'No'}: ${highest}`],
+      ['Combined standard uncertainty', u.combinedStandardPercent === null ? '—' : `${fixed(u.combinedStandardPercent, 1)} %`],
+      ['Expanded uncertainty', u.expandedPercent === null ? 'No budget entered' : `${fixed(u.expandedPercent, 1)} % (k = ${num(u.coverageFactor)}); at most ${num(u.limitPercent)} %${u.appendixRef ? `; see ${u.appendixRef}` : ''}`],
+    ],
+  });
+  if (u.components.length) {
+    blocks.push({
       kind: 'table',
       columns: [
-        { title: 'Component', width: 0.75 },
-        { title: 'Standard uncertainty', width: 0.25, align: 'right' },
+        { title: 'Contribution', width: 0.36 },
+        { title: 'Value', width: 0.12, align: 'right' },
+        { title: 'Distribution', width: 0.16 },
+        { title: 'Divisor', width: 0.1, align: 'right' },
+        { title: 'Sensitivity', width: 0.13, align: 'right' },
+        { title: 'Degrees of freedom', width: 0.13, align: 'right' },
       ],
-      rows: u.components.map((c) => [c.name, `${fixed(c.valuePercent, 2)} %`]),
+      rows: u.components.map((c) => [c.name, `${fixed(c.valuePercent, 2)} %`, c.distribution, c.divisor === null ? 'from distribution' : num(c.divisor), num(c.sensitivity), c.degreesOfFreedom === null ? '∞' : num(c.degreesOfFreedom)]),
     });
   }
   return blocks;
 }
 
 function readinessBlocks(m: ExhibitModel): Block[] {
+  const r = m.readiness;
   const blocks: Block[] = [{ kind: 'heading', level: 1, text: SECTION.readiness }];
-  if (!m.readiness) return [...blocks, { kind: 'paragraph', text: INTRO.readinessMissing }];
+  if (!r) return [...blocks, { kind: 'paragraph', text: INTRO.readinessMissing }];
+  const when = r.basis === 'at-signing' ? `As it stood at signing, ${formatDateTime(r.asOf)}.` : `${INTRO.readinessDraft} As of ${formatDateTime(r.asOf)}.`;
   return [
     ...blocks,
-    { kind: 'paragraph', text: `As it stood on ${formatDateTime(m.readiness.asOf)}.` },
+    { kind: 'paragraph', text: `${when} ${r.counts.passed} met, ${r.counts.blocking} blocking signing, ${r.counts.warnings} warning(s), ${r.counts.notApplicable} not applicable.` },
     {
       kind: 'table',
       columns: [
-        { title: 'Requirement', width: 0.4 },
-        { title: 'State', width: 0.14 },
-        { title: 'Detail', width: 0.46 },
+        { title: 'Requirement', width: 0.34 },
+        { title: 'Weight', width: 0.12 },
+        { title: 'State', width: 0.1 },
+        { title: 'Detail', width: 0.44 },
       ],
-      rows: m.readiness.items.map((i) => [i.label, i.met ? '✓ Met' : '× Open', i.detail]),
+      rows: r.items.map((i) => [i.title, i.severity === 'blocks-signing' ? 'Blocks signing' : 'Warning', READINESS_STATUS_WORDS[i.status] ?? i.status, i.detail || '—']),
     },
   ];
 }
@@ -398,14 +535,23 @@ function evidenceBlocks(m: ExhibitModel): Block[] {
     {
       kind: 'table',
       columns: [
-        { title: 'Category', width: 0.15 },
-        { title: 'File', width: 0.3 },
-        { title: 'Size', width: 0.1, align: 'right' },
-        { title: 'SHA-256', width: 0.45 },
+        { title: 'Document, category and path in this package', width: 0.3 },
+        { title: 'Size', width: 0.075, align: 'right' },
+        { title: 'Uploaded', width: 0.085 },
+        { title: 'SHA-256', width: 0.54 },
       ],
-      rows: m.evidence.map((e) => [e.category, e.fileName, `${e.sizeBytes} B`, e.sha256]),
+      rows: m.evidence.map((e) => [`${e.title} (${e.category})\n${e.path}`, bytes(e.sizeBytes), e.uploadedAt.slice(0, 10), e.sha256]),
     },
   ];
+}
+
+/** "1.2 MB", "340 kB", "812 B" (decimal units, as file managers show them). */
+export function bytes(n: number): string {
+  // A no-break space, so the unit stays with its number in a narrow column.
+  if (n >= 1e9) return `${num(n / 1e9, 3)}\u00a0GB`;
+  if (n >= 1e6) return `${num(n / 1e6, 3)}\u00a0MB`;
+  if (n >= 1e3) return `${num(n / 1e3, 3)}\u00a0kB`;
+  return `${n}\u00a0B`;
 }
 
 /** Every block of the exhibit after the cover and contents, in reading order. */
@@ -441,6 +587,6 @@ export function signatureLines(m: ExhibitModel): [string, string][] {
     ['Signed at', formatDateTime(s.signedAt)],
     ['Statement', s.statement],
   ];
-  if (s.contentSha256) rows.push(['Content SHA-256', s.contentSha256]);
+  rows.push(['Content SHA-256', `${s.contentSha256} (${s.contentFormat})`]);
   return rows;
 }

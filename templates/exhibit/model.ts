@@ -39,95 +39,164 @@ export interface ExhibitScreeningRow {
   appendixRef: string;
 }
 
-/** A lab's SAR result, scaled to the tune-up limit (filled in once lab results exist). */
+/** One SAR measurement with its reported SAR (scaled to the tune-up limit), from the lab-results calculation. */
 export interface ExhibitSarResult {
+  measurementId: string;
   transmitterId: string;
   usePositionId: string;
+  /** The use position's exposure condition ("Body-worn", "Extremity"). */
   exposureCondition: string;
+  testPosition: string;
+  channel: string;
   frequencyHz: number;
-  averagingMassKg: number;
-  measuredSarWPerKg: number;
+  testSeparationM: number;
+  testDate: string;
+  measuredPowerDbm: number;
+  tuneUpPowerDbm: number;
   scalingFactor: number;
-  reportedSarWPerKg: number;
-  limitWPerKg: number;
+  measuredSar1gWPerKg: number | null;
+  measuredSar10gWPerKg: number | null;
+  reportedSar1gWPerKg: number | null;
+  reportedSar10gWPerKg: number | null;
   powerDriftDb: number | null;
-  appendixRef?: string;
+  /** Key of this row's entry in the how-computed appendix ("L3"). */
+  appendixRef: string;
 }
 
+/** The highest reported SAR of one market and exposure condition, at that market's averaging mass. */
 export interface ExhibitHighestSar {
+  market: string;
+  tier: string;
   exposureCondition: string;
-  transmitterId: string;
-  usePositionId: string;
-  reportedSarWPerKg: number;
+  averagingMassKg: number;
+  /** Null when nothing in this condition was measured. */
+  reportedSarWPerKg: number | null;
   limitWPerKg: number;
+  marginDb: number | null;
+  withinLimit: boolean | null;
+  transmitterId: string | null;
+  usePositionId: string | null;
+  measurementId: string | null;
+  source: string;
 }
 
 export interface ExhibitCoTransmission {
+  id: string;
+  market: string;
+  usePositionId: string;
   exposureCondition: string;
   transmitterIds: string[];
-  sumSarWPerKg: number | null;
-  limitWPerKg: number | null;
+  method: 'sum-of-sar' | 'mpe-sum-of-ratios';
+  /** Each transmitter's part in words: value, unit and where it comes from. */
+  contributions: string[];
+  /** Σ SAR (W/kg) or Σ ratios (1); null when a contribution is missing. */
+  sum: number | null;
+  limit: number;
+  unit: 'W/kg' | '1';
   outcome: string;
+  pass: boolean;
+  appendixRef: string;
 }
 
+/** One measurement-system or measurement check, with the tolerance it was held to and its source. */
 export interface ExhibitCheck {
+  /** The check's kind as the calculation names it ("drift", "liquid"). */
+  kindId: string;
   kind: string;
-  label: string;
-  date: string;
-  measured: string;
-  target: string;
-  deviationPercent: number | null;
-  tolerancePercent: number | null;
-  pass: boolean;
+  /** What was checked: a scan, a liquid or system check, an instrument, the budget, a combination. */
+  subjectType: 'measurement' | 'liquid-check' | 'system-check' | 'instrument' | 'uncertainty' | 'coverage' | 'co-transmission';
+  subject: string;
+  status: 'pass' | 'fail' | 'warning';
+  value: string;
+  tolerance: string;
+  message: string;
+  source: string;
 }
 
 export interface ExhibitInstrument {
-  name: string;
+  id: string;
+  kind: string;
+  model: string;
   serial: string;
   calibratedOn: string;
   calibrationDueOn: string;
+  /** In calibration on every test date. */
+  inCalibration: boolean;
 }
 
 export interface ExhibitUncertainty {
-  label: string;
-  expandedUncertaintyPercent: number;
+  /** Whether the highest measured SAR makes a budget required. */
+  required: boolean;
+  highestMeasuredSarWPerKg: number | null;
+  highestMeasuredMass: string | null;
+  combinedStandardPercent: number | null;
+  expandedPercent: number | null;
   coverageFactor: number;
-  components: { name: string; valuePercent: number }[];
+  limitPercent: number;
+  components: { name: string; valuePercent: number; distribution: string; divisor: number | null; sensitivity: number; degreesOfFreedom: number | null }[];
+  appendixRef: string | null;
 }
 
-/** Lab results: present once the lab results of the version are recorded. */
+export interface ExhibitCoverage {
+  transmitterId: string;
+  usePositionId: string;
+  exposureCondition: string;
+  markets: string[];
+  measurementIds: string[];
+  status: 'measured' | 'missing' | 'not-required';
+}
+
+/** Lab results: present once lab data of the version are recorded. */
 export interface ExhibitLab {
   sarResults: ExhibitSarResult[];
   highestReported: ExhibitHighestSar[];
   coTransmission: ExhibitCoTransmission[];
   checks: ExhibitCheck[];
   instruments: ExhibitInstrument[];
-  uncertainty: ExhibitUncertainty[];
+  uncertainty: ExhibitUncertainty | null;
+  coverage: ExhibitCoverage[];
+  summary: { measurements: number; failing: number; blocking: number; warnings: number };
 }
 
 export interface ExhibitReadinessItem {
-  label: string;
-  met: boolean;
+  id: string;
+  title: string;
+  severity: 'blocks-signing' | 'warning';
+  status: 'pass' | 'fail' | 'not-applicable';
   detail: string;
+}
+
+export interface ExhibitReadiness {
+  /** at-signing: the checklist stored with the signature; current: a draft's checklist now. */
+  basis: 'at-signing' | 'current';
+  asOf: string;
+  ready: boolean;
+  counts: { blocking: number; warnings: number; passed: number; notApplicable: number };
+  items: ExhibitReadinessItem[];
 }
 
 export interface ExhibitSignature {
   signerName: string;
   signerRole: string;
   signedAt: string;
-  /** What the signer attested to, in their words or the product's statement. */
+  /** What the signer attested to. */
   statement: string;
-  /** SHA-256 of the content the signature covers, when the signing records one. */
-  contentSha256: string | null;
+  /** SHA-256 of the version's content the signature covers, and the serialisation it was taken over. */
+  contentSha256: string;
+  contentFormat: string;
 }
 
 export interface ExhibitEvidence {
+  categoryId: string;
   category: string;
+  title: string;
   /** Path inside the package zip. */
   path: string;
   fileName: string;
   sizeBytes: number;
+  /** Taken when the file was uploaded. */
   sha256: string;
+  uploadedAt: string;
 }
 
 export interface ExhibitDepthProfile {
@@ -177,7 +246,7 @@ export interface ExhibitModel {
   };
   depthProfile: ExhibitDepthProfile | null;
   lab: ExhibitLab | null;
-  readiness: { asOf: string; items: ExhibitReadinessItem[] } | null;
+  readiness: ExhibitReadiness | null;
   signature: ExhibitSignature | null;
   evidence: ExhibitEvidence[];
   appendix: ExhibitAppendixEntry[];

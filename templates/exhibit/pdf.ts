@@ -177,17 +177,50 @@ class Flow {
     } else this.y -= 3;
   }
 
+  /**
+   * Column widths in points: the layout's shares, except that a column whose longest word (in
+   * its header or any cell) would not fit takes the room from columns that have some to spare,
+   * so words are broken only when the whole table cannot hold them. Mono columns (hashes) shrink
+   * their type instead.
+   */
+  columnWidths(columns: Column[], rows: string[][], header: boolean, fontFor: (col: number, header: boolean) => PDFFont, size: number, padX: number, mono: number[]): number[] {
+    const total = columns.reduce((s, c) => s + c.width, 0);
+    const widths = columns.map((c) => (c.width / total) * TEXT_W);
+    const longest = (text: string, font: PDFFont) => Math.max(0, ...text.split(/\s+/).map((w) => this.width(w, font, size)));
+    const need = columns.map((c, i) => {
+      let w = header ? longest(c.title, fontFor(i, true)) : 0;
+      for (const r of rows) w = Math.max(w, longest(r[i] ?? '', fontFor(i, false)));
+      // A mono column keeps the room it has (it shrinks its type rather than grow).
+      return mono.includes(i) ? Math.min(widths[i], w + 2 * padX + 0.5) : w + 2 * padX + 0.5;
+    });
+    for (;;) {
+      const short = widths.reduce((s, w, i) => s + Math.max(0, need[i] - w), 0);
+      const spare = widths.reduce((s, w, i) => s + Math.max(0, w - need[i]), 0);
+      if (short <= 0) return widths;
+      if (spare >= short) return widths.map((w, i) => (need[i] > w ? need[i] : w - ((w - need[i]) / spare) * short));
+      // Not enough room for every word: the column that lacks the most breaks its words.
+      const worst = need.reduce((best, n, i) => (n - widths[i] > need[best] - widths[best] ? i : best), 0);
+      need[worst] = widths[worst];
+    }
+  }
+
   /** A table whose header row is repeated at the top of every page it continues on. */
   table(columns: Column[], rows: string[][], opts: { header?: boolean; mono?: number[]; firstBold?: boolean; size?: number } = {}) {
     const size = opts.size ?? SIZE.table;
     const lh = size * 1.3;
     const padX = 3.5;
     const padY = 3;
-    const total = columns.reduce((s, c) => s + c.width, 0);
-    const widths = columns.map((c) => (c.width / total) * TEXT_W);
     const fontFor = (col: number, header: boolean) => (header ? this.fonts.semibold : opts.mono?.includes(col) ? this.fonts.mono : opts.firstBold && col === 0 ? this.fonts.medium : this.fonts.regular);
+    const widths = this.columnWidths(columns, rows, opts.header !== false, fontFor, size, padX, opts.mono ?? []);
+    // A mono column (hashes) is set small enough that its longest word fits on one line, so a
+    // hash is never broken and a reader can search and copy it whole (not below 5.5 pt).
+    const sizes = columns.map((_, i) => {
+      if (!opts.mono?.includes(i)) return size;
+      const longest = Math.max(0, ...rows.flatMap((r) => (r[i] ?? '').split(/\s+/)).map((w) => this.width(w, this.fonts.mono, 1)));
+      return longest ? Math.max(5.5, Math.min(size, (widths[i] - 2 * padX - 0.5) / longest)) : size;
+    });
     const layout = (cells: string[], header: boolean) => {
-      const wrapped = cells.map((c, i) => this.wrap(c, fontFor(i, header), size, widths[i] - 2 * padX));
+      const wrapped = cells.map((c, i) => this.wrap(c, fontFor(i, header), header ? size : sizes[i], widths[i] - 2 * padX));
       return { wrapped, height: Math.max(...wrapped.map((l) => l.length)) * lh + 2 * padY };
     };
     const header = opts.header === false ? null : layout(columns.map((c) => c.title), true);
@@ -198,10 +231,11 @@ class Flow {
       let x = MARGIN_X;
       row.wrapped.forEach((lines, i) => {
         const font = fontFor(i, isHeader);
+        const cellSize = isHeader ? size : sizes[i];
         lines.forEach((line, j) => {
-          const w = this.width(line, font, size);
+          const w = this.width(line, font, cellSize);
           const tx = columns[i].align === 'right' ? x + widths[i] - padX - w : x + padX;
-          this.text(line, tx, top - padY - size * 0.95 - j * lh, font, size, isHeader ? INK : INK);
+          this.text(line, tx, top - padY - size * 0.95 - j * lh, font, cellSize, INK);
         });
         x += widths[i];
       });
@@ -346,8 +380,8 @@ class Flow {
     this.y -= SIZE.body * 0.4;
     this.table(
       [
-        { title: '', width: 0.27 },
-        { title: '', width: 0.73 },
+        { title: '', width: 0.17 },
+        { title: '', width: 0.83 },
       ],
       rows,
       { header: false, firstBold: true, size: SIZE.table },
@@ -368,7 +402,7 @@ function renderBlock(flow: Flow, block: Block) {
     case 'paragraph':
       return flow.paragraph(block.text, block.style);
     case 'table':
-      return flow.table(block.columns, block.rows, { mono: block.columns.map((c, i) => (c.title === 'SHA-256' ? i : -1)).filter((i) => i >= 0) });
+      return flow.table(block.columns, block.rows, { header: block.header, mono: block.columns.map((c, i) => (c.title === 'SHA-256' ? i : -1)).filter((i) => i >= 0) });
     case 'keyValue':
       return flow.keyValue(block.rows);
     case 'marginChart':
@@ -404,15 +438,36 @@ function cover(flow: Flow, m: ExhibitModel) {
   flow.paragraph('Engineering estimates from published formulas or summaries of laboratory measurements. The certifying body and accredited laboratories decide; follow the applicable regulations and local codes. See section 12.', 'small');
 }
 
-function contents(flow: Flow, pageIndex: number, startAt: number) {
-  const page = flow.pages[pageIndex];
+const contentsLineHeight = (level: 1 | 2) => (level === 1 ? SIZE.body * 1.9 : SIZE.small * 1.6);
+const CONTENTS_FIRST_Y = TOP - SIZE.h1 * 1.35 - 14;
+
+/** How many pages the contents need for these headings (reserved before the body is laid out). */
+function contentsPageCount(blocks: Block[]): number {
+  let pages = 1;
+  let y = CONTENTS_FIRST_Y;
+  for (const b of blocks) {
+    if (b.kind !== 'heading') continue;
+    if (y - contentsLineHeight(b.level) < BOTTOM) {
+      pages++;
+      y = TOP;
+    }
+    y -= contentsLineHeight(b.level);
+  }
+  return pages;
+}
+
+function contents(flow: Flow, firstPage: number, startAt: number) {
   const f = flow.fonts;
-  let y = TOP;
-  page.drawText(SECTION.contents, { x: MARGIN_X, y: y - SIZE.h1, size: SIZE.h1, font: f.semibold, color: ACCENT });
-  y -= SIZE.h1 * 1.35;
-  page.drawLine({ start: { x: MARGIN_X, y }, end: { x: MARGIN_X + TEXT_W, y }, thickness: 0.6, color: ACCENT });
-  y -= 14;
+  let pageIndex = firstPage;
+  let page = flow.pages[pageIndex];
+  page.drawText(SECTION.contents, { x: MARGIN_X, y: TOP - SIZE.h1, size: SIZE.h1, font: f.semibold, color: ACCENT });
+  page.drawLine({ start: { x: MARGIN_X, y: TOP - SIZE.h1 * 1.35 }, end: { x: MARGIN_X + TEXT_W, y: TOP - SIZE.h1 * 1.35 }, thickness: 0.6, color: ACCENT });
+  let y = CONTENTS_FIRST_Y;
   for (const h of flow.headings.slice(startAt)) {
+    if (y - contentsLineHeight(h.level) < BOTTOM) {
+      page = flow.pages[++pageIndex];
+      y = TOP;
+    }
     const size = h.level === 1 ? SIZE.body : SIZE.small;
     const font = h.level === 1 ? f.medium : f.regular;
     const indent = h.level === 1 ? 0 : 16;
@@ -424,8 +479,7 @@ function contents(flow: Flow, pageIndex: number, startAt: number) {
     const dots = '.'.repeat(Math.max(0, Math.floor((TEXT_W - indent - lw - pw - 12) / font.widthOfTextAtSize('.', size))));
     page.drawText(dots, { x: MARGIN_X + indent + lw + 4, y, size, font: f.regular, color: RULE });
     page.drawText(pageNo, { x: MARGIN_X + TEXT_W - pw, y, size, font, color: INK });
-    y -= size * (h.level === 1 ? 1.9 : 1.6);
-    if (y < BOTTOM) break;
+    y -= contentsLineHeight(h.level);
   }
 }
 
@@ -460,6 +514,28 @@ function setDocumentId(doc: PDFDocument, m: ExhibitModel) {
   arr.push(PDFHexString.of(id));
 }
 
+/**
+ * Encodes text one character at a time from a per-font cache. pdf-lib runs fontkit's full layout
+ * (OpenType substitution and positioning) for every string it draws, which was most of the
+ * exhibit's render time; the exhibit never uses kerning or ligatures (widths come from single
+ * characters, see Flow.width), so the glyph of a character is all it needs. The subset still
+ * takes glyphs in the order they first appear, so the same model gives the same bytes.
+ */
+function encodeByCharacter(font: PDFFont) {
+  const embedder = (font as unknown as { embedder: { encodeText(text: string): PDFHexString } }).embedder;
+  const encodeOne = embedder.encodeText.bind(embedder);
+  const hexOf = new Map<string, string>();
+  embedder.encodeText = (text: string) => {
+    let hex = '';
+    for (const ch of text) {
+      let h = hexOf.get(ch);
+      if (h === undefined) hexOf.set(ch, (h = encodeOne(ch).asString()));
+      hex += h;
+    }
+    return PDFHexString.of(hex);
+  };
+}
+
 export async function renderExhibitPdf(m: ExhibitModel, opts: PdfOptions): Promise<Uint8Array> {
   const doc = await PDFDocument.create({ updateMetadata: false });
   doc.registerFontkit(fontkit);
@@ -468,15 +544,17 @@ export async function renderExhibitPdf(m: ExhibitModel, opts: PdfOptions): Promi
   for (const role of Object.keys(bytes) as FontRole[]) {
     // A fixed subset name: pdf-lib would otherwise add a random suffix and the bytes would vary.
     fonts[role] = await doc.embedFont(bytes[role], { subset: true, customName: SUBSET_NAMES[role] });
+    encodeByCharacter(fonts[role]);
   }
   const flow = new Flow(doc, fonts);
   flow.newPage();
   cover(flow, m);
-  flow.newPage();
-  const contentsPage = flow.pages.length - 1;
+  const blocks = exhibitBlocks(m);
+  const contentsPage = flow.pages.length;
+  for (let i = contentsPageCount(blocks); i > 0; i--) flow.newPage();
   flow.newPage();
   const firstHeading = flow.headings.length;
-  for (const block of exhibitBlocks(m)) renderBlock(flow, block);
+  for (const block of blocks) renderBlock(flow, block);
   contents(flow, contentsPage, firstHeading);
   furniture(flow, m);
 

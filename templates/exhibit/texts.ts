@@ -18,7 +18,7 @@ export const SECTION = {
   coTransmission: '7  Simultaneous transmission',
   checks: '8  Measurement checks and instruments',
   uncertainty: '9  Measurement uncertainty',
-  readiness: '10  Readiness checklist at signing',
+  readiness: '10  Readiness checklist',
   evidence: '11  Evidence files',
   cautions: '12  Cautions',
   appendix: 'Appendix A  How each figure was computed',
@@ -35,6 +35,13 @@ export const INTRO = {
   marginChart: 'Smallest margin of each transmitter over all use positions, per market (dB). Bars left of zero are over the threshold.',
   depthChart:
     'SAR against depth in a layered head model for the combination with the smallest margin (a screening estimate from a plane-wave model, not a measurement).',
+  lab: 'Every SAR scan the lab reported, scaled to the maximum tune-up power (never scaled down): reported SAR = scaling × measured SAR, at 1 g and 10 g. The reference in the last column points to the derivation in Appendix A.',
+  labUnits: 'SAR in W/kg; separation as tested; scaling = reported over measured SAR. A dash means the lab gave no value for that averaging mass. The exposure condition of each use position is in the coverage table below.',
+  coverage: 'Every transmitter and use position the screening sends to SAR evaluation, and the scans that cover it.',
+  coTransmission: 'For each group of transmitters on together, in every use position and market: the sum of each one’s highest reported SAR (or its estimate where it is exempt from testing) against the limit; in the far field, the sum of each one’s share of its exposure limit.',
+  checks: 'The lab’s liquid, system and calibration checks and the checks of each scan, each with the tolerance it is held to and the source of that tolerance (numbered at the end of this section). Coverage and simultaneous transmission are checked in sections 6 and 7.',
+  scanChecks: '✓ within tolerance, ! to look at, × outside tolerance, – not checked. Every mark other than ✓ is explained in the table below.',
+  readinessDraft: 'This version is not signed: the checklist as it stands now.',
   labMissing: 'No lab measurements are recorded for this version. Where the screening asks for a SAR or MPE evaluation, the accredited lab’s results belong here.',
   coTransmissionMissing: 'No simultaneous-transmission evaluation is recorded for this version.',
   coTransmissionGroups: 'Transmitters declared as able to transmit at the same time:',
@@ -74,6 +81,44 @@ export const REGIME_SHORT: Record<string, string> = {
   eu: 'EU RED',
   'icnirp-2020': 'ICNIRP 2020',
 };
+
+/** Exposure conditions (a use position's kind) as the exhibit names them. */
+export const CONDITION_LABELS: Record<string, string> = {
+  head: 'Head',
+  'body-worn': 'Body-worn',
+  hotspot: 'Hotspot',
+  extremity: 'Extremity (hand, limb)',
+  'far-field': 'Far field',
+};
+
+export const CHECK_KIND_LABELS: Record<string, string> = {
+  power: 'Measured power',
+  limit: 'SAR limit',
+  separation: 'Test separation',
+  band: 'Frequency in band',
+  drift: 'Power drift',
+  liquid: 'Liquid',
+  'liquid-temperature': 'Liquid temperature',
+  'system-check': 'System check',
+  calibration: 'Calibration',
+  repeats: 'Repeated scans',
+  mass: 'Averaging mass',
+  uncertainty: 'Uncertainty budget',
+  coverage: 'Coverage',
+  'co-transmission': 'Simultaneous transmission',
+};
+
+export const CHECK_STATUS_WORDS: Record<string, string> = { pass: '✓ Within', fail: '× Outside', warning: '! Look' };
+
+export const COTX_OUTCOME_WORDS: Record<string, string> = {
+  'sum-within-limit': 'Sum within the limit',
+  'splsr-within-limit': 'Peak-location ratio within the limit',
+  'needs-simultaneous-measurement': 'Needs a simultaneous measurement',
+  'over-limit': 'Over the limit',
+  incomplete: 'Incomplete: a part is missing',
+};
+
+export const READINESS_STATUS_WORDS: Record<string, string> = { pass: '✓ Met', fail: '× Open', 'not-applicable': '– n/a' };
 
 export function documentSubject(m: ExhibitModel): string {
   return `RF-exposure exhibit for ${m.device.name} (${m.device.model}), filing ${m.filingId} version ${m.versionNumber}`;

@@ -10,7 +10,6 @@ import { openDatabase } from '../../db/client';
 import { applyMigrations } from '../../db/migrate';
 import { seedDemo } from '../../seeds';
 import { createLocalDiskStorage } from '../../server/storage';
-import { defaultExhibitSources } from '../../server/services/exhibit-sources';
 import { assembleExhibit } from '../../server/services/exhibit-service';
 import { buildPackage } from '../../server/services/package-builder';
 
@@ -20,7 +19,7 @@ async function main() {
   const handle = openDatabase(path.join(outDir, 'bench.db'));
   applyMigrations(handle.db);
   const { organisationId } = await seedDemo(handle.db, 'bench-password-123');
-  const sources = { ...defaultExhibitSources, evidence: () => list.map((e) => ({ ...e, open: () => fs.createReadStream(e.path, { highWaterMark: 1 << 20 }) })) };
+  const sources = { evidence: () => list.map((e) => ({ ...e, categoryId: e.category, title: e.fileName, uploadedAt: '2026-11-30T14:05:00.000Z', open: () => fs.createReadStream(e.path, { highWaterMark: 1 << 20 }) })) };
   const storage = createLocalDiskStorage(path.join(outDir, 'packages'));
   const t0 = process.hrtime.bigint();
   const a = assembleExhibit(handle.db, organisationId, 1, 1, sources)!;

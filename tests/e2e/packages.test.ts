@@ -65,7 +65,7 @@ describe.each([
 
       // The exhibit's first pages as PNG, to look at.
       const zip = await JSZip.loadAsync(zipBytes);
-      const pdf = await zip.file(/\.pdf$/)[0].async('nodebuffer');
+      const pdf = await zip.file(/^exhibit\/.*\.pdf$/)[0].async('nodebuffer');
       const tmp = fs.mkdtempSync(path.join(os.tmpdir(), 'fieldfile-exhibit-'));
       fs.writeFileSync(path.join(tmp, 'exhibit.pdf'), pdf);
       fs.mkdirSync(SCREENSHOT_DIR, { recursive: true });

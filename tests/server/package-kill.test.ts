@@ -4,7 +4,7 @@
  * its job shows as failed, the start-up sweep removes the half-written file, and the build can
  * be run again.
  */
-import { spawn } from 'node:child_process';
+import { execFileSync, spawn } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -41,8 +41,20 @@ describe('a build killed mid-way', () => {
       await new Promise((r) => setTimeout(r, 100));
     }
     // The child is the node process itself (tsx as a loader, no wrapper), so this kills the build.
+    // Its exhibit renderers (child processes of its own, if still running) go with it.
+    const renderers = execFileSync('ps', ['-o', 'pid=', '--ppid', String(child.pid)], { encoding: 'utf8' }).split('\n').filter(Boolean).map(Number);
     child.kill('SIGKILL');
     await exited;
+    const alive = (pid: number) => {
+      try {
+        process.kill(pid, 0);
+        return true;
+      } catch {
+        return false;
+      }
+    };
+    for (let i = 0; i < 50 && renderers.some(alive); i++) await new Promise((r) => setTimeout(r, 100));
+    expect(renderers.filter(alive), 'renderers left running').toEqual([]);
     const sizeAtKill = partial()[0];
     await new Promise((r) => setTimeout(r, 500));
     expect(partial()[0], 'nothing writes after the kill').toBe(sizeAtKill);

@@ -17,7 +17,6 @@ import type { BenchCase } from '../harness';
 import { openDatabase } from '../../../db/client';
 import { applyMigrations } from '../../../db/migrate';
 import { seedDemo } from '../../../seeds';
-import { defaultExhibitSources } from '../../../server/services/exhibit-sources';
 import { assembleExhibit } from '../../../server/services/exhibit-service';
 import { renderExhibitPdf } from '../../../templates/exhibit/pdf';
 
@@ -35,7 +34,7 @@ function generateEvidence(root: string, totalBytes: number) {
   const textEach = Math.floor((totalBytes * 0.02) / 20);
   for (let i = 0; i < FILES; i++) {
     const text = i % 10 === 9;
-    const category = text ? 'lab-data' : i % 2 ? 'setup-photos' : 'lab-report';
+    const category = text ? 'check-records' : i % 2 ? 'setup-photos' : 'test-report';
     const fileName = text ? `scan-${i}.csv` : i % 2 ? `photo-${i}.jpg` : `report-${i}.pdf`;
     const folder = path.join(root, 'evidence', category);
     fs.mkdirSync(folder, { recursive: true });
@@ -109,7 +108,7 @@ export const exhibitPdfCase: BenchCase = {
     const handle = openDatabase(path.join(dataDir, 'fieldfile.db'));
     applyMigrations(handle.db);
     const { organisationId } = await seedDemo(handle.db, 'bench-password-123');
-    const model = assembleExhibit(handle.db, organisationId, 1, 1, defaultExhibitSources)!.model;
+    const model = assembleExhibit(handle.db, organisationId, 1, 1, { evidence: () => [] })!.model;
     pdfCleanup = () => {
       handle.sqlite.close();
       fs.rmSync(dataDir, { recursive: true, force: true });

@@ -10,7 +10,6 @@ import { applyMigrations } from '../../../db/migrate';
 import { seedDemo } from '../../../seeds';
 import { createInProcessQueue } from '../../../server/jobs/queue';
 import { createLocalDiskStorage } from '../../../server/storage';
-import { defaultExhibitSources } from '../../../server/services/exhibit-sources';
 import { assembleExhibit } from '../../../server/services/exhibit-service';
 import { enqueueBuild, registerPackageJobs, type PackageDeps } from '../../../server/services/package-service';
 
@@ -29,7 +28,7 @@ async function main() {
     db: handle.db,
     queue: createInProcessQueue(handle.db),
     storage: createLocalDiskStorage(path.join(dataDir, 'packages')),
-    sources: { ...defaultExhibitSources, evidence: () => [{ category: 'Lab report', fileName: 'endless.bin', sizeBytes: 64 << 20, sha256: '0'.repeat(64), open: endless }] },
+    sources: { evidence: () => [{ categoryId: 'test-report', category: 'RF-exposure test report', title: 'Endless', fileName: 'endless.bin', sizeBytes: 64 << 20, sha256: '0'.repeat(64), uploadedAt: '2026-11-30T14:05:00.000Z', open: endless }] },
     producer: 'Fieldfile test',
   };
   registerPackageJobs(deps);
