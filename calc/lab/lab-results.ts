@@ -848,6 +848,16 @@ function coTransmission(input: In, rows: LabRow[], posById: Context['posById']):
   const out: CoTransmissionResult[] = [];
   const screeningKey = (t: string, p: string, r: string) => `${t}\u0000${p}\u0000${r}`;
   const screening = new Map(input.screening.map((s) => [screeningKey(s.transmitterId, s.usePositionId, s.regime), s]));
+  // Each contribution looks at one transmitter's rows in one position: index them once, in row order.
+  const rowsByCombination = new Map<string, LabRow[]>();
+  for (const r of rows) {
+    const k = `${r.transmitterId}\u0000${r.usePositionId}`;
+    const list = rowsByCombination.get(k);
+    if (list) list.push(r);
+    else rowsByCombination.set(k, [r]);
+  }
+  const measurementById = new Map<string, MeasurementIn>();
+  for (const m of input.measurements) if (!measurementById.has(m.id)) measurementById.set(m.id, m);
   input.simultaneous.forEach((group, gi) => {
     for (const pos of input.usePositions) {
       for (const mk of input.markets) {
@@ -894,14 +904,13 @@ function coTransmission(input: In, rows: LabRow[], posById: Context['posById']):
         const notes: string[] = [];
         const contributions: CoTxContribution[] = group.map((t) => {
           let best: LabRow | null = null;
-          for (const r of rows) {
-            if (r.transmitterId !== t || r.usePositionId !== pos.id) continue;
+          for (const r of rowsByCombination.get(`${t}\u0000${pos.id}`) ?? []) {
             const v = massG === 1 ? r.reportedSar1gWPerKg : r.reportedSar10gWPerKg;
             const bv = best && (massG === 1 ? best.reportedSar1gWPerKg : best.reportedSar10gWPerKg);
             if (v !== null && (bv === null || bv === undefined || v > bv)) best = r;
           }
           if (best) {
-            const m = input.measurements.find((x) => x.id === best!.measurementId)!;
+            const m = measurementById.get(best.measurementId)!;
             const peak: [number, number] | null = m.peakXMm !== null && m.peakYMm !== null ? [m.peakXMm, m.peakYMm] : null;
             return { transmitterId: t, basis: 'reported', value: (massG === 1 ? best.reportedSar1gWPerKg : best.reportedSar10gWPerKg)!, unit: 'W/kg', measurementId: best.measurementId, peakMm: peak };
           }

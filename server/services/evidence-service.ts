@@ -29,7 +29,7 @@ import { recordAudit } from './audit';
 import { getFiling, type FilingActor } from './filings-service';
 import { requiredForVersion } from './evidence-step';
 import { extractPdfText } from './report-readback';
-import { labDeviceDataOf, readVersionData, screenVersion } from './readiness-service';
+import { labDeviceDataOf, readVersionData, screeningKeyOf, screenVersion } from './readiness-service';
 import { versionLabResults } from './lab-results-cache';
 import { READ_BACK_CATEGORIES, filingNumbersOf, versionReadBack } from './version-readback';
 
@@ -218,7 +218,7 @@ function findings(db: Db, row: filingsRepo.FilingRow, records: EvidenceRecord[])
   if (!records.some((r) => r.replacedById === null && r.category === 'test-report' && r.mediaType === MEDIA.pdf)) return [];
   const v = readVersionData(db, row.version, row.filing.deviceId);
   const { data } = v;
-  const lab = versionLabResults(db, row.version.id, labDeviceDataOf(v), screenVersion(v));
+  const lab = versionLabResults(db, row.version.id, labDeviceDataOf(v), { screening: screenVersion(v), screeningKey: screeningKeyOf(v) });
   const numbers = filingNumbersOf(data.device.model, data.radios.transmitters, data['use-positions'].usePositions, lab?.results?.highest ?? []);
   const report = versionReadBack(db, row.version.id, records, numbers, data.radios.antennas.map((a) => a.id)).report ?? [];
   return report.map(({ tuneUp: _t, title: _title, ...f }) => f);

@@ -5,18 +5,18 @@
  * of milliseconds to compute. The key is the SHA-256 of the engine's parsed input with the engine
  * and rule-set versions, so a cached result is exactly what a fresh computation would return.
  */
-import { createHash } from 'node:crypto';
 import type { Db } from '../../db/client';
 import type { LabData } from '../../constants/schemas/lab';
 import { CalcRangeError } from '../../calc/types';
 import { ENGINE_VERSION, RULE_SET_VERSION } from '../../calc/versions';
-import { computeLabResults, labResultsInput, labScreeningRows, type LabResults } from '../../calc/lab/lab-results';
+import { computeLabResults, labResultsInput, labScreeningRows, type LabResults, type LabResultsInputRaw } from '../../calc/lab/lab-results';
 import type { ScreeningOutput } from '../../calc/screening/screen';
 import * as labRepo from '../repos/lab-repo';
+import { LruCache, sha256Of } from './lru-cache';
 
 /** How many distinct inputs are kept (a few filings' versions being read and compared). */
 const CACHE_ENTRIES = 24;
-const cache = new Map<string, LabResults>();
+const cache = new LruCache<LabResults | { error: string }>(CACHE_ENTRIES);
 
 /** The parts of a version's device data the lab results read. */
 export interface LabDeviceData {
@@ -46,20 +46,6 @@ export interface VersionLabResults {
 export const hasLabData = (lab: LabData) =>
   lab.measurements.length + lab.liquidChecks.length + lab.systemChecks.length + lab.instruments.length + lab.components.length > 0;
 
-function cached(key: string, compute: () => LabResults): LabResults {
-  const hit = cache.get(key);
-  if (hit) {
-    // Most recently used last, so the oldest is the first key.
-    cache.delete(key);
-    cache.set(key, hit);
-    return hit;
-  }
-  const value = compute();
-  cache.set(key, value);
-  if (cache.size > CACHE_ENTRIES) cache.delete(cache.keys().next().value!);
-  return value;
-}
-
 /** Forgets every cached result (tests and benchmarks time a cold computation with it). */
 export function clearLabResultsCache(): void {
   cache.clear();
@@ -71,7 +57,14 @@ export function clearLabResultsCache(): void {
  * either. With no lab data at all it still evaluates co-transmission from screening (a
  * combination of exempt transmitters is summed from their estimated SAR).
  */
-export function versionLabResults(db: Db, versionId: number, device: LabDeviceData, screening: ScreeningOutput | null, lab: LabData = labRepo.readLabData(db, versionId)): VersionLabResults | null {
+export function versionLabResults(
+  db: Db,
+  versionId: number,
+  device: LabDeviceData,
+  /** The version's screening and the key of its input (the same input gives the same rows). */
+  { screening, screeningKey }: { screening: ScreeningOutput | null; screeningKey: string },
+  lab: LabData = labRepo.readLabData(db, versionId),
+): VersionLabResults | null {
   if (!screening && !hasLabData(lab)) return null;
   const txIds = new Set(device.transmitters.map((t) => t.id));
   const posIds = new Set(device.usePositions.map((p) => p.id));
@@ -82,32 +75,35 @@ export function versionLabResults(db: Db, versionId: number, device: LabDeviceDa
     else return true;
     return false;
   });
-  const parsed = labResultsInput.safeParse({
-    markets: device.markets,
+  const raw: LabResultsInputRaw = {
+    markets: device.markets as LabResultsInputRaw['markets'],
     transmitters: device.transmitters,
-    usePositions: device.usePositions,
+    usePositions: device.usePositions as LabResultsInputRaw['usePositions'],
     simultaneous: device.simultaneous.filter((g) => g.every((t) => txIds.has(t))),
-    screening: screening ? labScreeningRows(screening.rows) : [],
+    screening: [],
     measurements,
     liquidChecks: lab.liquidChecks,
     systemChecks: lab.systemChecks,
     instruments: lab.instruments,
     uncertainty: lab.components,
-  });
-  if (!parsed.success) {
-    const first = parsed.error.issues[0];
-    return { results: null, error: `${first.path.join('.')}: ${first.message}`, orphans, stored: lab.measurements.length };
-  }
-  const json = JSON.stringify(parsed.data);
-  const key = `${ENGINE_VERSION}|${RULE_SET_VERSION}|${createHash('sha256').update(json).digest('hex')}`;
-  try {
-    const results = cached(key, () => {
+  };
+  // The key is taken before validation: the screening rows are a pure function of the screening
+  // input (hashed instead of the 480 rows), and validating 500 rows is most of a hit's cost.
+  const key = sha256Of(ENGINE_VERSION, RULE_SET_VERSION, JSON.stringify(raw), screeningKey);
+  const results = cache.get(key, () => {
+    const parsed = labResultsInput.safeParse({ ...raw, screening: screening ? labScreeningRows(screening.rows) : [] });
+    if (!parsed.success) {
+      const first = parsed.error.issues[0];
+      return { error: `${first.path.join('.')}: ${first.message}` };
+    }
+    try {
       const { derivation: _d, ...out } = computeLabResults(parsed.data);
       return out;
-    });
-    return { results, orphans, stored: lab.measurements.length };
-  } catch (err) {
-    if (!(err instanceof CalcRangeError)) throw err;
-    return { results: null, error: err.message, orphans, stored: lab.measurements.length };
-  }
+    } catch (err) {
+      if (!(err instanceof CalcRangeError)) throw err;
+      return { error: err.message };
+    }
+  });
+  if ('error' in results) return { results: null, error: results.error, orphans, stored: lab.measurements.length };
+  return { results, orphans, stored: lab.measurements.length };
 }

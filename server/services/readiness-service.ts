@@ -19,13 +19,15 @@ import type { CoTransmissionResult, LabCheck } from '../../calc/lab/lab-results'
 import { CATEGORY_BY_ID } from '../../constants/schemas/evidence';
 import { screeningInput, type ScreeningInput } from '../../calc/screening/input';
 import { screenParsed, type ScreeningOutput } from '../../calc/screening/screen';
+import { ENGINE_VERSION, RULE_SET_VERSION } from '../../calc/versions';
 import * as filingsRepo from '../repos/filings-repo';
 import * as reviewRepo from '../repos/review-repo';
 import { listEvidence } from '../repos/evidence-repo';
 import { deviceStepOf } from './filings-service';
 import { requiredEvidence, type EvidenceFacts } from './evidence-required';
 import { currentEvidence, writtenByFieldfile } from './evidence-step';
-import { versionLabResults, type LabDeviceData, type VersionLabResults } from './lab-results-cache';
+import { LruCache, sha256Of } from './lru-cache';
+import { clearLabResultsCache, versionLabResults, type LabDeviceData, type VersionLabResults } from './lab-results-cache';
 import { filingNumbersOf, versionReadBack, type VersionReadBack } from './version-readback';
 
 export interface VersionData {
@@ -60,10 +62,32 @@ export function screeningInputOf(v: VersionData): ScreeningInput | null {
   return parsed.success ? parsed.data : null;
 }
 
+/** Screenings of recent inputs: the same input always screens the same (key: its hash and the engine's versions). */
+const screeningCache = new LruCache<ScreeningOutput>(24);
+const screeningKeys = new WeakMap<VersionData, string>();
+
+/** The hash of a version's screening input ("none" when it cannot be screened). */
+export function screeningKeyOf(v: VersionData): string {
+  let key = screeningKeys.get(v);
+  if (key === undefined) {
+    const input = screeningInputOf(v);
+    key = input ? sha256Of(ENGINE_VERSION, RULE_SET_VERSION, JSON.stringify(input)) : 'none';
+    screeningKeys.set(v, key);
+  }
+  return key;
+}
+
+/** Forgets the cached screenings and lab results (benchmarks time a cold read with it). */
+export function clearReadinessCaches(): void {
+  screeningCache.clear();
+  clearLabResultsCache();
+}
+
 /** The screening of a version's data (pure; the same engine the Screening step uses). */
 export function screenVersion(v: VersionData): ScreeningOutput | null {
   const input = screeningInputOf(v);
-  return input ? screenParsed(input) : null;
+  if (!input) return null;
+  return screeningCache.get(screeningKeyOf(v), () => screenParsed(input));
 }
 
 /**
@@ -238,7 +262,7 @@ export function feedContext(db: Db, versionId: number, v: VersionData, screening
     versionId,
     data: v,
     screening,
-    lab: () => (lab === undefined ? (lab = versionLabResults(db, versionId, labDeviceDataOf(v), screening)) : lab),
+    lab: () => (lab === undefined ? (lab = versionLabResults(db, versionId, labDeviceDataOf(v), { screening, screeningKey: screeningKeyOf(v) })) : lab),
     readBack: () => {
       if (readBack) return readBack;
       const { data } = v;

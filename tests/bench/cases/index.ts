@@ -7,9 +7,9 @@ import { screeningApiCase } from './screening-api';
 import { screeningPageCase } from './screening-page';
 import { labImportCase, labRecomputeCase } from './lab';
 import { evidenceUploadCase, readBackCase } from './evidence';
-import { compareCase, readinessCase } from './readiness';
+import { compareCachedCase, compareColdCase, readinessCase } from './readiness';
 import { exhibitPdfCase, packageBuildCase } from './package-build';
 import { healthUnderCalcCase, readsUnderCalcCase } from './calc-under-load';
 import { signInFloodCase } from './sign-in-flood';
 
-export const benchCases: BenchCase[] = [filingEvaluationCase, planeWaveProfileCase, screeningCase, screeningApiCase, screeningPageCase, labRecomputeCase, labImportCase, evidenceUploadCase, readBackCase, readinessCase, compareCase, exhibitPdfCase, packageBuildCase, healthUnderCalcCase, readsUnderCalcCase, signInFloodCase];
+export const benchCases: BenchCase[] = [filingEvaluationCase, planeWaveProfileCase, screeningCase, screeningApiCase, screeningPageCase, labRecomputeCase, labImportCase, evidenceUploadCase, readBackCase, readinessCase, compareCachedCase, compareColdCase, exhibitPdfCase, packageBuildCase, healthUnderCalcCase, readsUnderCalcCase, signInFloodCase];

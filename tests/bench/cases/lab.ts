@@ -13,7 +13,7 @@ import { computeLabResults, labResultsInput, labScreeningRows, type LabResultsIn
 import { screenDevice } from '../../../calc/screening';
 import { largeDeviceFile } from './screening-api';
 
-function measurementRows(n: number) {
+export function measurementRows(n: number) {
   const file = largeDeviceFile();
   return Array.from({ length: n }, (_, i) => {
     const tx = file.transmitters[i % file.transmitters.length];
@@ -34,6 +34,28 @@ function measurementRows(n: number) {
   });
 }
 
+/** The rows as the lab data holds them; the first `lowerPowerRows` are measured `powerOffsetDb` lower. */
+export function benchMeasurements(n: number, powerOffsetDb = 0, lowerPowerRows = 20) {
+  return measurementRows(n).map((m, i) => ({
+    id: `M${i + 1}`,
+    transmitterId: m.tx,
+    usePositionId: m.pos,
+    testPosition: `position ${i % 7}`,
+    channel: String(i),
+    frequencyHz: m.mhz * 1e6,
+    testSeparationM: m.sepMm / 1000,
+    measuredPowerDbm: m.power - (i < lowerPowerRows ? powerOffsetDb : 0),
+    sar1gWPerKg: m.sar1g,
+    sar10gWPerKg: m.sar10g,
+    driftDb: m.drift,
+    testDate: m.date,
+    peakXMm: m.peak[0],
+    peakYMm: m.peak[1],
+    liquidCheckId: 'L1',
+    systemCheckId: 'S1',
+  }));
+}
+
 function labInput(n: number): LabResultsInputRaw {
   const file = largeDeviceFile();
   const screening = screenDevice(file as never);
@@ -46,22 +68,7 @@ function labInput(n: number): LabResultsInputRaw {
       ['T2', 'T9', 'T15'],
     ],
     screening: labScreeningRows(screening.rows),
-    measurements: measurementRows(n).map((m, i) => ({
-      id: `M${i + 1}`,
-      transmitterId: m.tx,
-      usePositionId: m.pos,
-      frequencyHz: m.mhz * 1e6,
-      testSeparationM: m.sepMm / 1000,
-      measuredPowerDbm: m.power,
-      sar1gWPerKg: m.sar1g,
-      sar10gWPerKg: m.sar10g,
-      driftDb: m.drift,
-      testDate: m.date,
-      peakXMm: m.peak[0],
-      peakYMm: m.peak[1],
-      liquidCheckId: 'L1',
-      systemCheckId: 'S1',
-    })),
+    measurements: benchMeasurements(n),
     liquidChecks: [{ id: 'L1', date: '2026-11-10', frequencyHz: 1.9e9, relativePermittivity: 40.2, conductivitySPerM: 1.42 }],
     systemChecks: [{ id: 'S1', date: '2026-11-10', frequencyHz: 1.9e9, measuredSarWPerKgPerW: 40.1, targetSarWPerKgPerW: 39.7 }],
     instruments: [{ id: 'P1', kind: 'probe', calibrationDate: '2026-05-01', dueDate: '2027-05-01' }],

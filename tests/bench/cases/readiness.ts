@@ -1,120 +1,198 @@
 /**
  * Readiness and compare (targets: the checklist of a 20-transmitter × 6-position × 4-market
- * filing with 500 measurements ≤ 20 ms; the comparison of two such versions ≤ 100 ms). The
- * filing is the screening bench's; the 500 measurements, checks and co-transmission entries are
- * generated (fictional). The comparison's second version raises four tune-up powers and moves a
- * separation, so screening rows, markets and checklist items move.
+ * filing with 500 measurements ≤ 20 ms; the comparison of two such versions ≤ 100 ms).
+ *
+ * - The checklist: the pure rules (calc/readiness) on the input the server builds, whose lab part
+ *   comes from the real calc/lab `lab-results` over 500 generated measurements (so every drift,
+ *   separation, repeat and calibration check the rules read is there).
+ * - The comparison: `compareVersions` of server/services/compare-service.ts on a real SQLite file,
+ *   as GET /api/filings/:id/compare runs it: both versions read, screened, their lab results
+ *   taken, their evidence and documents read, both checklists and the comparison. Version 2
+ *   raises four tune-up powers, moves a separation and re-measures 20 rows, so screening rows,
+ *   markets, lab results and checklist items move. Timed twice: with the lab results cached per
+ *   input hash (every read after the first), and cold (the cache emptied before each call: the
+ *   first read after a change).
+ * Data is fictional.
  */
-import { evaluateReadiness, type ReadinessInput, type ReadinessLab } from '../../../calc/readiness';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { eq } from 'drizzle-orm';
+import { evaluateReadiness, type ReadinessInput } from '../../../calc/readiness';
+import { computeLabResults, labResultsInput, labScreeningRows } from '../../../calc/lab/lab-results';
 import { screenParsed, screeningInput } from '../../../calc/screening';
-import { compareSnapshots, type VersionSnapshot } from '../../../server/services/compare-service';
-import type { VersionData } from '../../../server/services/readiness-service';
+import { openDatabase, type DbHandle } from '../../../db/client';
+import { applyMigrations } from '../../../db/migrate';
+import { filingVersions, memberships, membershipRoles, users } from '../../../db/schema';
+import { zDeviceFile } from '../../../constants/schemas/device-file';
+import type { Role } from '../../../constants/schemas/roles';
+import { seedDemo } from '../../../seeds';
+import { compareVersions } from '../../../server/services/compare-service';
+import { importDeviceFile, saveStep, type FilingActor } from '../../../server/services/filings-service';
+import { replaceLabSet } from '../../../server/services/lab-service';
+import { clearReadinessCaches, labFeed } from '../../../server/services/readiness-service';
+import { startNextVersion } from '../../../server/services/review-service';
 import type { BenchCase } from '../harness';
-import { screeningBenchFiling } from './screening';
+import { benchMeasurements } from './lab';
+import { largeDeviceFile } from './screening-api';
 
-function versionData(raw = screeningBenchFiling()): VersionData {
-  const parsed = screeningInput.parse(raw);
+const SIMULTANEOUS = [
+  ['T1', 'T7'],
+  ['T2', 'T9', 'T15'],
+  ['T5', 'T17'],
+];
+const LIQUID = [{ id: 'L1', date: '2026-11-10', frequencyHz: 1.9e9, relativePermittivity: 40.2, conductivitySPerM: 1.42 }];
+const SYSTEM = [{ id: 'S1', date: '2026-11-10', frequencyHz: 1.9e9, dipoleSerial: 'D1900-7', measuredSarWPerKgPerW: 40.1, targetSarWPerKgPerW: 39.7 }];
+const INSTRUMENTS = [
+  { id: 'P1', kind: 'probe', model: 'EP-4', serial: '4471', calibrationDate: '2026-05-01', dueDate: '2027-05-01' },
+  { id: 'D1', kind: 'dae', model: 'DA-2', serial: '812', calibrationDate: '2026-05-01', dueDate: '2027-05-01' },
+];
+
+const measurements = (n: number, powerOffsetDb = 0) => benchMeasurements(n, powerOffsetDb);
+
+/** The checklist input of the bench filing, with the lab part from the real lab results. */
+function benchInput(): ReadinessInput {
+  const file = largeDeviceFile();
+  const screening = screenParsed(screeningInput.parse({ markets: file.markets, antennas: file.antennas, transmitters: file.transmitters, usePositions: file.usePositions }));
+  const { derivation: _d, ...results } = computeLabResults(
+    labResultsInput.parse({
+      markets: file.markets,
+      transmitters: file.transmitters,
+      usePositions: file.usePositions,
+      simultaneous: SIMULTANEOUS,
+      screening: labScreeningRows(screening.rows),
+      measurements: measurements(500),
+      liquidChecks: LIQUID,
+      systemChecks: SYSTEM,
+      instruments: INSTRUMENTS,
+    }),
+  );
   return {
-    data: {
-      device: { name: 'Bench handset', model: 'BH-1', applicant: 'Halden Ridge Instruments', productType: 'phone', hardwareVersion: 'EVT', firmwareVersion: '0.9' },
-      radios: {
-        antennas: parsed.antennas.map((a) => ({ id: a.id, gainDbi: a.gainDbi, location: '' })),
-        transmitters: parsed.transmitters.map((t) => ({ ...t, technology: t.technology ?? 'LTE', band: t.band ?? 'B' })),
-      },
-      'use-positions': { usePositions: parsed.usePositions },
-      markets: { markets: parsed.markets },
-    },
-    simultaneous: [
-      ['tx1', 'tx13'],
-      ['tx2', 'tx14'],
-      ['tx5', 'tx17', 'tx13'],
-    ],
+    device: { hardwareVersion: 'EVT', firmwareVersion: '0.9', ...file.device },
     unsavedSteps: [],
-  };
-}
-
-function lab(v: VersionData): ReadinessLab {
-  const txs = v.data.radios.transmitters;
-  const positions = v.data['use-positions'].usePositions;
-  const measurements = Array.from({ length: 500 }, (_, i) => {
-    const t = txs[i % txs.length];
-    const p = positions[i % positions.length];
-    return { measurementId: `M${i + 1}`, transmitterId: t.id, usePositionId: p.id, measuredPowerDbm: t.maxTuneUpPowerDbm - 0.3, tuneUpPowerDbm: t.maxTuneUpPowerDbm, testSeparationM: 0.005 };
-  });
-  const regimes = v.data.markets.markets.map((m) => m.regime);
-  return {
-    measurements,
-    highest: regimes.flatMap((regime) => (['head', 'body-worn', 'hotspot', 'extremity'] as const).map((usePositionKind, k) => ({ regime, usePositionKind, reportedSarWPerKg: 0.4 + k * 0.2, limitWPerKg: 1.6, transmitterId: 'tx1', usePositionId: 'pos1' }))),
-    checks: Array.from({ length: 120 }, (_, i) => ({ kind: 'liquid' as const, ok: i % 40 !== 0, label: `Check ${i + 1}` })),
-    coTransmission: v.simultaneous.flatMap((g) => positions.flatMap((p) => regimes.map((regime) => ({ transmitterIds: g, usePositionId: p.id, regime, status: 'within-limit' as const })))),
-    uncertainty: { required: true, given: true },
-  };
-}
-
-function input(v: VersionData): { input: ReadinessInput; screening: ReturnType<typeof screenParsed> } {
-  const screening = screenParsed(screeningInput.parse({ markets: v.data.markets.markets, antennas: v.data.radios.antennas, transmitters: v.data.radios.transmitters, usePositions: v.data['use-positions'].usePositions }));
-  return {
-    screening,
-    input: {
-      device: v.data.device,
-      unsavedSteps: [],
-      antennaIds: v.data.radios.antennas.map((a) => a.id),
-      transmitters: v.data.radios.transmitters,
-      usePositions: v.data['use-positions'].usePositions,
-      regimes: v.data.markets.markets.map((m) => m.regime),
-      simultaneous: v.simultaneous,
-      screening: { rows: screening.rows, gaps: screening.gaps },
-      lab: lab(v),
-      evidence: { required: Array.from({ length: 12 }, (_, i) => ({ category: `c${i}`, label: `Category ${i}`, present: i !== 7 })) },
-      reportTuneUps: v.data.radios.transmitters.map((t) => ({ transmitterId: t.id, reportTuneUpPowerDbm: t.maxTuneUpPowerDbm, where: 'p. 3', explained: false })),
-      reportFindings: [],
-      manualSeparations: v.data['use-positions'].usePositions.map((p) => ({ usePositionId: p.id, statedSeparationM: 0.01 })),
-      hotspotEdges: null,
-    },
+    antennaIds: file.antennas.map((a) => a.id),
+    transmitters: file.transmitters,
+    usePositions: file.usePositions,
+    regimes: file.markets.map((m) => m.regime as 'fcc'),
+    simultaneous: SIMULTANEOUS,
+    screening: { rows: screening.rows, gaps: screening.gaps },
+    lab: labFeed({ results, orphans: [], stored: 500 }),
+    evidence: { required: Array.from({ length: 12 }, (_, i) => ({ category: `c${i}`, label: `Category ${i}`, present: i !== 7 })) },
+    reportTuneUps: file.transmitters.map((t) => ({ transmitterId: t.id, reportTuneUpPowerDbm: t.maxTuneUpPowerDbm, where: 'p. 3', explained: false })),
+    reportFindings: [{ kind: 'separation', text: 'Report page 4 gives a head separation of 5 mm.', explained: false }],
+    manualSeparations: file.usePositions.map((p) => ({ usePositionId: p.id, statedSeparationM: 0.01 })),
+    hotspotEdges: file.antennas.flatMap((a, i) => ['top', 'left'].map((edge, j) => ({ edge, antennaId: a.id, distanceM: 0.006 * (i + j + 1) }))),
   };
 }
 
 const summary: string[] = [];
 
 export const readinessCase: BenchCase = {
-  name: 'readiness checklist: 20 tx × 6 positions × 4 markets, 500 measurements',
+  name: 'readiness checklist (pure rules): 20 tx × 6 positions × 4 markets, 500 measurements',
   targetMs: 20,
   warmupIterations: 20,
   iterations: 200,
   prepare() {
-    const { input: inp, screening } = input(versionData());
+    const inp = benchInput();
     const list = evaluateReadiness(inp);
     summary.length = 0;
-    summary.push(`${screening.rows.length} screening rows, ${inp.lab!.measurements.length} measurements; ${list.items.length} items: ${JSON.stringify(list.counts)}`);
+    summary.push(
+      `${inp.screening!.rows.length} screening rows, ${inp.lab!.measurements.length} measurements, ${inp.lab!.checks.length} lab checks, ${inp.lab!.coTransmission.length} co-transmission sums; ${list.items.length} items: ${JSON.stringify(list.counts)}`,
+    );
     return () => evaluateReadiness(inp);
   },
   describe: () => summary,
 };
 
-function snapshot(number: number, v: VersionData): VersionSnapshot {
-  const { input: inp, screening } = input(v);
-  return { number, state: number === 1 ? 'signed' : 'draft', data: v, screening, checklist: evaluateReadiness(inp), lab: inp.lab };
+// ---------------------------------------------------------------------------------------------
+// The comparison, from the database.
+
+interface CompareFixture {
+  handle: DbHandle;
+  dir: string;
+  actor: FilingActor;
+  filingId: number;
+}
+
+function actorFor(handle: DbHandle, email: string): FilingActor {
+  const db = handle.db;
+  const m = db.select({ id: users.id, organisationId: memberships.organisationId, membershipId: memberships.id }).from(users).innerJoin(memberships, eq(memberships.userId, users.id)).where(eq(users.email, email)).get()!;
+  const roles = db.select({ role: membershipRoles.role }).from(membershipRoles).where(eq(membershipRoles.membershipId, m.membershipId)).all().map((r) => r.role as Role);
+  return { id: m.id, organisationId: m.organisationId, roles };
+}
+
+/** One filing, version 1 signed and version 2 changed. */
+async function compareFixture(): Promise<CompareFixture> {
+  {
+    const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'fieldfile-bench-'));
+    const handle = openDatabase(path.join(dir, 'fieldfile.db'));
+    applyMigrations(handle.db);
+    await seedDemo(handle.db, 'bench-password-123');
+    const db = handle.db;
+    const specialist = actorFor(handle, 'specialist@fieldfile.test');
+    const engineer = actorFor(handle, 'engineer@fieldfile.test');
+    const file = zDeviceFile.parse({ ...largeDeviceFile(), simultaneous: SIMULTANEOUS });
+    const filingId = importDeviceFile(db, specialist, file).id;
+    replaceLabSet(db, engineer, filingId, 'liquid-checks', { liquidChecks: LIQUID });
+    replaceLabSet(db, engineer, filingId, 'system-checks', { systemChecks: SYSTEM });
+    replaceLabSet(db, engineer, filingId, 'instruments', { instruments: INSTRUMENTS });
+    replaceLabSet(db, engineer, filingId, 'measurements', { measurements: measurements(500) });
+    // Signed without the review flow (this filing is not ready): the bench only reads it.
+    db.update(filingVersions).set({ state: 'signed' }).where(eq(filingVersions.filingId, filingId)).run();
+    startNextVersion(db, specialist, filingId);
+    const radios = { antennas: file.antennas, transmitters: file.transmitters.map((t, i) => (i < 4 ? { ...t, maxTuneUpPowerDbm: t.maxTuneUpPowerDbm + 3 } : t)) };
+    const usePositions = file.usePositions.map((p, i) => (i === 1 ? { ...p, separations: p.separations.map((s, j) => (j === 0 ? { ...s, separationM: 0.015 } : s)) } : p));
+    for (const [step, body] of [
+      ['radios', radios],
+      ['use-positions', { usePositions }],
+    ] as const) {
+      const saved = saveStep(db, specialist, filingId, step, body);
+      if (!saved.saved) throw new Error(`bench: the ${step} step did not save`);
+    }
+    replaceLabSet(db, engineer, filingId, 'measurements', { measurements: measurements(500, 0.4) });
+    return { handle, dir, actor: specialist, filingId };
+  }
 }
 
 const compareSummary: string[] = [];
 
-export const compareCase: BenchCase = {
-  name: 'compare two versions: 20 tx × 6 positions × 4 markets each',
-  targetMs: 100,
-  warmupIterations: 10,
-  iterations: 100,
-  prepare() {
-    const va = versionData();
-    const raw = screeningBenchFiling();
-    raw.transmitters.slice(0, 4).forEach((t) => (t.maxTuneUpPowerDbm = (t.maxTuneUpPowerDbm ?? 0) + 3));
-    raw.usePositions[1].separations[0].separationM = 0.015;
-    const vb = versionData(raw);
-    // Timed from each version's data: both screenings, both checklists and the comparison.
-    const run = () => compareSnapshots(1, snapshot(1, va), snapshot(2, vb));
-    const c = run();
-    compareSummary.length = 0;
-    compareSummary.push(`${c.fields.length} changed fields; moved: ${c.impact.screening.length} screening rows, ${c.impact.checklist.length} checklist items, ${c.impact.markets.length} markets`);
-    return run;
-  },
-  describe: () => compareSummary,
-};
+function compareCase(cold: boolean): BenchCase {
+  let release: (() => void) | undefined;
+  let cpuNote = '';
+  return {
+    name: `compare two versions from SQLite (compare-service), 20 tx × 6 positions × 4 markets, 500 measurements each; screening and lab results ${cold ? 'computed (caches emptied each call)' : 'cached per input hash'}`,
+    targetMs: 100,
+    warmupIterations: cold ? 3 : 10,
+    iterations: cold ? 30 : 100,
+    async prepare() {
+      const f = await compareFixture();
+      release = () => {
+        f.handle.sqlite.close();
+        fs.rmSync(f.dir, { recursive: true, force: true });
+      };
+      const run = () => {
+        if (cold) clearReadinessCaches();
+        return compareVersions(f.handle.db, f.actor, f.filingId, 1, 2);
+      };
+      const c = run();
+      if (!cold) {
+        compareSummary.length = 0;
+        compareSummary.push(
+          `${c.fields.length} changed fields; moved: ${c.impact.screening.length} screening rows, ${c.impact.checklist.length} checklist items, ${c.impact.markets.length} markets, ${c.impact.lab.length} highest reported SAR`,
+        );
+      }
+      // CPU time per call (user + system), which a busy machine inflates less than the wall clock.
+      const n = cold ? 10 : 30;
+      const cpu0 = process.cpuUsage();
+      for (let i = 0; i < n; i++) run();
+      const cpu = process.cpuUsage(cpu0);
+      cpuNote = `CPU time per call: ${((cpu.user + cpu.system) / 1000 / n).toFixed(1)} ms (mean of ${n})`;
+      return run;
+    },
+    teardown: () => release?.(),
+    describe: () => [cpuNote, ...(cold ? [] : compareSummary)],
+  };
+}
+
+export const compareCachedCase = compareCase(false);
+export const compareColdCase = compareCase(true);
