@@ -116,7 +116,8 @@ describe('signing with a password', () => {
     renderWithClient(<SignAction filingId={3} review={review('in-review', ['sign', 'return', 'comment', 'reply'])} ready />);
     fireEvent.changeText(screen.getByTestId('sign-password'), 'not my password');
     fireEvent.press(screen.getByTestId('sign-version'));
-    expect(await screen.findByTestId('sign-password-error')).toHaveTextContent('That password is not right.');
+    // The first press of a cold run loads the mutation's modules: give the answer time on a loaded machine.
+    expect(await screen.findByTestId('sign-password-error', {}, { timeout: 15_000 })).toHaveTextContent('That password is not right.');
     expect(screen.queryByTestId('sign-error')).toBeNull();
     expect(isSessionExpired()).toBe(false);
   });

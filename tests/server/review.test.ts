@@ -55,12 +55,11 @@ const versionId = (filingId: number, number = 1) =>
 beforeAll(async () => {
   t = await createTestApp();
   await seedUsers(t);
-  [admin, specialist, engineer, approver] = await Promise.all([
-    signIn(t, 'admin@fieldfile.test'),
-    signIn(t, 'specialist@fieldfile.test'),
-    signIn(t, 'engineer@fieldfile.test'),
-    signIn(t, 'approver@fieldfile.test'),
-  ]);
+  // One after another: sign-in answers 429 to attempts from one address that overlap.
+  admin = await signIn(t, 'admin@fieldfile.test');
+  specialist = await signIn(t, 'specialist@fieldfile.test');
+  engineer = await signIn(t, 'engineer@fieldfile.test');
+  approver = await signIn(t, 'approver@fieldfile.test');
   approver2 = await addPerson('second.approver@fieldfile.test', 'Ines Okafor', ['approver']);
   dual = await addPerson('dual.role@fieldfile.test', 'Tomas Reyes', ['specialist', 'approver']);
 }, 60_000);
