@@ -5,6 +5,7 @@
  * of milliseconds to compute. The key is the SHA-256 of the engine's parsed input with the engine
  * and rule-set versions, so a cached result is exactly what a fresh computation would return.
  */
+import { createHash } from 'node:crypto';
 import type { Db } from '../../db/client';
 import type { LabData } from '../../constants/schemas/lab';
 import { CalcRangeError } from '../../calc/types';
@@ -12,11 +13,11 @@ import { ENGINE_VERSION, RULE_SET_VERSION } from '../../calc/versions';
 import { computeLabResults, labResultsInput, labScreeningRows, type LabResults, type LabResultsInputRaw } from '../../calc/lab/lab-results';
 import type { ScreeningOutput } from '../../calc/screening/screen';
 import * as labRepo from '../repos/lab-repo';
-import { LruCache, sha256Of } from './lru-cache';
+import { ByteLru } from './result-cache';
 
-/** How many distinct inputs are kept (a few filings' versions being read and compared). */
+/** How many distinct inputs are kept (a few filings' versions being read and compared); each counts as one. */
 const CACHE_ENTRIES = 24;
-const cache = new LruCache<LabResults | { error: string }>(CACHE_ENTRIES);
+const cache = new ByteLru<LabResults | { error: string }>(CACHE_ENTRIES, () => 1);
 
 /** The parts of a version's device data the lab results read. */
 export interface LabDeviceData {
@@ -89,8 +90,9 @@ export function versionLabResults(
   };
   // The key is taken before validation: the screening rows are a pure function of the screening
   // input (hashed instead of the 480 rows), and validating 500 rows is most of a hit's cost.
-  const key = sha256Of(ENGINE_VERSION, RULE_SET_VERSION, JSON.stringify(raw), screeningKey);
-  const results = cache.get(key, () => {
+  const key = createHash('sha256').update(`${ENGINE_VERSION}\u0000${RULE_SET_VERSION}\u0000${screeningKey}\u0000`).update(JSON.stringify(raw)).digest('hex');
+  const results = cache.get(key) ?? cache.set(key, compute());
+  function compute(): LabResults | { error: string } {
     const parsed = labResultsInput.safeParse({ ...raw, screening: screening ? labScreeningRows(screening.rows) : [] });
     if (!parsed.success) {
       const first = parsed.error.issues[0];
@@ -103,7 +105,7 @@ export function versionLabResults(
       if (!(err instanceof CalcRangeError)) throw err;
       return { error: err.message };
     }
-  });
+  }
   if ('error' in results) return { results: null, error: results.error, orphans, stored: lab.measurements.length };
   return { results, orphans, stored: lab.measurements.length };
 }

@@ -3,6 +3,7 @@
  * its screening, its lab results, its evidence and what its documents say — turned into the pure
  * rules' input (calc/readiness), evaluated on every read.
  */
+import { createHash } from 'node:crypto';
 import type { Db } from '../../db/client';
 import type { DataStep, FilingDetail } from '../../constants/schemas/filings';
 import {
@@ -26,7 +27,7 @@ import { listEvidence } from '../repos/evidence-repo';
 import { deviceStepOf } from './filings-service';
 import { requiredEvidence, type EvidenceFacts } from './evidence-required';
 import { currentEvidence, writtenByFieldfile } from './evidence-step';
-import { LruCache, sha256Of } from './lru-cache';
+import { ByteLru } from './result-cache';
 import { clearLabResultsCache, versionLabResults, type LabDeviceData, type VersionLabResults } from './lab-results-cache';
 import { filingNumbersOf, versionReadBack, type VersionReadBack } from './version-readback';
 
@@ -63,7 +64,7 @@ export function screeningInputOf(v: VersionData): ScreeningInput | null {
 }
 
 /** Screenings of recent inputs: the same input always screens the same (key: its hash and the engine's versions). */
-const screeningCache = new LruCache<ScreeningOutput>(24);
+const screeningCache = new ByteLru<ScreeningOutput>(24, () => 1);
 const screeningKeys = new WeakMap<VersionData, string>();
 
 /** The hash of a version's screening input ("none" when it cannot be screened). */
@@ -71,7 +72,7 @@ export function screeningKeyOf(v: VersionData): string {
   let key = screeningKeys.get(v);
   if (key === undefined) {
     const input = screeningInputOf(v);
-    key = input ? sha256Of(ENGINE_VERSION, RULE_SET_VERSION, JSON.stringify(input)) : 'none';
+    key = input ? createHash('sha256').update(`${ENGINE_VERSION}\u0000${RULE_SET_VERSION}\u0000${JSON.stringify(input)}`).digest('hex') : 'none';
     screeningKeys.set(v, key);
   }
   return key;
@@ -87,7 +88,8 @@ export function clearReadinessCaches(): void {
 export function screenVersion(v: VersionData): ScreeningOutput | null {
   const input = screeningInputOf(v);
   if (!input) return null;
-  return screeningCache.get(screeningKeyOf(v), () => screenParsed(input));
+  const key = screeningKeyOf(v);
+  return screeningCache.get(key) ?? screeningCache.set(key, screenParsed(input));
 }
 
 /**

@@ -38,6 +38,11 @@ export class ByteLru<V> {
     return value;
   }
 
+  clear(): void {
+    this.entries.clear();
+    this.total = 0;
+  }
+
   get sizeBytes() {
     return this.total;
   }

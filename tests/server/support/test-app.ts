@@ -73,12 +73,19 @@ export function seedUsers(t: TestApp) {
   return seedDemo(t.handle.db, TEST_PASSWORD);
 }
 
-/** A supertest agent (keeps cookies) signed in as the given user. */
+/**
+ * A supertest agent (keeps cookies) signed in as the given user. Tests sign several people in at
+ * once from one address; the sign-in guard queues only a few per address and answers the rest
+ * 429 "busy" with Retry-After, so this waits and tries again, as a browser's user would.
+ */
 export async function signIn(t: TestApp, email: string, password = TEST_PASSWORD) {
   const agent = request.agent(t.app);
-  const res = await agent.post('/api/auth/login').send({ email, password });
-  if (res.status !== 200) throw new Error(`sign-in as ${email} failed: ${res.status} ${JSON.stringify(res.body)}`);
-  return agent;
+  for (let attempt = 0; ; attempt++) {
+    const res = await agent.post('/api/auth/login').send({ email, password });
+    if (res.status === 200) return agent;
+    if (res.status !== 429 || res.body?.error?.code !== 'busy' || attempt >= 20) throw new Error(`sign-in as ${email} failed: ${res.status} ${JSON.stringify(res.body)}`);
+    await new Promise((r) => setTimeout(r, 100 * (attempt + 1)));
+  }
 }
 
 /** A second, fictional organisation with its own admin and specialist and one filing, to prove organisations are sealed. */
