@@ -19,7 +19,7 @@ async function main() {
   const handle = openDatabase(path.join(outDir, 'bench.db'));
   const organisationId = (handle.sqlite.prepare('select id from organisations order by id limit 1').get() as { id: number }).id;
   const sources = {
-    evidence: () => list.map((e) => ({ ...e, categoryId: e.category, title: e.fileName, uploadedAt: '2026-11-30T14:05:00.000Z', open: () => fs.createReadStream(e.path, { highWaterMark: 1 << 20 }) })),
+    evidence: () => list.map((e) => ({ ...e, categoryId: e.category, title: e.fileName, uploadedAt: '2026-11-30T14:05:00.000Z', open: () => fs.createReadStream(e.path) })),
   };
   const storage = createLocalDiskStorage(path.join(outDir, 'packages'));
   const rssBeforeMb = process.memoryUsage().rss / 1048576;
