@@ -12,8 +12,11 @@ import { Readable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
 import { ZipArchive } from 'archiver';
 import { renderInChild, type ExhibitDocument } from '../jobs/exhibit-render';
+import { useNativeCrc32 } from './zip-crc32';
 import { labCsv, screeningCsv } from '../../templates/exhibit/csv';
 import type { AssembledExhibit } from './exhibit-service';
+
+useNativeCrc32();
 
 export const PACKAGE_FORMAT = 'fieldfile.package/1';
 const FILE_MODE = 0o644;
@@ -150,7 +153,18 @@ export async function buildPackage(a: AssembledExhibit, sink: ZipSink, opts: Bui
   // A sink that fails (a short evidence file, a full disk) stops the renderers too.
   const abort = new AbortController();
   written.catch((err: unknown) => abort.abort(err));
-  for (const e of a.evidence) zip.append(evidenceStream(e, onBytes), entry(e.path));
+  // One evidence file at a time: archiver starts reading a stream as soon as it is appended, so
+  // the next file is appended only when the zip has taken the one before.
+  const pending = [...a.evidence];
+  const evidenceQueued = new Promise<void>((resolve) => {
+    const next = () => {
+      const e = pending.shift();
+      if (!e) return resolve();
+      zip.append(evidenceStream(e, onBytes), entry(e.path));
+      zip.once('entry', next);
+    };
+    next();
+  });
 
   let pdf: { bytes: Buffer; maxRssMb?: number };
   let docx: { bytes: Buffer; maxRssMb?: number };
@@ -193,6 +207,7 @@ export async function buildPackage(a: AssembledExhibit, sink: ZipSink, opts: Bui
   };
   const manifestJson = Buffer.from(`${JSON.stringify(manifest, null, 2)}\n`);
 
+  await Promise.race([evidenceQueued, written]);
   for (const g of generated) zip.append(g.data, entry(g.path));
   zip.append(manifestJson, entry('manifest.json'));
   void zip.finalize().catch((e) => zip.destroy(e));

@@ -69,7 +69,8 @@ async function download(agent: Agent, filingId: number, n: number) {
 }
 
 async function checkAgainstManifest(zipBytes: Buffer) {
-  const zip = await JSZip.loadAsync(zipBytes);
+  // checkCRC32: every entry's CRC-32 as the zip states it (archiver's, taken natively) is right.
+  const zip = await JSZip.loadAsync(zipBytes, { checkCRC32: true });
   const manifest = JSON.parse(await zip.file('manifest.json')!.async('string'));
   const names = Object.keys(zip.files).filter((n) => !zip.files[n].dir);
   expect(names.sort()).toEqual(['manifest.json', ...manifest.files.map((f: { path: string }) => f.path)].sort());

@@ -1,8 +1,10 @@
 /**
  * Issue 11's targets for the submission package, measured in one run on the same files:
  * - building the demo filing's package with 200 generated evidence files is at most 1.2 × the
- *   time of `zip -0 -r` over the same files (the bench prints the ratio);
- * - the build process's peak RSS stays under 150 MB;
+ *   time of `zip -0 -r` over the same files (the bench prints the ratio; the build also hashes the
+ *   whole zip with SHA-256 and fsyncs it before it is visible, which zip does not);
+ * - the build process's peak RSS stays under 150 MB (printed with the part that is the runtime
+ *   and modules before the build; the exhibit renders in child processes, printed apart);
  * - the demo filing's PDF exhibit renders in under 2 s (its own case, below).
  * The evidence totals FIELDFILE_BENCH_PACKAGE_MB megabytes (default 256, so the bench stays
  * cheap on a shared machine; set it to 1024 for the issue's 1 GB case). 180 of the files are
@@ -61,7 +63,7 @@ export const packageBuildCase: BenchCase = {
   targetMs: 600_000,
   warmupIterations: 0,
   iterations: 1,
-  prepare() {
+  async prepare() {
     if (spawnSync('zip', ['-v']).status !== 0) return 'zip is not installed (apt-get install zip)';
     const totalMb = Number(process.env.FIELDFILE_BENCH_PACKAGE_MB ?? 256);
     dir = fs.mkdtempSync(path.join(os.tmpdir(), 'fieldfile-bench-package-'));
@@ -69,14 +71,21 @@ export const packageBuildCase: BenchCase = {
     const listFile = path.join(dir, 'evidence.json');
     fs.writeFileSync(listFile, JSON.stringify(list));
     const totalBytes = list.reduce((s, e) => s + e.sizeBytes, 0);
+    // The demo database is seeded here, so the build process does nothing but the build.
+    const seededDb = path.join(dir, 'seeded.db');
+    const handle = openDatabase(seededDb);
+    applyMigrations(handle.db);
+    await seedDemo(handle.db, 'bench-password-123');
+    handle.sqlite.close();
     return () => {
       // Page cache warm for both: read once before timing either.
       spawnSync('cat', list.map((e) => e.path), { stdio: ['ignore', 'ignore', 'ignore'] });
       const out = path.join(dir, 'out');
       fs.mkdirSync(out, { recursive: true });
-      const build = spawnSync(process.execPath, ['--import', 'tsx', path.join(ROOT, 'tests/bench/package-build-child.ts'), listFile, out], { cwd: ROOT, encoding: 'utf8' });
+      // Started the way the server runs (tsx as the loader), so its RSS is comparable.
+      const build = spawnSync(process.execPath, ['--import', 'tsx', path.join(ROOT, 'tests/bench/package-build-child.ts'), listFile, out, seededDb], { cwd: ROOT, encoding: 'utf8' });
       if (build.status !== 0) throw new Error(build.stderr);
-      const result = JSON.parse(build.stdout.trim().split('\n').pop()!) as { ms: number; sizeBytes: number; maxRssMb: number };
+      const result = JSON.parse(build.stdout.trim().split('\n').pop()!) as { ms: number; sizeBytes: number; maxRssMb: number; rssBeforeMb: number; renderMaxRssMb: number };
       const t0 = process.hrtime.bigint();
       const zip = spawnSync('zip', ['-0', '-r', '-q', path.join(dir, 'plain.zip'), 'evidence'], { cwd: dir });
       const zipMs = Number(process.hrtime.bigint() - t0) / 1e6;
@@ -86,7 +95,8 @@ export const packageBuildCase: BenchCase = {
         `evidence: ${FILES} files, ${(totalBytes / 1048576).toFixed(0)} MB (FIELDFILE_BENCH_PACKAGE_MB=${totalMb}); package ${(result.sizeBytes / 1048576).toFixed(0)} MB`,
         `build (exhibit PDF + DOCX + CSV + zip into byte storage, hashed and fsynced): ${(result.ms / 1000).toFixed(2)} s; zip -0 -r on the same files: ${(zipMs / 1000).toFixed(2)} s`,
         `${ratio <= RATIO_TARGET ? 'OK  ' : 'SLOW'}  ratio build / zip -0 -r = ${ratio.toFixed(2)} (target ≤ ${RATIO_TARGET})`,
-        `${result.maxRssMb < RSS_TARGET_MB ? 'OK  ' : 'OVER'}  peak RSS of the build process: ${result.maxRssMb.toFixed(0)} MB (target < ${RSS_TARGET_MB} MB)`,
+        `${result.maxRssMb < RSS_TARGET_MB ? 'OK  ' : 'OVER'}  peak RSS of the build process: ${result.maxRssMb.toFixed(0)} MB (target < ${RSS_TARGET_MB} MB); ${result.rssBeforeMb.toFixed(0)} MB of it before the build began (Node, tsx and the app's modules), so the build adds ${(result.maxRssMb - result.rssBeforeMb).toFixed(0)} MB`,
+        `${result.renderMaxRssMb < RSS_TARGET_MB ? 'OK  ' : 'OVER'}  peak RSS of the exhibit render processes (PDF, then DOCX; separate from the server): ${result.renderMaxRssMb.toFixed(0)} MB`,
       ];
     };
   },
@@ -99,7 +109,7 @@ export const packageBuildCase: BenchCase = {
 let pdfCleanup: (() => void) | undefined;
 
 export const exhibitPdfCase: BenchCase = {
-  name: 'demo filing exhibit PDF (about 50 pages, fonts embedded)',
+  name: 'demo filing exhibit PDF (about 45 pages with its lab results, fonts embedded)',
   targetMs: 2000,
   warmupIterations: 1,
   iterations: 5,
