@@ -10,8 +10,8 @@ export default function AuthLayout() {
   const session = useSessionQuery();
   const segments = useSegments();
   const { next } = useGlobalSearchParams<{ next?: string }>();
-  // The set-password screen handles a signed-in visitor itself (it may be someone else's link).
-  const onSetPassword = segments[segments.length - 1] === 'set-password';
+  // The set-password and reset screens handle a signed-in visitor themselves (it may be someone else's link).
+  const onSetPassword = ['set-password', 'reset-password'].includes(segments[segments.length - 1]);
 
   if (session.isPending) return <Splash />;
   if (session.isError && !onSetPassword) {

@@ -8,7 +8,7 @@ import { View } from 'react-native';
 import type { z } from 'zod';
 import { useMemo } from 'react';
 import { zSetPasswordFormFor } from '../../constants/schemas/auth';
-import { PASSWORD_MIN } from '../../constants/schemas/limits';
+import { NEW_PASSWORD_HINT } from '../../constants/schemas/password-policy';
 import { space } from '../../constants/theme';
 import { useSetPasswordMutation } from '../../hooks/queries/password-token';
 import { applyServerErrors } from '../../hooks/use-server-errors';
@@ -56,7 +56,7 @@ export function SetPasswordForm({
         control={control}
         name="password"
         label="New password"
-        hint={`At least ${PASSWORD_MIN} characters, and not easy to guess. A few unrelated words make a strong one.`}
+        hint={NEW_PASSWORD_HINT}
         testID="set-password-password"
         autoComplete="new-password"
         secureTextEntry

@@ -1,6 +1,10 @@
-/** E-mail and password, checked with the shared zLogin schema; server problems shown inline. */
+/**
+ * E-mail and password, checked with the shared zLogin schema; server problems shown inline (a
+ * 429 says when to try again). "Forgot your password?" carries the typed e-mail along.
+ */
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useForm } from 'react-hook-form';
+import { Link } from 'expo-router';
+import { useForm, useWatch } from 'react-hook-form';
 import { View } from 'react-native';
 import type { z } from 'zod';
 import { zLogin } from '../../constants/schemas/auth';
@@ -10,6 +14,7 @@ import { applyServerErrors } from '../../hooks/use-server-errors';
 import { Button } from '../ui/button';
 import { Notice } from '../ui/notice';
 import { FormTextField } from '../ui/text-field';
+import { Text } from '../ui/text';
 
 type LoginIn = z.input<typeof zLogin>;
 type LoginOut = z.output<typeof zLogin>;
@@ -20,6 +25,8 @@ export function SignInForm({ initialEmail = '', onSignedIn, keepScreen }: { init
     resolver: zodResolver(zLogin),
     defaultValues: { email: initialEmail, password: '' },
   });
+
+  const typedEmail = useWatch({ control, name: 'email' })?.trim() ?? '';
 
   const onSubmit = handleSubmit(async (values) => {
     try {
@@ -56,6 +63,13 @@ export function SignInForm({ initialEmail = '', onSignedIn, keepScreen }: { init
         autoFocus={!!initialEmail}
         onSubmitEditing={onSubmit}
       />
+      {keepScreen ? null : (
+        <Link href={{ pathname: '/forgot-password', params: typedEmail ? { email: typedEmail } : {} }} testID="forgot-password-link" style={{ alignSelf: 'flex-start', marginTop: -space.sm }}>
+          <Text variant="smallStrong" tone="accent">
+            Forgot your password?
+          </Text>
+        </Link>
+      )}
       {rootError ? (
         <Notice tone="error" testID="sign-in-error">
           {rootError}

@@ -1,10 +1,11 @@
-/** Profile: who you are signed in as, where, with which roles; sign out. */
+/** Profile: who you are signed in as, where, with which roles; change your password; sign out. */
 import { StyleSheet, View } from 'react-native';
 import { ROLE_ABILITIES } from '../../constants/copy';
 import { ROLE_LABELS } from '../../constants/schemas/roles';
 import { palette, space } from '../../constants/theme';
 import { asProblem } from '../../hooks/api-client';
 import { useCurrentUser, useLogoutMutation } from '../../hooks/queries/session';
+import { ChangePasswordForm } from '../auth/change-password-form';
 import { Initials } from '../layout/app-shell';
 import { Screen } from '../layout/screen';
 import { Button } from '../ui/button';
@@ -45,6 +46,9 @@ export function ProfileScreen() {
         <Text variant="small" tone="muted">
           Roles are given by your organisation’s admin.
         </Text>
+      </Card>
+      <Card title="Password" testID="profile-password">
+        <ChangePasswordForm email={user.email} name={user.name} />
       </Card>
       {logout.isError ? <Notice tone="error">{asProblem(logout.error).message}</Notice> : null}
       <Button label="Sign out" icon="signOut" variant="secondary" busy={logout.isPending} busyLabel="Signing out…" onPress={() => logout.mutate()} testID="sign-out" style={{ alignSelf: 'flex-start' }} />

@@ -1,6 +1,7 @@
 /**
- * Opened from an invitation mail: says who the link is for, then sets their password, or, for an
- * existing account invited into another organisation, accepts with the account's password.
+ * Opened from an invitation or a password-reset mail (/set-password, /reset-password): says who
+ * the link is for, then sets their password, or, for an existing account invited into another
+ * organisation, accepts with the account's password.
  */
 import { Link, useLocalSearchParams, useRouter } from 'expo-router';
 import { View } from 'react-native';
@@ -25,13 +26,14 @@ export function SetPasswordScreen() {
   const logout = useLogoutMutation();
   const signedInAs = session.data?.user;
 
-  const done = (email: string) => router.replace({ pathname: '/login', params: { email, notice: 'password-set' } });
+  const resetting = owner.data?.purpose === 'reset';
+  const done = (email: string) => router.replace({ pathname: '/login', params: { email, notice: resetting ? 'password-reset' : 'password-set' } });
   const joined = (email: string) => router.replace({ pathname: '/login', params: { email, notice: 'invitation-accepted' } });
   const joining = owner.data?.existingAccount === true;
 
   let body: React.ReactNode;
   if (!token) {
-    body = <Notice tone="error" title="This link is incomplete">Open the link from your invitation e-mail again, or ask your admin to send a new one.</Notice>;
+    body = <Notice tone="error" title="This link is incomplete">Open the link from your e-mail again, or ask for a new one.</Notice>;
   } else if (owner.isPending) {
     body = <Loading label="Checking your link…" />;
   } else if (owner.isError) {
@@ -42,7 +44,7 @@ export function SetPasswordScreen() {
           {problem.message}
         </Notice>
       ) : (
-        <LoadFailed what="your invitation" error={owner.error} onRetry={() => void owner.refetch()} />
+        <LoadFailed what="your link" error={owner.error} onRetry={() => void owner.refetch()} />
       );
   } else if (signedInAs && signedInAs.email !== owner.data.email) {
     body = (
@@ -57,19 +59,28 @@ export function SetPasswordScreen() {
     body = (
       <>
         <View style={{ gap: space.xxs }} testID="set-password-owner">
-          <Text tone="soft">{joining ? `Join ${owner.data.organisationName ?? 'the organisation'} as` : 'This password is for'}</Text>
+          <Text tone="soft">{joining ? `Join ${owner.data.organisationName ?? 'the organisation'} as` : resetting ? 'A new password for' : 'This password is for'}</Text>
           <Text variant="heading">{owner.data.name}</Text>
           <Text variant="mono" tone="soft">
             {owner.data.email}
           </Text>
         </View>
-        {joining ? <AcceptInvitationForm token={token} onDone={joined} /> : <SetPasswordForm token={token} person={owner.data} onDone={done} />}
+        {resetting ? (
+          <Text variant="small" tone="soft">
+            Choosing it signs you out on every other device.
+          </Text>
+        ) : null}
+        {joining ? (
+          <AcceptInvitationForm token={token} onDone={joined} />
+        ) : (
+          <SetPasswordForm token={token} person={owner.data} submitLabel={resetting ? 'Save the new password' : 'Set password'} onDone={done} />
+        )}
       </>
     );
   }
 
   return (
-    <AuthShell title={joining ? 'Accept the invitation' : 'Set your password'}>
+    <AuthShell title={joining ? 'Accept the invitation' : resetting ? 'Choose a new password' : 'Set your password'}>
       {body}
       <Link href="/login" style={{ alignSelf: 'flex-start' }}>
         <Text variant="smallStrong" tone="accent">

@@ -9,18 +9,26 @@ import { Text } from '../ui/text';
 
 const first = (v: string | string[] | undefined) => (Array.isArray(v) ? v[0] : v);
 
+const NOTICE_TITLES: Record<string, string> = {
+  'password-set': 'Password set',
+  'password-reset': 'New password saved',
+  'invitation-accepted': 'Invitation accepted',
+};
+
 export function SignInScreen() {
   const params = useLocalSearchParams<{ email?: string; notice?: string; next?: string }>();
   const router = useRouter();
   const email = first(params.email) ?? '';
   const notice = first(params.notice);
-  const passwordSet = notice === 'password-set' || notice === 'invitation-accepted';
+  const passwordSet = notice === 'password-set' || notice === 'invitation-accepted' || notice === 'password-reset';
   const cameFromLink = !!first(params.next) && first(params.next) !== '/';
   return (
     <AuthShell title="Sign in">
       {passwordSet ? (
-        <Notice tone="success" title={notice === 'password-set' ? 'Password set' : 'Invitation accepted'} testID="password-set-notice">
-          {notice === 'password-set' ? `Sign in as ${email || 'yourself'} with your new password.` : `Sign in as ${email || 'yourself'} with your password.`}
+        <Notice tone="success" title={NOTICE_TITLES[notice ?? '']} testID="password-set-notice">
+          {notice === 'invitation-accepted'
+            ? `Sign in as ${email || 'yourself'} with your password.`
+            : `Sign in as ${email || 'yourself'} with your new password.${notice === 'password-reset' ? ' Every other session of the account was signed out.' : ''}`}
         </Notice>
       ) : cameFromLink ? (
         <Notice tone="info" testID="sign-in-needed-notice">

@@ -16,13 +16,16 @@ export const PASSWORD_CHECKED_CHARS = 48;
 /** A word every Fieldfile password is checked against, as if the person had used it themselves. */
 const PRODUCT_WORDS = ['fieldfile'];
 
+/** What the new-password fields say under themselves. */
+export const NEW_PASSWORD_HINT = `At least ${PASSWORD_MIN} characters, and not easy to guess. A few unrelated words make a strong one.`;
+
 export const normalisePassword = (password: string): string => password.normalize('NFKC');
 
 /**
  * The person's own words an attacker would try first: the e-mail, its parts, the name's words,
  * and the name run together either way round ("miraokafor", "okaformira").
  */
-export function passwordUserInputs(person: { email?: string; name?: string }): string[] {
+export function passwordUserInputs(person: { email?: string; name?: string | readonly string[] }): string[] {
   const words = new Set(PRODUCT_WORDS);
   const add = (w: string) => {
     if (w.length >= 3) words.add(w);
@@ -34,11 +37,15 @@ export function passwordUserInputs(person: { email?: string; name?: string }): s
     const localParts = local.split(/[._+-]+/);
     [local, localParts.join(''), ...localParts, ...domain.split('.')].forEach(add);
   }
-  const names = person.name?.toLowerCase().split(/\s+/).filter(Boolean) ?? [];
-  names.forEach(add);
-  if (names.length > 1) {
-    add(names.join(''));
-    add([...names].reverse().join(''));
+  // A person may go by several names (one per organisation).
+  const names = typeof person.name === 'string' ? [person.name] : (person.name ?? []);
+  for (const name of names) {
+    const parts = name.toLowerCase().split(/\s+/).filter(Boolean);
+    parts.forEach(add);
+    if (parts.length > 1) {
+      add(parts.join(''));
+      add([...parts].reverse().join(''));
+    }
   }
   return [...words];
 }
@@ -62,7 +69,7 @@ export const loadPasswordStrength = () => import('./password-strength');
  * on the field before anything is sent (the server checks the same again). Parse it with
  * parseAsync (react-hook-form's zodResolver does).
  */
-export function zNewPasswordFor(person: { email?: string; name?: string }) {
+export function zNewPasswordFor(person: { email?: string; name?: string | readonly string[] }) {
   const inputs = passwordUserInputs(person);
   return zNewPassword.superRefine(async (password, ctx) => {
     if (password.length < PASSWORD_MIN) return; // the length message says enough

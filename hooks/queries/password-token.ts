@@ -1,6 +1,10 @@
-/** Invitation links: who a set-password link is for, and setting the password. */
+/**
+ * One's own password: who a set-password or reset link is for and setting the password from it,
+ * asking for a reset link, changing the password from the profile.
+ */
 import { useMutation, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
+import type { ForgotPasswordInput } from '../../constants/schemas/auth';
 import { apiOrThrow } from '../api-client';
 
 export const passwordTokenKeys = {
@@ -9,6 +13,8 @@ export const passwordTokenKeys = {
 };
 
 const zTokenOwner = z.object({
+  /** An invitation (first password, or joining with an existing account) or a reset. */
+  purpose: z.enum(['invitation', 'reset']).default('invitation'),
   email: z.string(),
   name: z.string(),
   /** The link joins an existing account to an organisation: confirm with its password. */
@@ -37,5 +43,23 @@ export function useAcceptInvitationMutation() {
   return useMutation({
     mutationFn: (input: { token: string; password: string }) =>
       apiOrThrow('/api/auth/accept-invitation', { method: 'POST', body: input, schema: zPasswordSet }),
+  });
+}
+
+const zResetRequested = z.object({ message: z.string() });
+
+/** "Forgot your password?": the server answers the same whether or not the address has an account. */
+export function useForgotPasswordMutation() {
+  return useMutation({
+    mutationFn: (input: ForgotPasswordInput) => apiOrThrow('/api/auth/forgot-password', { method: 'POST', body: input, schema: zResetRequested }),
+  });
+}
+
+const zPasswordChanged = z.object({ sessionsEnded: z.number() });
+
+export function useChangePasswordMutation() {
+  return useMutation({
+    mutationFn: (input: { currentPassword: string; newPassword: string }) =>
+      apiOrThrow('/api/auth/change-password', { method: 'POST', body: input, schema: zPasswordChanged }),
   });
 }

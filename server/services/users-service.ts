@@ -291,14 +291,14 @@ function liveTokenForNewPassword(db: Db, token: string) {
 }
 
 /** Throws a 422 on `field` when the password is too easy to guess for this person. */
-export function refuseGuessablePassword(password: string, person: { email: string; name?: string }, field = 'password'): void {
+export function refuseGuessablePassword(password: string, person: { email: string; name: readonly string[] }, field = 'password'): void {
   const problem = passwordStrengthProblem(password, passwordUserInputs(person));
   if (problem) throw unprocessable(problem, { [field]: problem });
 }
 
 /** The names the account goes by: its own and each organisation's, for the guessability check. */
-export function accountNames(db: Db, user: repo.UserRow): string {
-  return [user.name, ...repo.listMembershipsWithRoles(db, user.id).map((m) => m.name)].join(' ');
+export function accountNames(db: Db, user: repo.UserRow): string[] {
+  return [...new Set([user.name, ...repo.listMembershipsWithRoles(db, user.id).map((m) => m.name)])];
 }
 
 /**

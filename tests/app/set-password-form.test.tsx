@@ -28,7 +28,8 @@ describe('SetPasswordForm', () => {
     expect(screen.getByTestId('set-password-confirm-error')).toHaveTextContent('The two passwords differ.');
 
     fill('Password2024!');
-    await waitFor(() => expect(screen.getByTestId('set-password-password-error')).toHaveTextContent(/^Too easy to guess\./));
+    // The first check loads the estimator's dictionaries.
+    await waitFor(() => expect(screen.getByTestId('set-password-password-error')).toHaveTextContent(/^Too easy to guess\./), { timeout: 15_000 });
 
     fill('InesPardo2024');
     await waitFor(() => expect(screen.getByTestId('set-password-password-error')).toHaveTextContent(/^Too easy to guess\./));

@@ -62,7 +62,24 @@ describe('SignInForm', () => {
     fireEvent.press(screen.getByTestId('sign-in-submit'));
 
     await waitFor(() => expect(client.getQueryData<SessionState>(sessionKeys.me())?.user?.email).toBe('ada@fieldfile.test'));
-    expect(calls).toEqual([{ method: 'POST', path: '/api/auth/login', body: { email: 'ada@fieldfile.test', password: 'correct horse battery' } }]);
+    expect(calls).toEqual([expect.objectContaining({ method: 'POST', path: '/api/auth/login', body: { email: 'ada@fieldfile.test', password: 'correct horse battery' } })]);
     expect(screen.queryByTestId('sign-in-error')).toBeNull();
+  });
+
+  it('offers "Forgot your password?" carrying the e-mail typed so far', async () => {
+    installFetchMock({});
+    renderWithClient(<SignInForm />);
+    const link = () => screen.getByTestId('forgot-password-link');
+    expect(link()).toHaveTextContent('Forgot your password?');
+    expect(link().props.href).toBe('/forgot-password');
+
+    fireEvent.changeText(screen.getByTestId('sign-in-email'), ' ada@fieldfile.test ');
+    await waitFor(() => expect(link().props.href).toBe('/forgot-password?email=ada%40fieldfile.test'));
+  });
+
+  it('leaves the link out when signing in again over an open screen', () => {
+    installFetchMock({});
+    renderWithClient(<SignInForm keepScreen />);
+    expect(screen.queryByTestId('forgot-password-link')).toBeNull();
   });
 });

@@ -35,6 +35,44 @@ async function signIn(page: Page, email: string, password = PASSWORD) {
   await page.getByTestId('sign-in-submit').click();
 }
 
+/** A cookie-keeping client of the API, for setting the stage without clicking through it. */
+function apiClient() {
+  let cookie = '';
+  return async (method: string, path: string, body?: unknown) => {
+    const res = await fetch(`${server.baseUrl}${path}`, {
+      method,
+      headers: { ...(body ? { 'content-type': 'application/json' } : {}), ...(cookie ? { cookie } : {}) },
+      body: body ? JSON.stringify(body) : undefined,
+    });
+    const set = res.headers.get('set-cookie');
+    if (set) cookie = set.split(';')[0];
+    const text = await res.text();
+    return { status: res.status, body: text ? JSON.parse(text) : undefined };
+  };
+}
+
+/** A new member of the demo organisation with a password of their own, made through the API. */
+async function newMember(name: string, email: string, password: string) {
+  const admin = apiClient();
+  expect((await admin('POST', '/api/auth/login', { email: 'admin@fieldfile.test', password: PASSWORD })).status).toBe(200);
+  expect((await admin('POST', '/api/users', { email, name, roles: ['engineer'] })).status).toBe(201);
+  const listed = (await admin('GET', '/api/outbox')).body.messages as { id: number; to: string }[];
+  const message = (await admin('GET', `/api/outbox/${listed.find((m) => m.to.includes(email))!.id}`)).body.message as { text: string };
+  const token = decodeURIComponent(message.text.match(/set-password\?token=([^\s]+)/)![1]);
+  expect((await apiClient()('POST', '/api/auth/set-password', { token, password })).status).toBe(200);
+}
+
+/** The reset link the server printed for this address (no SMTP in the tests: the catcher keeps the mail). */
+async function printedResetLink(email: string): Promise<string> {
+  const pattern = new RegExp(`password reset link for ${email.replace(/[.+]/g, '\\$&')} \\(no SMTP configured\\): (\\S+)`);
+  for (let i = 0; i < 200; i++) {
+    const found = server.output().match(pattern);
+    if (found) return found[1];
+    await new Promise((r) => setTimeout(r, 50));
+  }
+  throw new Error(`no reset link printed for ${email}:\n${server.output().slice(-2000)}`);
+}
+
 /** The shipped fonts the browser has loaded (a face loads once some text uses it). */
 async function loadedFonts(page: Page): Promise<string[]> {
   return page.evaluate(async () => {
@@ -228,5 +266,80 @@ describe.each(SIZES)('at %s size', (size, viewport) => {
     // The admin sees them active now.
     await admin.page.goto(`${server.baseUrl}/users`);
     await expect(admin.page.getByTestId(`user-state-${slug}`).textContent()).resolves.toBe('Active');
+  });
+
+  it('lets someone who forgot their password get a link by mail, choose a new one, then change it in the profile', async () => {
+    const person = { name: `Rowan Tisdale ${size}`, email: `rowan.${size}@example.test` };
+    const first = `birch ${size} canal tapestry`;
+    const second = `saffron ${size} ledger puffin`;
+    const third = `glacier ${size} violin thimble`;
+    await newMember(person.name, person.email, first);
+    // A session elsewhere, which the new password will end.
+    const elsewhere = apiClient();
+    expect((await elsewhere('POST', '/api/auth/login', { email: person.email, password: first })).status).toBe(200);
+
+    const { page } = await browser(viewport);
+    await page.goto(`${server.baseUrl}/login`);
+    await page.getByTestId('sign-in-email').fill(person.email);
+    await page.getByTestId('forgot-password-link').click();
+    await page.waitForURL(/\/forgot-password\?email=/);
+    await expect(page.getByTestId('forgot-password-email').inputValue()).resolves.toBe(person.email);
+    await screenshot(page, `forgot-password-${size}`);
+    await page.getByTestId('forgot-password-submit').click();
+    const sent = page.getByTestId('forgot-password-sent');
+    await sent.waitFor();
+    await expect(sent.textContent()).resolves.toContain('If an account uses this address, a link to choose a new password is on its way to it.');
+    await screenshot(page, `forgot-password-sent-${size}`);
+
+    const link = await printedResetLink(person.email);
+    expect(link).toMatch(new RegExp(`^${server.baseUrl}/reset-password\\?token=[\\w%-]+$`));
+    await page.goto(link);
+    await page.getByRole('heading', { name: 'Choose a new password' }).waitFor();
+    await expect(page.getByTestId('set-password-owner').textContent()).resolves.toContain(person.email);
+    await page.getByTestId('set-password-password').fill('Password2024!');
+    await page.getByTestId('set-password-confirm').fill('Password2024!');
+    await page.getByTestId('set-password-submit').click();
+    const weak = page.getByTestId('set-password-password-error');
+    await weak.waitFor();
+    await expect(weak.textContent()).resolves.toMatch(/^Too easy to guess\./);
+    await screenshot(page, `reset-password-weak-${size}`);
+    await page.getByTestId('set-password-password').fill(second);
+    await page.getByTestId('set-password-confirm').fill(second);
+    await page.getByTestId('set-password-submit').click();
+    await page.waitForURL(/\/login\?/);
+    await expect(page.getByTestId('password-set-notice').textContent()).resolves.toContain('Every other session of the account was signed out.');
+    await expect(page.getByTestId('sign-in-email').inputValue()).resolves.toBe(person.email);
+    await screenshot(page, `password-reset-done-${size}`);
+    expect((await elsewhere('GET', '/api/auth/me')).status).toBe(401);
+
+    // The link worked once.
+    await page.goto(link);
+    await page.getByTestId('set-password-link-dead').waitFor();
+
+    // Signed in with the new password, the person changes it in the profile.
+    await page.goto(`${server.baseUrl}/login`);
+    await signIn(page, person.email, second);
+    await page.waitForURL(/\/filings$/);
+    await page.getByTestId('nav-profile').click();
+    await page.waitForURL(/\/profile$/);
+    await page.getByTestId('change-password-current').fill(first);
+    await page.getByTestId('change-password-new').fill(third);
+    await page.getByTestId('change-password-confirm').fill(third);
+    await page.getByTestId('change-password-submit').click();
+    const wrong = page.getByTestId('change-password-current-error');
+    await wrong.waitFor();
+    await expect(wrong.textContent()).resolves.toBe('That is not your current password.');
+    await page.getByTestId('profile-password').scrollIntoViewIfNeeded();
+    await screenshot(page, `change-password-wrong-${size}`);
+    await page.getByTestId('change-password-current').fill(second);
+    await page.getByTestId('change-password-submit').click();
+    await page.getByTestId('change-password-done').waitFor();
+    await expect(page.getByTestId('change-password-current').inputValue()).resolves.toBe('');
+    await screenshot(page, `change-password-done-${size}`);
+
+    await page.getByTestId('sign-out').click();
+    await page.waitForURL(/\/login$/);
+    await signIn(page, person.email, third);
+    await page.waitForURL(/\/filings$/);
   });
 });

@@ -91,7 +91,7 @@ describe('inviting someone who already has an account', () => {
     const token = tokenFrom(mail.text);
 
     const who = await request(t.app).get(`/api/auth/password-token/${encodeURIComponent(token)}`);
-    expect(who.body).toEqual({ email: 'specialist@fieldfile.test', name: 'Tom L.', existingAccount: true, organisationName: OTHER_ORG.name });
+    expect(who.body).toEqual({ purpose: 'invitation', email: 'specialist@fieldfile.test', name: 'Tom L.', existingAccount: true, organisationName: OTHER_ORG.name });
 
     const takeover = await request(t.app).post('/api/auth/set-password').send({ token, password: 'kestrel-admin-chose-this' });
     expect(takeover.status).toBe(422);

@@ -42,7 +42,7 @@ describe('users', () => {
     expect((await request(t.app).post('/api/auth/login').send({ email: 'ada.nwosu@fieldfile.test', password: 'whatever-long-pass' })).status).toBe(401);
 
     const who = await request(t.app).get(`/api/auth/password-token/${encodeURIComponent(token)}`);
-    expect(who.body).toEqual({ email: 'ada.nwosu@fieldfile.test', name: 'Ada Nwosu', existingAccount: false, organisationName: 'Halden Ridge Instruments' });
+    expect(who.body).toEqual({ purpose: 'invitation', email: 'ada.nwosu@fieldfile.test', name: 'Ada Nwosu', existingAccount: false, organisationName: 'Halden Ridge Instruments' });
 
     const short = await request(t.app).post('/api/auth/set-password').send({ token, password: 'short' });
     expect(short.status).toBe(422);

@@ -1,0 +1,3 @@
+import { ForgotPasswordScreen } from '../../components/screens/forgot-password-screen';
+
+export default ForgotPasswordScreen;

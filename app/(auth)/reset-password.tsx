@@ -1,0 +1,3 @@
+import { SetPasswordScreen } from '../../components/screens/set-password-screen';
+
+export default SetPasswordScreen;
