@@ -5,7 +5,7 @@
  * that schema, so it is restated here. Unknown keys (device info, antenna location, simultaneous
  * combinations) are accepted and ignored.
  */
-import { MAX_ANTENNAS, MAX_ID_CHARS, MAX_TEXT_CHARS, MAX_TRANSMITTERS, MAX_USE_POSITIONS } from '../input-limits';
+import { MAX_ANTENNAS, MAX_ID_CHARS, MAX_MODULES, MAX_TEXT_CHARS, MAX_TRANSMITTERS, MAX_USE_POSITIONS } from '../input-limits';
 import { z } from 'zod';
 
 export const SCREENING_REGIMES = ['fcc', 'ised', 'eu', 'icnirp-2020'] as const;
@@ -41,6 +41,13 @@ const transmitter = z.object({
   maxTuneUpPowerDbm: finite.pipe(z.number().min(-30).max(60)).describe('Maximum tune-up (conducted) power, dBm'),
   dutyCycle: finite.pipe(z.number().gt(0).max(1)).default(1).describe('Maximum transmit duty cycle, (0, 1]'),
   antennaId: id,
+  moduleId: id.optional().describe('The certified module (modules) this transmitter is part of'),
+});
+
+/** A certified module inside the host, with the grant's minimum separation from the body. */
+const moduleGrant = z.object({
+  id,
+  minSeparationM: finite.pipe(z.number().min(0).max(10)).optional().describe('The module grant’s minimum separation from the body, m'),
 });
 
 const usePosition = z.object({
@@ -61,6 +68,8 @@ export const screeningInput = z
     antennas: z.array(antenna).max(MAX_ANTENNAS),
     transmitters: z.array(transmitter).max(MAX_TRANSMITTERS),
     usePositions: z.array(usePosition).max(MAX_USE_POSITIONS),
+    /** Only when the host has certified modules inside (absent otherwise, so older inputs hash as before). */
+    modules: z.array(moduleGrant).max(MAX_MODULES).optional(),
   })
   .superRefine((input, ctx) => {
     const antennaIds = new Set(input.antennas.map((a) => a.id));
@@ -71,7 +80,9 @@ export const screeningInput = z
     regimes.forEach((r, i) => {
       if (regimes.indexOf(r) !== i) ctx.addIssue({ code: 'custom', path: ['markets', i, 'regime'], message: `market "${r}" is listed twice` });
     });
+    const moduleIds = new Set((input.modules ?? []).map((m) => m.id));
     input.transmitters.forEach((t, i) => {
+      if (t.moduleId !== undefined && !moduleIds.has(t.moduleId)) ctx.addIssue({ code: 'custom', path: ['transmitters', i, 'moduleId'], message: `unknown module id "${t.moduleId}"` });
       if (t.frequencyMinHz > t.frequencyMaxHz) ctx.addIssue({ code: 'custom', path: ['transmitters', i, 'frequencyMaxHz'], message: 'frequencyMaxHz is below frequencyMinHz' });
       if (!antennaIds.has(t.antennaId)) ctx.addIssue({ code: 'custom', path: ['transmitters', i, 'antennaId'], message: `unknown antenna id "${t.antennaId}"` });
     });
@@ -90,3 +101,4 @@ export type ScreeningInputRaw = z.input<typeof screeningInput>;
 export type ScreeningTransmitter = ScreeningInput['transmitters'][number];
 export type ScreeningMarket = ScreeningInput['markets'][number];
 export type ScreeningUsePosition = ScreeningInput['usePositions'][number];
+export type ScreeningModule = NonNullable<ScreeningInput['modules']>[number];

@@ -16,6 +16,7 @@ import { fccRuleSet } from './rules-fcc';
 import { isedRuleSet } from './rules-ised';
 import { euLikeRuleSet } from './rules-eu';
 import { ISED_PROVISIONAL_REASON, ruleSetWarnings, type RuleSetWarning } from '../versions';
+import { moduleConditionWarnings, type ModuleConditionWarning } from './module-conditions';
 
 export const SCREENING_CAUTIONS = [
   'Screening results are estimates from the published formulas; where the rules require measurement, only an accredited laboratory’s measurement counts.',
@@ -90,6 +91,8 @@ export interface ScreeningOutput {
   gaps: ScreeningGap[];
   /** Rule-set warnings for the markets screened (e.g. Canada on RSS-102 Issue 5). */
   warnings: RuleSetWarning[];
+  /** Use positions closer than a certified module's grant allows (host with a module inside). */
+  conditions: ModuleConditionWarning[];
   summary: ScreeningSummary;
   derivation: Derivation;
 }
@@ -375,10 +378,18 @@ export function screenParsed(input: ScreeningInput): ScreeningOutput {
   if (gaps.length) notes.push(`${gaps.length} transmitter × use position combination(s) could not be screened (see gaps).`);
   const warnings = ruleSetWarnings(input.markets.map((m) => m.regime));
   for (const w of warnings) notes.push(w.message);
+  const conditions = moduleConditionWarnings(input);
+  if (conditions.length) notes.push(`${conditions.length} use position × antenna combination(s) closer than a module grant allows (see conditions).`);
+  for (const c of conditions) {
+    for (const row of rows) {
+      if (row.transmitterId === c.transmitterId && row.usePositionId === c.usePositionId) row.derivation.notes.push(`Module grant condition: ${c.message} Source: ${c.source}.`);
+    }
+  }
   return {
     rows,
     gaps,
     warnings,
+    conditions,
     summary,
     derivation: {
       formula: 'for each transmitter × use position × market: the applicable exemption rule at the band’s most restrictive frequency (edges and breakpoints); result = exempt | evaluate-sar | evaluate-mpe',

@@ -1,13 +1,18 @@
 /**
  * Step 2, Radios: antennas and transmitters, saved together (a transmitter names its antenna).
- * Frequencies are typed in MHz and stored in Hz; duty cycle typed in % and stored 0–1.
+ * Frequencies are typed in MHz and stored in Hz; duty cycle typed in % and stored 0–1. Each
+ * transmitter's details: tune-up target ± tolerance (their sum is the maximum screening uses),
+ * mode, modulation and bandwidth, a duty-factor preset with its source, and its certified module.
  */
 import { useRef } from 'react';
-import { useFieldArray, useWatch } from 'react-hook-form';
+import { Controller, useFieldArray, useWatch } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
+import { DUTY_FACTOR_PRESETS, findDutyFactorPreset } from '../../constants/duty-factors';
 import type { FilingDetail } from '../../constants/schemas/filings';
 import { space } from '../../constants/theme';
 import { Card } from '../ui/card';
+import { ReadValue } from '../ui/read-value';
+import { SelectField } from '../ui/select-field';
 import { Text } from '../ui/text';
 import { EditRows, nextId, type EditColumn } from './edit-rows';
 import { FormNumber, FormSelect, FormText } from './form-fields';
@@ -28,13 +33,24 @@ interface TransmitterRow {
   frequencyMinHz: number | null;
   frequencyMaxHz: number | null;
   maxTuneUpPowerDbm: number | null;
+  tuneUpTargetDbm?: number | null;
+  tuneUpToleranceDb?: number | null;
+  mode: string;
+  modulation: string;
+  bandwidth: string;
   dutyCycle: number | null;
+  dutyCyclePreset: string;
   antennaId: string;
+  moduleId?: string;
 }
 export interface RadiosValues {
   antennas: AntennaRow[];
   transmitters: TransmitterRow[];
 }
+
+const PRESET_OPTIONS = [{ value: '', label: 'None (typed value)' }, ...DUTY_FACTOR_PRESETS.map((p) => ({ value: p.key, label: p.label }))];
+const round2 = (x: number) => Math.round(x * 100) / 100;
+const num = (x: unknown): x is number => typeof x === 'number' && Number.isFinite(x);
 
 const fromDraft = (raw: unknown, saved: RadiosValues): RadiosValues =>
   isObject(raw) ? { antennas: arrayOf(raw.antennas) as unknown as AntennaRow[], transmitters: arrayOf(raw.transmitters) as unknown as TransmitterRow[] } : saved;
@@ -105,8 +121,37 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
     { key: 'band', label: 'Band', flex: 1.4, half: true, render: (i, h) => <FormText {...common} name={`transmitters.${i}.band`} label="Band" placeholder="e.g. Band 12" hideLabel={h} testID={`tx-${i}-band`} /> },
     { key: 'fmin', label: 'Lowest (MHz)', flex: 1.1, half: true, render: (i, h) => <FormNumber {...common} name={`transmitters.${i}.frequencyMinHz`} label="Lowest frequency" unit="MHz" scale={1e6} hideLabel={h} testID={`tx-${i}-fmin`} /> },
     { key: 'fmax', label: 'Highest (MHz)', flex: 1.1, half: true, render: (i, h) => <FormNumber {...common} name={`transmitters.${i}.frequencyMaxHz`} label="Highest frequency" unit="MHz" scale={1e6} hideLabel={h} testID={`tx-${i}-fmax`} /> },
-    { key: 'power', label: 'Tune-up (dBm)', flex: 0.9, half: true, render: (i, h) => <FormNumber {...common} name={`transmitters.${i}.maxTuneUpPowerDbm`} label="Max tune-up power" unit="dBm" hideLabel={h} testID={`tx-${i}-power`} /> },
-    { key: 'duty', label: 'Duty (%)', flex: 0.8, half: true, render: (i, h) => <FormNumber {...common} name={`transmitters.${i}.dutyCycle`} label="Duty cycle" unit="%" scale={0.01} hideLabel={h} testID={`tx-${i}-duty`} /> },
+    {
+      key: 'power',
+      label: 'Max tune-up (dBm)',
+      flex: 0.9,
+      half: true,
+      // With a target and tolerance the maximum is their sum, shown and kept in step with them.
+      render: (i, h) => (
+        <FormNumber {...common} editable={editable && !derivedMax(i)} name={`transmitters.${i}.maxTuneUpPowerDbm`} label="Max tune-up power" unit="dBm" hideLabel={h} testID={`tx-${i}-power`} />
+      ),
+    },
+    {
+      key: 'duty',
+      label: 'Duty (%)',
+      flex: 0.8,
+      half: true,
+      render: (i, h) => (
+        <FormNumber
+          {...common}
+          name={`transmitters.${i}.dutyCycle`}
+          label="Duty cycle"
+          unit="%"
+          scale={0.01}
+          hideLabel={h}
+          testID={`tx-${i}-duty`}
+          onValueChange={(v) => {
+            const preset = findDutyFactorPreset(form.getValues(`transmitters.${i}.dutyCyclePreset`) ?? '');
+            if (preset && v !== preset.dutyCycle) form.setValue(`transmitters.${i}.dutyCyclePreset`, '', { shouldValidate: true, shouldDirty: true });
+          }}
+        />
+      ),
+    },
     {
       key: 'antenna',
       label: 'Antenna',
@@ -125,6 +170,103 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
       ),
     },
   ];
+
+  const modules = filing.data.device.modules;
+  const moduleOptions = [{ value: '', label: 'Not in a module' }, ...modules.map((m) => ({ value: m.id, label: m.name ? `${m.id} (${m.name})` : m.id }))];
+  function derivedMax(i: number) {
+    const t = transmitterValues[i];
+    return num(t?.tuneUpTargetDbm) && num(t?.tuneUpToleranceDb);
+  }
+  const setMaxFromTarget = (i: number) => {
+    const t = form.getValues(`transmitters.${i}`);
+    if (num(t?.tuneUpTargetDbm) && num(t?.tuneUpToleranceDb)) {
+      form.setValue(`transmitters.${i}.maxTuneUpPowerDbm`, round2(t.tuneUpTargetDbm + t.tuneUpToleranceDb), { shouldValidate: true, shouldDirty: true });
+    }
+  };
+  const txDetails = {
+    label: 'Tune-up, mode, duty factor',
+    summary: (i: number) => {
+      const t = transmitterValues[i];
+      if (!t) return '';
+      const parts = [
+        num(t.tuneUpTargetDbm) && num(t.tuneUpToleranceDb) ? `${t.tuneUpTargetDbm} ± ${t.tuneUpToleranceDb} dB` : '',
+        t.mode,
+        findDutyFactorPreset(t.dutyCyclePreset ?? '')?.label ?? '',
+        t.moduleId ? `module ${t.moduleId}` : '',
+      ].filter(Boolean);
+      return parts.length ? parts.join(' · ') : '';
+    },
+    render: (i: number) => {
+      const t = transmitterValues[i];
+      const preset = findDutyFactorPreset(t?.dutyCyclePreset ?? '');
+      return (
+        <View style={styles.detailGrid}>
+          <View style={styles.detailCell}>
+            <FormNumber {...common} optional name={`transmitters.${i}.tuneUpTargetDbm`} label="Tune-up target" unit="dBm" testID={`tx-${i}-target`} onValueChange={() => setMaxFromTarget(i)} />
+          </View>
+          <View style={styles.detailCell}>
+            <FormNumber {...common} optional name={`transmitters.${i}.tuneUpToleranceDb`} label="Tolerance ±" unit="dB" testID={`tx-${i}-tolerance`} onValueChange={() => setMaxFromTarget(i)} />
+          </View>
+          <View style={[styles.detailCell, styles.detailNote]}>
+            <Text variant="small" tone="muted" testID={`tx-${i}-upper`}>
+              {derivedMax(i) && num(t?.maxTuneUpPowerDbm)
+                ? `Upper bound ${t.maxTuneUpPowerDbm} dBm (target ${t.tuneUpTargetDbm} dBm + ${t.tuneUpToleranceDb} dB): screening uses it.`
+                : 'Screening uses the maximum tune-up power; with a target and tolerance it is their sum.'}
+            </Text>
+          </View>
+          <View style={styles.detailCell}>
+            <FormText {...common} name={`transmitters.${i}.mode`} label="Mode (optional)" placeholder="e.g. QPSK, 1 RB" testID={`tx-${i}-mode`} />
+          </View>
+          <View style={styles.detailCell}>
+            <FormText {...common} name={`transmitters.${i}.modulation`} label="Modulation (optional)" placeholder="e.g. QPSK" testID={`tx-${i}-modulation`} />
+          </View>
+          <View style={styles.detailCell}>
+            <FormText {...common} name={`transmitters.${i}.bandwidth`} label="Bandwidth (optional)" placeholder="e.g. 10 MHz" testID={`tx-${i}-bandwidth`} />
+          </View>
+          <View style={styles.detailWide}>
+            <FormSelect
+              {...common}
+              name={`transmitters.${i}.dutyCyclePreset`}
+              label="Duty-factor preset"
+              options={PRESET_OPTIONS}
+              testID={`tx-${i}-duty-preset`}
+              onValueChange={(next) => {
+                const p = findDutyFactorPreset(next);
+                if (p) form.setValue(`transmitters.${i}.dutyCycle`, p.dutyCycle, { shouldValidate: true, shouldDirty: true });
+              }}
+            />
+            {preset ? (
+              <Text variant="small" tone="muted" testID={`tx-${i}-duty-source`}>
+                {`${preset.basis} Source: ${preset.source}.`}
+              </Text>
+            ) : null}
+          </View>
+          {modules.length ? (
+            <View style={styles.detailWide}>
+              <Controller
+                control={control}
+                name={`transmitters.${i}.moduleId`}
+                render={({ field, fieldState }) =>
+                  editable ? (
+                    <SelectField
+                      label="Certified module"
+                      options={moduleOptions}
+                      value={field.value ?? ''}
+                      onChange={(next) => field.onChange(next === '' ? undefined : next)}
+                      error={fieldState.error?.message}
+                      testID={`tx-${i}-module`}
+                    />
+                  ) : (
+                    <ReadValue label="Certified module" value={field.value ?? 'Not in a module'} testID={`tx-${i}-module`} />
+                  )
+                }
+              />
+            </View>
+          ) : null}
+        </View>
+      );
+    },
+  };
 
   return (
     <StepFrame stepForm={stepForm}
@@ -160,12 +302,17 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
               frequencyMinHz: null,
               frequencyMaxHz: null,
               maxTuneUpPowerDbm: null,
+              mode: '',
+              modulation: '',
+              bandwidth: '',
               dutyCycle: 1,
+              dutyCyclePreset: '',
               antennaId: antennaValues[0]?.id ?? '',
             })
           }
           onRemove={(i) => transmitters.remove(i)}
           removalEffects={transmitterEffects}
+          details={txDetails}
           editable={editable}
           testID="transmitters"
           empty="No transmitters yet. Add one per band the device transmits in."
@@ -181,4 +328,10 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
   );
 }
 
-const styles = StyleSheet.create({ note: { paddingTop: space.xs } });
+const styles = StyleSheet.create({
+  note: { paddingTop: space.xs },
+  detailGrid: { flexDirection: 'row', flexWrap: 'wrap', gap: space.md },
+  detailCell: { flexBasis: 180, flexGrow: 1, minWidth: 0 },
+  detailNote: { flexBasis: 260, justifyContent: 'center' },
+  detailWide: { flexBasis: '100%', gap: space.xs },
+});

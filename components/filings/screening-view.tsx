@@ -72,6 +72,18 @@ export function ScreeningView({ filing }: { filing: FilingDetail }) {
           </View>
         </Notice>
       ) : null}
+      {s.conditions?.length ? (
+        <Notice tone="caution" title="Closer than a module’s grant allows" testID="screening-module-conditions">
+          <View style={{ gap: 2 }}>
+            {s.conditions.map((c) => (
+              <Text key={`${c.transmitterId}-${c.usePositionId}-${c.antennaId}`} variant="small">
+                {c.message}
+              </Text>
+            ))}
+            <Text variant="small" tone="muted">{`Source: ${s.conditions[0].source}.`}</Text>
+          </View>
+        </Notice>
+      ) : null}
       <Card title="Every combination" aside={<Text variant="small" tone="muted">Tap a figure to see how it was computed.</Text>}>
         <View style={styles.filters} testID="screening-filters">
           {regimes.length > 1 ? (

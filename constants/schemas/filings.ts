@@ -8,8 +8,10 @@ import {
   MAX_TRANSMITTERS,
   MAX_USE_POSITIONS,
   REGIMES,
+  deviceInfoSchema,
   zAntenna,
   zDeviceInfo,
+  zModuleGrant,
   zMarket,
   zTransmitter,
   zUsePosition,
@@ -51,9 +53,6 @@ const duplicateIdIssues = (items: { id: string }[], path: string, ctx: z.Refinem
   });
 };
 
-export const zDeviceStep = zDeviceInfo;
-export type DeviceStep = z.output<typeof zDeviceStep>;
-
 /**
  * A saved row's own number. The ids a user types are labels: a row sent back with its rowId keeps
  * its relations (separations, co-transmission combinations) when its label changes. A row without
@@ -61,6 +60,11 @@ export type DeviceStep = z.output<typeof zDeviceStep>;
  */
 export const zRowId = z.number().int().positive().optional();
 const withRowId = { rowId: zRowId };
+
+/** The Device step: the device's identity, its module grants carrying their row numbers. */
+export const zDeviceStep = deviceInfoSchema(zModuleGrant.safeExtend(withRowId));
+export type DeviceStep = z.output<typeof zDeviceStep>;
+export type DeviceStepInput = z.input<typeof zDeviceStep>;
 
 /** Antennas and transmitters are saved together: a transmitter names its antenna. */
 export const zRadiosStep = z

@@ -30,11 +30,14 @@ export interface ScreeningMeta {
 
 
 export function screeningInputFor(detail: ReturnType<typeof getFiling>): ScreeningInput {
+  const modules = detail.data.device.modules;
   return screeningInput.parse({
     markets: detail.data.markets.markets,
     antennas: detail.data.radios.antennas.map((a) => ({ id: a.id, gainDbi: a.gainDbi })),
     transmitters: detail.data.radios.transmitters,
     usePositions: detail.data['use-positions'].usePositions,
+    // Only a host with modules inside names them, so other filings' inputs (and their stored results) stay as they were.
+    ...(modules.length ? { modules: modules.map((m) => ({ id: m.id, ...(m.minSeparationM !== undefined ? { minSeparationM: m.minSeparationM } : {}) })) } : {}),
   });
 }
 

@@ -8,6 +8,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { DEMO_TRACKER } from '../../seeds/demo-filing';
 import { screenDevice } from '../../calc/screening';
+import { zDeviceFile } from '../../constants/schemas/device-file';
 import { createTestApp, seedUsers, signIn, type TestApp } from './support/test-app';
 
 let t: TestApp;
@@ -177,7 +178,7 @@ describe('device description file', () => {
     const exported = await specialist.get(`/api/filings/${res.body.filing.id}/device.json`);
     expect(exported.status).toBe(200);
     expect(exported.headers['content-disposition']).toMatch(/trailhound-th-4-rugged-tracker-th4-lw2\.device\.json/);
-    expect(JSON.parse(exported.text)).toEqual(DEMO_TRACKER);
+    expect(JSON.parse(exported.text)).toEqual(zDeviceFile.parse(DEMO_TRACKER));
   });
 
   it('refuses an inconsistent file with every problem at its JSON path, and creates nothing', async () => {
