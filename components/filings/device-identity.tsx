@@ -8,7 +8,16 @@ import { Controller, useFieldArray, useWatch, type Control, type UseFormReturn }
 import { StyleSheet, View } from 'react-native';
 import { INTEGRATIONS, INTEGRATION_LABELS } from '../../constants/schemas/device-file';
 import type { DeviceStepInput, FilingDetail } from '../../constants/schemas/filings';
-import { FCC_ID_SOURCE, fccIdText, ISED_NUMBER_SOURCE, isedNumberText } from '../../constants/schemas/grant-ids';
+import {
+  FCC_ID_SOURCE,
+  fccIdText,
+  granteeCodeProblem,
+  ISED_NUMBER_SOURCE,
+  isedCompanyNumberProblem,
+  isedNumberText,
+  isedUpnProblem,
+  productCodeProblem,
+} from '../../constants/schemas/grant-ids';
 import { space } from '../../constants/theme';
 import { useIsWide } from '../../hooks/use-is-wide';
 import { Card } from '../ui/card';
@@ -32,8 +41,11 @@ export function DeviceIdentity({ form, filing, editable }: { form: UseFormReturn
   const { control } = form;
   const common = { control, editable };
   const v = useWatch({ control });
-  const fccId = fccIdText((v.fccGranteeCode ?? '').toUpperCase(), (v.fccProductCode ?? '').toUpperCase());
-  const icNumber = isedNumberText((v.isedCompanyNumber ?? '').toUpperCase(), (v.isedUpn ?? '').toUpperCase());
+  // The identifier as the label prints it, once both halves are valid.
+  const code = (x: string | undefined) => (x ?? '').trim().toUpperCase();
+  const [grantee, product, cn, upn] = [code(v.fccGranteeCode), code(v.fccProductCode), code(v.isedCompanyNumber), code(v.isedUpn)];
+  const fccId = granteeCodeProblem(grantee) || productCodeProblem(product) ? '' : fccIdText(grantee, product);
+  const icNumber = isedCompanyNumberProblem(cn) || isedUpnProblem(upn) ? '' : isedNumberText(cn, upn);
   return (
     <>
       <Card title="Grant identity">
@@ -47,7 +59,7 @@ export function DeviceIdentity({ form, filing, editable }: { form: UseFormReturn
             </Cell>
           </Pair>
           <Text variant="small" tone="muted" testID="device-fcc-id">
-            {fccId ? `FCC ID ${fccId}` : 'FCC ID: grantee code (3 characters from a letter, or 5 from a digit 2–9) and product code (up to 14).'} {`(${FCC_ID_SOURCE})`}
+            {`${fccId ? `FCC ID ${fccId}.` : 'FCC ID: grantee code (3 characters from a letter, or 5 from a digit 2–9) and product code (up to 14).'} Format: ${FCC_ID_SOURCE}.`}
           </Text>
           <Pair>
             <Cell>
@@ -58,7 +70,7 @@ export function DeviceIdentity({ form, filing, editable }: { form: UseFormReturn
             </Cell>
           </Pair>
           <Text variant="small" tone="muted" testID="device-ic-number">
-            {icNumber ? `IC: ${icNumber}` : 'ISED certification number: company number (up to 6) and UPN (up to 11).'} {`(${ISED_NUMBER_SOURCE})`}
+            {`${icNumber ? `IC: ${icNumber}.` : 'ISED certification number: company number (up to 6) and UPN (up to 11).'} Format: ${ISED_NUMBER_SOURCE}.`}
           </Text>
           <Pair>
             <Cell>
