@@ -9,6 +9,7 @@ import { EVIDENCE_CATEGORY_IDS } from '../constants/schemas/evidence';
 import { ROLES } from '../constants/schemas/roles';
 import { DATA_STEPS, VERSION_STATES } from '../constants/schemas/filings';
 import { AVERAGING_MASSES, DISTRIBUTIONS, INSTRUMENT_KINDS, LIQUID_KINDS } from '../constants/schemas/lab';
+import { ANTENNA_USES } from '../calc/screening/input';
 import { FCC_SAR_SCREENINGS, INTEGRATIONS, PRODUCT_TYPES, REGIMES, TIERS, USE_POSITION_KINDS } from '../constants/schemas/device-file';
 
 const createdAt = () =>
@@ -276,8 +277,28 @@ export const transmitters = sqliteTable(
     dutyCyclePreset: text('duty_cycle_preset').notNull().default(''),
     /** The certified module (of the version's device) this transmitter belongs to. */
     moduleId: integer('module_id').references(() => deviceModules.id, { onDelete: 'set null' }),
+    /** With further antennas (transmitter_antennas): all at once (MIMO) or one at a time. */
+    antennaUse: text('antenna_use', { enum: ANTENNA_USES }).notNull().default('mimo'),
   },
   (t) => [uniqueIndex('transmitters_version_key').on(t.versionId, t.key)],
+);
+
+/**
+ * A transmitter's antennas after its first (transmitters.antenna_id), in order: MIMO or switched.
+ * By row, so renaming an antenna changes nothing here; removing one takes it out.
+ */
+export const transmitterAntennas = sqliteTable(
+  'transmitter_antennas',
+  {
+    transmitterId: integer('transmitter_id')
+      .notNull()
+      .references(() => transmitters.id, { onDelete: 'cascade' }),
+    antennaId: integer('antenna_id')
+      .notNull()
+      .references(() => antennas.id, { onDelete: 'cascade' }),
+    sortOrder: integer('sort_order').notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.transmitterId, t.antennaId] })],
 );
 
 export const usePositions = sqliteTable(

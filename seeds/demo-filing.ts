@@ -1,8 +1,9 @@
 /**
  * The demo device: a fictional rugged handheld tracker by the fictional Halden Ridge Instruments,
- * with LTE (a low band, a band that straddles 1.5 GHz and a mid band), Wi-Fi 2.4 and 5 GHz and
- * Bluetooth. Its filing is partly done for two markets: the use positions still lack the
- * Bluetooth antenna's separation at the wrist strap, so the wizard shows what remains.
+ * with LTE (a low band, a band that straddles 1.5 GHz and a mid band that switches between two
+ * antennas), Wi-Fi 2.4 and 5 GHz and Bluetooth, and its grant identifiers. Its filing is partly
+ * done for two markets: the use positions still lack the Bluetooth antenna's separation at the
+ * wrist strap, so the wizard shows what remains.
  */
 import { DEVICE_FILE_FORMAT, type DeviceFileInput } from '../constants/schemas/device-file';
 
@@ -68,7 +69,11 @@ export const DEMO_TRACKER: DeviceFileInput = {
       modulation: 'QPSK',
       bandwidth: '1.4–20 MHz',
       dutyCycle: 1,
+      // Transmit antenna switching: the modem moves the uplink to the main antenna when the
+      // bottom edge is covered, so both antennas are screened and tested.
       antennaId: 'ANT-DIV',
+      moreAntennaIds: ['ANT-MAIN'],
+      antennaUse: 'switched',
     },
     {
       id: 'WLAN-2G4',

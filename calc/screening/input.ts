@@ -15,6 +15,9 @@ export type ScreeningTier = (typeof SCREENING_TIERS)[number];
 /** FCC: the §1.1307(b)(3) exemptions (default) or the legacy KDB 447498 D01 v06 §4.3.1 test exclusion. */
 export const FCC_SAR_SCREENINGS = ['exemption', 'kdb-test-exclusion'] as const;
 export type FccSarScreening = (typeof FCC_SAR_SCREENINGS)[number];
+/** How a transmitter with several antennas uses them: all at once (MIMO) or one at a time. */
+export const ANTENNA_USES = ['mimo', 'switched'] as const;
+export type AntennaUse = (typeof ANTENNA_USES)[number];
 export const USE_POSITION_KINDS = ['head', 'body-worn', 'hotspot', 'extremity', 'far-field'] as const;
 export type UsePositionKind = (typeof USE_POSITION_KINDS)[number];
 
@@ -40,7 +43,9 @@ const transmitter = z.object({
   frequencyMaxHz: finite.pipe(z.number().positive()).describe('Highest frequency of the band, Hz'),
   maxTuneUpPowerDbm: finite.pipe(z.number().min(-30).max(60)).describe('Maximum tune-up (conducted) power, dBm'),
   dutyCycle: finite.pipe(z.number().gt(0).max(1)).default(1).describe('Maximum transmit duty cycle, (0, 1]'),
-  antennaId: id,
+  antennaId: id.describe('The transmitter’s (first) antenna'),
+  moreAntennaIds: z.array(id).max(MAX_ANTENNAS).optional().describe('Further antennas it uses; each antenna × use position is screened and the least favourable reported'),
+  antennaUse: z.enum(ANTENNA_USES).optional().describe('With several antennas: "mimo" (all at once, the streams’ powers add; the default) or "switched" (one at a time)'),
   moduleId: id.optional().describe('The certified module (modules) this transmitter is part of'),
 });
 
@@ -85,6 +90,10 @@ export const screeningInput = z
       if (t.moduleId !== undefined && !moduleIds.has(t.moduleId)) ctx.addIssue({ code: 'custom', path: ['transmitters', i, 'moduleId'], message: `unknown module id "${t.moduleId}"` });
       if (t.frequencyMinHz > t.frequencyMaxHz) ctx.addIssue({ code: 'custom', path: ['transmitters', i, 'frequencyMaxHz'], message: 'frequencyMaxHz is below frequencyMinHz' });
       if (!antennaIds.has(t.antennaId)) ctx.addIssue({ code: 'custom', path: ['transmitters', i, 'antennaId'], message: `unknown antenna id "${t.antennaId}"` });
+      (t.moreAntennaIds ?? []).forEach((a, j) => {
+        if (!antennaIds.has(a)) ctx.addIssue({ code: 'custom', path: ['transmitters', i, 'moreAntennaIds', j], message: `unknown antenna id "${a}"` });
+        if (a === t.antennaId || t.moreAntennaIds!.indexOf(a) !== j) ctx.addIssue({ code: 'custom', path: ['transmitters', i, 'moreAntennaIds', j], message: `antenna "${a}" is named twice` });
+      });
     });
     input.usePositions.forEach((p, i) =>
       p.separations.forEach((s, j) => {
@@ -102,3 +111,12 @@ export type ScreeningTransmitter = ScreeningInput['transmitters'][number];
 export type ScreeningMarket = ScreeningInput['markets'][number];
 export type ScreeningUsePosition = ScreeningInput['usePositions'][number];
 export type ScreeningModule = NonNullable<ScreeningInput['modules']>[number];
+
+/** The antennas a transmitter uses, its first one first. */
+export const antennasOf = (tx: Pick<ScreeningTransmitter, 'antennaId' | 'moreAntennaIds'>): string[] => (tx.moreAntennaIds?.length ? [tx.antennaId, ...tx.moreAntennaIds] : [tx.antennaId]);
+
+/** MIMO streams on the band: every antenna at once (the default with several), else one. */
+export const streamsOf = (tx: Pick<ScreeningTransmitter, 'antennaId' | 'moreAntennaIds' | 'antennaUse'>): number => {
+  const n = antennasOf(tx).length;
+  return n > 1 && (tx.antennaUse ?? 'mimo') === 'mimo' ? n : 1;
+};

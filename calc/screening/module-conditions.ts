@@ -6,7 +6,7 @@
  * change or a new grant). Source: FCC KDB 996369 D01/D03 (modular approval; the host follows the
  * RF-exposure conditions of the module's grant) — from memory; the certifying body decides.
  */
-import type { ScreeningInput } from './input';
+import { antennasOf, type ScreeningInput } from './input';
 
 export const MODULE_CONDITION_SOURCE = 'FCC KDB 996369 D01/D03, module grant conditions bind the host (from memory)';
 
@@ -27,7 +27,7 @@ export interface ModuleConditionWarning {
 const mm = (m: number) => `${Number((m * 1000).toFixed(1))} mm`;
 
 /** Every transmitter × use position × antenna closer to the body than its module's grant allows. */
-export function moduleConditionWarnings(input: Pick<ScreeningInput, 'transmitters' | 'usePositions' | 'modules'>, antennasOf: (tx: ScreeningInput['transmitters'][number]) => string[] = (tx) => [tx.antennaId]): ModuleConditionWarning[] {
+export function moduleConditionWarnings(input: Pick<ScreeningInput, 'transmitters' | 'usePositions' | 'modules'>): ModuleConditionWarning[] {
   const modules = new Map((input.modules ?? []).map((m) => [m.id, m]));
   const out: ModuleConditionWarning[] = [];
   for (const tx of input.transmitters) {

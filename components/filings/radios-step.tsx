@@ -11,6 +11,8 @@ import { DUTY_FACTOR_PRESETS, findDutyFactorPreset } from '../../constants/duty-
 import type { FilingDetail } from '../../constants/schemas/filings';
 import { space } from '../../constants/theme';
 import { Card } from '../ui/card';
+import { Checkbox } from '../ui/checkbox';
+import { ChoiceChips } from '../ui/choice-chips';
 import { ReadValue } from '../ui/read-value';
 import { SelectField } from '../ui/select-field';
 import { Text } from '../ui/text';
@@ -41,6 +43,8 @@ interface TransmitterRow {
   dutyCycle: number | null;
   dutyCyclePreset: string;
   antennaId: string;
+  moreAntennaIds: string[];
+  antennaUse: 'mimo' | 'switched';
   moduleId?: string;
 }
 export interface RadiosValues {
@@ -48,6 +52,10 @@ export interface RadiosValues {
   transmitters: TransmitterRow[];
 }
 
+const ANTENNA_USE_CHOICES = [
+  { value: 'mimo' as const, label: 'All at once (MIMO)' },
+  { value: 'switched' as const, label: 'One at a time (switched)' },
+];
 const PRESET_OPTIONS = [{ value: '', label: 'None (typed value)' }, ...DUTY_FACTOR_PRESETS.map((p) => ({ value: p.key, label: p.label }))];
 const round2 = (x: number) => Math.round(x * 100) / 100;
 const num = (x: unknown): x is number => typeof x === 'number' && Number.isFinite(x);
@@ -74,11 +82,45 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
     const k = antennaValues.findIndex((a) => a?.id === transmitterValues[j]?.antennaId);
     if (k >= 0 && antennas.fields[k]) follows.current.set(f.key, antennas.fields[k].key);
   }
+  // The same for each transmitter's further antennas (MIMO or switched).
+  const followsMore = useRef(new Map<string, string[]>());
+  for (const [j, f] of transmitters.fields.entries()) {
+    if (followsMore.current.has(f.key)) continue;
+    const keys = (transmitterValues[j]?.moreAntennaIds ?? []).map((label) => antennas.fields[antennaValues.findIndex((a) => a?.id === label)]?.key).filter(Boolean) as string[];
+    followsMore.current.set(f.key, keys);
+  }
+  const labelOf = (antennaKey: string, renamed?: { key: string; label: string }) =>
+    renamed?.key === antennaKey ? renamed.label : (form.getValues(`antennas.${antennas.fields.findIndex((f) => f.key === antennaKey)}.id`) ?? '');
+  const setMore = (j: number, keys: string[], renamed?: { key: string; label: string }) => {
+    const txKey = transmitters.fields[j]?.key;
+    if (txKey) followsMore.current.set(txKey, keys);
+    form.setValue(
+      `transmitters.${j}.moreAntennaIds`,
+      keys.map((k) => labelOf(k, renamed)),
+      { shouldValidate: true, shouldDirty: true },
+    );
+  };
   const relabel = (antennaIndex: number, next: string) => {
     const antennaKey = antennas.fields[antennaIndex]?.key;
     transmitters.fields.forEach((f, j) => {
       if (antennaKey && follows.current.get(f.key) === antennaKey) form.setValue(`transmitters.${j}.antennaId`, next, { shouldValidate: true, shouldDirty: true });
+      const more = followsMore.current.get(f.key) ?? [];
+      if (antennaKey && more.includes(antennaKey)) setMore(j, more, { key: antennaKey, label: next });
     });
+  };
+  const removeAntenna = (antennaIndex: number) => {
+    const antennaKey = antennas.fields[antennaIndex]?.key;
+    transmitters.fields.forEach((f, j) => {
+      const more = followsMore.current.get(f.key) ?? [];
+      if (antennaKey && more.includes(antennaKey)) setMore(j, more.filter((k) => k !== antennaKey));
+    });
+    antennas.remove(antennaIndex);
+  };
+  const toggleMore = (j: number, antennaKey: string, on: boolean) => {
+    const more = followsMore.current.get(transmitters.fields[j]?.key ?? '') ?? [];
+    const next = on ? [...more.filter((k) => k !== antennaKey), antennaKey] : more.filter((k) => k !== antennaKey);
+    // Kept in the order of the antenna list.
+    setMore(j, antennas.fields.map((f) => f.key).filter((k) => next.includes(k)));
   };
   const follow = (txIndex: number, label: string) => {
     const k = antennaValues.findIndex((a) => a?.id === label);
@@ -90,13 +132,16 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
   useAdoptRowIds(form, 'transmitters', filing.data.radios.transmitters);
 
   const usedBy = (label: string) => transmitterValues.filter((t) => t?.antennaId === label).map((t) => t.id);
+  const alsoUsedBy = (label: string) => transmitterValues.filter((t) => t?.moreAntennaIds?.includes(label)).map((t) => t.id);
   const antennaEffects = (i: number) => {
     const label = antennaValues[i]?.id ?? '';
     const positions = filing.data['use-positions'].usePositions.filter((p) => p.separations.some((s) => s.antennaId === label)).map((p) => p.id);
     const txs = usedBy(label);
+    const also = alsoUsedBy(label);
     return [
       ...(positions.length ? [`its separation in ${positions.length} use position${positions.length === 1 ? '' : 's'} (${positions.join(', ')})`] : []),
       ...(txs.length ? [`transmitters ${txs.join(', ')} are left without an antenna until you pick another`] : []),
+      ...(also.length ? [`${also.join(', ')} no longer use${also.length === 1 ? 's' : ''} it as a further antenna`] : []),
     ];
   };
   const transmitterEffects = (i: number) => {
@@ -184,7 +229,7 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
     }
   };
   const txDetails = {
-    label: 'Tune-up, mode, duty factor',
+    label: 'Antennas, tune-up, mode, duty factor',
     summary: (i: number) => {
       const t = transmitterValues[i];
       if (!t) return '';
@@ -193,14 +238,63 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
         t.mode,
         findDutyFactorPreset(t.dutyCyclePreset ?? '')?.label ?? '',
         t.moduleId ? `module ${t.moduleId}` : '',
+        t.moreAntennaIds?.length ? `${t.moreAntennaIds.length + 1} antennas, ${t.antennaUse === 'switched' ? 'switched' : 'MIMO'}` : '',
       ].filter(Boolean);
       return parts.length ? parts.join(' · ') : '';
     },
     render: (i: number) => {
       const t = transmitterValues[i];
       const preset = findDutyFactorPreset(t?.dutyCyclePreset ?? '');
+      const more = t?.moreAntennaIds ?? [];
+      const others = antennas.fields.map((f, k) => ({ key: f.key, label: antennaValues[k]?.id ?? '' })).filter((a) => a.label && a.label !== t?.antennaId);
       return (
         <View style={styles.detailGrid}>
+          <View style={styles.detailWide} testID={`tx-${i}-more-antennas`}>
+            <Text variant="smallStrong" tone="soft">
+              {`Further antennas (besides ${t?.antennaId || 'the first'})`}
+            </Text>
+            {others.length ? (
+              <View style={styles.checks}>
+                {others.map((a) => (
+                  <Checkbox
+                    key={a.key}
+                    label={a.label}
+                    checked={more.includes(a.label)}
+                    disabled={!editable}
+                    onChange={(on) => toggleMore(i, a.key, on)}
+                    testID={`tx-${i}-antenna-${a.label}`}
+                  />
+                ))}
+              </View>
+            ) : (
+              <Text variant="small" tone="muted">
+                Add another antenna above to use it here.
+              </Text>
+            )}
+            {more.length ? (
+              <Controller
+                control={control}
+                name={`transmitters.${i}.antennaUse`}
+                render={({ field }) => (
+                  <ChoiceChips
+                    label="With several antennas it transmits"
+                    choices={ANTENNA_USE_CHOICES}
+                    value={field.value ?? 'mimo'}
+                    onChange={field.onChange}
+                    disabled={!editable}
+                    testID={`tx-${i}-antenna-use`}
+                  />
+                )}
+              />
+            ) : null}
+            {more.length ? (
+              <Text variant="small" tone="muted">
+                {(t?.antennaUse ?? 'mimo') === 'mimo'
+                  ? `MIMO: the maximum tune-up power is per stream; screening adds the ${more.length + 1} streams’ powers and evaluates the sum at each antenna (KDB 662911, from memory).`
+                  : 'Switched: one antenna at a time; screening evaluates each antenna at the tune-up power and reports the least favourable.'}
+              </Text>
+            ) : null}
+          </View>
           <View style={styles.detailCell}>
             <FormNumber {...common} optional name={`transmitters.${i}.tuneUpTargetDbm`} label="Tune-up target" unit="dBm" testID={`tx-${i}-target`} onValueChange={() => setMaxFromTarget(i)} />
           </View>
@@ -280,7 +374,7 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
           keyOf={(i) => antennas.fields[i].key}
           titleOf={(i) => antennaValues[i]?.id ?? ''}
           onAdd={() => antennas.append({ id: nextId('ANT', antennaValues.map((a) => a?.id)), gainDbi: 0, location: '' })}
-          onRemove={(i) => antennas.remove(i)}
+          onRemove={removeAntenna}
           removalEffects={antennaEffects}
           editable={editable}
           testID="antennas"
@@ -308,6 +402,8 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
               dutyCycle: 1,
               dutyCyclePreset: '',
               antennaId: antennaValues[0]?.id ?? '',
+              moreAntennaIds: [],
+              antennaUse: 'mimo',
             })
           }
           onRemove={(i) => transmitters.remove(i)}
@@ -334,4 +430,5 @@ const styles = StyleSheet.create({
   detailCell: { flexBasis: 180, flexGrow: 1, minWidth: 0 },
   detailNote: { flexBasis: 260, justifyContent: 'center' },
   detailWide: { flexBasis: '100%', gap: space.xs },
+  checks: { flexDirection: 'row', flexWrap: 'wrap', columnGap: space.lg },
 });

@@ -7,6 +7,7 @@
  */
 import { z } from 'zod';
 import { MAX_ANTENNAS, MAX_MODULES, MAX_TRANSMITTERS, MAX_USE_POSITIONS } from '../../calc/input-limits';
+import { ANTENNA_USES } from '../../calc/screening/input';
 import { DUTY_FACTOR_PRESET_KEYS, findDutyFactorPreset } from '../duty-factors';
 import { pairIssues, zGranteeCode, zIsedCompanyNumber, zIsedUpn, zProductCode } from './grant-ids';
 
@@ -219,7 +220,16 @@ export const zTransmitter = z
       .enum(['', ...DUTY_FACTOR_PRESET_KEYS] as [string, ...string[]], { error: 'Pick one of the duty-factor presets, or none.' })
       .default('')
       .describe('The duty-factor preset the duty cycle comes from (with its source), or "" for a typed value.'),
-    antennaId: zItemId,
+    antennaId: zItemId.describe('The transmitter’s antenna (with several, its first).'),
+    moreAntennaIds: z
+      .array(zItemId)
+      .max(MAX_ANTENNAS - 1)
+      .default([])
+      .describe('Further antennas the transmitter uses (MIMO or switched); every antenna × use position is screened.'),
+    antennaUse: z
+      .enum(ANTENNA_USES, { error: 'Pick MIMO (all at once) or switched (one at a time).' })
+      .default('mimo')
+      .describe('With several antennas: "mimo" — all at once, the streams’ powers add (maxTuneUpPowerDbm is per stream); "switched" — one at a time.'),
     moduleId: zItemId.optional().describe('The certified module (device.modules) this transmitter is part of; its grant conditions apply.'),
   })
   .refine((t) => t.frequencyMinHz <= t.frequencyMaxHz, {
@@ -237,6 +247,9 @@ export const zTransmitter = z
         ctx.addIssue({ code: 'custom', path: ['maxTuneUpPowerDbm'], message: `Target ${t.tuneUpTargetDbm} dBm + tolerance ${t.tuneUpToleranceDb} dB gives ${Number(upper.toFixed(2))} dBm: the maximum is that upper bound.` });
       }
     }
+    t.moreAntennaIds.forEach((a, j) => {
+      if (a === t.antennaId || t.moreAntennaIds.indexOf(a) !== j) ctx.addIssue({ code: 'custom', path: ['moreAntennaIds', j], message: `Antenna "${a}" is already one of this transmitter’s antennas.` });
+    });
     const preset = t.dutyCyclePreset ? findDutyFactorPreset(t.dutyCyclePreset) : undefined;
     if (preset && Math.abs(preset.dutyCycle - t.dutyCycle) > 1e-6) {
       ctx.addIssue({ code: 'custom', path: ['dutyCycle'], message: `${preset.label} gives ${Number((preset.dutyCycle * 100).toFixed(2))} %; clear the preset to type another duty cycle.` });
@@ -289,6 +302,9 @@ function crossReferenceIssues(value: unknown, ctx: z.RefinementCtx) {
   transmitters.forEach((t, i) => {
     const ref = str(t.antennaId);
     if (ref !== undefined && !antennaIds.has(ref)) ctx.addIssue({ code: 'custom', path: ['transmitters', i, 'antennaId'], message: `Unknown antenna id "${ref}".` });
+    (Array.isArray(t.moreAntennaIds) ? t.moreAntennaIds : []).forEach((a: unknown, j: number) => {
+      if (typeof a === 'string' && !antennaIds.has(a)) ctx.addIssue({ code: 'custom', path: ['transmitters', i, 'moreAntennaIds', j], message: `Unknown antenna id "${a}".` });
+    });
     const mod = str(t.moduleId);
     if (mod !== undefined && !moduleIds.has(mod)) ctx.addIssue({ code: 'custom', path: ['transmitters', i, 'moduleId'], message: `Unknown module id "${mod}" (device.modules).` });
   });

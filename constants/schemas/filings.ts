@@ -78,6 +78,9 @@ export const zRadiosStep = z
     const antennaIds = new Set(v.antennas.map((a) => a.id));
     v.transmitters.forEach((t, i) => {
       if (!antennaIds.has(t.antennaId)) ctx.addIssue({ code: 'custom', path: ['transmitters', i, 'antennaId'], message: `Pick one of the antennas above (no antenna "${t.antennaId}").` });
+      t.moreAntennaIds.forEach((a, j) => {
+        if (!antennaIds.has(a)) ctx.addIssue({ code: 'custom', path: ['transmitters', i, 'moreAntennaIds', j], message: `Pick among the antennas above (no antenna "${a}").` });
+      });
     });
   });
 export type RadiosStep = z.output<typeof zRadiosStep>;

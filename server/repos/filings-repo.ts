@@ -11,6 +11,7 @@ import {
   simultaneousGroupMembers,
   simultaneousGroups,
   stepDrafts,
+  transmitterAntennas,
   transmitters,
   usePositions,
   usePositionSeparations,
@@ -157,6 +158,16 @@ export function readRadios(db: Db, versionId: number): RadiosStep {
   const keyById = new Map(ants.map((a) => [a.id, a.key]));
   const moduleKey = new Map([...moduleIdsByKey(db, versionId)].map(([key, id]) => [id, key]));
   const txs = db.select().from(transmitters).where(eq(transmitters.versionId, versionId)).orderBy(asc(transmitters.sortOrder)).all();
+  const more = new Map<number, string[]>();
+  if (txs.length) {
+    const links = db
+      .select({ transmitterId: transmitterAntennas.transmitterId, antennaId: transmitterAntennas.antennaId })
+      .from(transmitterAntennas)
+      .where(inArray(transmitterAntennas.transmitterId, txs.map((t) => t.id)))
+      .orderBy(asc(transmitterAntennas.sortOrder))
+      .all();
+    for (const l of links) more.set(l.transmitterId, [...(more.get(l.transmitterId) ?? []), keyById.get(l.antennaId)!]);
+  }
   return {
     antennas: ants.map((a) => ({ id: a.key, gainDbi: a.gainDbi, location: a.location, rowId: a.id })),
     // In the schema's field order, optional fields only when stated, so an unchanged step compares equal.
@@ -175,6 +186,8 @@ export function readRadios(db: Db, versionId: number): RadiosStep {
       dutyCycle: t.dutyCycle,
       dutyCyclePreset: t.dutyCyclePreset,
       antennaId: keyById.get(t.antennaId)!,
+      moreAntennaIds: more.get(t.id) ?? [],
+      antennaUse: t.antennaUse,
       ...(t.moduleId !== null && moduleKey.has(t.moduleId) ? { moduleId: moduleKey.get(t.moduleId)! } : {}),
       rowId: t.id,
     })),
@@ -232,7 +245,7 @@ export function writeRadios(db: Db, versionId: number, radios: RadiosStep) {
   });
   const moduleRow = moduleIdsByKey(db, versionId);
   radios.transmitters.forEach((t, sortOrder) => {
-    const { id: key, rowId: _r, antennaId, moduleId, tuneUpTargetDbm, tuneUpToleranceDb, ...fields } = t;
+    const { id: key, rowId: _r, antennaId, moreAntennaIds, moduleId, tuneUpTargetDbm, tuneUpToleranceDb, ...fields } = t;
     const values = {
       key,
       ...fields,
@@ -242,9 +255,16 @@ export function writeRadios(db: Db, versionId: number, radios: RadiosStep) {
       moduleId: moduleId !== undefined ? (moduleRow.get(moduleId) ?? null) : null,
       sortOrder,
     };
-    const id = tx.rowOf.get(t);
-    if (id) db.update(transmitters).set(values).where(eq(transmitters.id, id)).run();
-    else db.insert(transmitters).values({ versionId, ...values }).run();
+    let id = tx.rowOf.get(t);
+    if (id) {
+      db.update(transmitters).set(values).where(eq(transmitters.id, id)).run();
+      db.delete(transmitterAntennas).where(eq(transmitterAntennas.transmitterId, id)).run();
+    } else id = db.insert(transmitters).values({ versionId, ...values }).returning().get().id;
+    if (moreAntennaIds.length) {
+      db.insert(transmitterAntennas)
+        .values(moreAntennaIds.map((a, i) => ({ transmitterId: id, antennaId: antennaRow.get(a)!, sortOrder: i })))
+        .run();
+    }
   });
   if (ant.removed.length) db.delete(antennas).where(inArray(antennas.id, ant.removed)).run();
   if (tx.removed.length) dropShrunkCombinations(db, versionId);

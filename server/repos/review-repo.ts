@@ -209,6 +209,7 @@ export const VERSION_CONTENT_TABLES: readonly { table: string; where: string; ad
   { table: 'step_drafts', where: 'version_id = :v' },
   { table: 'screening_results', where: 'version_id = :v' },
   { table: 'simultaneous_group_members', where: 'group_id in (select id from simultaneous_groups where version_id = :v)' },
+  { table: 'transmitter_antennas', where: 'transmitter_id in (select id from transmitters where version_id = :v)', addedLater: true },
   { table: 'lab_measurements', where: 'version_id = :v' },
   { table: 'lab_liquid_checks', where: 'version_id = :v' },
   { table: 'lab_system_checks', where: 'version_id = :v' },
@@ -252,6 +253,7 @@ export const LATER_COLUMN_DEFAULTS: Record<string, Record<string, unknown>> = {
     bandwidth: '',
     duty_cycle_preset: '',
     module_id: null,
+    antenna_use: 'mimo',
   },
 };
 

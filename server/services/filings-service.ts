@@ -137,7 +137,7 @@ export function stepStatuses(data: FilingDetail['data'], draftSteps: Set<DataSte
   }
   const positions: string[] = [];
   if (!data['use-positions'].usePositions.length) positions.push('Add at least one use position.');
-  const usedAntennas = [...new Set(data.radios.transmitters.map((t) => t.antennaId))];
+  const usedAntennas = [...new Set(data.radios.transmitters.flatMap((t) => [t.antennaId, ...t.moreAntennaIds]))];
   for (const p of data['use-positions'].usePositions) {
     const given = new Set(p.separations.map((s) => s.antennaId));
     const missing = usedAntennas.filter((a) => !given.has(a));

@@ -67,11 +67,11 @@ async function renameAndRemove(s: Session, size: 'phone' | 'desktop') {
 
   // The export names the new labels and imports again.
   const roundTrip = await page.evaluate(async (filingId) => {
-    const file = (await (await fetch(`/api/filings/${filingId}/device.json`)).json()) as { simultaneous: string[][]; antennas: { id: string }[] };
+    const file = (await (await fetch(`/api/filings/${filingId}/device.json`)).json()) as { simultaneous: string[][]; antennas: { id: string }[]; transmitters: { moreAntennaIds: string[] }[] };
     const res = await fetch('/api/filings/import', { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(file) });
-    return { status: res.status, simultaneous: file.simultaneous, antennas: file.antennas.map((a) => a.id) };
+    return { status: res.status, simultaneous: file.simultaneous, antennas: file.antennas.map((a) => a.id), lteB2More: file.transmitters[2].moreAntennaIds };
   }, id);
-  expect(roundTrip).toEqual({ status: 201, simultaneous: [['LTE-B2', 'WIFI-2G4'], ['LTE-B12', 'WLAN-5G', 'BT-LE']], antennas: ['ANT-TOP', 'ANT-DIV', 'ANT-WLAN'] });
+  expect(roundTrip).toEqual({ status: 201, simultaneous: [['LTE-B2', 'WIFI-2G4'], ['LTE-B12', 'WLAN-5G', 'BT-LE']], antennas: ['ANT-TOP', 'ANT-DIV', 'ANT-WLAN'], lteB2More: ['ANT-TOP'] });
 
   // Removing a transmitter asks first and names the combination that goes with it.
   await page.goto(`${server.baseUrl}/filings/${id}/radios`);
@@ -91,6 +91,7 @@ async function renameAndRemove(s: Session, size: 'phone' | 'desktop') {
   const antennaEffects = await page.getByTestId('antennas-confirm-remove-effects').textContent();
   expect(antennaEffects).toContain('its separation in 4 use positions (belt-clip, in-hand, wrist-strap, vehicle-dock)');
   expect(antennaEffects).toContain('transmitters LTE-B12, LTE-B11 are left without an antenna');
+  expect(antennaEffects).toContain('LTE-B2 no longer uses it as a further antenna');
   await page.getByTestId('antennas-confirm-remove-no').click();
   // Remove the transmitter for real.
   await page.getByTestId('transmitters-remove-2').click();
@@ -176,11 +177,21 @@ async function identity(s: Session, size: 'phone' | 'desktop') {
   await page.getByTestId('transmitters-details-0').scrollIntoViewIfNeeded();
   await screenshot(page, `device-radios-details-${size}`);
 
+  // LTE band 2 switches between ANT-DIV and ANT-MAIN.
+  await page.getByTestId('transmitters-more-2').click();
+  expect(await page.getByTestId('tx-2-antenna-ANT-MAIN').getAttribute('aria-checked')).toBe('true');
+  expect(await page.getByTestId('tx-2-antenna-ANT-WLAN').getAttribute('aria-checked')).toBe('false');
+  expect(await page.getByTestId('tx-2-more-antennas').textContent()).toContain('Switched: one antenna at a time');
+  await page.getByTestId('tx-2-more-antennas').scrollIntoViewIfNeeded();
+  await screenshot(page, `device-radios-antennas-${size}`);
+
   // Screening says where a use position is closer than the module's grant allows.
   await page.goto(`${server.baseUrl}/filings/${id}/screening`);
   const conditions = page.getByTestId('screening-module-conditions');
   await conditions.waitFor({ timeout: 30_000 });
   expect(await conditions.textContent()).toContain('closer than the 20 mm module MOD-1');
+  await conditions.scrollIntoViewIfNeeded();
+  await screenshot(page, `device-screening-conditions-${size}`);
 }
 
 /** The same walk on a phone and on a wide screen, each in a fresh browser with no page errors. */
