@@ -372,7 +372,8 @@ function antennaWorse(a: ScreeningRow, b: ScreeningRow): boolean {
   return a.separationM < b.separationM;
 }
 
-const marginWords = (r: ScreeningRow) => `${r.antennaId} at ${fmt(r.separationM * 1000)} mm: ${r.result}${r.marginDb === null ? '' : `, margin ${r.marginDb.toFixed(2)} dB`}`;
+const RESULT_WORDS: Record<ScreeningResult, string> = { exempt: 'exempt', 'evaluate-sar': 'SAR evaluation needed', 'evaluate-mpe': 'MPE evaluation needed' };
+const marginWords = (r: ScreeningRow) => `${r.antennaId} at ${fmt(r.separationM * 1000)} mm: ${RESULT_WORDS[r.result]}${r.marginDb === null ? '' : `, margin ${r.marginDb.toFixed(2)} dB`}`;
 
 /** Screens every transmitter × use position × market of a validated input. */
 export function screenParsed(input: ScreeningInput): ScreeningOutput {

@@ -41,7 +41,7 @@ describe('several antennas on one transmitter', () => {
     expect(row.marginDb).toBeCloseTo(10 * Math.log10(pTh(0.5) / 20), 6);
     expect(row.marginDb!).toBeCloseTo(-8.63, 2);
     expect(row.derivation.inputs.mimoStreams.value).toBe(2);
-    expect(row.derivation.notes.join(' ')).toMatch(/MIMO: 2 streams at once, powers added.*least favourable, B.*A at 10 mm: evaluate-sar, margin -2\.90 dB; B at 5 mm: evaluate-sar, margin -8\.63 dB/);
+    expect(row.derivation.notes.join(' ')).toMatch(/MIMO: 2 streams at once, powers added.*least favourable, B.*A at 10 mm: SAR evaluation needed, margin -2\.90 dB; B at 5 mm: SAR evaluation needed, margin -8\.63 dB/);
   });
 
   it('switched: one antenna at a time at 10 mW; A at 10 mm would be exempt (+0.11 dB), B at 5 mm is not', () => {
