@@ -6,7 +6,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_TRACKER } from '../../seeds/demo-filing';
-import { markSigned } from './support/package-fixtures';
+import { markSigned } from './support/versions';
 import { createTestApp, seedUsers, signIn, type TestApp } from './support/test-app';
 
 let t: TestApp;
@@ -91,7 +91,7 @@ describe('the device file and versions carry several antennas', () => {
   it('the next version copies them; the signed version refuses changes to them in SQLite', async () => {
     const id = (await specialist.post('/api/filings/import').send(DEMO_TRACKER)).body.filing.id;
     const v1 = (await specialist.get(`/api/filings/${id}`)).body.filing;
-    markSigned(t.handle.db, v1.version.id);
+    markSigned(t.handle, v1.version.id);
     expect((await specialist.post(`/api/filings/${id}/versions`)).status).toBe(201);
     const v2 = (await specialist.get(`/api/filings/${id}`)).body.filing;
     expect(v2.data.radios.transmitters[2]).toMatchObject({ moreAntennaIds: ['ANT-MAIN'], antennaUse: 'switched' });
