@@ -14,6 +14,8 @@ export const MAX_TEXT_CHARS = 200;
 export const MAX_TRANSMITTERS = 64;
 export const MAX_ANTENNAS = 32;
 export const MAX_USE_POSITIONS = 24;
+/** Certified modules inside one host. */
+export const MAX_MODULES = 8;
 
 // A lab's data for one filing version.
 export const MAX_MEASUREMENTS = 5000;

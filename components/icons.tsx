@@ -84,6 +84,7 @@ const drawings = {
   ),
   chevronRight: (c) => <Path d="m9.5 6 6 6-6 6" stroke={c} fill="none" strokeLinecap="round" strokeLinejoin="round" />,
   chevronLeft: (c) => <Path d="m14.5 6-6 6 6 6" stroke={c} fill="none" strokeLinecap="round" strokeLinejoin="round" />,
+  chevronDown: (c) => <Path d="m6 9.5 6 6 6-6" stroke={c} fill="none" strokeLinecap="round" strokeLinejoin="round" />,
   plus: (c) => <Path d="M12 5v14M5 12h14" stroke={c} fill="none" strokeLinecap="round" />,
   link: (c) => (
     <Path

@@ -9,7 +9,8 @@ import { EVIDENCE_CATEGORY_IDS } from '../constants/schemas/evidence';
 import { ROLES } from '../constants/schemas/roles';
 import { DATA_STEPS, VERSION_STATES } from '../constants/schemas/filings';
 import { AVERAGING_MASSES, DISTRIBUTIONS, INSTRUMENT_KINDS, LIQUID_KINDS } from '../constants/schemas/lab';
-import { FCC_SAR_SCREENINGS, PRODUCT_TYPES, REGIMES, TIERS, USE_POSITION_KINDS } from '../constants/schemas/device-file';
+import { ANTENNA_USES } from '../calc/screening/input';
+import { FCC_SAR_SCREENINGS, INTEGRATIONS, PRODUCT_TYPES, REGIMES, TIERS, USE_POSITION_KINDS } from '../constants/schemas/device-file';
 
 const createdAt = () =>
   text('created_at')
@@ -149,8 +150,46 @@ export const devices = sqliteTable(
     firmwareVersion: text('firmware_version').notNull().default(''),
     createdAt: createdAt(),
     updatedAt: text('updated_at'),
+    // Grant identity ('' = not stated): FCC ID = grantee code + product code (47 CFR §2.926),
+    // ISED certification number = company number + UPN, and RSP-100's HVIN, PMN and FVIN.
+    fccGranteeCode: text('fcc_grantee_code').notNull().default(''),
+    fccProductCode: text('fcc_product_code').notNull().default(''),
+    isedCompanyNumber: text('ised_company_number').notNull().default(''),
+    isedUpn: text('ised_upn').notNull().default(''),
+    hvin: text('hvin').notNull().default(''),
+    pmn: text('pmn').notNull().default(''),
+    fvin: text('fvin').notNull().default(''),
+    /** Other model numbers the filing covers: [{ model, difference }]. */
+    modelVariants: text('model_variants', { mode: 'json' }).notNull().default([]).$type<{ model: string; difference: string }[]>(),
+    integration: text('integration', { enum: INTEGRATIONS }).notNull().default('host'),
   },
   (t) => [index('devices_org').on(t.organisationId)],
+);
+
+/**
+ * Certified modules inside a host device, with their grant and its conditions. They belong to
+ * the device row, which each version has its own copy of, and are frozen with it.
+ */
+export const deviceModules = sqliteTable(
+  'device_modules',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    deviceId: integer('device_id')
+      .notNull()
+      .references(() => devices.id, { onDelete: 'cascade' }),
+    /** The user's label ("LTE-MOD"), unique within the device. */
+    key: text('key').notNull(),
+    name: text('name').notNull().default(''),
+    fccGranteeCode: text('fcc_grantee_code').notNull().default(''),
+    fccProductCode: text('fcc_product_code').notNull().default(''),
+    isedCompanyNumber: text('ised_company_number').notNull().default(''),
+    isedUpn: text('ised_upn').notNull().default(''),
+    /** The grant's minimum separation from the body, m; null when the grant states none. */
+    minSeparationM: real('min_separation_m'),
+    conditions: text('conditions').notNull().default(''),
+    sortOrder: integer('sort_order').notNull(),
+  },
+  (t) => [uniqueIndex('device_modules_device_key').on(t.deviceId, t.key)],
 );
 
 export const filings = sqliteTable(
@@ -228,8 +267,38 @@ export const transmitters = sqliteTable(
       .notNull()
       .references(() => antennas.id),
     sortOrder: integer('sort_order').notNull(),
+    /** Tune-up target and ± tolerance (null when only the maximum is stated); target + tolerance = max. */
+    tuneUpTargetDbm: real('tune_up_target_dbm'),
+    tuneUpToleranceDb: real('tune_up_tolerance_db'),
+    mode: text('mode').notNull().default(''),
+    modulation: text('modulation').notNull().default(''),
+    bandwidth: text('bandwidth').notNull().default(''),
+    /** The duty-factor preset (constants/duty-factors.ts) the duty cycle came from; '' when typed. */
+    dutyCyclePreset: text('duty_cycle_preset').notNull().default(''),
+    /** The certified module (of the version's device) this transmitter belongs to. */
+    moduleId: integer('module_id').references(() => deviceModules.id, { onDelete: 'set null' }),
+    /** With further antennas (transmitter_antennas): all at once (MIMO) or one at a time. */
+    antennaUse: text('antenna_use', { enum: ANTENNA_USES }).notNull().default('mimo'),
   },
   (t) => [uniqueIndex('transmitters_version_key').on(t.versionId, t.key)],
+);
+
+/**
+ * A transmitter's antennas after its first (transmitters.antenna_id), in order: MIMO or switched.
+ * By row, so renaming an antenna changes nothing here; removing one takes it out.
+ */
+export const transmitterAntennas = sqliteTable(
+  'transmitter_antennas',
+  {
+    transmitterId: integer('transmitter_id')
+      .notNull()
+      .references(() => transmitters.id, { onDelete: 'cascade' }),
+    antennaId: integer('antenna_id')
+      .notNull()
+      .references(() => antennas.id, { onDelete: 'cascade' }),
+    sortOrder: integer('sort_order').notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.transmitterId, t.antennaId] })],
 );
 
 export const usePositions = sqliteTable(

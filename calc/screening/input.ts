@@ -5,7 +5,7 @@
  * that schema, so it is restated here. Unknown keys (device info, antenna location, simultaneous
  * combinations) are accepted and ignored.
  */
-import { MAX_ANTENNAS, MAX_ID_CHARS, MAX_TEXT_CHARS, MAX_TRANSMITTERS, MAX_USE_POSITIONS } from '../input-limits';
+import { MAX_ANTENNAS, MAX_ID_CHARS, MAX_MODULES, MAX_TEXT_CHARS, MAX_TRANSMITTERS, MAX_USE_POSITIONS } from '../input-limits';
 import { z } from 'zod';
 
 export const SCREENING_REGIMES = ['fcc', 'ised', 'eu', 'icnirp-2020'] as const;
@@ -15,6 +15,9 @@ export type ScreeningTier = (typeof SCREENING_TIERS)[number];
 /** FCC: the §1.1307(b)(3) exemptions (default) or the legacy KDB 447498 D01 v06 §4.3.1 test exclusion. */
 export const FCC_SAR_SCREENINGS = ['exemption', 'kdb-test-exclusion'] as const;
 export type FccSarScreening = (typeof FCC_SAR_SCREENINGS)[number];
+/** How a transmitter with several antennas uses them: all at once (MIMO) or one at a time. */
+export const ANTENNA_USES = ['mimo', 'switched'] as const;
+export type AntennaUse = (typeof ANTENNA_USES)[number];
 export const USE_POSITION_KINDS = ['head', 'body-worn', 'hotspot', 'extremity', 'far-field'] as const;
 export type UsePositionKind = (typeof USE_POSITION_KINDS)[number];
 
@@ -40,7 +43,16 @@ const transmitter = z.object({
   frequencyMaxHz: finite.pipe(z.number().positive()).describe('Highest frequency of the band, Hz'),
   maxTuneUpPowerDbm: finite.pipe(z.number().min(-30).max(60)).describe('Maximum tune-up (conducted) power, dBm'),
   dutyCycle: finite.pipe(z.number().gt(0).max(1)).default(1).describe('Maximum transmit duty cycle, (0, 1]'),
-  antennaId: id,
+  antennaId: id.describe('The transmitter’s (first) antenna'),
+  moreAntennaIds: z.array(id).max(MAX_ANTENNAS).optional().describe('Further antennas it uses; each antenna × use position is screened and the least favourable reported'),
+  antennaUse: z.enum(ANTENNA_USES).optional().describe('With several antennas: "mimo" (all at once, the streams’ powers add; the default) or "switched" (one at a time)'),
+  moduleId: id.optional().describe('The certified module (modules) this transmitter is part of'),
+});
+
+/** A certified module inside the host, with the grant's minimum separation from the body. */
+const moduleGrant = z.object({
+  id,
+  minSeparationM: finite.pipe(z.number().min(0).max(10)).optional().describe('The module grant’s minimum separation from the body, m'),
 });
 
 const usePosition = z.object({
@@ -61,6 +73,8 @@ export const screeningInput = z
     antennas: z.array(antenna).max(MAX_ANTENNAS),
     transmitters: z.array(transmitter).max(MAX_TRANSMITTERS),
     usePositions: z.array(usePosition).max(MAX_USE_POSITIONS),
+    /** Only when the host has certified modules inside (absent otherwise, so older inputs hash as before). */
+    modules: z.array(moduleGrant).max(MAX_MODULES).optional(),
   })
   .superRefine((input, ctx) => {
     const antennaIds = new Set(input.antennas.map((a) => a.id));
@@ -71,9 +85,15 @@ export const screeningInput = z
     regimes.forEach((r, i) => {
       if (regimes.indexOf(r) !== i) ctx.addIssue({ code: 'custom', path: ['markets', i, 'regime'], message: `market "${r}" is listed twice` });
     });
+    const moduleIds = new Set((input.modules ?? []).map((m) => m.id));
     input.transmitters.forEach((t, i) => {
+      if (t.moduleId !== undefined && !moduleIds.has(t.moduleId)) ctx.addIssue({ code: 'custom', path: ['transmitters', i, 'moduleId'], message: `unknown module id "${t.moduleId}"` });
       if (t.frequencyMinHz > t.frequencyMaxHz) ctx.addIssue({ code: 'custom', path: ['transmitters', i, 'frequencyMaxHz'], message: 'frequencyMaxHz is below frequencyMinHz' });
       if (!antennaIds.has(t.antennaId)) ctx.addIssue({ code: 'custom', path: ['transmitters', i, 'antennaId'], message: `unknown antenna id "${t.antennaId}"` });
+      (t.moreAntennaIds ?? []).forEach((a, j) => {
+        if (!antennaIds.has(a)) ctx.addIssue({ code: 'custom', path: ['transmitters', i, 'moreAntennaIds', j], message: `unknown antenna id "${a}"` });
+        if (a === t.antennaId || t.moreAntennaIds!.indexOf(a) !== j) ctx.addIssue({ code: 'custom', path: ['transmitters', i, 'moreAntennaIds', j], message: `antenna "${a}" is named twice` });
+      });
     });
     input.usePositions.forEach((p, i) =>
       p.separations.forEach((s, j) => {
@@ -90,3 +110,13 @@ export type ScreeningInputRaw = z.input<typeof screeningInput>;
 export type ScreeningTransmitter = ScreeningInput['transmitters'][number];
 export type ScreeningMarket = ScreeningInput['markets'][number];
 export type ScreeningUsePosition = ScreeningInput['usePositions'][number];
+export type ScreeningModule = NonNullable<ScreeningInput['modules']>[number];
+
+/** The antennas a transmitter uses, its first one first. */
+export const antennasOf = (tx: Pick<ScreeningTransmitter, 'antennaId' | 'moreAntennaIds'>): string[] => (tx.moreAntennaIds?.length ? [tx.antennaId, ...tx.moreAntennaIds] : [tx.antennaId]);
+
+/** MIMO streams on the band: every antenna at once (the default with several), else one. */
+export const streamsOf = (tx: Pick<ScreeningTransmitter, 'antennaId' | 'moreAntennaIds' | 'antennaUse'>): number => {
+  const n = antennasOf(tx).length;
+  return n > 1 && (tx.antennaUse ?? 'mimo') === 'mimo' ? n : 1;
+};

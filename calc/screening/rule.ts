@@ -90,7 +90,7 @@ const SEVERITY: Record<ScreeningResult, number> = { exempt: 0, 'evaluate-mpe': 1
  * True when probe a is the one to report over b: the more demanding result; for the same result,
  * one with a margin (a rule that applied says by how much) over one without; then the smaller margin.
  */
-export function isWorse(a: Probe, b: Probe): boolean {
+export function isWorse(a: Pick<Probe, 'result' | 'marginDb'>, b: Pick<Probe, 'result' | 'marginDb'>): boolean {
   if (SEVERITY[a.result] !== SEVERITY[b.result]) return SEVERITY[a.result] > SEVERITY[b.result];
   if ((a.marginDb === null) !== (b.marginDb === null)) return a.marginDb !== null;
   return a.marginDb !== null && b.marginDb !== null && a.marginDb < b.marginDb;

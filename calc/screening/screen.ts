@@ -2,20 +2,24 @@
  * Screening of a whole device: for every transmitter × use position × market, the rule that
  * applies, the evaluated power, the threshold at the band's most restrictive frequency, the result
  * (exempt / evaluate SAR / evaluate MPE) and the margin in dB, each with its derivation.
- * Combinations that cannot be screened (no separation given for the transmitter's antenna) are
- * listed as gaps, never guessed.
+ * A transmitter with several antennas (MIMO or switched) is evaluated at every antenna, each with
+ * its own gain and separation, and the row reports the least favourable antenna (worst result,
+ * then smallest margin) and names it; MIMO streams on one band add their powers (power.ts).
+ * Combinations that cannot be screened (no separation given for an antenna of the transmitter)
+ * are listed as gaps, never guessed.
  */
 import type { Derivation, Quantity } from '../types';
 import { q } from '../types';
 import { formatHz } from './format';
-import type { ScreeningInput, ScreeningMarket, ScreeningRegime, ScreeningTransmitter, ScreeningUsePosition, UsePositionKind } from './input';
+import { antennasOf, streamsOf, type ScreeningInput, type ScreeningMarket, type ScreeningRegime, type ScreeningTransmitter, type ScreeningUsePosition, type UsePositionKind } from './input';
 import { evaluatedPowers, type EvaluatedPowers } from './power';
-import { fmt, METHOD_LABELS, NEAR_THRESHOLD_DB, screenBand, UNIT, UNROUNDED_COMPARISON, type MethodId, type Probe, type ScreeningResult, type ScreeningRule, type ThresholdKind } from './rule';
+import { fmt, isWorse, METHOD_LABELS, NEAR_THRESHOLD_DB, screenBand, UNIT, UNROUNDED_COMPARISON, type MethodId, type Probe, type ScreeningResult, type ScreeningRule, type ThresholdKind } from './rule';
 import type { RuleContext, RuleSet } from './rule-set';
 import { fccRuleSet } from './rules-fcc';
 import { isedRuleSet } from './rules-ised';
 import { euLikeRuleSet } from './rules-eu';
 import { ISED_PROVISIONAL_REASON, ruleSetWarnings, type RuleSetWarning } from '../versions';
+import { moduleConditionWarnings, type ModuleConditionWarning } from './module-conditions';
 
 export const SCREENING_CAUTIONS = [
   'Screening results are estimates from the published formulas; where the rules require measurement, only an accredited laboratory’s measurement counts.',
@@ -43,6 +47,10 @@ export interface ScreeningRow {
   /** The band's most restrictive frequency (the candidate reported), Hz. */
   frequencyHz: number;
   separationM: number;
+  /** The antenna this row was evaluated at: for a transmitter with several, the least favourable one. */
+  antennaId: string;
+  /** How many antennas the transmitter uses (each was evaluated; see the derivation's notes). */
+  antennaCount: number;
   /** The power the rule compares (time-averaged power, the greater of it and ERP, ERP, or EIRP), mW. */
   evaluatedPowerMw: number;
   evaluatedQuantity: string;
@@ -90,6 +98,8 @@ export interface ScreeningOutput {
   gaps: ScreeningGap[];
   /** Rule-set warnings for the markets screened (e.g. Canada on RSS-102 Issue 5). */
   warnings: RuleSetWarning[];
+  /** Use positions closer than a certified module's grant allows (host with a module inside). */
+  conditions: ModuleConditionWarning[];
   summary: ScreeningSummary;
   derivation: Derivation;
 }
@@ -146,6 +156,8 @@ interface Combination {
   tx: ScreeningTransmitter;
   position: ScreeningUsePosition;
   market: ScreeningMarket;
+  antennaId: string;
+  antennaCount: number;
   separationM: number;
   powers: EvaluatedPowers;
 }
@@ -156,6 +168,8 @@ function rowInputs(c: Combination): Record<string, Quantity> {
     maxTuneUpPowerDbm: p.maxTuneUpPowerDbm,
     dutyCycle: p.dutyCycle,
     antennaGainDbi: p.antennaGainDbi,
+    antennaId: q(c.antennaId, 'text'),
+    ...(p.mimoStreams ? { mimoStreams: p.mimoStreams } : {}),
     frequencyMinHz: q(c.tx.frequencyMinHz, 'Hz'),
     frequencyMaxHz: q(c.tx.frequencyMaxHz, 'Hz'),
     separationM: q(c.separationM, 'm'),
@@ -186,6 +200,8 @@ function newRow(c: Combination, v: RowVerdict): ScreeningRow {
     methodLabel: v.methodLabel,
     frequencyHz: v.frequencyHz,
     separationM: c.separationM,
+    antennaId: c.antennaId,
+    antennaCount: c.antennaCount,
     evaluatedPowerMw: v.evaluatedPowerMw,
     evaluatedQuantity: v.evaluatedQuantity,
     powers: { tuneUpPowerMw: powers.tuneUpPowerMw, timeAveragedPowerMw: powers.timeAveragedPowerMw, eirpMw: powers.eirpMw, erpMw: powers.erpMw },
@@ -339,9 +355,25 @@ function bandDerivation(c: Combination, set: RuleSet, row: ScreeningRow, worst: 
   };
 }
 
-function gapMessage(tx: ScreeningTransmitter, position: ScreeningUsePosition): string {
-  return `Use position "${position.id}" gives no separation for antenna "${tx.antennaId}" of transmitter "${tx.id}": add one to screen this combination.`;
+function gapMessage(tx: ScreeningTransmitter, position: ScreeningUsePosition, missing: string[]): string {
+  if (missing.length === 1) return `Use position "${position.id}" gives no separation for antenna "${missing[0]}" of transmitter "${tx.id}": add one to screen this combination.`;
+  return `Use position "${position.id}" gives no separation for antennas ${missing.map((a) => `"${a}"`).join(', ')} of transmitter "${tx.id}": add them to screen this combination.`;
 }
+
+/**
+ * The least favourable of a transmitter's antennas: the more demanding result; then one no
+ * formula gives a margin for (e.g. closer than a rule covers); then the smaller margin; then the
+ * closer antenna. Equal on all counts: the first listed stays.
+ */
+function antennaWorse(a: ScreeningRow, b: ScreeningRow): boolean {
+  if (a.result !== b.result) return isWorse(a, b);
+  if ((a.marginDb === null) !== (b.marginDb === null)) return a.marginDb === null;
+  if (a.marginDb !== null && b.marginDb !== null && a.marginDb !== b.marginDb) return a.marginDb < b.marginDb;
+  return a.separationM < b.separationM;
+}
+
+const RESULT_WORDS: Record<ScreeningResult, string> = { exempt: 'exempt', 'evaluate-sar': 'SAR evaluation needed', 'evaluate-mpe': 'MPE evaluation needed' };
+const marginWords = (r: ScreeningRow) => `${r.antennaId} at ${fmt(r.separationM * 1000)} mm: ${RESULT_WORDS[r.result]}${r.marginDb === null ? '' : `, margin ${r.marginDb.toFixed(2)} dB`}`;
 
 /** Screens every transmitter × use position × market of a validated input. */
 export function screenParsed(input: ScreeningInput): ScreeningOutput {
@@ -349,23 +381,41 @@ export function screenParsed(input: ScreeningInput): ScreeningOutput {
   const rows: ScreeningRow[] = [];
   const gaps: ScreeningGap[] = [];
   for (const tx of input.transmitters) {
-    const powers = evaluatedPowers(tx.maxTuneUpPowerDbm, tx.dutyCycle, gainById.get(tx.antennaId) as number);
+    const antennas = antennasOf(tx);
+    const streams = streamsOf(tx);
+    const powersOf = antennas.map((a) => evaluatedPowers(tx.maxTuneUpPowerDbm, tx.dutyCycle, gainById.get(a) as number, streams));
     for (const position of input.usePositions) {
-      const sep = position.separations.find((s) => s.antennaId === tx.antennaId);
-      if (!sep) {
-        gaps.push({ transmitterId: tx.id, usePositionId: position.id, message: gapMessage(tx, position) });
+      const seps = antennas.map((a) => position.separations.find((s) => s.antennaId === a));
+      const missing = antennas.filter((_, k) => !seps[k]);
+      if (missing.length) {
+        gaps.push({ transmitterId: tx.id, usePositionId: position.id, message: gapMessage(tx, position, missing) });
         continue;
       }
       for (const market of input.markets) {
-        const c: Combination = { tx, position, market, separationM: sep.separationM, powers };
-        const set = ruleSetFor(market, {
-          powers,
-          separationM: sep.separationM,
-          kind: position.kind,
-          tier: market.tier,
-          fccSarScreening: market.fccSarScreening ?? 'exemption',
+        let worst: ScreeningRow | null = null;
+        const each: ScreeningRow[] = [];
+        antennas.forEach((antennaId, k) => {
+          const separationM = seps[k]!.separationM;
+          const powers = powersOf[k];
+          const c: Combination = { tx, position, market, antennaId, antennaCount: antennas.length, separationM, powers };
+          const set = ruleSetFor(market, {
+            powers,
+            separationM,
+            kind: position.kind,
+            tier: market.tier,
+            fccSarScreening: market.fccSarScreening ?? 'exemption',
+          });
+          const row = set.blanket ? blanketRow(c, set) : bandRow(c, set);
+          each.push(row);
+          if (!worst || antennaWorse(row, worst)) worst = row;
         });
-        rows.push(set.blanket ? blanketRow(c, set) : bandRow(c, set));
+        const reported = worst as unknown as ScreeningRow;
+        if (antennas.length > 1) {
+          reported.derivation.notes.push(
+            `${antennas.length} antennas (${streams > 1 ? `MIMO: ${streams} streams at once, powers added` : 'switched: one at a time'}), each evaluated with its own gain and separation; reported: the least favourable, ${reported.antennaId}. Each antenna — ${each.map(marginWords).join('; ')}.`,
+          );
+        }
+        rows.push(reported);
       }
     }
   }
@@ -375,10 +425,18 @@ export function screenParsed(input: ScreeningInput): ScreeningOutput {
   if (gaps.length) notes.push(`${gaps.length} transmitter × use position combination(s) could not be screened (see gaps).`);
   const warnings = ruleSetWarnings(input.markets.map((m) => m.regime));
   for (const w of warnings) notes.push(w.message);
+  const conditions = moduleConditionWarnings(input);
+  if (conditions.length) notes.push(`${conditions.length} use position × antenna combination(s) closer than a module grant allows (see conditions).`);
+  for (const c of conditions) {
+    for (const row of rows) {
+      if (row.transmitterId === c.transmitterId && row.usePositionId === c.usePositionId) row.derivation.notes.push(`Module grant condition: ${c.message} Source: ${c.source}.`);
+    }
+  }
   return {
     rows,
     gaps,
     warnings,
+    conditions,
     summary,
     derivation: {
       formula: 'for each transmitter × use position × market: the applicable exemption rule at the band’s most restrictive frequency (edges and breakpoints); result = exempt | evaluate-sar | evaluate-mpe',

@@ -34,6 +34,7 @@ export function EditRows({
   testID,
   empty,
   removalEffects,
+  details,
 }: {
   noun: string;
   columns: EditColumn[];
@@ -47,9 +48,48 @@ export function EditRows({
   empty: string;
   /** What else is removed or left without a partner when row i goes, in words. */
   removalEffects?: (i: number) => string[];
+  /** More fields of a row, behind a "more" toggle under it; `summary` says what they hold. */
+  details?: { label: string; render: (i: number) => React.ReactNode; summary?: (i: number) => string };
 }) {
   const wide = useIsWide();
   const [asking, setAsking] = useState<number | null>(null);
+  const [open, setOpen] = useState<ReadonlySet<string>>(new Set());
+  const toggle = (key: string) =>
+    setOpen((o) => {
+      const next = new Set(o);
+      if (next.has(key)) next.delete(key);
+      else next.add(key);
+      return next;
+    });
+  const more = (i: number) => {
+    if (!details) return null;
+    const key = keyOf(i);
+    const isOpen = open.has(key);
+    const summary = details.summary?.(i);
+    return (
+      <View style={wide ? styles.detailsWide : styles.details}>
+        <Pressable
+          accessibilityRole="button"
+          accessibilityState={{ expanded: isOpen }}
+          accessibilityLabel={`${isOpen ? 'Hide' : 'Show'} ${details.label} of ${noun} ${titleOf(i) || i + 1}`}
+          onPress={() => toggle(key)}
+          testID={`${testID}-more-${i}`}
+          style={({ pressed }) => [styles.moreToggle, pressed && { opacity: 0.6 }]}
+        >
+          <Icon name={isOpen ? 'chevronDown' : 'chevronRight'} size={16} color={palette.accent} />
+          <Text variant="smallStrong" tone="accent">
+            {details.label}
+          </Text>
+          {summary && !isOpen ? (
+            <Text variant="small" tone="muted" numberOfLines={1} style={{ flexShrink: 1 }}>
+              {summary}
+            </Text>
+          ) : null}
+        </Pressable>
+        {isOpen ? <View testID={`${testID}-details-${i}`}>{details.render(i)}</View> : null}
+      </View>
+    );
+  };
   const rows = Array.from({ length: count }, (_, i) => i);
   const remove = (i: number) =>
     editable ? (
@@ -80,13 +120,16 @@ export function EditRows({
             {editable ? <View style={styles.removeCol} /> : null}
           </View>
           {rows.map((i) => (
-            <View key={keyOf(i)} style={styles.tr} role="row" testID={`${testID}-row-${i}`}>
-              {columns.map((c) => (
-                <View key={c.key} style={[styles.cell, { flex: c.flex }]} role="cell">
-                  {c.render(i, true)}
-                </View>
-              ))}
-              {editable ? <View style={styles.removeCol}>{remove(i)}</View> : null}
+            <View key={keyOf(i)} style={details ? styles.rowGroup : undefined}>
+              <View style={[styles.tr, details && styles.trGrouped]} role="row" testID={`${testID}-row-${i}`}>
+                {columns.map((c) => (
+                  <View key={c.key} style={[styles.cell, { flex: c.flex }]} role="cell">
+                    {c.render(i, true)}
+                  </View>
+                ))}
+                {editable ? <View style={styles.removeCol}>{remove(i)}</View> : null}
+              </View>
+              {more(i)}
             </View>
           ))}
         </View>
@@ -106,6 +149,7 @@ export function EditRows({
                 </View>
               ))}
             </View>
+            {more(i)}
           </View>
         ))
       )}
@@ -170,5 +214,10 @@ const styles = StyleSheet.create({
   half: { flexBasis: '45%', flexGrow: 1 },
   add: { alignSelf: 'flex-start' },
   effects: { gap: space.xs },
+  rowGroup: { borderBottomWidth: 1, borderBottomColor: palette.paperDeep },
+  trGrouped: { borderBottomWidth: 0 },
+  details: { gap: space.sm },
+  detailsWide: { gap: space.sm, paddingHorizontal: space.sm, paddingBottom: space.sm },
+  moreToggle: { flexDirection: 'row', alignItems: 'center', gap: space.xs, minHeight: layout.touchMinPx, alignSelf: 'flex-start', maxWidth: '100%' },
   confirmButtons: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
 });

@@ -17,12 +17,15 @@ interface Common<T extends FieldValues> {
   editable: boolean;
   testID?: string;
   placeholder?: string;
+  /** Shown under the field when it has no error. */
+  hint?: string;
 }
 
 /** `onValueChange` hears each change with the value before it (e.g. to carry a rename to what refers to it). */
 type Changed = { onValueChange?: (next: string, previous: string) => void };
 
-export function FormText<T extends FieldValues>({ control, name, editable, onValueChange, ...rest }: Common<T> & Changed) {
+/** `capitals`: the field takes codes (grant identifiers); the keyboard offers capitals. */
+export function FormText<T extends FieldValues>({ control, name, editable, onValueChange, capitals, ...rest }: Common<T> & Changed & { capitals?: boolean }) {
   return (
     <Controller
       control={control}
@@ -32,6 +35,8 @@ export function FormText<T extends FieldValues>({ control, name, editable, onVal
           <InputBox
             {...rest}
             ref={field.ref}
+            autoCapitalize={capitals ? 'characters' : undefined}
+            autoCorrect={capitals ? false : undefined}
             editable={editable}
             value={field.value ?? ''}
             onChangeText={(next) => {
@@ -50,8 +55,20 @@ export function FormText<T extends FieldValues>({ control, name, editable, onVal
   );
 }
 
-/** `scale` converts the shown unit to the stored one: stored = shown × scale. */
-export function FormNumber<T extends FieldValues>({ control, name, editable, unit, scale = 1, ...rest }: Common<T> & { unit: string; scale?: number }) {
+/**
+ * `scale` converts the shown unit to the stored one: stored = shown × scale. `optional`: an empty
+ * field is no value at all (the key is left out), not a missing number.
+ */
+export function FormNumber<T extends FieldValues>({
+  control,
+  name,
+  editable,
+  unit,
+  scale = 1,
+  optional,
+  onValueChange,
+  ...rest
+}: Common<T> & { unit: string; scale?: number; optional?: boolean; onValueChange?: (next: number | null) => void }) {
   return (
     <Controller
       control={control}
@@ -59,7 +76,21 @@ export function FormNumber<T extends FieldValues>({ control, name, editable, uni
       render={({ field, fieldState }) => !editable ? (
         <ReadValue label={rest.label} hideLabel={rest.hideLabel} value={toDisplay(field.value, scale)} unit={unit} numeric testID={rest.testID} />
       ) : (
-        <NumberField {...rest} ref={field.ref} unit={unit} scale={scale} editable={editable} value={field.value} onChange={field.onChange} onBlur={field.onBlur} error={fieldState.error?.message} />
+        <NumberField
+          {...rest}
+          ref={field.ref}
+          unit={unit}
+          scale={scale}
+          editable={editable}
+          value={field.value}
+          onChange={(raw) => {
+            const v = raw as number | null;
+            field.onChange(optional && v === null ? undefined : v);
+            onValueChange?.(v);
+          }}
+          onBlur={field.onBlur}
+          error={fieldState.error?.message}
+        />
       )}
     />
   );

@@ -1,13 +1,20 @@
 /**
  * Step 2, Radios: antennas and transmitters, saved together (a transmitter names its antenna).
- * Frequencies are typed in MHz and stored in Hz; duty cycle typed in % and stored 0–1.
+ * Frequencies are typed in MHz and stored in Hz; duty cycle typed in % and stored 0–1. Each
+ * transmitter's details: tune-up target ± tolerance (their sum is the maximum screening uses),
+ * mode, modulation and bandwidth, a duty-factor preset with its source, and its certified module.
  */
 import { useRef } from 'react';
-import { useFieldArray, useWatch } from 'react-hook-form';
+import { Controller, useFieldArray, useWatch } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
+import { DUTY_FACTOR_PRESETS, findDutyFactorPreset } from '../../constants/duty-factors';
 import type { FilingDetail } from '../../constants/schemas/filings';
 import { space } from '../../constants/theme';
 import { Card } from '../ui/card';
+import { Checkbox } from '../ui/checkbox';
+import { ChoiceChips } from '../ui/choice-chips';
+import { ReadValue } from '../ui/read-value';
+import { SelectField } from '../ui/select-field';
 import { Text } from '../ui/text';
 import { EditRows, nextId, type EditColumn } from './edit-rows';
 import { FormNumber, FormSelect, FormText } from './form-fields';
@@ -28,13 +35,30 @@ interface TransmitterRow {
   frequencyMinHz: number | null;
   frequencyMaxHz: number | null;
   maxTuneUpPowerDbm: number | null;
+  tuneUpTargetDbm?: number | null;
+  tuneUpToleranceDb?: number | null;
+  mode: string;
+  modulation: string;
+  bandwidth: string;
   dutyCycle: number | null;
+  dutyCyclePreset: string;
   antennaId: string;
+  moreAntennaIds: string[];
+  antennaUse: 'mimo' | 'switched';
+  moduleId?: string;
 }
 export interface RadiosValues {
   antennas: AntennaRow[];
   transmitters: TransmitterRow[];
 }
+
+const ANTENNA_USE_CHOICES = [
+  { value: 'mimo' as const, label: 'All at once (MIMO)' },
+  { value: 'switched' as const, label: 'One at a time (switched)' },
+];
+const PRESET_OPTIONS = [{ value: '', label: 'None (typed value)' }, ...DUTY_FACTOR_PRESETS.map((p) => ({ value: p.key, label: p.label }))];
+const round2 = (x: number) => Math.round(x * 100) / 100;
+const num = (x: unknown): x is number => typeof x === 'number' && Number.isFinite(x);
 
 const fromDraft = (raw: unknown, saved: RadiosValues): RadiosValues =>
   isObject(raw) ? { antennas: arrayOf(raw.antennas) as unknown as AntennaRow[], transmitters: arrayOf(raw.transmitters) as unknown as TransmitterRow[] } : saved;
@@ -58,11 +82,45 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
     const k = antennaValues.findIndex((a) => a?.id === transmitterValues[j]?.antennaId);
     if (k >= 0 && antennas.fields[k]) follows.current.set(f.key, antennas.fields[k].key);
   }
+  // The same for each transmitter's further antennas (MIMO or switched).
+  const followsMore = useRef(new Map<string, string[]>());
+  for (const [j, f] of transmitters.fields.entries()) {
+    if (followsMore.current.has(f.key)) continue;
+    const keys = (transmitterValues[j]?.moreAntennaIds ?? []).map((label) => antennas.fields[antennaValues.findIndex((a) => a?.id === label)]?.key).filter(Boolean) as string[];
+    followsMore.current.set(f.key, keys);
+  }
+  const labelOf = (antennaKey: string, renamed?: { key: string; label: string }) =>
+    renamed?.key === antennaKey ? renamed.label : (form.getValues(`antennas.${antennas.fields.findIndex((f) => f.key === antennaKey)}.id`) ?? '');
+  const setMore = (j: number, keys: string[], renamed?: { key: string; label: string }) => {
+    const txKey = transmitters.fields[j]?.key;
+    if (txKey) followsMore.current.set(txKey, keys);
+    form.setValue(
+      `transmitters.${j}.moreAntennaIds`,
+      keys.map((k) => labelOf(k, renamed)),
+      { shouldValidate: true, shouldDirty: true },
+    );
+  };
   const relabel = (antennaIndex: number, next: string) => {
     const antennaKey = antennas.fields[antennaIndex]?.key;
     transmitters.fields.forEach((f, j) => {
       if (antennaKey && follows.current.get(f.key) === antennaKey) form.setValue(`transmitters.${j}.antennaId`, next, { shouldValidate: true, shouldDirty: true });
+      const more = followsMore.current.get(f.key) ?? [];
+      if (antennaKey && more.includes(antennaKey)) setMore(j, more, { key: antennaKey, label: next });
     });
+  };
+  const removeAntenna = (antennaIndex: number) => {
+    const antennaKey = antennas.fields[antennaIndex]?.key;
+    transmitters.fields.forEach((f, j) => {
+      const more = followsMore.current.get(f.key) ?? [];
+      if (antennaKey && more.includes(antennaKey)) setMore(j, more.filter((k) => k !== antennaKey));
+    });
+    antennas.remove(antennaIndex);
+  };
+  const toggleMore = (j: number, antennaKey: string, on: boolean) => {
+    const more = followsMore.current.get(transmitters.fields[j]?.key ?? '') ?? [];
+    const next = on ? [...more.filter((k) => k !== antennaKey), antennaKey] : more.filter((k) => k !== antennaKey);
+    // Kept in the order of the antenna list.
+    setMore(j, antennas.fields.map((f) => f.key).filter((k) => next.includes(k)));
   };
   const follow = (txIndex: number, label: string) => {
     const k = antennaValues.findIndex((a) => a?.id === label);
@@ -74,13 +132,16 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
   useAdoptRowIds(form, 'transmitters', filing.data.radios.transmitters);
 
   const usedBy = (label: string) => transmitterValues.filter((t) => t?.antennaId === label).map((t) => t.id);
+  const alsoUsedBy = (label: string) => transmitterValues.filter((t) => t?.moreAntennaIds?.includes(label)).map((t) => t.id);
   const antennaEffects = (i: number) => {
     const label = antennaValues[i]?.id ?? '';
     const positions = filing.data['use-positions'].usePositions.filter((p) => p.separations.some((s) => s.antennaId === label)).map((p) => p.id);
     const txs = usedBy(label);
+    const also = alsoUsedBy(label);
     return [
       ...(positions.length ? [`its separation in ${positions.length} use position${positions.length === 1 ? '' : 's'} (${positions.join(', ')})`] : []),
       ...(txs.length ? [`transmitters ${txs.join(', ')} are left without an antenna until you pick another`] : []),
+      ...(also.length ? [`${also.join(', ')} no longer use${also.length === 1 ? 's' : ''} it as a further antenna`] : []),
     ];
   };
   const transmitterEffects = (i: number) => {
@@ -105,8 +166,37 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
     { key: 'band', label: 'Band', flex: 1.4, half: true, render: (i, h) => <FormText {...common} name={`transmitters.${i}.band`} label="Band" placeholder="e.g. Band 12" hideLabel={h} testID={`tx-${i}-band`} /> },
     { key: 'fmin', label: 'Lowest (MHz)', flex: 1.1, half: true, render: (i, h) => <FormNumber {...common} name={`transmitters.${i}.frequencyMinHz`} label="Lowest frequency" unit="MHz" scale={1e6} hideLabel={h} testID={`tx-${i}-fmin`} /> },
     { key: 'fmax', label: 'Highest (MHz)', flex: 1.1, half: true, render: (i, h) => <FormNumber {...common} name={`transmitters.${i}.frequencyMaxHz`} label="Highest frequency" unit="MHz" scale={1e6} hideLabel={h} testID={`tx-${i}-fmax`} /> },
-    { key: 'power', label: 'Tune-up (dBm)', flex: 0.9, half: true, render: (i, h) => <FormNumber {...common} name={`transmitters.${i}.maxTuneUpPowerDbm`} label="Max tune-up power" unit="dBm" hideLabel={h} testID={`tx-${i}-power`} /> },
-    { key: 'duty', label: 'Duty (%)', flex: 0.8, half: true, render: (i, h) => <FormNumber {...common} name={`transmitters.${i}.dutyCycle`} label="Duty cycle" unit="%" scale={0.01} hideLabel={h} testID={`tx-${i}-duty`} /> },
+    {
+      key: 'power',
+      label: 'Max tune-up (dBm)',
+      flex: 0.9,
+      half: true,
+      // With a target and tolerance the maximum is their sum, shown and kept in step with them.
+      render: (i, h) => (
+        <FormNumber {...common} editable={editable && !derivedMax(i)} name={`transmitters.${i}.maxTuneUpPowerDbm`} label="Max tune-up power" unit="dBm" hideLabel={h} testID={`tx-${i}-power`} />
+      ),
+    },
+    {
+      key: 'duty',
+      label: 'Duty (%)',
+      flex: 0.8,
+      half: true,
+      render: (i, h) => (
+        <FormNumber
+          {...common}
+          name={`transmitters.${i}.dutyCycle`}
+          label="Duty cycle"
+          unit="%"
+          scale={0.01}
+          hideLabel={h}
+          testID={`tx-${i}-duty`}
+          onValueChange={(v) => {
+            const preset = findDutyFactorPreset(form.getValues(`transmitters.${i}.dutyCyclePreset`) ?? '');
+            if (preset && v !== preset.dutyCycle) form.setValue(`transmitters.${i}.dutyCyclePreset`, '', { shouldValidate: true, shouldDirty: true });
+          }}
+        />
+      ),
+    },
     {
       key: 'antenna',
       label: 'Antenna',
@@ -126,6 +216,152 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
     },
   ];
 
+  const modules = filing.data.device.modules;
+  const moduleOptions = [{ value: '', label: 'Not in a module' }, ...modules.map((m) => ({ value: m.id, label: m.name ? `${m.id} (${m.name})` : m.id }))];
+  function derivedMax(i: number) {
+    const t = transmitterValues[i];
+    return num(t?.tuneUpTargetDbm) && num(t?.tuneUpToleranceDb);
+  }
+  const setMaxFromTarget = (i: number) => {
+    const t = form.getValues(`transmitters.${i}`);
+    if (num(t?.tuneUpTargetDbm) && num(t?.tuneUpToleranceDb)) {
+      form.setValue(`transmitters.${i}.maxTuneUpPowerDbm`, round2(t.tuneUpTargetDbm + t.tuneUpToleranceDb), { shouldValidate: true, shouldDirty: true });
+    }
+  };
+  const txDetails = {
+    label: 'Antennas, tune-up, mode, duty factor',
+    summary: (i: number) => {
+      const t = transmitterValues[i];
+      if (!t) return '';
+      const parts = [
+        num(t.tuneUpTargetDbm) && num(t.tuneUpToleranceDb) ? `${t.tuneUpTargetDbm} ± ${t.tuneUpToleranceDb} dB` : '',
+        t.mode,
+        findDutyFactorPreset(t.dutyCyclePreset ?? '')?.label ?? '',
+        t.moduleId ? `module ${t.moduleId}` : '',
+        t.moreAntennaIds?.length ? `${t.moreAntennaIds.length + 1} antennas, ${t.antennaUse === 'switched' ? 'switched' : 'MIMO'}` : '',
+      ].filter(Boolean);
+      return parts.length ? parts.join(' · ') : '';
+    },
+    render: (i: number) => {
+      const t = transmitterValues[i];
+      const preset = findDutyFactorPreset(t?.dutyCyclePreset ?? '');
+      const more = t?.moreAntennaIds ?? [];
+      const others = antennas.fields.map((f, k) => ({ key: f.key, label: antennaValues[k]?.id ?? '' })).filter((a) => a.label && a.label !== t?.antennaId);
+      return (
+        <View style={styles.detailGrid}>
+          <View style={styles.detailWide} testID={`tx-${i}-more-antennas`}>
+            <Text variant="smallStrong" tone="soft">
+              {`Further antennas (besides ${t?.antennaId || 'the first'})`}
+            </Text>
+            {others.length ? (
+              <View style={styles.checks}>
+                {others.map((a) => (
+                  <Checkbox
+                    key={a.key}
+                    label={a.label}
+                    checked={more.includes(a.label)}
+                    disabled={!editable}
+                    onChange={(on) => toggleMore(i, a.key, on)}
+                    testID={`tx-${i}-antenna-${a.label}`}
+                  />
+                ))}
+              </View>
+            ) : (
+              <Text variant="small" tone="muted">
+                Add another antenna above to use it here.
+              </Text>
+            )}
+            {more.length ? (
+              <Controller
+                control={control}
+                name={`transmitters.${i}.antennaUse`}
+                render={({ field }) => (
+                  <ChoiceChips
+                    label="With several antennas it transmits"
+                    choices={ANTENNA_USE_CHOICES}
+                    value={field.value ?? 'mimo'}
+                    onChange={field.onChange}
+                    disabled={!editable}
+                    testID={`tx-${i}-antenna-use`}
+                  />
+                )}
+              />
+            ) : null}
+            {more.length ? (
+              <Text variant="small" tone="muted">
+                {(t?.antennaUse ?? 'mimo') === 'mimo'
+                  ? `MIMO: the maximum tune-up power is per stream; screening adds the ${more.length + 1} streams’ powers and evaluates the sum at each antenna (KDB 662911, from memory).`
+                  : 'Switched: one antenna at a time; screening evaluates each antenna at the tune-up power and reports the least favourable.'}
+              </Text>
+            ) : null}
+          </View>
+          <View style={styles.detailCell}>
+            <FormNumber {...common} optional name={`transmitters.${i}.tuneUpTargetDbm`} label="Tune-up target" unit="dBm" testID={`tx-${i}-target`} onValueChange={() => setMaxFromTarget(i)} />
+          </View>
+          <View style={styles.detailCell}>
+            <FormNumber {...common} optional name={`transmitters.${i}.tuneUpToleranceDb`} label="Tolerance ±" unit="dB" testID={`tx-${i}-tolerance`} onValueChange={() => setMaxFromTarget(i)} />
+          </View>
+          <View style={[styles.detailCell, styles.detailNote]}>
+            <Text variant="small" tone="muted" testID={`tx-${i}-upper`}>
+              {derivedMax(i) && num(t?.maxTuneUpPowerDbm)
+                ? `Upper bound ${t.maxTuneUpPowerDbm} dBm (target ${t.tuneUpTargetDbm} dBm + ${t.tuneUpToleranceDb} dB): screening uses it.`
+                : 'Screening uses the maximum tune-up power; with a target and tolerance it is their sum.'}
+            </Text>
+          </View>
+          <View style={styles.detailCell}>
+            <FormText {...common} name={`transmitters.${i}.mode`} label="Mode (optional)" placeholder="e.g. QPSK, 1 RB" testID={`tx-${i}-mode`} />
+          </View>
+          <View style={styles.detailCell}>
+            <FormText {...common} name={`transmitters.${i}.modulation`} label="Modulation (optional)" placeholder="e.g. QPSK" testID={`tx-${i}-modulation`} />
+          </View>
+          <View style={styles.detailCell}>
+            <FormText {...common} name={`transmitters.${i}.bandwidth`} label="Bandwidth (optional)" placeholder="e.g. 10 MHz" testID={`tx-${i}-bandwidth`} />
+          </View>
+          <View style={styles.detailWide}>
+            <FormSelect
+              {...common}
+              name={`transmitters.${i}.dutyCyclePreset`}
+              label="Duty-factor preset"
+              options={PRESET_OPTIONS}
+              testID={`tx-${i}-duty-preset`}
+              onValueChange={(next) => {
+                const p = findDutyFactorPreset(next);
+                if (p) form.setValue(`transmitters.${i}.dutyCycle`, p.dutyCycle, { shouldValidate: true, shouldDirty: true });
+              }}
+            />
+            {preset ? (
+              <Text variant="small" tone="muted" testID={`tx-${i}-duty-source`}>
+                {`${preset.basis} Source: ${preset.source}.`}
+              </Text>
+            ) : null}
+          </View>
+          {modules.length ? (
+            <View style={styles.detailWide}>
+              <Controller
+                control={control}
+                name={`transmitters.${i}.moduleId`}
+                render={({ field, fieldState }) =>
+                  editable ? (
+                    <SelectField
+                      label="Certified module"
+                      options={moduleOptions}
+                      value={field.value ?? ''}
+                      onChange={(next) => field.onChange(next === '' ? undefined : next)}
+                      error={fieldState.error?.message}
+                      testID={`tx-${i}-module`}
+                    />
+                  ) : (
+                    <ReadValue label="Certified module" value={field.value ?? 'Not in a module'} testID={`tx-${i}-module`} />
+                  )
+                }
+              />
+            </View>
+          ) : null}
+        </View>
+      );
+    },
+  };
+
   return (
     <StepFrame stepForm={stepForm}
       intro="Every transmitter with its band, maximum tune-up power and the antenna it uses. Frequencies in MHz, power in dBm, gain in dBi."
@@ -138,7 +374,7 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
           keyOf={(i) => antennas.fields[i].key}
           titleOf={(i) => antennaValues[i]?.id ?? ''}
           onAdd={() => antennas.append({ id: nextId('ANT', antennaValues.map((a) => a?.id)), gainDbi: 0, location: '' })}
-          onRemove={(i) => antennas.remove(i)}
+          onRemove={removeAntenna}
           removalEffects={antennaEffects}
           editable={editable}
           testID="antennas"
@@ -160,12 +396,19 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
               frequencyMinHz: null,
               frequencyMaxHz: null,
               maxTuneUpPowerDbm: null,
+              mode: '',
+              modulation: '',
+              bandwidth: '',
               dutyCycle: 1,
+              dutyCyclePreset: '',
               antennaId: antennaValues[0]?.id ?? '',
+              moreAntennaIds: [],
+              antennaUse: 'mimo',
             })
           }
           onRemove={(i) => transmitters.remove(i)}
           removalEffects={transmitterEffects}
+          details={txDetails}
           editable={editable}
           testID="transmitters"
           empty="No transmitters yet. Add one per band the device transmits in."
@@ -181,4 +424,11 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
   );
 }
 
-const styles = StyleSheet.create({ note: { paddingTop: space.xs } });
+const styles = StyleSheet.create({
+  note: { paddingTop: space.xs },
+  detailGrid: { flexDirection: 'row', flexWrap: 'wrap', gap: space.md },
+  detailCell: { flexBasis: 180, flexGrow: 1, minWidth: 0 },
+  detailNote: { flexBasis: 260, justifyContent: 'center' },
+  detailWide: { flexBasis: '100%', gap: space.xs },
+  checks: { flexDirection: 'row', flexWrap: 'wrap', columnGap: space.lg },
+});

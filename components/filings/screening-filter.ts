@@ -39,12 +39,13 @@ const cell = (v: string | number | null) => {
 
 /** RFC 4180 CSV of the rows as shown (after filtering), with a header line. */
 export function screeningCsv(rows: readonly ScreeningRowDto[]): string {
-  const head = ['Transmitter', 'Use position', 'Position kind', 'Separation (mm)', 'Market', 'Tier', 'Method', 'Frequency (MHz)', 'Evaluated', 'Threshold', 'Result', 'Margin (dB)', 'Source'];
+  const head = ['Transmitter', 'Use position', 'Position kind', 'Antenna', 'Separation (mm)', 'Market', 'Tier', 'Method', 'Frequency (MHz)', 'Evaluated', 'Threshold', 'Result', 'Margin (dB)', 'Source'];
   const lines = rows.map((r) =>
     [
       r.transmitterId,
       r.usePositionId,
       USE_POSITION_LABELS[r.usePositionKind],
+      r.antennaId ?? null,
       Number((r.separationM * 1000).toPrecision(6)),
       regimeShort(r.regime),
       r.tier,

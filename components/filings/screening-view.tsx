@@ -72,6 +72,18 @@ export function ScreeningView({ filing }: { filing: FilingDetail }) {
           </View>
         </Notice>
       ) : null}
+      {s.conditions?.length ? (
+        <Notice tone="caution" title="Closer than a module’s grant allows" testID="screening-module-conditions">
+          <View style={{ gap: 2 }}>
+            {s.conditions.map((c) => (
+              <Text key={`${c.transmitterId}-${c.usePositionId}-${c.antennaId}`} variant="small">
+                {c.message}
+              </Text>
+            ))}
+            <Text variant="small" tone="muted">{`Source: ${s.conditions[0].source}.`}</Text>
+          </View>
+        </Notice>
+      ) : null}
       <Card title="Every combination" aside={<Text variant="small" tone="muted">Tap a figure to see how it was computed.</Text>}>
         <View style={styles.filters} testID="screening-filters">
           {regimes.length > 1 ? (
@@ -250,7 +262,7 @@ function ScreeningRows({ rows, onOpen }: { rows: ScreeningRowDto[]; onOpen: (row
             {row.usePositionId}
             {'\n'}
             <Text variant="small" tone="muted">
-              {formatMm(row.separationM)}
+              {antennaText(row)}
             </Text>
           </Text>
           <Text variant="small" style={[styles.td, styles.cellPad, { flex: COLUMNS[2]!.flex }]} role="cell">
@@ -268,6 +280,13 @@ function ScreeningRows({ rows, onOpen }: { rows: ScreeningRowDto[]; onOpen: (row
       ))}
     </View>
   );
+}
+
+/** The antenna the row was evaluated at and its separation; "least favourable of N" when the transmitter has several. */
+function antennaText(row: ScreeningRowDto): string {
+  if (!row.antennaId) return formatMm(row.separationM);
+  const of = row.antennaCount > 1 ? ` (least favourable of ${row.antennaCount})` : '';
+  return `${row.antennaId}${of} at ${formatMm(row.separationM)}`;
 }
 
 function ResultBadge({ row }: { row: ScreeningRowDto }) {
@@ -302,7 +321,7 @@ function RowCard({ row, index, onOpen }: { row: ScreeningRowDto; index: number; 
             {row.transmitterId} · {regimeShort(row.regime)}
           </Text>
           <Text variant="small" tone="soft">
-            {row.usePositionId} — {USE_POSITION_LABELS[row.usePositionKind].toLowerCase()}, {formatMm(row.separationM)}
+            {row.usePositionId} — {USE_POSITION_LABELS[row.usePositionKind].toLowerCase()}, {antennaText(row)}
           </Text>
         </View>
         <ResultBadge row={row} />

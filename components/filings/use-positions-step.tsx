@@ -34,7 +34,7 @@ const KIND_OPTIONS = USE_POSITION_KINDS.map((k) => ({ value: k, label: USE_POSIT
 
 export function UsePositionsStep({ filing }: { filing: FilingDetail }) {
   const antennaIds = filing.data.radios.antennas.map((a) => a.id);
-  const usedIds = [...new Set(filing.data.radios.transmitters.map((t) => t.antennaId))];
+  const usedIds = [...new Set(filing.data.radios.transmitters.flatMap((t) => [t.antennaId, ...t.moreAntennaIds]))];
   // Separations for antennas no longer under Radios are dropped: they could not be saved.
   const keepKnown = (rows: PositionRow[]): UsePositionsValues => ({
     usePositions: rows.map((p) => ({ ...p, separations: arrayOf(p.separations).filter((s) => antennaIds.includes(String(s.antennaId))) as unknown as Separation[] })),

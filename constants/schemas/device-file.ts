@@ -6,14 +6,17 @@
  * The per-part schemas are also the wizard's step schemas, so a form and the file agree.
  */
 import { z } from 'zod';
-import { MAX_ANTENNAS, MAX_TRANSMITTERS, MAX_USE_POSITIONS } from '../../calc/input-limits';
+import { MAX_ANTENNAS, MAX_MODULES, MAX_TRANSMITTERS, MAX_USE_POSITIONS } from '../../calc/input-limits';
+import { ANTENNA_USES } from '../../calc/screening/input';
+import { DUTY_FACTOR_PRESET_KEYS, findDutyFactorPreset } from '../duty-factors';
+import { pairIssues, zGranteeCode, zIsedCompanyNumber, zIsedUpn, zProductCode } from './grant-ids';
 
 export const DEVICE_FILE_FORMAT = 'fieldfile.device/1';
 
 export const TEXT_MAX = 120;
 export const ID_MAX = 40;
 // One set of limits for the wizard, the device file and the engine.
-export { MAX_ANTENNAS, MAX_TRANSMITTERS, MAX_USE_POSITIONS };
+export { MAX_ANTENNAS, MAX_MODULES, MAX_TRANSMITTERS, MAX_USE_POSITIONS };
 export const FREQUENCY_MIN_HZ = 100e3;
 export const FREQUENCY_MAX_HZ = 300e9;
 export const POWER_MIN_DBM = -30;
@@ -21,6 +24,10 @@ export const POWER_MAX_DBM = 60;
 export const GAIN_MIN_DBI = -30;
 export const GAIN_MAX_DBI = 30;
 export const SEPARATION_MAX_M = 10;
+export const MAX_MODEL_VARIANTS = 20;
+export const TOLERANCE_MAX_DB = 10;
+/** Target ± tolerance must give the stated maximum to this precision (the dBm fields print two decimals). */
+export const TUNE_UP_MATCH_DB = 0.005;
 
 export const PRODUCT_TYPES = ['phone', 'tablet', 'wearable', 'tracker', 'hotspot', 'iot-module', 'two-way-radio', 'laptop', 'other'] as const;
 export const PRODUCT_TYPE_LABELS: Record<(typeof PRODUCT_TYPES)[number], string> = {
@@ -33,6 +40,19 @@ export const PRODUCT_TYPE_LABELS: Record<(typeof PRODUCT_TYPES)[number], string>
   'two-way-radio': 'Two-way radio',
   laptop: 'Laptop',
   other: 'Other',
+};
+
+/**
+ * Whether the product is a host (its radios are its own), a module (certified to go inside hosts)
+ * or a host with a certified module inside, whose grant and its conditions carry into the host's
+ * screening.
+ */
+export const INTEGRATIONS = ['host', 'module', 'host-with-module'] as const;
+export type Integration = (typeof INTEGRATIONS)[number];
+export const INTEGRATION_LABELS: Record<Integration, string> = {
+  host: 'A product with its own radios',
+  module: 'A module, certified to go inside hosts',
+  'host-with-module': 'A host with a certified module inside',
 };
 
 export const REGIMES = ['fcc', 'ised', 'eu', 'icnirp-2020'] as const;
@@ -76,14 +96,78 @@ export const zItemId = z
 
 const finite = (label: string) => z.number({ error: `Enter the ${label} as a number.` }).refine(Number.isFinite, `The ${label} must be a finite number.`);
 
-export const zDeviceInfo = z.strictObject({
-  name: text('device name'),
-  model: text('model number'),
-  applicant: text('applicant'),
-  productType: z.enum(PRODUCT_TYPES, { error: 'Pick a product type.' }),
-  hardwareVersion: optionalText('hardware version'),
-  firmwareVersion: optionalText('firmware version'),
+const zSeparationM = (label: string) =>
+  finite(label).pipe(z.number().min(0, `A ${label} cannot be negative.`).max(SEPARATION_MAX_M, `A ${label} is at most ${SEPARATION_MAX_M} m.`));
+
+/** Another model number the filing covers, and how it differs from the tested one. */
+export const zModelVariant = z.strictObject({
+  model: text('variant’s model number'),
+  difference: optionalText('difference', 240).describe('How the variant differs from the tested model (e.g. colour, housing, no GNSS).'),
 });
+
+/** A certified module inside a host: its grant, and the grant's conditions that bind the host. */
+export const zModuleGrant = z
+  .strictObject({
+    id: zItemId.describe('The module’s label in this file; transmitters name it in moduleId.'),
+    name: optionalText('module name').describe('The module’s maker and model, e.g. "Acme LM-20 LTE-M module".'),
+    fccGranteeCode: zGranteeCode,
+    fccProductCode: zProductCode,
+    isedCompanyNumber: zIsedCompanyNumber,
+    isedUpn: zIsedUpn,
+    minSeparationM: zSeparationM('minimum separation')
+      .optional()
+      .describe('The module grant’s minimum separation from the body, m; screening warns where a use position is closer.'),
+    conditions: optionalText('grant conditions', 400).describe('Other conditions of the module’s grant, as the grant states them.'),
+  })
+  .superRefine((m, ctx) => {
+    pairIssues(m, ctx);
+    if (!m.fccGranteeCode && !m.fccProductCode && !m.isedCompanyNumber && !m.isedUpn) {
+      ctx.addIssue({ code: 'custom', path: ['fccGranteeCode'], message: 'Enter the module’s FCC ID or its ISED certification number.' });
+    }
+  });
+export type ModuleGrant = z.output<typeof zModuleGrant>;
+
+/** The device's identity; `module` is the module-grant schema (the wizard's adds a row number). */
+export function deviceInfoSchema<M extends z.ZodType<{ id: string }>>(module: M) {
+  return z
+    .strictObject({
+      name: text('device name'),
+      model: text('model number'),
+      applicant: text('applicant'),
+      productType: z.enum(PRODUCT_TYPES, { error: 'Pick a product type.' }),
+      hardwareVersion: optionalText('hardware version'),
+      firmwareVersion: optionalText('firmware version'),
+      fccGranteeCode: zGranteeCode,
+      fccProductCode: zProductCode,
+      isedCompanyNumber: zIsedCompanyNumber,
+      isedUpn: zIsedUpn,
+      hvin: optionalText('HVIN', 60).describe('Hardware version identification number (ISED RSP-100).'),
+      pmn: optionalText('PMN').describe('Product marketing name (ISED RSP-100).'),
+      fvin: optionalText('FVIN', 60).describe('Firmware version identification number (ISED RSP-100), when the firmware decides RF behaviour.'),
+      modelVariants: z.array(zModelVariant).max(MAX_MODEL_VARIANTS, `At most ${MAX_MODEL_VARIANTS} model variants.`).default([]),
+      integration: z.enum(INTEGRATIONS, { error: 'Pick host, module or host with a module.' }).default('host'),
+      modules: z.array(module).max(MAX_MODULES, `At most ${MAX_MODULES} modules.`).default([]).describe('Certified modules inside a host (integration "host-with-module").'),
+    })
+    .superRefine((d, ctx) => {
+      pairIssues(d, ctx);
+      const modules = d.modules as { id: string }[];
+      if (modules.length && d.integration !== 'host-with-module') {
+        ctx.addIssue({ code: 'custom', path: ['integration'], message: 'Module grants are listed for a host with a certified module inside: pick that, or remove the modules.' });
+      }
+      const seen = new Set<string>();
+      modules.forEach((m, i) => {
+        if (seen.has(m.id)) ctx.addIssue({ code: 'custom', path: ['modules', i, 'id'], message: `Duplicate id "${m.id}".` });
+        seen.add(m.id);
+      });
+      const models = new Set([d.model.toUpperCase()]);
+      d.modelVariants.forEach((v, i) => {
+        if (models.has(v.model.toUpperCase())) ctx.addIssue({ code: 'custom', path: ['modelVariants', i, 'model'], message: `Model "${v.model}" is already listed.` });
+        models.add(v.model.toUpperCase());
+      });
+    });
+}
+
+export const zDeviceInfo = deviceInfoSchema(zModuleGrant);
 export type DeviceInfo = z.output<typeof zDeviceInfo>;
 
 export const zMarket = z.strictObject({
@@ -110,6 +194,9 @@ const zFrequencyHz = (label: string) =>
       .max(FREQUENCY_MAX_HZ, `The ${label} must be at most 300 GHz (300 000 MHz).`),
   );
 
+const zPowerDbm = (label: string) =>
+  finite(label).pipe(z.number().min(POWER_MIN_DBM, `The ${label} must be at least ${POWER_MIN_DBM} dBm.`).max(POWER_MAX_DBM, `The ${label} must be at most ${POWER_MAX_DBM} dBm.`));
+
 export const zTransmitter = z
   .strictObject({
     id: zItemId,
@@ -117,24 +204,62 @@ export const zTransmitter = z
     band: text('band', 60),
     frequencyMinHz: zFrequencyHz('lowest frequency'),
     frequencyMaxHz: zFrequencyHz('highest frequency'),
-    maxTuneUpPowerDbm: finite('maximum tune-up power').pipe(
-      z.number().min(POWER_MIN_DBM, `Tune-up power must be at least ${POWER_MIN_DBM} dBm.`).max(POWER_MAX_DBM, `Tune-up power must be at most ${POWER_MAX_DBM} dBm.`),
-    ),
+    maxTuneUpPowerDbm: zPowerDbm('maximum tune-up power').describe('The upper bound of the tune-up power (target + tolerance), dBm: what screening uses.'),
+    /** Target ± tolerance, when the tune-up procedure states them; their sum is maxTuneUpPowerDbm. */
+    tuneUpTargetDbm: zPowerDbm('tune-up target').optional().describe('Tune-up target power, dBm.'),
+    tuneUpToleranceDb: finite('tune-up tolerance')
+      .pipe(z.number().min(0, 'A tolerance cannot be negative.').max(TOLERANCE_MAX_DB, `A tolerance is at most ${TOLERANCE_MAX_DB} dB.`))
+      .optional()
+      .describe('Tune-up tolerance, ± dB, around the target.'),
+    mode: optionalText('mode', 60).describe('Operating mode as the lab names it, e.g. "QPSK 1 RB", "802.11b".'),
+    modulation: optionalText('modulation', 60).describe('Modulation, e.g. "QPSK", "GFSK".'),
+    bandwidth: optionalText('bandwidth', 60).describe('Channel bandwidth as text, e.g. "10 MHz", "20/40/80 MHz".'),
     /** Maximum transmit duty cycle, 0 < d ≤ 1 (1 = continuous). */
     dutyCycle: finite('duty cycle').pipe(z.number().gt(0, 'Duty cycle must be above 0 %.').max(1, 'Duty cycle must be at most 100 %.')).default(1),
-    antennaId: zItemId,
+    dutyCyclePreset: z
+      .enum(['', ...DUTY_FACTOR_PRESET_KEYS] as [string, ...string[]], { error: 'Pick one of the duty-factor presets, or none.' })
+      .default('')
+      .describe('The duty-factor preset the duty cycle comes from (with its source), or "" for a typed value.'),
+    antennaId: zItemId.describe('The transmitter’s antenna (with several, its first).'),
+    moreAntennaIds: z
+      .array(zItemId)
+      .max(MAX_ANTENNAS - 1)
+      .default([])
+      .describe('Further antennas the transmitter uses (MIMO or switched); every antenna × use position is screened.'),
+    antennaUse: z
+      .enum(ANTENNA_USES, { error: 'Pick MIMO (all at once) or switched (one at a time).' })
+      .default('mimo')
+      .describe('With several antennas: "mimo" — all at once, the streams’ powers add (maxTuneUpPowerDbm is per stream); "switched" — one at a time.'),
+    moduleId: zItemId.optional().describe('The certified module (device.modules) this transmitter is part of; its grant conditions apply.'),
   })
   .refine((t) => t.frequencyMinHz <= t.frequencyMaxHz, {
     path: ['frequencyMaxHz'],
     message: 'The highest frequency must not be below the lowest.',
+  })
+  .superRefine((t, ctx) => {
+    const hasTarget = t.tuneUpTargetDbm !== undefined;
+    const hasTolerance = t.tuneUpToleranceDb !== undefined;
+    if (hasTarget && !hasTolerance) ctx.addIssue({ code: 'custom', path: ['tuneUpToleranceDb'], message: 'Enter the tolerance that goes with the target (0 if none).' });
+    if (!hasTarget && hasTolerance) ctx.addIssue({ code: 'custom', path: ['tuneUpTargetDbm'], message: 'Enter the target that goes with the tolerance.' });
+    if (hasTarget && hasTolerance) {
+      const upper = t.tuneUpTargetDbm! + t.tuneUpToleranceDb!;
+      if (Math.abs(upper - t.maxTuneUpPowerDbm) > TUNE_UP_MATCH_DB) {
+        ctx.addIssue({ code: 'custom', path: ['maxTuneUpPowerDbm'], message: `Target ${t.tuneUpTargetDbm} dBm + tolerance ${t.tuneUpToleranceDb} dB gives ${Number(upper.toFixed(2))} dBm: the maximum is that upper bound.` });
+      }
+    }
+    t.moreAntennaIds.forEach((a, j) => {
+      if (a === t.antennaId || t.moreAntennaIds.indexOf(a) !== j) ctx.addIssue({ code: 'custom', path: ['moreAntennaIds', j], message: `Antenna "${a}" is already one of this transmitter’s antennas.` });
+    });
+    const preset = t.dutyCyclePreset ? findDutyFactorPreset(t.dutyCyclePreset) : undefined;
+    if (preset && Math.abs(preset.dutyCycle - t.dutyCycle) > 1e-6) {
+      ctx.addIssue({ code: 'custom', path: ['dutyCycle'], message: `${preset.label} gives ${Number((preset.dutyCycle * 100).toFixed(2))} %; clear the preset to type another duty cycle.` });
+    }
   });
 export type Transmitter = z.output<typeof zTransmitter>;
 
 export const zSeparation = z.strictObject({
   antennaId: zItemId,
-  separationM: finite('separation distance').pipe(
-    z.number().min(0, 'A separation distance cannot be negative.').max(SEPARATION_MAX_M, `A separation distance is at most ${SEPARATION_MAX_M} m.`),
-  ),
+  separationM: zSeparationM('separation distance'),
 });
 
 export const zUsePosition = z.strictObject({
@@ -173,9 +298,15 @@ function crossReferenceIssues(value: unknown, ctx: z.RefinementCtx) {
   for (const regime of new Set(duplicates(regimes))) {
     if (regime) ctx.addIssue({ code: 'custom', path: ['markets', regimes.lastIndexOf(regime), 'regime'], message: `Market "${regime}" is listed twice.` });
   }
+  const moduleIds = new Set(records(isRecord(value.device) ? value.device.modules : []).map((m) => str(m.id)));
   transmitters.forEach((t, i) => {
     const ref = str(t.antennaId);
     if (ref !== undefined && !antennaIds.has(ref)) ctx.addIssue({ code: 'custom', path: ['transmitters', i, 'antennaId'], message: `Unknown antenna id "${ref}".` });
+    (Array.isArray(t.moreAntennaIds) ? t.moreAntennaIds : []).forEach((a: unknown, j: number) => {
+      if (typeof a === 'string' && !antennaIds.has(a)) ctx.addIssue({ code: 'custom', path: ['transmitters', i, 'moreAntennaIds', j], message: `Unknown antenna id "${a}".` });
+    });
+    const mod = str(t.moduleId);
+    if (mod !== undefined && !moduleIds.has(mod)) ctx.addIssue({ code: 'custom', path: ['transmitters', i, 'moduleId'], message: `Unknown module id "${mod}" (device.modules).` });
   });
   usePositions.forEach((p, i) => {
     const seen = new Set<string>();

@@ -8,8 +8,10 @@ import {
   MAX_TRANSMITTERS,
   MAX_USE_POSITIONS,
   REGIMES,
+  deviceInfoSchema,
   zAntenna,
   zDeviceInfo,
+  zModuleGrant,
   zMarket,
   zTransmitter,
   zUsePosition,
@@ -51,9 +53,6 @@ const duplicateIdIssues = (items: { id: string }[], path: string, ctx: z.Refinem
   });
 };
 
-export const zDeviceStep = zDeviceInfo;
-export type DeviceStep = z.output<typeof zDeviceStep>;
-
 /**
  * A saved row's own number. The ids a user types are labels: a row sent back with its rowId keeps
  * its relations (separations, co-transmission combinations) when its label changes. A row without
@@ -61,6 +60,11 @@ export type DeviceStep = z.output<typeof zDeviceStep>;
  */
 export const zRowId = z.number().int().positive().optional();
 const withRowId = { rowId: zRowId };
+
+/** The Device step: the device's identity, its module grants carrying their row numbers. */
+export const zDeviceStep = deviceInfoSchema(zModuleGrant.safeExtend(withRowId));
+export type DeviceStep = z.output<typeof zDeviceStep>;
+export type DeviceStepInput = z.input<typeof zDeviceStep>;
 
 /** Antennas and transmitters are saved together: a transmitter names its antenna. */
 export const zRadiosStep = z
@@ -74,6 +78,9 @@ export const zRadiosStep = z
     const antennaIds = new Set(v.antennas.map((a) => a.id));
     v.transmitters.forEach((t, i) => {
       if (!antennaIds.has(t.antennaId)) ctx.addIssue({ code: 'custom', path: ['transmitters', i, 'antennaId'], message: `Pick one of the antennas above (no antenna "${t.antennaId}").` });
+      t.moreAntennaIds.forEach((a, j) => {
+        if (!antennaIds.has(a)) ctx.addIssue({ code: 'custom', path: ['transmitters', i, 'moreAntennaIds', j], message: `Pick among the antennas above (no antenna "${a}").` });
+      });
     });
   });
 export type RadiosStep = z.output<typeof zRadiosStep>;

@@ -6,6 +6,7 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
 import type { ScreeningGap, ScreeningRow, ScreeningSummary } from '../../calc/screening/screen';
+import type { ModuleConditionWarning } from '../../calc/screening/module-conditions';
 import type { Derivation } from '../../calc/types';
 import type { DeviceFileInput } from '../../constants/schemas/device-file';
 import { FILING_SORTS, VERSION_STATES, WIZARD_STEPS, type DataStep, type FilingDetail, type FilingSummary, type NewFilingInput } from '../../constants/schemas/filings';
@@ -51,6 +52,8 @@ export interface FilingScreening {
   version: number;
   rows: ScreeningRowDto[];
   gaps: ScreeningGap[];
+  /** Use positions closer than a certified module's grant allows; absent from results stored by older engines. */
+  conditions?: ModuleConditionWarning[];
   summary: ScreeningSummary;
   engineVersion: string;
   ruleSetVersion: string;

@@ -3,6 +3,7 @@ import { and, asc, desc, eq, inArray, or, sql } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 import {
   antennas,
+  deviceModules,
   devices,
   filings,
   filingVersions,
@@ -10,12 +11,13 @@ import {
   simultaneousGroupMembers,
   simultaneousGroups,
   stepDrafts,
+  transmitterAntennas,
   transmitters,
   usePositions,
   usePositionSeparations,
   memberships,
 } from '../../db/schema';
-import type { DataStep, MarketsStep, RadiosStep, UsePositionsStep } from '../../constants/schemas/filings';
+import type { DataStep, DeviceStep, MarketsStep, RadiosStep, UsePositionsStep } from '../../constants/schemas/filings';
 import type { DeviceInfo } from '../../constants/schemas/device-file';
 
 const latestVersion = sql<number>`(select max(${filingVersions.number}) from ${filingVersions} where ${filingVersions.filingId} = ${filings.id})`;
@@ -79,15 +81,72 @@ export function marketsByVersion(db: Db, versionIds: number[]) {
   return map;
 }
 
-export function insertDevice(db: Db, organisationId: number, info: DeviceInfo) {
-  return db.insert(devices).values({ organisationId, ...info }).returning().get();
+/** The device row's columns of the device identity (module grants are rows of their own). */
+function deviceColumns({ modules: _m, ...info }: DeviceInfo | DeviceStep) {
+  return info;
 }
 
-export function updateDevice(db: Db, deviceId: number, info: DeviceInfo) {
+export function insertDevice(db: Db, organisationId: number, info: DeviceInfo) {
+  const device = db.insert(devices).values({ organisationId, ...deviceColumns(info) }).returning().get();
+  writeModules(db, device.id, info.modules);
+  return device;
+}
+
+export function updateDevice(db: Db, deviceId: number, info: DeviceInfo | DeviceStep) {
   db.update(devices)
-    .set({ ...info, updatedAt: new Date().toISOString() })
+    .set({ ...deviceColumns(info), updatedAt: new Date().toISOString() })
     .where(eq(devices.id, deviceId))
     .run();
+  writeModules(db, deviceId, info.modules);
+}
+
+export type ModuleRow = typeof deviceModules.$inferSelect;
+
+export function readModules(db: Db, deviceId: number): ModuleRow[] {
+  return db.select().from(deviceModules).where(eq(deviceModules.deviceId, deviceId)).orderBy(asc(deviceModules.sortOrder)).all();
+}
+
+/**
+ * Updates a device's module grants in place (a rename keeps the row, so transmitters stay in
+ * their module); a removed module leaves its transmitters in no module.
+ */
+function writeModules(db: Db, deviceId: number, modules: DeviceStep['modules']) {
+  const old = db.select({ id: deviceModules.id, key: deviceModules.key }).from(deviceModules).where(eq(deviceModules.deviceId, deviceId)).all();
+  const match = matchRows(old, modules);
+  if (match.removed.length) {
+    db.update(transmitters).set({ moduleId: null }).where(inArray(transmitters.moduleId, match.removed)).run();
+    db.delete(deviceModules).where(inArray(deviceModules.id, match.removed)).run();
+  }
+  for (const id of match.kept) db.update(deviceModules).set({ key: parkedKey(id) }).where(eq(deviceModules.id, id)).run();
+  modules.forEach((m, sortOrder) => {
+    const values = {
+      key: m.id,
+      name: m.name,
+      fccGranteeCode: m.fccGranteeCode,
+      fccProductCode: m.fccProductCode,
+      isedCompanyNumber: m.isedCompanyNumber,
+      isedUpn: m.isedUpn,
+      minSeparationM: m.minSeparationM ?? null,
+      conditions: m.conditions,
+      sortOrder,
+    };
+    const id = match.rowOf.get(m);
+    if (id) db.update(deviceModules).set(values).where(eq(deviceModules.id, id)).run();
+    else db.insert(deviceModules).values({ deviceId, ...values }).run();
+  });
+}
+
+/** The module grants of a version's device, label → row. */
+export function moduleIdsByKey(db: Db, versionId: number): Map<string, number> {
+  return new Map(
+    db
+      .select({ id: deviceModules.id, key: deviceModules.key })
+      .from(deviceModules)
+      .innerJoin(filingVersions, eq(filingVersions.deviceId, deviceModules.deviceId))
+      .where(eq(filingVersions.id, versionId))
+      .all()
+      .map((m) => [m.key, m.id]),
+  );
 }
 
 export function touchFiling(db: Db, filingId: number) {
@@ -97,11 +156,41 @@ export function touchFiling(db: Db, filingId: number) {
 export function readRadios(db: Db, versionId: number): RadiosStep {
   const ants = db.select().from(antennas).where(eq(antennas.versionId, versionId)).orderBy(asc(antennas.sortOrder)).all();
   const keyById = new Map(ants.map((a) => [a.id, a.key]));
+  const moduleKey = new Map([...moduleIdsByKey(db, versionId)].map(([key, id]) => [id, key]));
   const txs = db.select().from(transmitters).where(eq(transmitters.versionId, versionId)).orderBy(asc(transmitters.sortOrder)).all();
+  const more = new Map<number, string[]>();
+  if (txs.length) {
+    const links = db
+      .select({ transmitterId: transmitterAntennas.transmitterId, antennaId: transmitterAntennas.antennaId })
+      .from(transmitterAntennas)
+      .where(inArray(transmitterAntennas.transmitterId, txs.map((t) => t.id)))
+      .orderBy(asc(transmitterAntennas.sortOrder))
+      .all();
+    for (const l of links) more.set(l.transmitterId, [...(more.get(l.transmitterId) ?? []), keyById.get(l.antennaId)!]);
+  }
   return {
     antennas: ants.map((a) => ({ id: a.key, gainDbi: a.gainDbi, location: a.location, rowId: a.id })),
-    // Columns are named and ordered as the schema's fields, so an unchanged step compares equal.
-    transmitters: txs.map(({ id, key, versionId: _v, antennaId, sortOrder: _s, ...fields }) => ({ id: key, ...fields, antennaId: keyById.get(antennaId)!, rowId: id })),
+    // In the schema's field order, optional fields only when stated, so an unchanged step compares equal.
+    transmitters: txs.map((t) => ({
+      id: t.key,
+      technology: t.technology,
+      band: t.band,
+      frequencyMinHz: t.frequencyMinHz,
+      frequencyMaxHz: t.frequencyMaxHz,
+      maxTuneUpPowerDbm: t.maxTuneUpPowerDbm,
+      ...(t.tuneUpTargetDbm !== null ? { tuneUpTargetDbm: t.tuneUpTargetDbm } : {}),
+      ...(t.tuneUpToleranceDb !== null ? { tuneUpToleranceDb: t.tuneUpToleranceDb } : {}),
+      mode: t.mode,
+      modulation: t.modulation,
+      bandwidth: t.bandwidth,
+      dutyCycle: t.dutyCycle,
+      dutyCyclePreset: t.dutyCyclePreset,
+      antennaId: keyById.get(t.antennaId)!,
+      moreAntennaIds: more.get(t.id) ?? [],
+      antennaUse: t.antennaUse,
+      ...(t.moduleId !== null && moduleKey.has(t.moduleId) ? { moduleId: moduleKey.get(t.moduleId)! } : {}),
+      rowId: t.id,
+    })),
   };
 }
 
@@ -154,12 +243,28 @@ export function writeRadios(db: Db, versionId: number, radios: RadiosStep) {
     if (id) db.update(antennas).set(values).where(eq(antennas.id, id)).run();
     antennaRow.set(a.id, id ?? db.insert(antennas).values({ versionId, ...values }).returning().get().id);
   });
+  const moduleRow = moduleIdsByKey(db, versionId);
   radios.transmitters.forEach((t, sortOrder) => {
-    const { id: key, rowId: _r, antennaId, ...fields } = t;
-    const values = { key, ...fields, antennaId: antennaRow.get(antennaId)!, sortOrder };
-    const id = tx.rowOf.get(t);
-    if (id) db.update(transmitters).set(values).where(eq(transmitters.id, id)).run();
-    else db.insert(transmitters).values({ versionId, ...values }).run();
+    const { id: key, rowId: _r, antennaId, moreAntennaIds, moduleId, tuneUpTargetDbm, tuneUpToleranceDb, ...fields } = t;
+    const values = {
+      key,
+      ...fields,
+      tuneUpTargetDbm: tuneUpTargetDbm ?? null,
+      tuneUpToleranceDb: tuneUpToleranceDb ?? null,
+      antennaId: antennaRow.get(antennaId)!,
+      moduleId: moduleId !== undefined ? (moduleRow.get(moduleId) ?? null) : null,
+      sortOrder,
+    };
+    let id = tx.rowOf.get(t);
+    if (id) {
+      db.update(transmitters).set(values).where(eq(transmitters.id, id)).run();
+      db.delete(transmitterAntennas).where(eq(transmitterAntennas.transmitterId, id)).run();
+    } else id = db.insert(transmitters).values({ versionId, ...values }).returning().get().id;
+    if (moreAntennaIds.length) {
+      db.insert(transmitterAntennas)
+        .values(moreAntennaIds.map((a, i) => ({ transmitterId: id, antennaId: antennaRow.get(a)!, sortOrder: i })))
+        .run();
+    }
   });
   if (ant.removed.length) db.delete(antennas).where(inArray(antennas.id, ant.removed)).run();
   if (tx.removed.length) dropShrunkCombinations(db, versionId);

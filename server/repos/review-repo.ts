@@ -6,6 +6,7 @@ import { and, asc, desc, eq, inArray, sql } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 import {
   auditLog,
+  deviceModules,
   devices,
   filings,
   filingVersions,
@@ -54,10 +55,13 @@ export function findDevice(db: Db, deviceId: number) {
   return db.select().from(devices).where(eq(devices.id, deviceId)).get();
 }
 
-/** A copy of a device row (every column, whatever the schema has grown), for the next version. */
+/** A copy of a device row (every column, whatever the schema has grown) and its module grants, for the next version. */
 export function copyDevice(db: Db, deviceId: number) {
   const { id: _id, createdAt: _c, updatedAt: _u, ...rest } = findDevice(db, deviceId)!;
-  return db.insert(devices).values(rest).returning().get();
+  const copy = db.insert(devices).values(rest).returning().get();
+  const modules = db.select().from(deviceModules).where(eq(deviceModules.deviceId, deviceId)).all();
+  if (modules.length) db.insert(deviceModules).values(modules.map(({ id: _m, deviceId: _d, ...m }) => ({ ...m, deviceId: copy.id }))).run();
+  return copy;
 }
 
 export function insertVersion(db: Db, filingId: number, number: number, deviceId: number) {
@@ -192,9 +196,10 @@ export function filingTimeline(db: Db, organisationId: number, filingId: number)
  * Review threads, comments and the editors list are about the version, not its content: they
  * are frozen too but not hashed.
  */
-export const VERSION_CONTENT_TABLES: readonly { table: string; where: string }[] = [
+export const VERSION_CONTENT_TABLES: readonly { table: string; where: string; addedLater?: true }[] = [
   { table: 'filing_versions', where: 'id = :v' },
   { table: 'devices', where: 'id = (select device_id from filing_versions where id = :v)' },
+  { table: 'device_modules', where: 'device_id = (select device_id from filing_versions where id = :v)', addedLater: true },
   { table: 'antennas', where: 'version_id = :v' },
   { table: 'transmitters', where: 'version_id = :v' },
   { table: 'use_positions', where: 'version_id = :v' },
@@ -204,6 +209,7 @@ export const VERSION_CONTENT_TABLES: readonly { table: string; where: string }[]
   { table: 'step_drafts', where: 'version_id = :v' },
   { table: 'screening_results', where: 'version_id = :v' },
   { table: 'simultaneous_group_members', where: 'group_id in (select id from simultaneous_groups where version_id = :v)' },
+  { table: 'transmitter_antennas', where: 'transmitter_id in (select id from transmitters where version_id = :v)', addedLater: true },
   { table: 'lab_measurements', where: 'version_id = :v' },
   { table: 'lab_liquid_checks', where: 'version_id = :v' },
   { table: 'lab_system_checks', where: 'version_id = :v' },
@@ -222,10 +228,41 @@ export const VERSION_DERIVED_TABLES = ['lab_results', 'packages'] as const;
 export const VERSION_REVIEW_TABLES = ['version_editors', 'review_threads', 'review_comments', 'version_signatures'] as const;
 /** Columns left out of the hash because signing itself changes them. */
 export const UNHASHED_COLUMNS: Record<string, string[]> = { filing_versions: ['state'] };
+/**
+ * Columns added after versions were first signed, with the value every older row got. A column
+ * holding that value is left out of the canonical content (as is an `addedLater` table with no
+ * rows), so a signature made before the column existed still verifies; any other value is hashed.
+ */
+export const LATER_COLUMN_DEFAULTS: Record<string, Record<string, unknown>> = {
+  devices: {
+    fcc_grantee_code: '',
+    fcc_product_code: '',
+    ised_company_number: '',
+    ised_upn: '',
+    hvin: '',
+    pmn: '',
+    fvin: '',
+    model_variants: '[]',
+    integration: 'host',
+  },
+  transmitters: {
+    tune_up_target_dbm: null,
+    tune_up_tolerance_db: null,
+    mode: '',
+    modulation: '',
+    bandwidth: '',
+    duty_cycle_preset: '',
+    module_id: null,
+    antenna_use: 'mimo',
+  },
+};
 
 export function readVersionRows(db: Db, versionId: number): { table: string; rows: Record<string, unknown>[] }[] {
-  return VERSION_CONTENT_TABLES.map(({ table, where }) => ({
+  return VERSION_CONTENT_TABLES.map(({ table, where, addedLater }) => ({
     table,
+    addedLater,
     rows: db.all<Record<string, unknown>>(sql.raw(`select * from "${table}" where ${where.replaceAll(':v', String(Math.trunc(versionId)))}`)),
-  }));
+  }))
+    .filter((t) => !(t.addedLater && t.rows.length === 0))
+    .map(({ table, rows }) => ({ table, rows }));
 }

@@ -13,6 +13,7 @@ import {
   type DataStep,
   type FilingDetail,
   type FilingSummary,
+  type RadiosStep,
   type StepStatus,
   type UsePositionsStep,
   type VersionState,
@@ -20,7 +21,7 @@ import {
   VERSION_STATE_LABELS,
   zDeviceStep,
 } from '../../constants/schemas/filings';
-import { DEVICE_FILE_FORMAT, USE_POSITION_LABELS, type DeviceFile } from '../../constants/schemas/device-file';
+import { DEVICE_FILE_FORMAT, USE_POSITION_LABELS, zDeviceInfo, type DeviceFile, type DeviceFileInput } from '../../constants/schemas/device-file';
 import type { Role } from '../../constants/schemas/roles';
 import { conflict, forbidden, notFound, unprocessable } from '../http-error';
 import { ruleSetWarnings } from '../../calc/versions';
@@ -75,8 +76,8 @@ export function listFilings(db: Db, actor: FilingActor, q: string | undefined, s
   return rows.map((r) => toSummary(r, markets.get(r.version.id) ?? []));
 }
 
-/** The device step's fields of a stored device row. */
-export function deviceStepOf(device: repo.FilingRow['device']): FilingDetail['data']['device'] {
+/** The device step's fields of a stored device row and its module grants. */
+export function deviceStepOf(device: repo.FilingRow['device'], modules: repo.ModuleRow[] = []): FilingDetail['data']['device'] {
   return {
     name: device.name,
     model: device.model,
@@ -84,11 +85,32 @@ export function deviceStepOf(device: repo.FilingRow['device']): FilingDetail['da
     productType: device.productType,
     hardwareVersion: device.hardwareVersion,
     firmwareVersion: device.firmwareVersion,
+    fccGranteeCode: device.fccGranteeCode,
+    fccProductCode: device.fccProductCode,
+    isedCompanyNumber: device.isedCompanyNumber,
+    isedUpn: device.isedUpn,
+    hvin: device.hvin,
+    pmn: device.pmn,
+    fvin: device.fvin,
+    modelVariants: device.modelVariants,
+    integration: device.integration,
+    // In the schema's field order, optional fields only when stated, so an unchanged step compares equal.
+    modules: modules.map((m) => ({
+      id: m.key,
+      name: m.name,
+      fccGranteeCode: m.fccGranteeCode,
+      fccProductCode: m.fccProductCode,
+      isedCompanyNumber: m.isedCompanyNumber,
+      isedUpn: m.isedUpn,
+      ...(m.minSeparationM !== null ? { minSeparationM: m.minSeparationM } : {}),
+      conditions: m.conditions,
+      rowId: m.id,
+    })),
   };
 }
 
 const STEP_READERS: { [S in DataStep]: (db: Db, row: repo.FilingRow) => FilingDetail['data'][S] } = {
-  device: (_db, row) => deviceStepOf(row.device),
+  device: (db, row) => deviceStepOf(row.device, repo.readModules(db, row.device.id)),
   radios: (db, row) => repo.readRadios(db, row.version.id),
   'use-positions': (db, row) => repo.readUsePositions(db, row.version.id),
   markets: (db, row) => repo.readMarkets(db, row.version.id),
@@ -106,12 +128,16 @@ function readData(db: Db, row: repo.FilingRow): FilingDetail['data'] {
 /** Each step's completion, computed from the data (never ticked by hand). */
 export function stepStatuses(data: FilingDetail['data'], draftSteps: Set<DataStep>, lab: { measurements: number } = { measurements: 0 }): StepStatus[] {
   const device: string[] = zDeviceStep.safeParse(data.device).success ? [] : ['Fill in the device name, model, applicant and product type.'];
+  if (data.device.integration === 'host-with-module' && !data.device.modules.length) device.push('Add the grant of the certified module inside (its FCC ID or ISED number and its conditions).');
   const radios: string[] = [];
   if (!data.radios.antennas.length) radios.push('Add at least one antenna.');
   if (!data.radios.transmitters.length) radios.push('Add at least one transmitter.');
+  if (data.device.modules.length && !data.radios.transmitters.some((t) => t.moduleId)) {
+    radios.push('Say which transmitters belong to the certified module, so its grant conditions reach screening.');
+  }
   const positions: string[] = [];
   if (!data['use-positions'].usePositions.length) positions.push('Add at least one use position.');
-  const usedAntennas = [...new Set(data.radios.transmitters.map((t) => t.antennaId))];
+  const usedAntennas = [...new Set(data.radios.transmitters.flatMap((t) => [t.antennaId, ...t.moreAntennaIds]))];
   for (const p of data['use-positions'].usePositions) {
     const given = new Set(p.separations.map((s) => s.antennaId));
     const missing = usedAntennas.filter((a) => !given.has(a));
@@ -169,8 +195,9 @@ export const stepRevision = (data: unknown) => createHash('sha256').update(JSON.
 
 const stepRevisions = (data: FilingDetail['data']) => Object.fromEntries(DATA_STEPS.map((s) => [s, stepRevision(data[s])])) as Record<DataStep, string>;
 
-export function createFiling(db: Db, actor: FilingActor, device: DeviceFile['device']): FilingDetail {
+export function createFiling(db: Db, actor: FilingActor, input: DeviceFileInput['device']): FilingDetail {
   requireEditor(actor);
+  const device = zDeviceInfo.parse(input);
   const id = db.transaction((tx) => {
     const dev = repo.insertDevice(tx, actor.organisationId, device);
     const { filing, version } = repo.insertFiling(tx, actor.organisationId, dev.id, actor.id);
@@ -213,7 +240,7 @@ export function exportDeviceFile(db: Db, actor: FilingActor, filingId: number): 
   // Row numbers belong to this database; the file relates its parts by label.
   return {
     format: DEVICE_FILE_FORMAT,
-    device: data.device,
+    device: { ...data.device, modules: data.device.modules.map(withoutRowId) },
     markets: data.markets.markets,
     antennas: data.radios.antennas.map(withoutRowId),
     transmitters: data.radios.transmitters.map(withoutRowId),
@@ -257,6 +284,13 @@ export function saveStep(db: Db, actor: FilingActor, filingId: number, step: Dat
   }
 
   const fields = parsed.success ? {} : zodFieldErrors(parsed.error);
+  if (parsed.success && step === 'radios') {
+    // A transmitter's module must be one of the device's module grants (Device step).
+    const modules = repo.moduleIdsByKey(db, versionId);
+    (parsed.data as RadiosStep).transmitters.forEach((t, i) => {
+      if (t.moduleId !== undefined && !modules.has(t.moduleId)) fields[`transmitters.${i}.moduleId`] = `No module “${t.moduleId}” under Device.`;
+    });
+  }
   if (parsed.success && step === 'use-positions') {
     // Separations must name antennas that exist under Radios.
     const antennaIds = repo.antennaIdsByKey(db, versionId);

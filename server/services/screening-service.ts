@@ -9,7 +9,7 @@ import { and, desc, eq, ne } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 import { screeningResults } from '../../db/schema';
 import { ENGINE_VERSION, RULE_SET_VERSION } from '../../calc/versions';
-import { screeningInput, type ScreeningInput, type ScreeningRegime } from '../../calc/screening/input';
+import { antennasOf, screeningInput, type ScreeningInput, type ScreeningRegime } from '../../calc/screening/input';
 import { SCREENING_CAUTIONS, screenParsed } from '../../calc/screening/screen';
 import { screeningDepthProfile } from '../../calc/screening';
 import { notFound, unprocessable } from '../http-error';
@@ -30,11 +30,16 @@ export interface ScreeningMeta {
 
 
 export function screeningInputFor(detail: ReturnType<typeof getFiling>): ScreeningInput {
+  const modules = detail.data.device.modules;
   return screeningInput.parse({
     markets: detail.data.markets.markets,
     antennas: detail.data.radios.antennas.map((a) => ({ id: a.id, gainDbi: a.gainDbi })),
-    transmitters: detail.data.radios.transmitters,
+    // Further antennas and how they are used only where there are any, so a one-antenna
+    // transmitter's input is as it was.
+    transmitters: detail.data.radios.transmitters.map(({ moreAntennaIds, antennaUse, ...t }) => (moreAntennaIds.length ? { ...t, moreAntennaIds, antennaUse } : t)),
     usePositions: detail.data['use-positions'].usePositions,
+    // Only a host with modules inside names them, so other filings' inputs (and their stored results) stay as they were.
+    ...(modules.length ? { modules: modules.map((m) => ({ id: m.id, ...(m.minSeparationM !== undefined ? { minSeparationM: m.minSeparationM } : {}) })) } : {}),
   });
 }
 
@@ -133,8 +138,9 @@ export function depthProfileOf(input: ScreeningInput, q: { transmitterId: string
   const tx = input.transmitters.find((t) => t.id === q.transmitterId);
   const position = input.usePositions.find((p) => p.id === q.usePositionId);
   if (!tx || !position) throw notFound('No such transmitter or use position in this filing.');
-  if (!position.separations.some((s) => s.antennaId === tx.antennaId)) {
-    throw unprocessable(`“${position.id}” gives no separation for antenna ${tx.antennaId}; add it under Use positions.`);
+  const missing = antennasOf(tx).filter((a) => !position.separations.some((s) => s.antennaId === a));
+  if (missing.length) {
+    throw unprocessable(`“${position.id}” gives no separation for antenna ${missing.join(', ')}; add it under Use positions.`);
   }
   const markets = q.regime ? input.markets.filter((m) => m.regime === q.regime) : input.markets;
   if (!markets.length) {

@@ -6,15 +6,16 @@
  */
 import { createHash } from 'node:crypto';
 import type { Db } from '../../db/client';
-import { readVersionRows, UNHASHED_COLUMNS } from '../repos/review-repo';
+import { LATER_COLUMN_DEFAULTS, readVersionRows, UNHASHED_COLUMNS } from '../repos/review-repo';
 
 /** Bump when the serialisation changes; a signature records the format it was computed with. */
 export const CONTENT_FORMAT = 'fieldfile.version-content/1';
 
 function canonicalRow(table: string, row: Record<string, unknown>): string {
   const skip = UNHASHED_COLUMNS[table] ?? [];
+  const later = LATER_COLUMN_DEFAULTS[table] ?? {};
   const keys = Object.keys(row)
-    .filter((k) => !skip.includes(k))
+    .filter((k) => !skip.includes(k) && !(k in later && row[k] === later[k]))
     .sort();
   return JSON.stringify(Object.fromEntries(keys.map((k) => [k, row[k] === undefined ? null : row[k]])));
 }

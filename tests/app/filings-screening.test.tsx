@@ -7,7 +7,7 @@ import { fireEvent, screen } from '@testing-library/react-native';
 import { screeningInput } from '../../calc/screening/input';
 import { SCREENING_CAUTIONS, screenParsed } from '../../calc/screening/screen';
 import { ScreeningView } from '../../components/filings/screening-view';
-import type { FilingDetail } from '../../constants/schemas/filings';
+import { zDeviceStep, zRadiosStep, type FilingDetail } from '../../constants/schemas/filings';
 import { installFetchMock } from './support/fetch-mock';
 import { renderWithClient } from './support/render';
 
@@ -31,8 +31,8 @@ const FILING = {
   revisions: { device: 'r-device', radios: 'r-radios', 'use-positions': 'r-positions', markets: 'r-markets' },
   steps: [],
   data: {
-    device: { name: 'Stridebeacon wrist tag', model: 'SB-1', applicant: 'Northfold Telemetry', productType: 'wearable', hardwareVersion: '', firmwareVersion: '' },
-    radios: { antennas, transmitters },
+    device: zDeviceStep.parse({ name: 'Stridebeacon wrist tag', model: 'SB-1', applicant: 'Northfold Telemetry', productType: 'wearable' }),
+    radios: zRadiosStep.parse({ antennas, transmitters }),
     // No use positions here keeps the depth chart (its own request) out of this test.
     'use-positions': { usePositions: [] },
     markets: { markets },

@@ -4,7 +4,7 @@
  */
 import { fireEvent, screen } from '@testing-library/react-native';
 import { RadiosStep } from '../../components/filings/radios-step';
-import type { FilingDetail } from '../../constants/schemas/filings';
+import { zDeviceStep, zRadiosStep, type FilingDetail } from '../../constants/schemas/filings';
 import { apiError, installFetchMock } from './support/fetch-mock';
 import { renderWithClient } from './support/render';
 
@@ -19,11 +19,11 @@ const FILING: FilingDetail = {
   editable: true,
   steps: [],
   data: {
-    device: { name: 'Stridebeacon wrist tag', model: 'SB-1', applicant: 'Northfold Telemetry', productType: 'wearable', hardwareVersion: '', firmwareVersion: '' },
-    radios: {
+    device: zDeviceStep.parse({ name: 'Stridebeacon wrist tag', model: 'SB-1', applicant: 'Northfold Telemetry', productType: 'wearable', hardwareVersion: '', firmwareVersion: '' }),
+    radios: zRadiosStep.parse({
       antennas: [{ id: 'ANT-1', gainDbi: 2, location: '' }],
       transmitters: [{ id: 'TX-1', technology: 'Bluetooth LE', band: '2.4 GHz ISM', frequencyMinHz: 2402e6, frequencyMaxHz: 2480e6, maxTuneUpPowerDbm: 10, dutyCycle: 0.5, antennaId: 'ANT-1' }],
-    },
+    }),
     'use-positions': { usePositions: [] },
     markets: { markets: [] },
   },

@@ -58,11 +58,11 @@ describe('screening filters', () => {
     const csv = screeningCsv(output.rows.slice(0, 3));
     const lines = csv.trimEnd().split('\r\n');
     expect(lines).toHaveLength(4);
-    expect(lines[0]).toBe('Transmitter,Use position,Position kind,Separation (mm),Market,Tier,Method,Frequency (MHz),Evaluated,Threshold,Result,Margin (dB),Source');
-    expect(lines[1]).toMatch(/^T1,belt,/);
-    // The source names a clause with commas or not; either way the line has 13 fields.
+    expect(lines[0]).toBe('Transmitter,Use position,Position kind,Antenna,Separation (mm),Market,Tier,Method,Frequency (MHz),Evaluated,Threshold,Result,Margin (dB),Source');
+    expect(lines[1]).toMatch(/^T1,belt,[^,]+,A1,/);
+    // The source names a clause with commas or not; either way the line has 14 fields.
     const fields = lines[1]!.match(/("([^"]|"")*"|[^,]*)(,|$)/g)!.filter((f) => f !== '');
-    expect(fields).toHaveLength(13);
+    expect(fields).toHaveLength(14);
   });
 
   it('a tapped summary count filters the table; long tables come a page at a time', async () => {

@@ -8,6 +8,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { DEMO_TRACKER } from '../../seeds/demo-filing';
 import { screenDevice } from '../../calc/screening';
+import { zDeviceFile } from '../../constants/schemas/device-file';
 import { createTestApp, seedUsers, signIn, type TestApp } from './support/test-app';
 
 let t: TestApp;
@@ -177,7 +178,7 @@ describe('device description file', () => {
     const exported = await specialist.get(`/api/filings/${res.body.filing.id}/device.json`);
     expect(exported.status).toBe(200);
     expect(exported.headers['content-disposition']).toMatch(/trailhound-th-4-rugged-tracker-th4-lw2\.device\.json/);
-    expect(JSON.parse(exported.text)).toEqual(DEMO_TRACKER);
+    expect(JSON.parse(exported.text)).toEqual(zDeviceFile.parse(DEMO_TRACKER));
   });
 
   it('refuses an inconsistent file with every problem at its JSON path, and creates nothing', async () => {
@@ -271,7 +272,7 @@ describe('the filings list', () => {
 });
 
 describe('renames carry through; removals take their dependents', () => {
-  type Row = { id: string; rowId: number; antennaId?: string; separations?: { antennaId: string; separationM: number }[] };
+  type Row = { id: string; rowId: number; antennaId?: string; moreAntennaIds?: string[]; separations?: { antennaId: string; separationM: number }[] };
   let id: number;
   let filing: { data: { radios: { antennas: Row[]; transmitters: Row[] }; 'use-positions': { usePositions: Row[] } }; simultaneous: string[][] };
   const reload = async () => {
@@ -288,7 +289,10 @@ describe('renames carry through; removals take their dependents', () => {
     const radios = structuredClone(filing.data.radios);
     const main = radios.antennas.find((a) => a.id === 'ANT-MAIN')!;
     main.id = 'ANT-TOP';
-    for (const t of radios.transmitters) if (t.antennaId === 'ANT-MAIN') t.antennaId = 'ANT-TOP';
+    for (const t of radios.transmitters) {
+      if (t.antennaId === 'ANT-MAIN') t.antennaId = 'ANT-TOP';
+      t.moreAntennaIds = t.moreAntennaIds!.map((x) => (x === 'ANT-MAIN' ? 'ANT-TOP' : x));
+    }
     const res = await specialist.put(`/api/filings/${id}/steps/radios`).send(radios);
     expect(res.status).toBe(200);
     await reload();
@@ -297,19 +301,28 @@ describe('renames carry through; removals take their dependents', () => {
     // The demo's ANT-MAIN separations: belt-clip 10 mm, in-hand 0, wrist-strap 4 mm, vehicle-dock 200 mm.
     expect(seps).toEqual([['belt-clip', 0.01], ['in-hand', 0], ['wrist-strap', 0.004], ['vehicle-dock', 0.2]]);
     expect(filing.data.radios.transmitters.filter((t) => t.antennaId === 'ANT-TOP').map((t) => t.id)).toEqual(['LTE-B12', 'LTE-B11']);
+    // LTE-B2 switches to it as its further antenna, by row.
+    expect(filing.data.radios.transmitters.find((t) => t.id === 'LTE-B2')!.moreAntennaIds).toEqual(['ANT-TOP']);
   });
 
   it('two antennas can swap labels in one save', async () => {
     const radios = structuredClone(filing.data.radios);
     const [a, b] = radios.antennas;
+    const swap = (x: string) => (x === b.id ? a.id : x === a.id ? b.id : x);
     [a.id, b.id] = [b.id, a.id];
-    for (const t of radios.transmitters) t.antennaId = t.antennaId === b.id ? a.id : t.antennaId === a.id ? b.id : t.antennaId;
+    for (const t of radios.transmitters) {
+      t.antennaId = swap(t.antennaId!);
+      t.moreAntennaIds = t.moreAntennaIds!.map(swap);
+    }
     expect((await specialist.put(`/api/filings/${id}/steps/radios`).send(radios)).status).toBe(200);
     await reload();
     expect(filing.data.radios.antennas.slice(0, 2).map((x) => [x.id, x.rowId])).toEqual([[a.id, a.rowId], [b.id, b.rowId]]);
     // Swap back for the next cases.
     [a.id, b.id] = [b.id, a.id];
-    for (const t of radios.transmitters) t.antennaId = t.antennaId === b.id ? a.id : t.antennaId === a.id ? b.id : t.antennaId;
+    for (const t of radios.transmitters) {
+      t.antennaId = swap(t.antennaId!);
+      t.moreAntennaIds = t.moreAntennaIds!.map(swap);
+    }
     expect((await specialist.put(`/api/filings/${id}/steps/radios`).send(radios)).status).toBe(200);
     await reload();
   });

@@ -21,18 +21,24 @@ const foreignTables = (table: string) => (t.handle.sqlite.prepare(`select "table
 const triggers = (table: string) =>
   (t.handle.sqlite.prepare("select name, sql from sqlite_master where type = 'trigger' and tbl_name = ?").all(table) as { name: string; sql: string }[]);
 
-/** Tables whose rows belong to a version: a version_id column, or a foreign key to such a table. */
+/**
+ * Tables whose rows belong to a version: a version_id column, or a foreign key to such a table or
+ * to the version's device (each version has its own device row, frozen with it).
+ */
 function versionTables(): string[] {
   const all = tables();
   const derived: readonly string[] = VERSION_DERIVED_TABLES;
   const direct = all.filter((n) => n !== 'version_signatures' && !derived.includes(n) && columns(n).includes('version_id'));
-  const indirect = all.filter((n) => !direct.includes(n) && n !== 'filing_versions' && foreignTables(n).some((f) => direct.includes(f) && f !== 'filing_versions'));
+  const owners = [...direct.filter((f) => f !== 'filing_versions'), 'devices'];
+  const indirect = all.filter((n) => !direct.includes(n) && n !== 'filing_versions' && n !== 'filings' && foreignTables(n).some((f) => owners.includes(f)));
   return [...direct, ...indirect];
 }
 
 describe('signed versions are frozen in every table that belongs to a version', () => {
   it('finds the wizard, screening and review tables', () => {
-    expect(versionTables()).toEqual(expect.arrayContaining(['antennas', 'transmitters', 'use_positions', 'use_position_separations', 'market_selections', 'screening_results', 'review_comments']));
+    expect(versionTables()).toEqual(
+      expect.arrayContaining(['antennas', 'transmitters', 'use_positions', 'use_position_separations', 'market_selections', 'screening_results', 'review_comments', 'device_modules']),
+    );
   });
 
   it.each(versionTables())('%s refuses INSERT, UPDATE and DELETE on a signed version', (table) => {

@@ -55,6 +55,20 @@ export const GOLDEN_SCREENING: Record<string, ScreeningInputRaw> = {
     transmitters: [{ id: 't', frequencyMinHz: 2.45e9, frequencyMaxHz: 2.45e9, maxTuneUpPowerDbm: 10 * Math.log10(9.55), dutyCycle: 1, antennaId: 'a' }],
     usePositions: [{ id: 'p', kind: 'head', separations: [{ antennaId: 'a', separationM: 0.005 }] }],
   },
+  // Several antennas on one transmitter: 2×2 MIMO Wi-Fi (powers add) and switched LTE, each at
+  // every antenna; the row names the least favourable one.
+  'several-antennas': {
+    markets: [{ regime: 'fcc', tier: 'general' }, { regime: 'eu', tier: 'general' }],
+    antennas,
+    transmitters: [
+      { id: 'wifi-mimo', frequencyMinHz: 5180e6, frequencyMaxHz: 5825e6, maxTuneUpPowerDbm: 12, dutyCycle: 0.95, antennaId: 'ant-a', moreAntennaIds: ['ant-b'], antennaUse: 'mimo' },
+      { id: 'lte-switched', frequencyMinHz: 1850e6, frequencyMaxHz: 1910e6, maxTuneUpPowerDbm: 23, dutyCycle: 1, antennaId: 'ant-a', moreAntennaIds: ['ant-b'], antennaUse: 'switched' },
+    ],
+    usePositions: [
+      { id: 'near-b', kind: 'body-worn', separations: [{ antennaId: 'ant-a', separationM: 0.02 }, { antennaId: 'ant-b', separationM: 0.005 }] },
+      { id: 'no-b', kind: 'body-worn', separations: [{ antennaId: 'ant-a', separationM: 0.01 }] },
+    ],
+  },
 };
 
 /** Depth profiles (calc/screening/depth-profile.ts) at fixed figures. */
