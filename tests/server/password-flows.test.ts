@@ -44,6 +44,16 @@ async function waitForMails(email: string, count: number) {
   throw new Error(`expected ${count} mail(s) to ${email}, found ${mailsTo(email).length}`);
 }
 
+/** Waits for the mail with this subject (notices are sent after the answer, so they may trail it). */
+async function waitForSubject(email: string, subject: string) {
+  for (let i = 0; i < 200; i++) {
+    const found = mailsTo(email).find((m) => m.subject === subject);
+    if (found) return found;
+    await new Promise((r) => setTimeout(r, 25));
+  }
+  throw new Error(`expected a mail to ${email} titled "${subject}"`);
+}
+
 /** Asks for a reset and returns the token from the mail that arrives. */
 async function resetToken(email: string, from?: string): Promise<string> {
   const before = mailsTo(email).length;
@@ -143,7 +153,7 @@ describe('choosing a new password from the link', () => {
 
     const reset = auditOf('auth.password-reset').at(-1)!;
     expect(reset.details).toMatchObject({ sessionsEnded: 1 });
-    const notice = (await waitForMails(email, 1)).find((m) => m.subject === 'Your Fieldfile password changed');
+    const notice = await waitForSubject(email, 'Your Fieldfile password changed');
     expect(notice?.text).toMatch(/replaced through an e-mailed link/);
   });
 
@@ -201,7 +211,7 @@ describe('changing the password in the profile', () => {
     expect((await login(email, TEST_PASSWORD)).status).toBe(401);
     expect((await login(email, 'lantern quarry bicycle 5')).status).toBe(200);
     expect(auditOf('auth.password-change').at(-1)).toMatchObject({ targetId: expect.any(String), details: { sessionsEnded: res.body.sessionsEnded } });
-    const notice = (await waitForMails(email, 1)).find((m) => m.subject === 'Your Fieldfile password changed');
+    const notice = await waitForSubject(email, 'Your Fieldfile password changed');
     expect(notice?.text).toMatch(/changed from its profile/);
     expect(notice?.organisationId).toBeNull();
   });
