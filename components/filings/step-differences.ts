@@ -5,12 +5,65 @@
 const isRecord = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
 const same = (a: unknown, b: unknown) => JSON.stringify(a) === JSON.stringify(b);
 
-/** `gainDbi` → "gain dbi"; `usePositions` → "use positions". */
-export const words = (key: string) => key.replace(/([a-z0-9])([A-Z])/g, '$1 $2').toLowerCase();
+/** Field names as the step's own labels say them (the regulators' terms keep their usual spelling). */
+const FIELD_LABELS: Record<string, string> = {
+  name: 'name',
+  model: 'model number',
+  applicant: 'applicant',
+  productType: 'product type',
+  hardwareVersion: 'hardware version',
+  firmwareVersion: 'firmware version',
+  fccGranteeCode: 'FCC grantee code',
+  fccProductCode: 'FCC product code',
+  isedCompanyNumber: 'ISED company number',
+  isedUpn: 'ISED UPN',
+  hvin: 'HVIN',
+  pmn: 'PMN',
+  fvin: 'FVIN',
+  modelVariants: 'model variants',
+  integration: 'host or module',
+  modules: 'certified modules',
+  conditions: 'grant conditions',
+  minSeparationM: 'grant’s minimum separation',
+  difference: 'how it differs',
+  antennas: 'antennas',
+  transmitters: 'transmitters',
+  usePositions: 'use positions',
+  separations: 'separations',
+  simultaneous: 'co-transmission',
+  markets: 'markets',
+  gainDbi: 'gain (dBi)',
+  location: 'where it sits',
+  technology: 'technology',
+  band: 'band',
+  frequencyMinHz: 'lowest frequency',
+  frequencyMaxHz: 'highest frequency',
+  maxTuneUpPowerDbm: 'maximum tune-up power',
+  tuneUpTargetDbm: 'tune-up target',
+  tuneUpToleranceDb: 'tune-up tolerance',
+  dutyCycle: 'duty factor',
+  dutyCyclePreset: 'duty factor preset',
+  mode: 'mode',
+  modulation: 'modulation',
+  bandwidth: 'bandwidth',
+  antennaId: 'antenna',
+  moreAntennaIds: 'further antennas',
+  antennaUse: 'antenna use',
+  kind: 'kind',
+  separationM: 'separation',
+  regime: 'market',
+  tier: 'tier',
+  fccSarScreening: 'FCC SAR screening method',
+  id: 'id',
+};
+
+/** A field in the step's own words; an unknown key in plain words (`gainDbi` → "gain dbi"). */
+export const words = (key: string) => FIELD_LABELS[key] ?? key.replace(/([a-z0-9])([A-Z])/g, '$1 $2').toLowerCase();
 const singular = (key: string) => {
   const w = words(key);
   return w.endsWith('s') ? w.slice(0, -1) : w;
 };
+/** Capitalises the first letter, leaving the regulators' upper-case terms as they are. */
 const capital = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 
 type Row = Record<string, unknown>;

@@ -1,5 +1,6 @@
 /** The top of a data step: the autosave status, and why the form is read-only or started from a draft. */
-import { StyleSheet, View } from 'react-native';
+import { useEffect, useRef } from 'react';
+import { Platform, StyleSheet, View } from 'react-native';
 import { palette, radii, space } from '../../constants/theme';
 import type { FieldValues } from 'react-hook-form';
 import { Button } from '../ui/button';
@@ -45,9 +46,14 @@ export function StepFrame<T extends FieldValues>({ stepForm, intro, children }: 
 /** Someone else saved this step meanwhile: say what differs and let the person choose. */
 function ConflictNotice({ changed, onChoose }: { changed: string[]; onChoose: (choice: 'theirs' | 'mine') => void }) {
   const shown = changed.slice(0, 6);
+  const box = useRef<View>(null);
+  // On a phone the person is usually far down the form when it happens: bring the choice to them.
+  useEffect(() => {
+    if (Platform.OS === 'web') (box.current as unknown as HTMLElement | null)?.scrollIntoView?.({ block: 'center', behavior: 'smooth' });
+  }, []);
   return (
     <Notice tone="error" title="Someone else saved this step while you were editing" testID="step-conflict">
-      <View style={styles.conflict}>
+      <View style={styles.conflict} ref={box}>
         <Text variant="small">Your latest changes are not saved. {changed.length ? 'Where the two differ:' : 'Their version holds the same values as yours.'}</Text>
         {shown.map((c) => (
           <Text key={c} variant="small">
