@@ -86,8 +86,8 @@ describe('RadiosStep', () => {
     const notice = await screen.findByTestId('step-conflict', {}, { timeout: 4000 });
     expect(calls.find((c) => c.method === 'PUT')?.headers['If-Match']).toBe('"r-radios-1"');
     // The differences, row by row in words: their gain and tune-up power, my band.
-    expect(notice).toHaveTextContent(/Antenna “ANT-1”: gain dbi/);
-    expect(notice).toHaveTextContent(/Transmitter “TX-1”: band, max tune up power dbm/);
+    expect(notice).toHaveTextContent(/Antenna “ANT-1”: gain \(dBi\)/);
+    expect(notice).toHaveTextContent(/Transmitter “TX-1”: band, maximum tune-up power/);
     expect(screen.getByTestId('save-status')).toHaveTextContent(/Not saved — someone else saved this step/);
 
     // Further typing is kept in the form but nothing is sent while the choice waits.
