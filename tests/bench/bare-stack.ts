@@ -27,7 +27,8 @@ export interface BareStack {
   close(): Promise<void>;
 }
 
-export async function startBareStack(dbFile: string): Promise<BareStack> {
+/** `touchWrites: false` stubs out the store's touch, so a read writes nothing (the stricter baseline). */
+export async function startBareStack(dbFile: string, { touchWrites = true } = {}): Promise<BareStack> {
   const handle = openDatabase(dbFile);
   // eslint-disable-next-line @typescript-eslint/no-require-imports
   const SqliteStore = require('better-sqlite3-session-store')(session) as new (o: { client: typeof handle.sqlite }) => session.Store;
@@ -35,7 +36,9 @@ export async function startBareStack(dbFile: string): Promise<BareStack> {
   auth.serializeUser<BareUser>((user, done) => done(null, user as unknown as BareUser));
   auth.deserializeUser<BareUser>((user, done) => done(null, user as unknown as Express.User));
   const app = express();
-  app.use(session({ secret: 'bare-stack-bench', store: new SqliteStore({ client: handle.sqlite }), resave: false, saveUninitialized: false }));
+  const store = new SqliteStore({ client: handle.sqlite });
+  if (!touchWrites) store.touch = (_sid, _sess, cb) => cb?.();
+  app.use(session({ secret: 'bare-stack-bench', store, resave: false, saveUninitialized: false }));
   app.use(auth.session());
   app.post('/login/:userId/:organisationId', (req, res, next) => {
     const user: BareUser = { id: Number(req.params.userId), organisationId: Number(req.params.organisationId) };
