@@ -15,6 +15,8 @@ import type { AppContext } from './context';
 import { createStorages, type Storages } from './storage';
 import { createPassport } from './auth/passport';
 import { createSessionStore } from './auth/session-store';
+import { endSessionsPastAbsoluteLifetime, extendSessionWhenDue, SESSION_IDLE_MS } from './auth/session-cadence';
+import { createReadCaches } from './read-caches';
 import { apiNotFound, errorHandler } from './middleware/errors';
 import { forbidden } from './http-error';
 import { noteInvalidUtf8, refuseMalformedJson, requireJsonBody } from './middleware/body-guards';
@@ -37,10 +39,7 @@ import { buildOnSigning, registerPackageJobs, type PackageDeps } from './service
 import { version as productVersion } from '../package.json';
 
 export const SESSION_COOKIE = 'fieldfile.sid';
-/** Idle lifetime: each request extends the cookie (rolling). */
-const SESSION_MAX_AGE_MS = 12 * 3600 * 1000;
-/** Absolute lifetime: a session ends this long after sign-in however busy it was. */
-export const SESSION_ABSOLUTE_MS = 7 * 24 * 3600 * 1000;
+export { SESSION_ABSOLUTE_MS } from './auth/session-cadence';
 const JSON_LIMIT = '1mb';
 
 /** The session secret: from the environment, or generated once and kept in the data folder. */
@@ -84,21 +83,6 @@ function originGuard(devWebOrigin?: string): RequestHandler {
   };
 }
 
-declare module 'express-session' {
-  interface SessionData {
-    /** When the user signed in (ms since epoch), for the absolute lifetime. */
-    signedInAt?: number;
-  }
-}
-
-/** A signed-in session older than SESSION_ABSOLUTE_MS is signed out; the request goes on anonymous. */
-const endSessionsPastAbsoluteLifetime: RequestHandler = (req, _res, next) => {
-  if (!req.user) return next();
-  const started = req.session.signedInAt;
-  if (typeof started === 'number' && Date.now() - started <= SESSION_ABSOLUTE_MS) return next();
-  req.logout((err) => next(err));
-};
-
 export interface CreateAppOptions {
   handle: DbHandle;
   config: Config;
@@ -116,7 +100,8 @@ export function createApp({ handle, config, mailer, serveWeb = true, storage = c
   // New hashes at the configured cost (tests choose a cheaper one; see server/env.ts).
   setPasswordHashCost(config.scryptLog2N);
   const calcPool = createCalcPool({ timeLimitMs: config.calcTimeLimitMs });
-  const ctx: AppContext = { db: handle.db, config, mailer, storage, calcPool };
+  const readCaches = createReadCaches(handle.sqlite);
+  const ctx: AppContext = { db: handle.db, config, mailer, storage, calcPool, readCaches };
   const packages: PackageDeps = {
     db: handle.db,
     queue: queue ?? createInProcessQueue(handle.db),
@@ -129,6 +114,9 @@ export function createApp({ handle, config, mailer, serveWeb = true, storage = c
   packages.queue.recoverInterrupted();
   const app = express();
   app.disable('x-powered-by');
+  // API answers are no-store, so nobody revalidates them: hashing every body for an ETag is waste.
+  // (express.static sets its own ETags for the web app's files.)
+  app.set('etag', false);
   app.set('trust proxy', config.trustProxy);
   app.use(
     helmet({
@@ -154,7 +142,7 @@ export function createApp({ handle, config, mailer, serveWeb = true, storage = c
   );
 
   const store = createSessionStore(handle.sqlite);
-  const passport = createPassport(handle.db);
+  const passport = createPassport(handle.db, readCaches);
   const api = express.Router();
   api.use((_req, res, next) => {
     res.set('Cache-Control', 'no-store');
@@ -167,6 +155,8 @@ export function createApp({ handle, config, mailer, serveWeb = true, storage = c
   const auth = authRoutes(ctx);
   // Before the session: a sign-in the guard refuses costs no session work (server/auth/sign-in-guard.ts).
   api.use('/auth', auth.gate);
+  // Before the session: a health check reads no session (and costs no session lookup).
+  api.use('/health', healthRoutes(ctx));
   api.use(
     session({
       name: SESSION_COOKIE,
@@ -174,13 +164,14 @@ export function createApp({ handle, config, mailer, serveWeb = true, storage = c
       store,
       resave: false,
       saveUninitialized: false,
-      rolling: true,
-      cookie: { httpOnly: true, sameSite: 'lax', secure: 'auto', maxAge: SESSION_MAX_AGE_MS },
+      // Not rolling: the expiry moves at most every few minutes (server/auth/session-cadence.ts).
+      rolling: false,
+      cookie: { httpOnly: true, sameSite: 'lax', secure: 'auto', maxAge: SESSION_IDLE_MS },
     }),
   );
   api.use(passport.session());
   api.use(endSessionsPastAbsoluteLifetime);
-  api.use('/health', healthRoutes(ctx));
+  api.use(extendSessionWhenDue);
   api.use('/auth', auth.routes);
   api.use('/users', userRoutes(ctx));
   api.use('/outbox', outboxRoutes(ctx));

@@ -3,6 +3,7 @@
  * production), start the local mail catcher (unless SMTP_HOST is set), and serve the web app
  * and the API on one port. `--dev` skips the web build (the Expo dev server serves the app).
  */
+import './runtime-flags'; // first: V8 flags (see the file)
 import fs from 'node:fs';
 import type { AddressInfo } from 'node:net';
 import { loadConfig } from './env';

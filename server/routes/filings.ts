@@ -19,12 +19,18 @@ const zStep = z.enum(DATA_STEPS, { error: `The step must be one of ${DATA_STEPS.
 
 const actorOf = (user: Express.User): filingsService.FilingActor => ({ id: user.id, organisationId: user.organisation.id, roles: user.roles });
 
+/** Assembled filing answers kept at once, in characters of JSON (a filing's answer is tens of KB). */
+const FILING_ANSWER_CACHE_CHARS = 32 * 1024 * 1024;
+
 const slug = (s: string) => s.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'device';
 
-export function filingRoutes({ db }: AppContext): Router {
+export function filingRoutes({ db, readCaches }: AppContext): Router {
   const router = Router();
   // Per app instance: two apps in one process never answer from each other's results.
   const screeningCache = screeningService.createScreeningCache();
+  // The JSON of GET /:id, per organisation, filing and whether the reader may edit (the only
+  // part of the answer that depends on who asks); any database write empties it.
+  const filingAnswers = readCaches.create<string>(FILING_ANSWER_CACHE_CHARS, (json) => json.length);
   router.use(requireAuth);
   router.param('id', strictId);
   const specialistOnly: RequestHandler = requireRole('specialist');
@@ -46,7 +52,10 @@ export function filingRoutes({ db }: AppContext): Router {
   });
 
   router.get('/:id', (req, res) => {
-    res.json({ filing: filingsService.getFiling(db, actorOf(req.user!), parseWith(zId, req.params.id)) });
+    const actor = actorOf(req.user!);
+    const filingId = parseWith(zId, req.params.id);
+    const key = `${actor.organisationId}:${filingId}:${filingsService.canEdit(actor) ? 'edit' : 'read'}`;
+    res.type('json').send(filingAnswers.get(key, () => JSON.stringify({ filing: filingsService.getFiling(db, actor, filingId) })));
   });
 
   router.put('/:id/steps/:step', specialistOnly, (req, res) => {

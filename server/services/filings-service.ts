@@ -38,7 +38,7 @@ export interface FilingActor {
   roles: Role[];
 }
 
-const canEdit = (actor: FilingActor) => actor.roles.includes('specialist');
+export const canEdit = (actor: FilingActor) => actor.roles.includes('specialist');
 
 function requireEditor(actor: FilingActor) {
   if (!canEdit(actor)) throw forbidden('Only a compliance specialist can change a filing’s device data. This needs the specialist role.');

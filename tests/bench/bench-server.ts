@@ -21,6 +21,8 @@ export interface BenchServer {
   port: number;
   /** The signed-in specialist's session cookie. */
   cookie: string;
+  /** The SQLite file the app reads (another connection may open it). */
+  dbFile: string;
   /** Signs another demo person in; resolves with their session cookie. */
   login(email: string): Promise<string>;
   post(pathUnderApi: string, body: unknown): Promise<Response>;
@@ -30,7 +32,8 @@ export interface BenchServer {
 export async function startBenchServer(env: Record<string, string> = {}): Promise<BenchServer> {
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'fieldfile-bench-'));
   const config = loadConfig({ NODE_ENV: 'test', FIELDFILE_DATA_DIR: dataDir, ...env });
-  const handle = openDatabase(path.join(dataDir, 'fieldfile.db'));
+  const dbFile = path.join(dataDir, 'fieldfile.db');
+  const handle = openDatabase(dbFile);
   applyMigrations(handle.db);
   await seedDemo(handle.db, PASSWORD);
   const { app, close } = createApp({ handle, config, mailer: { send: async () => {} }, serveWeb: false });
@@ -48,6 +51,7 @@ export async function startBenchServer(env: Record<string, string> = {}): Promis
     base,
     port,
     cookie,
+    dbFile,
     login,
     post: (p, body) => fetch(`${base}${p}`, { method: 'POST', headers: { 'content-type': 'application/json', cookie }, body: JSON.stringify(body) }),
     async close() {

@@ -27,6 +27,8 @@ export interface BenchResult {
   iterations?: number;
   meanMs?: number;
   p95Ms?: number;
+  /** Process CPU time per call (user + system, all threads), ms: steadier than wall time on a shared machine. */
+  cpuMs?: number;
   targetMs: number;
   underTarget?: boolean;
 }
@@ -48,17 +50,20 @@ export async function runCase(c: BenchCase): Promise<BenchResult> {
     if (isPromise(r)) await r;
   }
   const samplesMs = new Array<number>(iterations);
+  const cpu0 = process.cpuUsage();
   for (let i = 0; i < iterations; i++) {
     const t0 = process.hrtime.bigint();
     const r = fn();
     if (isPromise(r)) await r;
     samplesMs[i] = Number(process.hrtime.bigint() - t0) / 1e6;
   }
+  const cpu = process.cpuUsage(cpu0);
   await c.teardown?.();
   samplesMs.sort((a, b) => a - b);
   const meanMs = samplesMs.reduce((s, x) => s + x, 0) / iterations;
   const p95Ms = percentile(samplesMs, 95);
-  return { name: c.name, iterations, meanMs, p95Ms, targetMs: c.targetMs, underTarget: p95Ms < c.targetMs };
+  const cpuMs = (cpu.user + cpu.system) / 1000 / iterations;
+  return { name: c.name, iterations, meanMs, p95Ms, cpuMs, targetMs: c.targetMs, underTarget: p95Ms < c.targetMs };
 }
 
 export function formatResult(r: BenchResult): string {
@@ -67,6 +72,6 @@ export function formatResult(r: BenchResult): string {
   const under = (ms: number) => (ms < r.targetMs ? 'under' : 'over');
   return (
     `${verdict}  ${r.name}: mean ${r.meanMs!.toFixed(3)} ms (${under(r.meanMs!)}), p95 ${r.p95Ms!.toFixed(3)} ms ` +
-    `(${under(r.p95Ms!)}); target < ${r.targetMs} ms at p95, ${r.iterations} runs`
+    `(${under(r.p95Ms!)}); target < ${r.targetMs} ms at p95, ${r.iterations} runs; CPU ${r.cpuMs!.toFixed(3)} ms per run`
   );
 }

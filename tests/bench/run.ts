@@ -3,6 +3,7 @@
  * p95 per call. A benchmark, not a test: it always exits 0 unless a case throws.
  *   npm run bench -- <filter>   runs only the cases whose name contains <filter>
  */
+import '../../server/runtime-flags'; // first: the same V8 flags as the server
 import os from 'node:os';
 import { benchCases } from './cases';
 import { formatResult, runCase } from './harness';

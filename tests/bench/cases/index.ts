@@ -11,5 +11,6 @@ import { compareCachedCase, compareColdCase, readinessCase } from './readiness';
 import { exhibitPdfCase, packageBuildCase } from './package-build';
 import { healthUnderCalcCase, readsUnderCalcCase } from './calc-under-load';
 import { signInFloodCase } from './sign-in-flood';
+import { authenticatedReadsCase } from './authenticated-reads';
 
-export const benchCases: BenchCase[] = [filingEvaluationCase, planeWaveProfileCase, screeningCase, screeningApiCase, screeningPageCase, labRecomputeCase, labImportCase, evidenceUploadCase, readBackCase, readinessCase, compareCachedCase, compareColdCase, exhibitPdfCase, packageBuildCase, healthUnderCalcCase, readsUnderCalcCase, signInFloodCase];
+export const benchCases: BenchCase[] = [filingEvaluationCase, planeWaveProfileCase, screeningCase, screeningApiCase, screeningPageCase, labRecomputeCase, labImportCase, evidenceUploadCase, readBackCase, readinessCase, compareCachedCase, compareColdCase, exhibitPdfCase, packageBuildCase, healthUnderCalcCase, readsUnderCalcCase, signInFloodCase, authenticatedReadsCase];
