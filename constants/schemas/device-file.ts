@@ -30,7 +30,8 @@ export const TOLERANCE_MAX_DB = 10;
 export const TUNE_UP_MATCH_DB = 0.005;
 
 export const PRODUCT_TYPES = ['phone', 'tablet', 'wearable', 'tracker', 'hotspot', 'iot-module', 'two-way-radio', 'laptop', 'other'] as const;
-export const PRODUCT_TYPE_LABELS: Record<(typeof PRODUCT_TYPES)[number], string> = {
+export type ProductType = (typeof PRODUCT_TYPES)[number];
+export const PRODUCT_TYPE_LABELS: Record<ProductType, string> = {
   phone: 'Phone',
   tablet: 'Tablet',
   wearable: 'Wearable',
