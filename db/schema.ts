@@ -9,7 +9,7 @@ import { EVIDENCE_CATEGORY_IDS } from '../constants/schemas/evidence';
 import { ROLES } from '../constants/schemas/roles';
 import { DATA_STEPS, VERSION_STATES } from '../constants/schemas/filings';
 import { AVERAGING_MASSES, DISTRIBUTIONS, INSTRUMENT_KINDS, LIQUID_KINDS } from '../constants/schemas/lab';
-import { ANTENNA_USES } from '../calc/screening/input';
+import { ANTENNA_USES, POWER_MODE_TRIGGERS } from '../calc/screening/input';
 import { FCC_SAR_SCREENINGS, INTEGRATIONS, PRODUCT_TYPES, REGIMES, TIERS, USE_POSITION_KINDS } from '../constants/schemas/device-file';
 
 const createdAt = () =>
@@ -325,6 +325,27 @@ export const usePositionSeparations = sqliteTable(
     separationM: real('separation_m').notNull(),
   },
   (t) => [primaryKey({ columns: [t.usePositionId, t.antennaId] })],
+);
+
+/**
+ * A transmitter's reduced tune-up power in one use position, with what triggers it (hotspot
+ * back-off, proximity sensor, time-averaged SAR limit). By row on both sides, so renaming the
+ * position or the transmitter changes nothing here; removing either takes the row with it.
+ */
+export const usePositionPowerModes = sqliteTable(
+  'use_position_power_modes',
+  {
+    usePositionId: integer('use_position_id')
+      .notNull()
+      .references(() => usePositions.id, { onDelete: 'cascade' }),
+    transmitterId: integer('transmitter_id')
+      .notNull()
+      .references(() => transmitters.id, { onDelete: 'cascade' }),
+    reducedTuneUpPowerDbm: real('reduced_tune_up_power_dbm').notNull(),
+    trigger: text('trigger', { enum: POWER_MODE_TRIGGERS }).notNull(),
+    sortOrder: integer('sort_order').notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.usePositionId, t.transmitterId] })],
 );
 
 export const marketSelections = sqliteTable(

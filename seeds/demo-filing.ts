@@ -2,8 +2,9 @@
  * The demo device: a fictional rugged handheld tracker by the fictional Halden Ridge Instruments,
  * with LTE (a low band, a band that straddles 1.5 GHz and a mid band that switches between two
  * antennas), Wi-Fi 2.4 and 5 GHz and Bluetooth, and its grant identifiers. Its filing is partly
- * done for two markets: the use positions still lack the Bluetooth antenna's separation at the
- * wrist strap, so the wizard shows what remains.
+ * done for two markets: LTE band 12 runs at a reduced power on the belt clip (proximity sensor),
+ * and the use positions still lack the Bluetooth antenna's separation at the wrist strap, so the
+ * wizard shows what remains.
  */
 import { DEVICE_FILE_FORMAT, type DeviceFileInput } from '../constants/schemas/device-file';
 
@@ -102,6 +103,9 @@ export const DEMO_TRACKER: DeviceFileInput = {
         { antennaId: 'ANT-DIV', separationM: 0.01 },
         { antennaId: 'ANT-WLAN', separationM: 0.012 },
       ],
+      // The belt clip covers the proximity sensor beside ANT-MAIN: the modem backs LTE band 12 off
+      // by 4 dB while it is triggered (our fictional scenario).
+      powerModes: [{ transmitterId: 'LTE-B12', reducedTuneUpPowerDbm: 20, trigger: 'proximity-sensor' }],
     },
     {
       id: 'in-hand',

@@ -9,7 +9,7 @@ import { SCREENING_SOURCES, screenParsed, type ScreeningOutput } from './screen'
 import { screeningDepthProfileCalculation } from './depth-profile';
 
 export * from './input';
-export { evaluatedPowers, POWER_FORMULA, type EvaluatedPowers } from './power';
+export { evaluatedPowers, POWER_FORMULA, POWER_MODE_TRIGGER_SOURCES, withPowerMode, type EvaluatedPowers } from './power';
 export { METHOD_LABELS, type MethodId, type ScreeningResult } from './rule';
 export {
   SCREENING_CAUTIONS,
@@ -20,6 +20,7 @@ export {
   type ScreeningCounts,
   type ScreeningGap,
   type ScreeningOutput,
+  type ScreeningPowerModeName,
   type ScreeningRow,
   type ScreeningSummary,
 } from './screen';

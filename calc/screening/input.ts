@@ -20,6 +20,12 @@ export const ANTENNA_USES = ['mimo', 'switched'] as const;
 export type AntennaUse = (typeof ANTENNA_USES)[number];
 export const USE_POSITION_KINDS = ['head', 'body-worn', 'hotspot', 'extremity', 'far-field'] as const;
 export type UsePositionKind = (typeof USE_POSITION_KINDS)[number];
+/**
+ * What makes a transmitter reduce its tune-up power in a use position: a hotspot mode's back-off,
+ * a proximity sensor, or a time-averaged SAR algorithm's limit (power.ts names their sources).
+ */
+export const POWER_MODE_TRIGGERS = ['hotspot-back-off', 'proximity-sensor', 'time-averaged-sar'] as const;
+export type PowerModeTrigger = (typeof POWER_MODE_TRIGGERS)[number];
 
 const id = z.string().trim().min(1, 'an id is required').max(MAX_ID_CHARS);
 const finite = z.number().refine(Number.isFinite, 'must be a finite number');
@@ -59,6 +65,18 @@ const usePosition = z.object({
   id,
   kind: z.enum(USE_POSITION_KINDS),
   separations: z.array(z.object({ antennaId: id, separationM: finite.pipe(z.number().min(0).max(10)).describe('Separation distance, m') })).max(MAX_ANTENNAS),
+  /** Only where a transmitter reduces its power here (absent otherwise, so older inputs hash as before). */
+  powerModes: z
+    .array(
+      z.object({
+        transmitterId: id,
+        reducedTuneUpPowerDbm: finite.pipe(z.number().min(-30).max(60)).describe('The tune-up power that applies in this position, dBm'),
+        trigger: z.enum(POWER_MODE_TRIGGERS),
+      }),
+    )
+    .max(MAX_TRANSMITTERS)
+    .optional()
+    .describe('Reduced tune-up powers in this use position, each with what triggers it'),
 });
 
 const duplicateIssues = (ids: string[], path: string, ctx: z.RefinementCtx) => {
@@ -95,6 +113,16 @@ export const screeningInput = z
         if (a === t.antennaId || t.moreAntennaIds!.indexOf(a) !== j) ctx.addIssue({ code: 'custom', path: ['transmitters', i, 'moreAntennaIds', j], message: `antenna "${a}" is named twice` });
       });
     });
+    const maxDbmOf = new Map(input.transmitters.map((t) => [t.id, t.maxTuneUpPowerDbm]));
+    input.usePositions.forEach((p, i) =>
+      (p.powerModes ?? []).forEach((m, j) => {
+        const at = ['usePositions', i, 'powerModes', j];
+        const max = maxDbmOf.get(m.transmitterId);
+        if (max === undefined) ctx.addIssue({ code: 'custom', path: [...at, 'transmitterId'], message: `unknown transmitter id "${m.transmitterId}"` });
+        else if (m.reducedTuneUpPowerDbm >= max) ctx.addIssue({ code: 'custom', path: [...at, 'reducedTuneUpPowerDbm'], message: `a reduced power must be below the maximum tune-up power (${max} dBm)` });
+        if (p.powerModes!.findIndex((o) => o.transmitterId === m.transmitterId) !== j) ctx.addIssue({ code: 'custom', path: [...at, 'transmitterId'], message: `transmitter "${m.transmitterId}" has two power modes in this use position` });
+      }),
+    );
     input.usePositions.forEach((p, i) =>
       p.separations.forEach((s, j) => {
         if (!antennaIds.has(s.antennaId)) ctx.addIssue({ code: 'custom', path: ['usePositions', i, 'separations', j, 'antennaId'], message: `unknown antenna id "${s.antennaId}"` });
@@ -120,3 +148,9 @@ export const streamsOf = (tx: Pick<ScreeningTransmitter, 'antennaId' | 'moreAnte
   const n = antennasOf(tx).length;
   return n > 1 && (tx.antennaUse ?? 'mimo') === 'mimo' ? n : 1;
 };
+
+export type ScreeningPowerMode = NonNullable<ScreeningUsePosition['powerModes']>[number];
+
+/** The reduced power a transmitter has in a use position, if any. */
+export const powerModeOf = (position: Pick<ScreeningUsePosition, 'powerModes'>, transmitterId: string): ScreeningPowerMode | undefined =>
+  position.powerModes?.find((m) => m.transmitterId === transmitterId);

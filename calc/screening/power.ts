@@ -10,9 +10,12 @@
  *                                          §1.1307(b)(3) "available maximum time-averaged power")
  *   EIRP = P_avg × 10^(G_dBi/10)          (time-averaged)
  *   ERP  = EIRP / 10^(2.15/10)            (EIRP − 2.15 dB: half-wave dipole gain, calc/em/units.ts)
+ * In a use position where the transmitter reduces its power (a power mode), P_dBm is the reduced
+ * tune-up power that applies there instead of the maximum (withPowerMode).
  */
 import type { Quantity } from '../types';
 import { q } from '../types';
+import type { PowerModeTrigger, ScreeningPowerMode } from './input';
 import { dbiToLinear, dbmToMw, eirpToErpW, HALF_WAVE_DIPOLE_GAIN_DBI } from '../em/units';
 
 export interface EvaluatedPowers {
@@ -73,4 +76,43 @@ export function evaluatedPowers(maxTuneUpPowerDbm: number, dutyCycle: number, ga
     powers.notes = [POWER_NOTE, MIMO_NOTE];
   }
   return powers;
+}
+
+/** What each trigger is, in words, and where the trade's guidance for it is (all from memory). */
+export const POWER_MODE_TRIGGER_SOURCES: Record<PowerModeTrigger, { label: string; source: string }> = {
+  'hotspot-back-off': {
+    label: 'hotspot back-off',
+    source: 'FCC KDB 941225 D06 (hotspot mode: SAR at the power the device uses with the hotspot on), from memory',
+  },
+  'proximity-sensor': {
+    label: 'proximity-sensor reduction',
+    source: 'FCC KDB 616217 D04 (proximity sensors: reduced power below the triggering distance, sensor coverage and triggering distance tested), from memory',
+  },
+  'time-averaged-sar': {
+    label: 'time-averaged SAR limit',
+    source: 'a time-averaged SAR algorithm’s power limit, accepted case by case by the certifying body (FCC KDB inquiry), from memory',
+  },
+};
+
+/**
+ * The powers of a transmitter in a use position where it runs at a reduced tune-up power: the
+ * same formula with P_dBm = the reduced power; the derivation keeps the maximum, names the
+ * reduced power and its trigger, and says that the result holds only while the reduction does.
+ */
+export function withPowerMode(powers: EvaluatedPowers, maxTuneUpPowerDbm: number, mode: ScreeningPowerMode): EvaluatedPowers {
+  const trigger = POWER_MODE_TRIGGER_SOURCES[mode.trigger];
+  return {
+    ...powers,
+    inputs: {
+      ...powers.inputs,
+      maxTuneUpPowerDbm: q(maxTuneUpPowerDbm, 'dBm'),
+      reducedTuneUpPowerDbm: q(mode.reducedTuneUpPowerDbm, 'dBm'),
+      powerMode: q(mode.trigger, 'text'),
+    },
+    formula: powers.formula.replace('10^(P_dBm/10)', '10^(P_reduced,dBm/10)'),
+    notes: [
+      ...powers.notes,
+      `Power mode: ${trigger.label} — in this use position the transmitter runs at ${mode.reducedTuneUpPowerDbm} dBm instead of its maximum ${maxTuneUpPowerDbm} dBm, and that reduced tune-up power is what is screened (${trigger.source}). The result holds only while the reduction is active in this position; the lab tests it there.`,
+    ],
+  };
 }

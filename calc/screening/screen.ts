@@ -5,14 +5,16 @@
  * A transmitter with several antennas (MIMO or switched) is evaluated at every antenna, each with
  * its own gain and separation, and the row reports the least favourable antenna (worst result,
  * then smallest margin) and names it; MIMO streams on one band add their powers (power.ts).
+ * In a use position where a transmitter has a reduced power (a power mode: hotspot back-off,
+ * proximity sensor, time-averaged SAR limit), that power is screened and the row names the mode.
  * Combinations that cannot be screened (no separation given for an antenna of the transmitter)
  * are listed as gaps, never guessed.
  */
 import type { Derivation, Quantity } from '../types';
 import { q } from '../types';
 import { formatHz } from './format';
-import { antennasOf, streamsOf, type ScreeningInput, type ScreeningMarket, type ScreeningRegime, type ScreeningTransmitter, type ScreeningUsePosition, type UsePositionKind } from './input';
-import { evaluatedPowers, type EvaluatedPowers } from './power';
+import { antennasOf, powerModeOf, streamsOf, type PowerModeTrigger, type ScreeningInput, type ScreeningMarket, type ScreeningRegime, type ScreeningTransmitter, type ScreeningUsePosition, type UsePositionKind } from './input';
+import { evaluatedPowers, withPowerMode, type EvaluatedPowers } from './power';
 import { fmt, isWorse, METHOD_LABELS, NEAR_THRESHOLD_DB, screenBand, UNIT, UNROUNDED_COMPARISON, type MethodId, type Probe, type ScreeningResult, type ScreeningRule, type ThresholdKind } from './rule';
 import type { RuleContext, RuleSet } from './rule-set';
 import { fccRuleSet } from './rules-fcc';
@@ -51,6 +53,8 @@ export interface ScreeningRow {
   antennaId: string;
   /** How many antennas the transmitter uses (each was evaluated; see the derivation's notes). */
   antennaCount: number;
+  /** The power the row screened: 'full' (the maximum tune-up power) or the trigger of this position's reduced power. */
+  powerMode: ScreeningPowerModeName;
   /** The power the rule compares (time-averaged power, the greater of it and ERP, ERP, or EIRP), mW. */
   evaluatedPowerMw: number;
   evaluatedQuantity: string;
@@ -72,6 +76,9 @@ export interface ScreeningRow {
   candidates: ScreeningCandidate[];
   derivation: Derivation;
 }
+
+/** A row's power mode: the maximum tune-up power, or a reduced one named by its trigger. */
+export type ScreeningPowerModeName = 'full' | PowerModeTrigger;
 
 export interface ScreeningGap {
   transmitterId: string;
@@ -160,6 +167,7 @@ interface Combination {
   antennaCount: number;
   separationM: number;
   powers: EvaluatedPowers;
+  powerMode: ScreeningPowerModeName;
 }
 
 function rowInputs(c: Combination): Record<string, Quantity> {
@@ -167,6 +175,7 @@ function rowInputs(c: Combination): Record<string, Quantity> {
   return {
     maxTuneUpPowerDbm: p.maxTuneUpPowerDbm,
     dutyCycle: p.dutyCycle,
+    ...(p.reducedTuneUpPowerDbm ? { reducedTuneUpPowerDbm: p.reducedTuneUpPowerDbm, powerMode: p.powerMode } : {}),
     antennaGainDbi: p.antennaGainDbi,
     antennaId: q(c.antennaId, 'text'),
     ...(p.mimoStreams ? { mimoStreams: p.mimoStreams } : {}),
@@ -202,6 +211,7 @@ function newRow(c: Combination, v: RowVerdict): ScreeningRow {
     separationM: c.separationM,
     antennaId: c.antennaId,
     antennaCount: c.antennaCount,
+    powerMode: c.powerMode,
     evaluatedPowerMw: v.evaluatedPowerMw,
     evaluatedQuantity: v.evaluatedQuantity,
     powers: { tuneUpPowerMw: powers.tuneUpPowerMw, timeAveragedPowerMw: powers.timeAveragedPowerMw, eirpMw: powers.eirpMw, erpMw: powers.erpMw },
@@ -383,8 +393,13 @@ export function screenParsed(input: ScreeningInput): ScreeningOutput {
   for (const tx of input.transmitters) {
     const antennas = antennasOf(tx);
     const streams = streamsOf(tx);
-    const powersOf = antennas.map((a) => evaluatedPowers(tx.maxTuneUpPowerDbm, tx.dutyCycle, gainById.get(a) as number, streams));
+    const fullPowers = antennas.map((a) => evaluatedPowers(tx.maxTuneUpPowerDbm, tx.dutyCycle, gainById.get(a) as number, streams));
     for (const position of input.usePositions) {
+      const mode = powerModeOf(position, tx.id);
+      const powersOf = mode
+        ? antennas.map((a) => withPowerMode(evaluatedPowers(mode.reducedTuneUpPowerDbm, tx.dutyCycle, gainById.get(a) as number, streams), tx.maxTuneUpPowerDbm, mode))
+        : fullPowers;
+      const powerMode: ScreeningPowerModeName = mode ? mode.trigger : 'full';
       const seps = antennas.map((a) => position.separations.find((s) => s.antennaId === a));
       const missing = antennas.filter((_, k) => !seps[k]);
       if (missing.length) {
@@ -397,7 +412,7 @@ export function screenParsed(input: ScreeningInput): ScreeningOutput {
         antennas.forEach((antennaId, k) => {
           const separationM = seps[k]!.separationM;
           const powers = powersOf[k];
-          const c: Combination = { tx, position, market, antennaId, antennaCount: antennas.length, separationM, powers };
+          const c: Combination = { tx, position, market, antennaId, antennaCount: antennas.length, separationM, powers, powerMode };
           const set = ruleSetFor(market, {
             powers,
             separationM,

@@ -1,6 +1,6 @@
 /** Words, icons and tones for filing states, markets and screening results (never colour alone). */
 import type { ScreeningResult } from '../../calc/screening/rule';
-import type { MarketRegime } from '../../constants/schemas/device-file';
+import { POWER_MODE_TRIGGER_LABELS, type MarketRegime, type PowerModeTrigger } from '../../constants/schemas/device-file';
 import { VERSION_STATE_LABELS, type VersionState } from '../../constants/schemas/filings';
 import type { IconName } from '../icons';
 import type { BadgeTone } from '../ui/status-badge';
@@ -37,3 +37,9 @@ export const METHOD_SHORT: Record<string, string> = {
   'no-applicable-rule': 'No exemption rule',
 };
 export const methodShort = (m: string) => METHOD_SHORT[m] ?? m;
+
+/** A screening row's power mode in words: full power, or the reduction and its trigger. Rows computed before power modes were all at full power. */
+export function powerModeText(mode: string | undefined): string {
+  if (!mode || mode === 'full') return 'Full power';
+  return `Reduced: ${POWER_MODE_TRIGGER_LABELS[mode as PowerModeTrigger]?.toLowerCase() ?? mode}`;
+}

@@ -23,6 +23,8 @@ export const QUANTITY_WORDS: Record<string, QuantityWords> = {
   antennaGainDbi: { label: 'Antenna gain', symbol: 'G_dBi', origin: `the antenna this transmitter feeds, ${RADIOS}` },
   gainDbi: { label: 'Antenna gain', symbol: 'G_dBi', origin: `the antenna this transmitter feeds, ${RADIOS}` },
   antennaId: { label: 'Antenna', origin: `the antenna evaluated (with several, the least favourable), ${RADIOS}` },
+  reducedTuneUpPowerDbm: { label: 'Reduced tune-up power in this position', symbol: 'P_reduced', origin: `the transmitter’s reduced power, ${POSITIONS}` },
+  powerMode: { label: 'Power mode', origin: `what triggers the reduction, ${POSITIONS}` },
   mimoStreams: { label: 'MIMO streams on the band', symbol: 'N', origin: `the transmitter’s antennas used at once, ${RADIOS}` },
   streamPowerMw: { label: 'Tune-up power of one stream', symbol: 'P_stream' },
   frequencyMinHz: { label: 'Lowest frequency of the band', origin: RADIOS },

@@ -6,7 +6,7 @@
 import type { ScreeningResult } from '../../calc/screening/rule';
 import type { ScreeningRowDto } from '../../hooks/queries/filings';
 import { USE_POSITION_LABELS } from '../../constants/schemas/device-file';
-import { methodShort, regimeShort, RESULT_LOOK } from './labels';
+import { methodShort, powerModeText, regimeShort, RESULT_LOOK } from './labels';
 import { evaluatedText, thresholdText } from './screening-figures';
 
 export const ALL = 'all';
@@ -39,7 +39,7 @@ const cell = (v: string | number | null) => {
 
 /** RFC 4180 CSV of the rows as shown (after filtering), with a header line. */
 export function screeningCsv(rows: readonly ScreeningRowDto[]): string {
-  const head = ['Transmitter', 'Use position', 'Position kind', 'Antenna', 'Separation (mm)', 'Market', 'Tier', 'Method', 'Frequency (MHz)', 'Evaluated', 'Threshold', 'Result', 'Margin (dB)', 'Source'];
+  const head = ['Transmitter', 'Use position', 'Position kind', 'Antenna', 'Separation (mm)', 'Power mode', 'Market', 'Tier', 'Method', 'Frequency (MHz)', 'Evaluated', 'Threshold', 'Result', 'Margin (dB)', 'Source'];
   const lines = rows.map((r) =>
     [
       r.transmitterId,
@@ -47,6 +47,7 @@ export function screeningCsv(rows: readonly ScreeningRowDto[]): string {
       USE_POSITION_LABELS[r.usePositionKind],
       r.antennaId ?? null,
       Number((r.separationM * 1000).toPrecision(6)),
+      powerModeText(r.powerMode),
       regimeShort(r.regime),
       r.tier,
       methodShort(r.method),

@@ -27,7 +27,7 @@ import { Text } from '../ui/text';
 import { DepthSection } from './depth-section';
 import { formatDb, formatMhz, formatMm } from './format';
 import { HowComputedSheet } from './how-computed';
-import { methodShort, regimeShort, RESULT_LOOK } from './labels';
+import { methodShort, powerModeText, regimeShort, RESULT_LOOK } from './labels';
 import { evaluatedText, thresholdText, type FigureKey } from './screening-figures';
 import { ALL, filterRows, isFiltered, NO_FILTER, screeningCsv, type ScreeningFilter } from './screening-filter';
 
@@ -257,6 +257,11 @@ function ScreeningRows({ rows, onOpen }: { rows: ScreeningRowDto[]; onOpen: (row
         <View key={i} style={[styles.tr, i % 2 === 1 && styles.zebra]} role="row" testID={`screening-row-${i}`}>
           <Text variant="smallStrong" style={[styles.td, styles.cellPad, { flex: COLUMNS[0]!.flex }]} role="cell">
             {row.transmitterId}
+            {reduced(row) ? (
+              <Text variant="small" tone="muted" testID={`cell-${i}-power-mode`}>
+                {`\n${powerModeText(row.powerMode)}`}
+              </Text>
+            ) : null}
           </Text>
           <Text variant="small" style={[styles.td, styles.cellPad, { flex: COLUMNS[1]!.flex }]} role="cell">
             {row.usePositionId}
@@ -281,6 +286,9 @@ function ScreeningRows({ rows, onOpen }: { rows: ScreeningRowDto[]; onOpen: (row
     </View>
   );
 }
+
+/** Rows at a reduced power say so; full power (the usual case) goes unsaid. */
+const reduced = (row: ScreeningRowDto) => !!row.powerMode && row.powerMode !== 'full';
 
 /** The antenna the row was evaluated at and its separation; "least favourable of N" when the transmitter has several. */
 function antennaText(row: ScreeningRowDto): string {
@@ -323,6 +331,11 @@ function RowCard({ row, index, onOpen }: { row: ScreeningRowDto; index: number; 
           <Text variant="small" tone="soft">
             {row.usePositionId} — {USE_POSITION_LABELS[row.usePositionKind].toLowerCase()}, {antennaText(row)}
           </Text>
+          {reduced(row) ? (
+            <Text variant="small" tone="soft" testID={`cell-${index}-power-mode`}>
+              {powerModeText(row.powerMode)}
+            </Text>
+          ) : null}
         </View>
         <ResultBadge row={row} />
       </View>

@@ -1,10 +1,13 @@
 /**
  * Step 3, Use positions: each way the product is used, its kind, and the separation from each
  * antenna to the body — typed in mm, stored in m. An empty separation means "not given yet".
+ * Under each position, the transmitters that run at a reduced power there (power modes); and the
+ * trade's standard test positions for the kind of product, to add as a starting point.
  */
 import { Controller, useFieldArray, useWatch, type Control } from 'react-hook-form';
 import { View } from 'react-native';
-import { USE_POSITION_KINDS, USE_POSITION_LABELS, type UsePositionKind } from '../../constants/schemas/device-file';
+import { USE_POSITION_KINDS, USE_POSITION_LABELS, type PowerModeTrigger, type UsePositionKind } from '../../constants/schemas/device-file';
+import type { StandardPosition } from '../../constants/standard-positions';
 import type { FilingDetail } from '../../constants/schemas/filings';
 import { space } from '../../constants/theme';
 import { Card } from '../ui/card';
@@ -13,6 +16,8 @@ import { NumberField } from '../ui/number-field';
 import { Text } from '../ui/text';
 import { EditRows, nextId, type EditColumn } from './edit-rows';
 import { FormSelect, FormText } from './form-fields';
+import { PowerModesEditor, powerModesSummary } from './power-modes-editor';
+import { StandardPositionsCard } from './standard-positions-card';
 import { StepFrame } from './step-frame';
 import { arrayOf, isObject, useAdoptRowIds, useStepForm } from './use-step-form';
 
@@ -20,11 +25,17 @@ interface Separation {
   antennaId: string;
   separationM: number | null;
 }
+interface PowerModeRow {
+  transmitterId: string;
+  reducedTuneUpPowerDbm: number | null;
+  trigger: PowerModeTrigger;
+}
 interface PositionRow {
   rowId?: number;
   id: string;
   kind: UsePositionKind;
   separations: Separation[];
+  powerModes?: PowerModeRow[];
 }
 export interface UsePositionsValues {
   usePositions: PositionRow[];
@@ -34,10 +45,17 @@ const KIND_OPTIONS = USE_POSITION_KINDS.map((k) => ({ value: k, label: USE_POSIT
 
 export function UsePositionsStep({ filing }: { filing: FilingDetail }) {
   const antennaIds = filing.data.radios.antennas.map((a) => a.id);
+  const transmitters = filing.data.radios.transmitters.map((t) => ({ id: t.id, maxTuneUpPowerDbm: t.maxTuneUpPowerDbm }));
+  const transmitterIds = transmitters.map((t) => t.id);
   const usedIds = [...new Set(filing.data.radios.transmitters.flatMap((t) => [t.antennaId, ...t.moreAntennaIds]))];
   // Separations for antennas no longer under Radios are dropped: they could not be saved.
   const keepKnown = (rows: PositionRow[]): UsePositionsValues => ({
-    usePositions: rows.map((p) => ({ ...p, separations: arrayOf(p.separations).filter((s) => antennaIds.includes(String(s.antennaId))) as unknown as Separation[] })),
+    usePositions: rows.map((p) => ({
+      ...p,
+      separations: arrayOf(p.separations).filter((s) => antennaIds.includes(String(s.antennaId))) as unknown as Separation[],
+      // Likewise reduced powers of transmitters no longer under Radios.
+      ...(p.powerModes ? { powerModes: arrayOf(p.powerModes).filter((m) => transmitterIds.includes(String(m.transmitterId))) as unknown as PowerModeRow[] } : {}),
+    })),
   });
   const stepForm = useStepForm<UsePositionsValues>(filing, 'use-positions', (raw, saved) =>
     keepKnown(isObject(raw) ? (arrayOf(raw.usePositions) as unknown as PositionRow[]) : saved.usePositions),
@@ -50,7 +68,19 @@ export function UsePositionsStep({ filing }: { filing: FilingDetail }) {
   useAdoptRowIds(form, 'usePositions', filing.data['use-positions'].usePositions);
   const positionEffects = (i: number) => {
     const given = (values[i]?.separations ?? []).map((s) => s.antennaId);
-    return given.length ? [`its separation${given.length === 1 ? '' : 's'} to ${given.join(', ')}`] : [];
+    const reduced = (values[i]?.powerModes ?? []).map((m) => m?.transmitterId);
+    return [
+      ...(given.length ? [`its separation${given.length === 1 ? '' : 's'} to ${given.join(', ')}`] : []),
+      ...(reduced.length ? [`the reduced power${reduced.length === 1 ? '' : 's'} of ${reduced.join(', ')} in it`] : []),
+    ];
+  };
+  const addStandard = (presets: StandardPosition[]) => {
+    for (const p of presets) positions.append({ id: p.id, kind: p.kind, separations: usedIds.map((antennaId) => ({ antennaId, separationM: p.separationM })) });
+  };
+  const powerDetails = {
+    label: 'Reduced power',
+    summary: (i: number) => powerModesSummary(values[i]?.powerModes),
+    render: (i: number) => <PowerModesEditor control={control} index={i} positionId={values[i]?.id ?? ''} transmitters={transmitters} editable={editable} />,
   };
 
   const columns: EditColumn[] = [
@@ -88,11 +118,13 @@ export function UsePositionsStep({ filing }: { filing: FilingDetail }) {
           onAdd={() => positions.append({ id: nextId('POS', values.map((p) => p?.id)), kind: 'body-worn', separations: [] })}
           onRemove={(i) => positions.remove(i)}
           removalEffects={positionEffects}
+          details={powerDetails}
           editable={editable}
           testID="positions"
           empty="No use positions yet. Add each way the product is held, worn or placed."
         />
       </Card>
+      {editable ? <StandardPositionsCard productType={filing.data.device.productType} existingIds={values.map((p) => p?.id)} onAdd={addStandard} /> : null}
       {lacking.length ? (
         <Notice tone="caution" title="Separations still missing" testID="positions-lacking">
           <View style={{ gap: space.xxs }}>

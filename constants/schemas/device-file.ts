@@ -7,7 +7,7 @@
  */
 import { z } from 'zod';
 import { MAX_ANTENNAS, MAX_MODULES, MAX_TRANSMITTERS, MAX_USE_POSITIONS } from '../../calc/input-limits';
-import { ANTENNA_USES } from '../../calc/screening/input';
+import { ANTENNA_USES, POWER_MODE_TRIGGERS, type PowerModeTrigger } from '../../calc/screening/input';
 import { DUTY_FACTOR_PRESET_KEYS, findDutyFactorPreset } from '../duty-factors';
 import { pairIssues, zGranteeCode, zIsedCompanyNumber, zIsedUpn, zProductCode } from './grant-ids';
 
@@ -30,7 +30,8 @@ export const TOLERANCE_MAX_DB = 10;
 export const TUNE_UP_MATCH_DB = 0.005;
 
 export const PRODUCT_TYPES = ['phone', 'tablet', 'wearable', 'tracker', 'hotspot', 'iot-module', 'two-way-radio', 'laptop', 'other'] as const;
-export const PRODUCT_TYPE_LABELS: Record<(typeof PRODUCT_TYPES)[number], string> = {
+export type ProductType = (typeof PRODUCT_TYPES)[number];
+export const PRODUCT_TYPE_LABELS: Record<ProductType, string> = {
   phone: 'Phone',
   tablet: 'Tablet',
   wearable: 'Wearable',
@@ -76,6 +77,13 @@ export const USE_POSITION_LABELS: Record<UsePositionKind, string> = {
   hotspot: 'Hotspot (near the body)',
   extremity: 'Held in the hand / on a limb',
   'far-field': 'Away from the body (far field)',
+};
+
+export { POWER_MODE_TRIGGERS, type PowerModeTrigger };
+export const POWER_MODE_TRIGGER_LABELS: Record<PowerModeTrigger, string> = {
+  'hotspot-back-off': 'Hotspot back-off',
+  'proximity-sensor': 'Proximity sensor',
+  'time-averaged-sar': 'Time-averaged SAR limit',
 };
 
 const text = (label: string, max = TEXT_MAX) =>
@@ -262,10 +270,27 @@ export const zSeparation = z.strictObject({
   separationM: zSeparationM('separation distance'),
 });
 
+/** A transmitter's reduced tune-up power in one use position, and what triggers the reduction. */
+export const zPowerMode = z.strictObject({
+  transmitterId: zItemId.describe('The transmitter (transmitters[].id) that runs at a reduced power in this use position.'),
+  reducedTuneUpPowerDbm: zPowerDbm('reduced tune-up power').describe(
+    'The tune-up power that applies in this use position, dBm (tolerance included, like maxTuneUpPowerDbm); below the transmitter’s maximum. Screening uses it here.',
+  ),
+  trigger: z
+    .enum(POWER_MODE_TRIGGERS, { error: 'Pick what triggers the reduction: hotspot back-off, proximity sensor or time-averaged SAR limit.' })
+    .describe('What holds the power down in this position: "hotspot-back-off" (hotspot mode on), "proximity-sensor" (a body within the sensor’s triggering distance) or "time-averaged-sar" (a time-averaged SAR algorithm’s power limit).'),
+});
+export type PowerMode = z.output<typeof zPowerMode>;
+
 export const zUsePosition = z.strictObject({
   id: zItemId,
   kind: z.enum(USE_POSITION_KINDS, { error: `Pick a kind (${USE_POSITION_KINDS.join(', ')}).` }),
   separations: z.array(zSeparation).max(MAX_ANTENNAS),
+  powerModes: z
+    .array(zPowerMode)
+    .max(MAX_TRANSMITTERS)
+    .optional()
+    .describe('Optional: transmitters that reduce their tune-up power in this use position (one entry per transmitter); the others use their maximum.'),
 });
 export type UsePosition = z.output<typeof zUsePosition>;
 
@@ -275,6 +300,32 @@ type Loose = Record<string, unknown>;
 const isRecord = (v: unknown): v is Loose => typeof v === 'object' && v !== null && !Array.isArray(v);
 const records = (v: unknown): Loose[] => (Array.isArray(v) ? v.map((x) => (isRecord(x) ? x : {})) : []);
 const str = (v: unknown): string | undefined => (typeof v === 'string' ? v : undefined);
+
+/**
+ * A use position's power modes against the transmitters: each names a known transmitter once, at
+ * a power below its maximum. Shared by the device file and the wizard's step check.
+ */
+export function powerModeIssues(
+  modes: { transmitterId?: unknown; reducedTuneUpPowerDbm?: unknown }[],
+  maxDbmOf: Map<string | undefined, number | undefined>,
+  at: (string | number)[],
+  ctx: { addIssue: (issue: { code: 'custom'; path: (string | number)[]; message: string }) => void },
+  unknownMessage: (id: string) => string,
+) {
+  const seen = new Set<string>();
+  modes.forEach((m, j) => {
+    const id = str(m.transmitterId);
+    if (id === undefined) return;
+    const path = [...at, 'powerModes', j];
+    if (!maxDbmOf.has(id)) ctx.addIssue({ code: 'custom', path: [...path, 'transmitterId'], message: unknownMessage(id) });
+    if (seen.has(id)) ctx.addIssue({ code: 'custom', path: [...path, 'transmitterId'], message: `Transmitter "${id}" already has a reduced power in this use position.` });
+    seen.add(id);
+    const max = maxDbmOf.get(id);
+    if (typeof m.reducedTuneUpPowerDbm === 'number' && max !== undefined && m.reducedTuneUpPowerDbm >= max) {
+      ctx.addIssue({ code: 'custom', path: [...path, 'reducedTuneUpPowerDbm'], message: `A reduced power must be below ${id}’s maximum tune-up power (${max} dBm).` });
+    }
+  });
+}
 
 /** Duplicate ids and references to ids that do not exist, each at its JSON path. */
 function crossReferenceIssues(value: unknown, ctx: z.RefinementCtx) {
@@ -308,6 +359,8 @@ function crossReferenceIssues(value: unknown, ctx: z.RefinementCtx) {
     const mod = str(t.moduleId);
     if (mod !== undefined && !moduleIds.has(mod)) ctx.addIssue({ code: 'custom', path: ['transmitters', i, 'moduleId'], message: `Unknown module id "${mod}" (device.modules).` });
   });
+  const maxDbmOf = new Map(transmitters.map((t) => [str(t.id), typeof t.maxTuneUpPowerDbm === 'number' ? t.maxTuneUpPowerDbm : undefined]));
+  usePositions.forEach((p, i) => powerModeIssues(records(p.powerModes), maxDbmOf, ['usePositions', i], ctx, (id) => `Unknown transmitter id "${id}".`));
   usePositions.forEach((p, i) => {
     const seen = new Set<string>();
     records(p.separations).forEach((sep, j) => {

@@ -88,7 +88,18 @@ export type RadiosStepInput = z.input<typeof zRadiosStep>;
 
 export const zUsePositionsStep = z
   .strictObject({ usePositions: z.array(zUsePosition.extend(withRowId)).max(MAX_USE_POSITIONS) })
-  .superRefine((v, ctx) => duplicateIdIssues(v.usePositions, 'usePositions', ctx));
+  .superRefine((v, ctx) => {
+    duplicateIdIssues(v.usePositions, 'usePositions', ctx);
+    v.usePositions.forEach((p, i) => {
+      const seen = new Set<string>();
+      (p.powerModes ?? []).forEach((m, j) => {
+        if (seen.has(m.transmitterId)) ctx.addIssue({ code: 'custom', path: ['usePositions', i, 'powerModes', j, 'transmitterId'], message: `${m.transmitterId} already has a reduced power here.` });
+        seen.add(m.transmitterId);
+      });
+    });
+  })
+  // No power modes is the same as none listed, so an unchanged step compares equal to the stored one.
+  .transform((v): typeof v => ({ usePositions: v.usePositions.map(({ powerModes, ...p }) => (powerModes?.length ? { ...p, powerModes } : p)) }));
 export type UsePositionsStep = z.output<typeof zUsePositionsStep>;
 export type UsePositionsStepInput = z.input<typeof zUsePositionsStep>;
 

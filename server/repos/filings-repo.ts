@@ -13,12 +13,13 @@ import {
   stepDrafts,
   transmitterAntennas,
   transmitters,
+  usePositionPowerModes,
   usePositions,
   usePositionSeparations,
   memberships,
 } from '../../db/schema';
 import type { DataStep, DeviceStep, MarketsStep, RadiosStep, UsePositionsStep } from '../../constants/schemas/filings';
-import type { DeviceInfo } from '../../constants/schemas/device-file';
+import type { DeviceInfo, PowerModeTrigger } from '../../constants/schemas/device-file';
 
 const latestVersion = sql<number>`(select max(${filingVersions.number}) from ${filingVersions} where ${filingVersions.filingId} = ${filings.id})`;
 
@@ -282,19 +283,26 @@ function dropShrunkCombinations(db: Db, versionId: number) {
     .run();
 }
 
-export function antennaIdsByKey(db: Db, versionId: number): Map<string, number> {
-  return new Map(
-    db
-      .select({ id: antennas.id, key: antennas.key })
-      .from(antennas)
-      .where(eq(antennas.versionId, versionId))
-      .all()
-      .map((a) => [a.key, a.id]),
-  );
+/** A version's rows of one table (antennas or transmitters), label → row. */
+function rowIdsByKey(db: Db, table: typeof antennas | typeof transmitters, versionId: number): Map<string, number> {
+  const rows = db.select({ id: table.id, key: table.key }).from(table).where(eq(table.versionId, versionId)).all();
+  return new Map(rows.map((r) => [r.key, r.id]));
 }
+
+export const antennaIdsByKey = (db: Db, versionId: number) => rowIdsByKey(db, antennas, versionId);
+export const transmitterIdsByKey = (db: Db, versionId: number) => rowIdsByKey(db, transmitters, versionId);
 
 export function readUsePositions(db: Db, versionId: number): UsePositionsStep {
   const positions = db.select().from(usePositions).where(eq(usePositions.versionId, versionId)).orderBy(asc(usePositions.sortOrder)).all();
+  const modes = positions.length
+    ? db
+        .select({ usePositionId: usePositionPowerModes.usePositionId, transmitterKey: transmitters.key, reducedTuneUpPowerDbm: usePositionPowerModes.reducedTuneUpPowerDbm, trigger: usePositionPowerModes.trigger })
+        .from(usePositionPowerModes)
+        .innerJoin(transmitters, eq(transmitters.id, usePositionPowerModes.transmitterId))
+        .where(inArray(usePositionPowerModes.usePositionId, positions.map((p) => p.id)))
+        .orderBy(asc(usePositionPowerModes.sortOrder))
+        .all()
+    : [];
   const seps = positions.length
     ? db
         .select({ usePositionId: usePositionSeparations.usePositionId, antennaKey: antennas.key, separationM: usePositionSeparations.separationM, sortOrder: antennas.sortOrder })
@@ -310,17 +318,30 @@ export function readUsePositions(db: Db, versionId: number): UsePositionsStep {
       kind: p.kind,
       separations: seps.filter((s) => s.usePositionId === p.id).map((s) => ({ antennaId: s.antennaKey, separationM: s.separationM })),
       rowId: p.id,
+      // Only when there are any, as the step schema gives them, so an unchanged step compares equal.
+      ...powerModesOf(modes.filter((m) => m.usePositionId === p.id)),
     })),
   };
 }
 
-/** Updates a version's use positions in place (a rename keeps the row); antenna keys must already be resolved (see service). */
+function powerModesOf(rows: { transmitterKey: string; reducedTuneUpPowerDbm: number; trigger: PowerModeTrigger }[]) {
+  return rows.length ? { powerModes: rows.map((m) => ({ transmitterId: m.transmitterKey, reducedTuneUpPowerDbm: m.reducedTuneUpPowerDbm, trigger: m.trigger })) } : {};
+}
+
+/**
+ * Updates a version's use positions in place (a rename keeps the row); antenna and transmitter
+ * keys must already be resolved (see service). Power modes are stored by transmitter row.
+ */
 export function writeUsePositions(db: Db, versionId: number, step: UsePositionsStep, antennaIds: Map<string, number>) {
   const old = db.select({ id: usePositions.id, key: usePositions.key }).from(usePositions).where(eq(usePositions.versionId, versionId)).all();
   const match = matchRows(old, step.usePositions);
   if (match.removed.length) db.delete(usePositions).where(inArray(usePositions.id, match.removed)).run();
   for (const id of match.kept) db.update(usePositions).set({ key: parkedKey(id) }).where(eq(usePositions.id, id)).run();
-  if (match.kept.length) db.delete(usePositionSeparations).where(inArray(usePositionSeparations.usePositionId, match.kept)).run();
+  if (match.kept.length) {
+    db.delete(usePositionSeparations).where(inArray(usePositionSeparations.usePositionId, match.kept)).run();
+    db.delete(usePositionPowerModes).where(inArray(usePositionPowerModes.usePositionId, match.kept)).run();
+  }
+  const transmitterIds = transmitterIdsByKey(db, versionId);
   step.usePositions.forEach((p, sortOrder) => {
     const values = { key: p.id, kind: p.kind, sortOrder };
     let id = match.rowOf.get(p);
@@ -329,6 +350,11 @@ export function writeUsePositions(db: Db, versionId: number, step: UsePositionsS
     if (p.separations.length) {
       db.insert(usePositionSeparations)
         .values(p.separations.map((s) => ({ usePositionId: id, antennaId: antennaIds.get(s.antennaId)!, separationM: s.separationM })))
+        .run();
+    }
+    if (p.powerModes?.length) {
+      db.insert(usePositionPowerModes)
+        .values(p.powerModes.map((m, i) => ({ usePositionId: id, transmitterId: transmitterIds.get(m.transmitterId)!, reducedTuneUpPowerDbm: m.reducedTuneUpPowerDbm, trigger: m.trigger, sortOrder: i })))
         .run();
     }
   });
@@ -368,14 +394,7 @@ export function readSimultaneous(db: Db, versionId: number): string[][] {
 /** Replaces a version's combinations; every label must name one of its transmitters (the file schema checks). */
 export function writeSimultaneous(db: Db, versionId: number, groups: string[][]) {
   db.delete(simultaneousGroups).where(eq(simultaneousGroups.versionId, versionId)).run();
-  const txRow = new Map(
-    db
-      .select({ id: transmitters.id, key: transmitters.key })
-      .from(transmitters)
-      .where(eq(transmitters.versionId, versionId))
-      .all()
-      .map((t) => [t.key, t.id]),
-  );
+  const txRow = transmitterIdsByKey(db, versionId);
   groups.forEach((keys, sortOrder) => {
     const group = db.insert(simultaneousGroups).values({ versionId, sortOrder }).returning().get();
     db.insert(simultaneousGroupMembers)

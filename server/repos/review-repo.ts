@@ -210,6 +210,7 @@ export const VERSION_CONTENT_TABLES: readonly { table: string; where: string; ad
   { table: 'screening_results', where: 'version_id = :v' },
   { table: 'simultaneous_group_members', where: 'group_id in (select id from simultaneous_groups where version_id = :v)' },
   { table: 'transmitter_antennas', where: 'transmitter_id in (select id from transmitters where version_id = :v)', addedLater: true },
+  { table: 'use_position_power_modes', where: 'use_position_id in (select id from use_positions where version_id = :v)', addedLater: true },
   { table: 'lab_measurements', where: 'version_id = :v' },
   { table: 'lab_liquid_checks', where: 'version_id = :v' },
   { table: 'lab_system_checks', where: 'version_id = :v' },

@@ -126,6 +126,8 @@ export function assembleExhibit(db: Db, organisationId: number, filingId: number
       methodLabel: r.methodLabel,
       frequencyHz: r.frequencyHz,
       separationM: r.separationM,
+      // Results stored before power modes existed were all at full power.
+      powerMode: r.powerMode ?? 'full',
       evaluatedPowerMw: r.evaluatedPowerMw,
       evaluatedQuantity: r.evaluatedQuantity,
       ...threshold(r),

@@ -21,7 +21,7 @@ import {
   VERSION_STATE_LABELS,
   zDeviceStep,
 } from '../../constants/schemas/filings';
-import { DEVICE_FILE_FORMAT, USE_POSITION_LABELS, zDeviceInfo, type DeviceFile, type DeviceFileInput } from '../../constants/schemas/device-file';
+import { DEVICE_FILE_FORMAT, USE_POSITION_LABELS, powerModeIssues, zDeviceInfo, type DeviceFile, type DeviceFileInput } from '../../constants/schemas/device-file';
 import type { Role } from '../../constants/schemas/roles';
 import { conflict, forbidden, notFound, unprocessable } from '../http-error';
 import { ruleSetWarnings } from '../../calc/versions';
@@ -142,6 +142,11 @@ export function stepStatuses(data: FilingDetail['data'], draftSteps: Set<DataSte
     const given = new Set(p.separations.map((s) => s.antennaId));
     const missing = usedAntennas.filter((a) => !given.has(a));
     if (missing.length) positions.push(`“${p.id}” (${USE_POSITION_LABELS[p.kind].toLowerCase()}) has no separation for antenna ${missing.join(', ')}.`);
+    for (const m of p.powerModes ?? []) {
+      // A later Radios save can lower the maximum under a stored reduction: say so here (screening leaves it out).
+      const max = data.radios.transmitters.find((t) => t.id === m.transmitterId)?.maxTuneUpPowerDbm;
+      if (max !== undefined && m.reducedTuneUpPowerDbm >= max) positions.push(`“${p.id}”: the reduced power of ${m.transmitterId} (${m.reducedTuneUpPowerDbm} dBm) is not below its maximum tune-up power (${max} dBm).`);
+    }
   }
   const markets: string[] = data.markets.markets.length ? [] : ['Pick at least one market.'];
   const byStep: Record<DataStep, string[]> = { device, radios, 'use-positions': positions, markets };
@@ -298,6 +303,12 @@ export function saveStep(db: Db, actor: FilingActor, filingId: number, step: Dat
       p.separations.forEach((s, j) => {
         if (!antennaIds.has(s.antennaId)) fields[`usePositions.${i}.separations.${j}.antennaId`] = `No antenna “${s.antennaId}” under Radios.`;
       }),
+    );
+    // A reduced power names a transmitter under Radios and stays below its maximum.
+    const maxDbmOf = new Map(repo.readRadios(db, versionId).transmitters.map((t) => [t.id as string | undefined, t.maxTuneUpPowerDbm as number | undefined]));
+    const addIssue = ({ path, message }: { path: (string | number)[]; message: string }) => void (fields[path.join('.')] ??= message);
+    (parsed.data as UsePositionsStep).usePositions.forEach((p, i) =>
+      powerModeIssues(p.powerModes ?? [], maxDbmOf, ['usePositions', i], { addIssue }, (id) => `No transmitter “${id}” under Radios.`),
     );
   }
   if (!parsed.success || Object.keys(fields).length) {

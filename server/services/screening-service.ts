@@ -37,7 +37,15 @@ export function screeningInputFor(detail: ReturnType<typeof getFiling>): Screeni
     // Further antennas and how they are used only where there are any, so a one-antenna
     // transmitter's input is as it was.
     transmitters: detail.data.radios.transmitters.map(({ moreAntennaIds, antennaUse, ...t }) => (moreAntennaIds.length ? { ...t, moreAntennaIds, antennaUse } : t)),
-    usePositions: detail.data['use-positions'].usePositions,
+    // Power modes only where a position has any (older inputs hash as before), and only those still
+    // below their transmitter's maximum (the Use positions step names the others as problems).
+    usePositions: detail.data['use-positions'].usePositions.map(({ powerModes, ...p }) => {
+      const below = (powerModes ?? []).filter((m) => {
+        const max = detail.data.radios.transmitters.find((t) => t.id === m.transmitterId)?.maxTuneUpPowerDbm;
+        return max !== undefined && m.reducedTuneUpPowerDbm < max;
+      });
+      return below.length ? { ...p, powerModes: below } : p;
+    }),
     // Only a host with modules inside names them, so other filings' inputs (and their stored results) stay as they were.
     ...(modules.length ? { modules: modules.map((m) => ({ id: m.id, ...(m.minSeparationM !== undefined ? { minSeparationM: m.minSeparationM } : {}) })) } : {}),
   });

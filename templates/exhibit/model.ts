@@ -27,6 +27,8 @@ export interface ExhibitScreeningRow {
   methodLabel: string;
   frequencyHz: number;
   separationM: number;
+  /** 'full' (maximum tune-up power) or the trigger of the reduced power screened in this position. */
+  powerMode: string;
   evaluatedPowerMw: number;
   evaluatedQuantity: string;
   /** The threshold in the rule's own unit, with that unit ("mW", "W ERP", "W/m²"). */

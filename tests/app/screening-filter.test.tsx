@@ -58,11 +58,14 @@ describe('screening filters', () => {
     const csv = screeningCsv(output.rows.slice(0, 3));
     const lines = csv.trimEnd().split('\r\n');
     expect(lines).toHaveLength(4);
-    expect(lines[0]).toBe('Transmitter,Use position,Position kind,Antenna,Separation (mm),Market,Tier,Method,Frequency (MHz),Evaluated,Threshold,Result,Margin (dB),Source');
-    expect(lines[1]).toMatch(/^T1,belt,[^,]+,A1,/);
-    // The source names a clause with commas or not; either way the line has 14 fields.
+    expect(lines[0]).toBe('Transmitter,Use position,Position kind,Antenna,Separation (mm),Power mode,Market,Tier,Method,Frequency (MHz),Evaluated,Threshold,Result,Margin (dB),Source');
+    expect(lines[1]).toMatch(/^T1,belt,[^,]+,A1,10,Full power,/);
+    // The source names a clause with commas or not; either way the line has 15 fields.
     const fields = lines[1]!.match(/("([^"]|"")*"|[^,]*)(,|$)/g)!.filter((f) => f !== '');
-    expect(fields).toHaveLength(14);
+    expect(fields).toHaveLength(15);
+    // A row screened at a reduced power names the reduction's trigger.
+    const reduced = screeningCsv([{ ...output.rows[0], powerMode: 'hotspot-back-off' }]).split('\r\n')[1];
+    expect(reduced).toMatch(/^T1,belt,[^,]+,A1,10,Reduced: hotspot back-off,/);
   });
 
   it('a tapped summary count filters the table; long tables come a page at a time', async () => {

@@ -132,7 +132,7 @@ describe('a DRAFT preview of the demo filing', () => {
     ]);
     const csv = await zip.file('results/screening.csv')!.async('string');
     const lines = csv.trim().split('\r\n');
-    expect(lines[0]).toBe('transmitter_id,use_position_id,use_position_kind,market,exposure_tier,rule,frequency_Hz,separation_m,evaluated_power_W,evaluated_quantity,threshold,threshold_unit,result,margin_dB,estimated_sar_W_per_kg,appendix_ref');
+    expect(lines[0]).toBe('transmitter_id,use_position_id,use_position_kind,market,exposure_tier,rule,frequency_Hz,separation_m,power_mode,evaluated_power_W,evaluated_quantity,threshold,threshold_unit,result,margin_dB,estimated_sar_W_per_kg,appendix_ref');
     for (const id of transmitterIds) expect(csv).toContain(`\r\n${id},`);
   });
 

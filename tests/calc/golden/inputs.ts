@@ -69,6 +69,17 @@ export const GOLDEN_SCREENING: Record<string, ScreeningInputRaw> = {
       { id: 'no-b', kind: 'body-worn', separations: [{ antennaId: 'ant-a', separationM: 0.01 }] },
     ],
   },
+  // Power modes: a hotspot back-off and a proximity-sensor reduction in two positions, full power in the third.
+  'power-modes': {
+    markets: [{ regime: 'fcc', tier: 'general' }, { regime: 'eu', tier: 'general' }],
+    antennas,
+    transmitters: [{ id: 'lte', frequencyMinHz: 1850e6, frequencyMaxHz: 1910e6, maxTuneUpPowerDbm: 23, dutyCycle: 1, antennaId: 'ant-a' }],
+    usePositions: [
+      { id: 'hotspot-back', kind: 'hotspot', separations: [{ antennaId: 'ant-a', separationM: 0.01 }], powerModes: [{ transmitterId: 'lte', reducedTuneUpPowerDbm: 17, trigger: 'hotspot-back-off' }] },
+      { id: 'body', kind: 'body-worn', separations: [{ antennaId: 'ant-a', separationM: 0.015 }], powerModes: [{ transmitterId: 'lte', reducedTuneUpPowerDbm: 20, trigger: 'proximity-sensor' }] },
+      { id: 'far', kind: 'far-field', separations: [{ antennaId: 'ant-a', separationM: 0.2 }] },
+    ],
+  },
 };
 
 /** Depth profiles (calc/screening/depth-profile.ts) at fixed figures. */
