@@ -75,22 +75,38 @@ export interface DepthProfile {
   transmitterId: string;
   usePositionId: string;
   estimate: 'screening';
-  incidentPowerDensityWPerM2: number;
-  distanceUsedM: number;
+  usePositionKind: string;
+  /** The screening row's figures the profile rests on. */
+  basis: { regime: string; frequencyHz: number; eirpW: number; separationM: number };
+  stackId: 'head' | 'trunk' | 'limb';
+  stackTitle: string;
   stack: { name: string; tissue: string; thicknessM: number | null }[];
-  sarProfile: { depthM: number; sarWPerKg: number; layerIndex: number }[];
-  surfaceSarWPerKg: number;
-  peakSarWPerKgByLayer: number[];
-  averagedSarWPerKg: { '1g': number; '10g': number };
+  distanceUsedM: number;
+  wavelengthM: number;
+  reactiveNearFieldBoundaryM: number;
+  scale: 'absolute' | 'relative';
+  scaleReason: string;
+  relativeProfile: { depthM: number; relativeSar: number; layerIndex: number }[];
+  /** Only beyond the reactive near field (scale 'absolute'). */
+  absolute: {
+    incidentPowerDensityWPerM2: number;
+    sarProfile: { depthM: number; sarWPerKg: number; layerIndex: number }[];
+    surfaceSarWPerKg: number;
+    peakSarWPerKgByLayer: number[];
+    averagedSarWPerKg: { '1g': number; '10g': number };
+  } | null;
   reflectedFraction: number;
   absorbedFractionByLayer: number[];
   derivation: Derivation;
   cautions: string[];
 }
 const zDepthProfile = z.looseObject({
-  sarProfile: z.array(z.object({ depthM: z.number(), sarWPerKg: z.number(), layerIndex: z.number() })),
+  scale: z.enum(['absolute', 'relative']),
+  relativeProfile: z.array(z.object({ depthM: z.number(), relativeSar: z.number(), layerIndex: z.number() })),
   stack: z.array(z.looseObject({ name: z.string() })),
-  incidentPowerDensityWPerM2: z.number(),
+  stackTitle: z.string(),
+  scaleReason: z.string(),
+  absolute: z.looseObject({ sarProfile: z.array(z.object({ depthM: z.number(), sarWPerKg: z.number(), layerIndex: z.number() })) }).nullable(),
   cautions: z.array(z.string()),
 }) as unknown as z.ZodType<DepthProfile>;
 
