@@ -166,6 +166,8 @@ export function useArchiveFilingMutation(id: number) {
     onSuccess: (filing) => {
       queryClient.setQueryData(filingKeys.detail(id), filing);
       void queryClient.invalidateQueries({ queryKey: filingKeys.lists() });
+      // The timeline (review's query, under the same root) gains the archive or restore entry.
+      void queryClient.invalidateQueries({ queryKey: [...filingKeys.all, 'timeline', id] });
     },
   });
 }
