@@ -117,7 +117,7 @@ export function EditRows({
                 {c.label}
               </Text>
             ))}
-            {editable ? <View style={styles.removeCol} /> : null}
+            {editable ? <View style={styles.removeCol} role="columnheader" accessibilityLabel="Remove" /> : null}
           </View>
           {rows.map((i) => (
             <View key={keyOf(i)} style={details ? styles.rowGroup : undefined}>
@@ -127,7 +127,11 @@ export function EditRows({
                     {c.render(i, true)}
                   </View>
                 ))}
-                {editable ? <View style={styles.removeCol}>{remove(i)}</View> : null}
+                {editable ? (
+                  <View style={styles.removeCol} role="cell">
+                    {remove(i)}
+                  </View>
+                ) : null}
               </View>
               {more(i)}
             </View>
