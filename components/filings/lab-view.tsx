@@ -216,32 +216,32 @@ function MeasurementTable({ rows, onOpen }: { rows: LabRow[]; onOpen: (row: LabR
       </View>
       {rows.map((x, i) => (
         <Pressable key={x.measurementId} role="row" onPress={() => onOpen(x)} style={({ pressed }) => [styles.tr, i % 2 === 1 && styles.zebra, pressed && styles.pressed]} accessibilityLabel={`${x.measurementId}: how computed`} testID={`lab-row-${x.measurementId}`}>
-          <Text variant="smallStrong" style={[styles.td, { flex: 0.6 }]}>
+          <Text role="cell" variant="smallStrong" style={[styles.td, { flex: 0.6 }]}>
             {x.measurementId}
           </Text>
-          <Text variant="small" style={[styles.td, { flex: 1 }]}>
+          <Text role="cell" variant="small" style={[styles.td, { flex: 1 }]}>
             {x.transmitterId}
           </Text>
-          <Text variant="small" style={[styles.td, { flex: 1.3 }]}>
+          <Text role="cell" variant="small" style={[styles.td, { flex: 1.3 }]}>
             {x.usePositionId}
             {x.testPosition ? `\n${x.testPosition}` : ''}
           </Text>
-          <Text variant="figure" style={[styles.td, styles.right, styles.num, { flex: 1 }]}>
+          <Text role="cell" variant="figure" style={[styles.td, styles.right, styles.num, { flex: 1 }]}>
             {formatMhz(x.frequencyHz)}
           </Text>
-          <Text variant="figure" style={[styles.td, styles.right, styles.num, { flex: 1.3 }]}>
+          <Text role="cell" variant="figure" style={[styles.td, styles.right, styles.num, { flex: 1.3 }]}>
             {sig(x.measuredPowerDbm, 4)} / {sig(x.tuneUpPowerDbm, 4)} dBm
           </Text>
-          <Text variant="figure" style={[styles.td, styles.right, styles.num, { flex: 0.8 }]}>
+          <Text role="cell" variant="figure" style={[styles.td, styles.right, styles.num, { flex: 0.8 }]}>
             ×{x.scalingFactor.toFixed(3)}
           </Text>
-          <Text variant="figure" style={[styles.td, styles.right, styles.num, { flex: 0.9 }]}>
+          <Text role="cell" variant="figure" style={[styles.td, styles.right, styles.num, { flex: 0.9 }]}>
             {sar(x.reportedSar1gWPerKg)}
           </Text>
-          <Text variant="figure" style={[styles.td, styles.right, styles.num, { flex: 0.9 }]}>
+          <Text role="cell" variant="figure" style={[styles.td, styles.right, styles.num, { flex: 0.9 }]}>
             {sar(x.reportedSar10gWPerKg)}
           </Text>
-          <View style={[styles.td, { flex: 1.5 }]}>
+          <View role="cell" style={[styles.td, { flex: 1.5 }]}>
             <FlagBadge flags={x.flags} />
           </View>
         </Pressable>
