@@ -10,5 +10,7 @@ module.exports = {
   preset: 'jest-expo',
   roots: ['<rootDir>/tests/app'],
   testMatch: ['**/*.test.tsx', '**/*.test.ts'],
+  // Their package exports resolve to .mjs files, which jest does not transform: use the UMD builds.
+  moduleNameMapper: { '^(d3-[a-z-]+)$': '<rootDir>/node_modules/$1/dist/$1.js' },
   transformIgnorePatterns: [expoPackages.replace('standard-navigation', 'standard-navigation|react-native-svg|d3-[a-z-]+|internmap'), ...otherIgnores],
 };

@@ -3,7 +3,7 @@
  * Bump ENGINE_VERSION when a formula's code changes results; bump RULE_SET_VERSION when a
  * limit, threshold or table value (data) changes.
  */
-export const ENGINE_VERSION = '1.4.0';
+export const ENGINE_VERSION = '1.4.1';
 
 /**
  * The rule-set edition: the documents and editions the limit tables were taken from. The suffix

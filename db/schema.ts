@@ -209,8 +209,13 @@ export const filings = sqliteTable(
     updatedAt: text('updated_at')
       .notNull()
       .default(sql`(strftime('%Y-%m-%dT%H:%M:%fZ', 'now'))`),
+    /** Set while the filing is archived: hidden from the default list and read-only until restored. */
+    archivedAt: text('archived_at'),
+    archivedByUserId: integer('archived_by_user_id').references(() => users.id),
+    /** SHA-256 of the device description file it was imported from (null when created from nothing): a second import of the same file warns. */
+    importSha256: text('import_sha256'),
   },
-  (t) => [index('filings_org_updated').on(t.organisationId, t.updatedAt)],
+  (t) => [index('filings_org_updated').on(t.organisationId, t.updatedAt), index('filings_org_import').on(t.organisationId, t.importSha256)],
 );
 
 export const filingVersions = sqliteTable(

@@ -31,6 +31,7 @@ import { createCalcPool } from './calc-pool';
 import { filingRoutes, schemaRoutes } from './routes/filings';
 import { labRoutes } from './routes/lab';
 import { evidenceRoutes } from './routes/evidence';
+import { refuseChangesToArchivedFilings } from './middleware/archived-guard';
 import { reviewRoutes } from './routes/review';
 import { packageRoutes } from './routes/packages';
 import { createInProcessQueue, type JobQueue } from './jobs/queue';
@@ -177,6 +178,7 @@ export function createApp({ handle, config, mailer, serveWeb = true, storage = c
   api.use('/outbox', outboxRoutes(ctx));
   api.use('/audit', auditRoutes(ctx));
   api.use('/calc', calcRoutes(ctx));
+  api.use('/filings/:id', refuseChangesToArchivedFilings(ctx.db));
   api.use('/filings/:id/evidence', evidenceRoutes(ctx));
   api.use('/filings', filingRoutes(ctx));
   api.use('/filings', labRoutes(ctx));

@@ -25,6 +25,7 @@ export {
   type ScreeningSummary,
 } from './screen';
 export * from './depth-profile';
+export * from './tissue-stacks';
 export * from './module-conditions';
 
 /** Screens a device; validates the input (throws the zod error on a malformed one). */

@@ -117,19 +117,23 @@ export function EditRows({
                 {c.label}
               </Text>
             ))}
-            {editable ? <View style={styles.removeCol} /> : null}
+            {editable ? <View style={styles.removeCol} role="columnheader" accessibilityLabel="Remove" /> : null}
           </View>
           {rows.map((i) => (
-            <View key={keyOf(i)} style={details ? styles.rowGroup : undefined}>
+            <View key={keyOf(i)} style={details ? styles.rowGroup : undefined} role="rowgroup">
               <View style={[styles.tr, details && styles.trGrouped]} role="row" testID={`${testID}-row-${i}`}>
                 {columns.map((c) => (
                   <View key={c.key} style={[styles.cell, { flex: c.flex }]} role="cell">
                     {c.render(i, true)}
                   </View>
                 ))}
-                {editable ? <View style={styles.removeCol}>{remove(i)}</View> : null}
+                {editable ? (
+                  <View style={styles.removeCol} role="cell">
+                    {remove(i)}
+                  </View>
+                ) : null}
               </View>
-              {more(i)}
+              <MoreRow>{more(i)}</MoreRow>
             </View>
           ))}
         </View>
@@ -221,3 +225,15 @@ const styles = StyleSheet.create({
   moreToggle: { flexDirection: 'row', alignItems: 'center', gap: space.xs, minHeight: layout.touchMinPx, alignSelf: 'flex-start', maxWidth: '100%' },
   confirmButtons: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
 });
+
+/** A table row's details (below the row) as a row of one cell, so the table holds only rows (ARIA). */
+function MoreRow({ children }: { children: React.ReactNode }) {
+  if (!children) return null;
+  return (
+    <View role="row">
+      <View role="cell">
+        {children}
+      </View>
+    </View>
+  );
+}

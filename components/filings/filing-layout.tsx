@@ -74,6 +74,7 @@ export function FilingLayout() {
               {f.device.model} · version {f.version.number}
             </Text>
             <StatusBadge tone={state.tone} icon={state.icon} label={state.label} />
+            {f.archivedAt ? <StatusBadge tone="caution" icon="info" label="Archived · read only" /> : null}
           </Pressable>
         </Link>
         <StepList filing={f} activeStep={active} />

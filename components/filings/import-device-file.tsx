@@ -1,6 +1,8 @@
 /**
  * Import a device description file (fieldfile.device/1): pick a file (web) or paste its JSON.
- * A refused file lists every problem with its JSON path; nothing is created then.
+ * A refused file lists every problem with its JSON path; nothing is created then. A file imported
+ * before (the server's check) or a model that already has a filing is said once; pressing Import
+ * again creates the second filing.
  */
 import { useRouter } from 'expo-router';
 import { useState } from 'react';
@@ -20,8 +22,8 @@ export function ImportDeviceFile() {
   const [text, setText] = useState('');
   const [fileName, setFileName] = useState<string | null>(null);
   const [parseError, setParseError] = useState<string | null>(null);
-  /** A filing for the same model already exists: say so once; the second press imports anyway. */
-  const [duplicateOf, setDuplicateOf] = useState<{ name: string; model: string; id: number } | null>(null);
+  /** Why this may be a second filing of the same device: said once; the next press imports anyway. */
+  const [duplicateNote, setDuplicateNote] = useState<string | null>(null);
   const existing = useFilingsQuery('', 'updated');
   const problem: ApiProblem | null = importFile.isError ? asProblem(importFile.error) : null;
 
@@ -37,11 +39,22 @@ export function ImportDeviceFile() {
     }
     const device = (json as { device?: { name?: unknown; model?: unknown } } | null)?.device;
     const same = existing.data?.find((f) => typeof device?.model === 'string' && f.device.model.trim().toLowerCase() === device.model.trim().toLowerCase());
-    if (same && duplicateOf?.id !== same.id) {
-      setDuplicateOf({ name: same.device.name, model: same.device.model, id: same.id });
+    if (same && !duplicateNote) {
+      setDuplicateNote(`“${same.device.name}” (model ${same.device.model}) is already a filing. Importing creates a second, separate filing; to change the existing one, open it instead.`);
       return;
     }
-    importFile.mutate(json, { onSuccess: (filing) => router.replace(`/filings/${filing.id}`) });
+    importFile.mutate(
+      { file: json, refuseDuplicate: !duplicateNote },
+      {
+        onSuccess: (filing) => router.replace(`/filings/${filing.id}`),
+        onError: (e) => {
+          const p = asProblem(e);
+          if (p.code !== 'duplicate_import') return;
+          importFile.reset();
+          setDuplicateNote(p.message);
+        },
+      },
+    );
   };
 
   return (
@@ -55,7 +68,7 @@ export function ImportDeviceFile() {
           setFileName(name);
           setText(content);
           setParseError(null);
-          setDuplicateOf(null);
+          setDuplicateNote(null);
           importFile.reset();
         }}
       />
@@ -70,7 +83,7 @@ export function ImportDeviceFile() {
         value={text}
         onChangeText={(t) => {
           setText(t);
-          setDuplicateOf(null);
+          setDuplicateNote(null);
         }}
         placeholder={`{ "format": "${DEVICE_FILE_FORMAT}", "device": { … } }`}
         placeholderTextColor={palette.inkFaint}
@@ -80,9 +93,9 @@ export function ImportDeviceFile() {
         autoCapitalize="none"
         spellCheck={false}
       />
-      {duplicateOf ? (
+      {duplicateNote ? (
         <Notice tone="caution" title="This device may already have a filing" testID="import-duplicate">
-          {`“${duplicateOf.name}” (model ${duplicateOf.model}) is already a filing. Importing creates a second, separate filing; to change the existing one, open it instead. Press Import again to create the second filing.`}
+          {`${duplicateNote} Press “Import as a second filing” to create it anyway.`}
         </Notice>
       ) : null}
       {parseError ? <Notice tone="error" title="Nothing was imported">{parseError}</Notice> : null}
@@ -104,7 +117,7 @@ export function ImportDeviceFile() {
           ) : null}
         </Notice>
       ) : null}
-      <Button label={duplicateOf ? 'Import as a second filing' : 'Import and create filing'} icon="plus" onPress={submit} disabled={!text.trim()} busy={importFile.isPending} busyLabel="Importing…" testID="import-submit" style={{ alignSelf: 'flex-start' }} />
+      <Button label={duplicateNote ? 'Import as a second filing' : 'Import and create filing'} icon="plus" onPress={submit} disabled={!text.trim()} busy={importFile.isPending} busyLabel="Importing…" testID="import-submit" style={{ alignSelf: 'flex-start' }} />
     </View>
   );
 }

@@ -99,7 +99,7 @@ function HighestTable({ r, onOpen }: { r: FilingLabResults; onOpen: (row: LabRow
     h.withinLimit === null ? { tone: 'caution', icon: 'pending', label: 'Not measured' } : h.withinLimit ? { tone: 'pass', icon: 'check', label: 'Within limit' } : { tone: 'fail', icon: 'cross', label: 'Over limit' };
   return (
     <Card title="Highest reported SAR" aside={<Text variant="small" tone="muted">Per market and exposure condition, scaled to the tune-up limit.</Text>} testID="lab-highest">
-      <View role="table" style={wide ? styles.table : styles.cards}>
+      <View role={wide ? 'table' : 'list'} style={wide ? styles.table : styles.cards}>
         {wide ? (
           <View role="row" style={[styles.tr, styles.th]}>
             {['Market', 'Condition', 'Reported SAR', 'Limit', 'Margin', 'From', 'State'].map((h, i) => (
@@ -116,25 +116,25 @@ function HighestTable({ r, onOpen }: { r: FilingLabResults; onOpen: (row: LabRow
           const mass = `${h.averagingMassKg * 1000} g`;
           return wide ? (
             <Pressable key={i} role="row" style={({ pressed }) => [styles.tr, i % 2 === 1 && styles.zebra, pressed && styles.pressed]} onPress={() => row && onOpen(row)} disabled={!row} accessibilityLabel={`${regimeShort(h.regime)} ${CONDITION_LABEL(h.usePositionKind)}: ${sar(h.reportedSarWPerKg)}, ${l.label}`} testID={`highest-${h.regime}-${h.usePositionKind}`}>
-              <Text variant="smallStrong" style={[styles.td, { flex: 0.8 }]}>
+              <Text role="cell" variant="smallStrong" style={[styles.td, { flex: 0.8 }]}>
                 {regimeShort(h.regime)}
               </Text>
-              <Text variant="small" style={[styles.td, { flex: 1 }]}>
+              <Text role="cell" variant="small" style={[styles.td, { flex: 1 }]}>
                 {CONDITION_LABEL(h.usePositionKind)} · {mass}
               </Text>
-              <Text variant="figure" style={[styles.td, styles.right, styles.num, { flex: 1 }]}>
+              <Text role="cell" variant="figure" style={[styles.td, styles.right, styles.num, { flex: 1 }]}>
                 {sar(h.reportedSarWPerKg)}
               </Text>
-              <Text variant="figure" style={[styles.td, styles.right, styles.num, { flex: 1 }]}>
+              <Text role="cell" variant="figure" style={[styles.td, styles.right, styles.num, { flex: 1 }]}>
                 {h.limitWPerKg} W/kg
               </Text>
-              <Text variant="figure" style={[styles.td, styles.right, styles.num, { flex: 0.8 }]}>
+              <Text role="cell" variant="figure" style={[styles.td, styles.right, styles.num, { flex: 0.8 }]}>
                 {formatDb(h.marginDb)}
               </Text>
-              <Text variant="small" style={[styles.td, { flex: 1.6 }]}>
+              <Text role="cell" variant="small" style={[styles.td, { flex: 1.6 }]}>
                 {from}
               </Text>
-              <View style={[styles.td, { flex: 1.2 }]}>
+              <View role="cell" style={[styles.td, { flex: 1.2 }]}>
                 <StatusBadge tone={l.tone} icon={l.icon} label={l.label} />
               </View>
             </Pressable>
@@ -216,32 +216,32 @@ function MeasurementTable({ rows, onOpen }: { rows: LabRow[]; onOpen: (row: LabR
       </View>
       {rows.map((x, i) => (
         <Pressable key={x.measurementId} role="row" onPress={() => onOpen(x)} style={({ pressed }) => [styles.tr, i % 2 === 1 && styles.zebra, pressed && styles.pressed]} accessibilityLabel={`${x.measurementId}: how computed`} testID={`lab-row-${x.measurementId}`}>
-          <Text variant="smallStrong" style={[styles.td, { flex: 0.6 }]}>
+          <Text role="cell" variant="smallStrong" style={[styles.td, { flex: 0.6 }]}>
             {x.measurementId}
           </Text>
-          <Text variant="small" style={[styles.td, { flex: 1 }]}>
+          <Text role="cell" variant="small" style={[styles.td, { flex: 1 }]}>
             {x.transmitterId}
           </Text>
-          <Text variant="small" style={[styles.td, { flex: 1.3 }]}>
+          <Text role="cell" variant="small" style={[styles.td, { flex: 1.3 }]}>
             {x.usePositionId}
             {x.testPosition ? `\n${x.testPosition}` : ''}
           </Text>
-          <Text variant="figure" style={[styles.td, styles.right, styles.num, { flex: 1 }]}>
+          <Text role="cell" variant="figure" style={[styles.td, styles.right, styles.num, { flex: 1 }]}>
             {formatMhz(x.frequencyHz)}
           </Text>
-          <Text variant="figure" style={[styles.td, styles.right, styles.num, { flex: 1.3 }]}>
+          <Text role="cell" variant="figure" style={[styles.td, styles.right, styles.num, { flex: 1.3 }]}>
             {sig(x.measuredPowerDbm, 4)} / {sig(x.tuneUpPowerDbm, 4)} dBm
           </Text>
-          <Text variant="figure" style={[styles.td, styles.right, styles.num, { flex: 0.8 }]}>
+          <Text role="cell" variant="figure" style={[styles.td, styles.right, styles.num, { flex: 0.8 }]}>
             ×{x.scalingFactor.toFixed(3)}
           </Text>
-          <Text variant="figure" style={[styles.td, styles.right, styles.num, { flex: 0.9 }]}>
+          <Text role="cell" variant="figure" style={[styles.td, styles.right, styles.num, { flex: 0.9 }]}>
             {sar(x.reportedSar1gWPerKg)}
           </Text>
-          <Text variant="figure" style={[styles.td, styles.right, styles.num, { flex: 0.9 }]}>
+          <Text role="cell" variant="figure" style={[styles.td, styles.right, styles.num, { flex: 0.9 }]}>
             {sar(x.reportedSar10gWPerKg)}
           </Text>
-          <View style={[styles.td, { flex: 1.5 }]}>
+          <View role="cell" style={[styles.td, { flex: 1.5 }]}>
             <FlagBadge flags={x.flags} />
           </View>
         </Pressable>

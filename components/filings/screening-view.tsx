@@ -277,9 +277,11 @@ function ScreeningRows({ rows, onOpen }: { rows: ScreeningRowDto[]; onOpen: (row
           <Figure flex={1.05} numeric label={formatMhz(row.frequencyHz)} onPress={() => onOpen(row, 'frequency')} testID={`cell-${i}-frequency`} />
           <Figure flex={1.05} numeric label={evaluatedText(row)} onPress={() => onOpen(row, 'evaluated')} testID={`cell-${i}-evaluated`} />
           <Figure flex={1.1} numeric label={thresholdText(row)} onPress={() => onOpen(row, 'threshold')} testID={`cell-${i}-threshold`} />
-          <Pressable style={({ pressed }) => [styles.td, styles.cellPress, { flex: 1.55 }, pressed && styles.pressed]} onPress={() => onOpen(row, 'result')} accessibilityRole="button" accessibilityLabel={`How computed: result ${RESULT_LOOK[row.result].label}`} testID={`cell-${i}-result`}>
-            <ResultBadge row={row} />
-          </Pressable>
+          <View role="cell" style={[styles.td, { flex: 1.55 }]}>
+            <Pressable style={({ pressed }) => [styles.cellPress, { flex: 1 }, pressed && styles.pressed]} onPress={() => onOpen(row, 'result')} accessibilityRole="button" accessibilityLabel={`How computed: result ${RESULT_LOOK[row.result].label}`} testID={`cell-${i}-result`}>
+              <ResultBadge row={row} />
+            </Pressable>
+          </View>
           <Figure flex={1.05} numeric label={formatDb(row.marginDb)} onPress={() => onOpen(row, 'margin')} testID={`cell-${i}-margin`} />
         </View>
       ))}
@@ -305,12 +307,15 @@ function ResultBadge({ row }: { row: ScreeningRowDto }) {
 }
 
 function Figure({ label, onPress, flex, numeric, testID }: { label: string; onPress: () => void; flex: number; numeric?: boolean; testID: string }) {
+  // The row's children must be cells (ARIA table); the button sits inside its cell.
   return (
-    <Pressable onPress={onPress} accessibilityRole="button" accessibilityLabel={`How computed: ${label}`} testID={testID} style={({ pressed }) => [styles.td, styles.cellPress, { flex }, pressed && styles.pressed]}>
-      <Text variant={numeric ? 'figure' : 'small'} style={[numeric ? styles.figure : styles.link]}>
-        {label}
-      </Text>
-    </Pressable>
+    <View role="cell" style={[styles.td, { flex }]}>
+      <Pressable onPress={onPress} accessibilityRole="button" accessibilityLabel={`How computed: ${label}`} testID={testID} style={({ pressed }) => [styles.cellPress, { flex: 1 }, pressed && styles.pressed]}>
+        <Text variant={numeric ? 'figure' : 'small'} style={[numeric ? styles.figure : styles.link]}>
+          {label}
+        </Text>
+      </Pressable>
+    </View>
   );
 }
 

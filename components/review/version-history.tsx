@@ -79,6 +79,8 @@ export function VersionList({ filingId, review }: { filingId: number; review: Re
 const ACTION_WORDS: Record<string, string> = {
   'filing.create': 'Created the filing',
   'filing.import': 'Created the filing from a device file',
+  'filing.archive': 'Archived the filing',
+  'filing.restore': 'Restored the filing',
   'filing.step-save': 'Saved a step',
   'version.review-requested': 'Asked for review',
   'version.returned': 'Returned for changes',

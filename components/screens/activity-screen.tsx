@@ -39,6 +39,8 @@ const ACTION_LABELS: Record<string, string> = {
   'user.reactivate': 'Reactivated a user',
   'filing.create': 'Started a filing',
   'filing.import': 'Imported a device file',
+  'filing.archive': 'Archived a filing',
+  'filing.restore': 'Restored a filing',
   'filing.step-save': 'Saved a step',
   'evidence.upload': 'Filed evidence',
   'evidence.replace': 'Replaced evidence',

@@ -23,6 +23,7 @@ import { StatusBadge } from '../ui/status-badge';
 import { Text } from '../ui/text';
 import { PackageCard } from '../packages/package-card';
 import { Fact } from '../ui/fact';
+import { ArchiveCard } from '../filings/archive-card';
 import { ReadinessCard, ReviewCard, TimelineCard, VersionsCard } from '../review/overview-cards';
 
 export function FilingOverviewScreen() {
@@ -41,7 +42,11 @@ export function FilingOverviewScreen() {
   return (
     <Screen eyebrow={`Filing · version ${f.version.number}`} title={d.name} subtitle={`${d.model} · ${d.applicant}`} testID="filing-overview">
       {!wide ? <BackLink href="/filings" label="All filings" /> : null}
-      {!f.editable ? (
+      {f.archivedAt ? (
+        <Notice tone="caution" title="Archived · read only" testID="filing-archived">
+          {`Archived ${formatDateTime(f.archivedAt)}. Nothing in it can change until its owner or an admin restores it (see Archived filing below).`}
+        </Notice>
+      ) : !f.editable ? (
         <Notice tone="info" title="Read only" testID="filing-read-only">
           {f.version.state === 'draft' || f.version.state === 'returned'
             ? 'Only a compliance specialist changes the device data. You can read every step and the screening.'
@@ -95,6 +100,7 @@ export function FilingOverviewScreen() {
       <PackageCard filingId={f.id} versionNumber={f.version.number} />
       <VersionsCard filingId={f.id} />
       <TimelineCard filingId={f.id} />
+      <ArchiveCard filing={f} />
     </Screen>
   );
 }

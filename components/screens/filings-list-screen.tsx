@@ -16,6 +16,7 @@ import { LoadFailed, Loading } from '../layout/query-states';
 import { Screen } from '../layout/screen';
 import { Button } from '../ui/button';
 import { Card } from '../ui/card';
+import { Checkbox } from '../ui/checkbox';
 import { ChoiceChips } from '../ui/choice-chips';
 import { InputBox } from '../ui/input-box';
 import { Chip, StatusBadge } from '../ui/status-badge';
@@ -31,7 +32,8 @@ export function FilingsListScreen() {
   const user = useCurrentUser();
   const router = useRouter();
   const canCreate = hasRole(user, 'specialist');
-  const params = useLocalSearchParams<{ q?: string; sort?: string }>();
+  const params = useLocalSearchParams<{ q?: string; sort?: string; archived?: string }>();
+  const showArchived = params.archived === '1';
   const q = typeof params.q === 'string' ? params.q : '';
   const sort: FilingSort = (FILING_SORTS as readonly string[]).includes(params.sort ?? '') ? (params.sort as FilingSort) : 'updated';
   const [search, setSearch] = useState(q);
@@ -42,7 +44,7 @@ export function FilingsListScreen() {
     }, 250);
     return () => clearTimeout(t);
   }, [search, q, router]);
-  const filings = useFilingsQuery(q, sort);
+  const filings = useFilingsQuery(q, sort, showArchived);
 
   return (
     <Screen
@@ -64,6 +66,12 @@ export function FilingsListScreen() {
           <InputBox label="Search device, model or applicant" value={search} onChangeText={setSearch} placeholder="e.g. TH4" testID="filings-search" autoCorrect={false} />
         </View>
         <ChoiceChips label="Sort by" choices={SORT_CHOICES} value={sort} onChange={setSort} testID="filings-sort" />
+        <Checkbox
+          label="Show archived filings"
+          checked={showArchived}
+          onChange={(next) => router.setParams({ archived: next ? '1' : undefined })}
+          testID="filings-show-archived"
+        />
       </View>
       {filings.isPending ? (
         <Loading label="Loading filings…" />
@@ -98,7 +106,7 @@ function FilingRow({ filing }: { filing: FilingSummary }) {
     <Link href={`/filings/${filing.id}`} asChild>
       <Pressable
         role="listitem"
-        accessibilityLabel={`${filing.device.name}, ${filing.device.model}, ${state.label}`}
+        accessibilityLabel={`${filing.device.name}, ${filing.device.model}, ${state.label}${filing.archivedAt ? ', archived' : ''}`}
         testID={`filing-row-${filing.id}`}
         style={StyleSheet.flatten([styles.row, wide && styles.rowWide])}
       >
@@ -110,6 +118,7 @@ function FilingRow({ filing }: { filing: FilingSummary }) {
         </View>
         <View style={[styles.meta, wide && styles.metaWide]}>
           <StatusBadge tone={state.tone} icon={state.icon} label={`v${filing.version.number} · ${state.label}`} />
+          {filing.archivedAt ? <StatusBadge tone="caution" icon="info" label="Archived" testID={`filing-archived-${filing.id}`} /> : null}
           <View style={styles.markets}>
             {filing.markets.length ? filing.markets.map((m) => <Chip key={m} label={regimeShort(m)} />) : <Text variant="small" tone="muted">No markets yet</Text>}
           </View>

@@ -129,6 +129,13 @@ export const FILING_SORTS = ['updated', 'name', 'state'] as const;
 export const zFilingListQuery = z.object({
   q: z.string().trim().max(120).optional(),
   sort: z.enum(FILING_SORTS).default('updated'),
+  /** '1' lists archived filings too (the default list hides them). */
+  archived: z.enum(['0', '1'], { error: 'archived must be 1 (show archived filings) or 0.' }).default('0'),
+});
+
+/** POST /api/filings/import?duplicate=refuse: a file this organisation imported before is a 409 instead of a second filing with a warning. */
+export const zImportQuery = z.object({
+  duplicate: z.enum(['refuse'], { error: 'duplicate must be “refuse” (or left out to import with a warning).' }).optional(),
 });
 
 export interface StepStatus {
@@ -150,6 +157,8 @@ export interface FilingSummary {
   owner: { id: number; name: string };
   updatedAt: string;
   createdAt: string;
+  /** Set while archived (read-only, hidden from the default list). */
+  archivedAt: string | null;
 }
 
 export interface FilingDetail extends FilingSummary {

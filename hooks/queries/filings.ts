@@ -17,7 +17,7 @@ export type FilingSort = (typeof FILING_SORTS)[number];
 export const filingKeys = {
   all: ['filings'] as const,
   lists: () => [...filingKeys.all, 'list'] as const,
-  list: (q: string, sort: FilingSort) => [...filingKeys.lists(), { q, sort }] as const,
+  list: (q: string, sort: FilingSort, archived = false) => [...filingKeys.lists(), { q, sort, archived }] as const,
   detail: (id: number) => [...filingKeys.all, 'detail', id] as const,
   screening: (id: number) => [...filingKeys.all, 'screening', id] as const,
   depthProfile: (id: number, transmitterId: string, usePositionId: string) => [...filingKeys.screening(id), 'depth', transmitterId, usePositionId] as const,
@@ -75,31 +75,49 @@ export interface DepthProfile {
   transmitterId: string;
   usePositionId: string;
   estimate: 'screening';
-  incidentPowerDensityWPerM2: number;
-  distanceUsedM: number;
+  usePositionKind: string;
+  /** The screening row's figures the profile rests on. */
+  basis: { regime: string; frequencyHz: number; eirpW: number; separationM: number };
+  stackId: 'head' | 'trunk' | 'limb';
+  stackTitle: string;
   stack: { name: string; tissue: string; thicknessM: number | null }[];
-  sarProfile: { depthM: number; sarWPerKg: number; layerIndex: number }[];
-  surfaceSarWPerKg: number;
-  peakSarWPerKgByLayer: number[];
-  averagedSarWPerKg: { '1g': number; '10g': number };
+  distanceUsedM: number;
+  wavelengthM: number;
+  reactiveNearFieldBoundaryM: number;
+  scale: 'absolute' | 'relative';
+  scaleReason: string;
+  relativeProfile: { depthM: number; relativeSar: number; layerIndex: number }[];
+  /** Only beyond the reactive near field (scale 'absolute'). */
+  absolute: {
+    incidentPowerDensityWPerM2: number;
+    sarProfile: { depthM: number; sarWPerKg: number; layerIndex: number }[];
+    surfaceSarWPerKg: number;
+    peakSarWPerKgByLayer: number[];
+    averagedSarWPerKg: { '1g': number; '10g': number };
+  } | null;
   reflectedFraction: number;
   absorbedFractionByLayer: number[];
   derivation: Derivation;
   cautions: string[];
 }
 const zDepthProfile = z.looseObject({
-  sarProfile: z.array(z.object({ depthM: z.number(), sarWPerKg: z.number(), layerIndex: z.number() })),
+  scale: z.enum(['absolute', 'relative']),
+  relativeProfile: z.array(z.object({ depthM: z.number(), relativeSar: z.number(), layerIndex: z.number() })),
   stack: z.array(z.looseObject({ name: z.string() })),
-  incidentPowerDensityWPerM2: z.number(),
+  stackTitle: z.string(),
+  scaleReason: z.string(),
+  absolute: z.looseObject({ sarProfile: z.array(z.object({ depthM: z.number(), sarWPerKg: z.number(), layerIndex: z.number() })) }).nullable(),
   cautions: z.array(z.string()),
 }) as unknown as z.ZodType<DepthProfile>;
 
-export function useFilingsQuery(q: string, sort: FilingSort) {
+/** `archived`: list archived filings too (the default list hides them). */
+export function useFilingsQuery(q: string, sort: FilingSort, archived = false) {
   return useQuery({
-    queryKey: filingKeys.list(q, sort),
+    queryKey: filingKeys.list(q, sort, archived),
     queryFn: ({ signal }) => {
       const params = new URLSearchParams({ sort });
       if (q.trim()) params.set('q', q.trim());
+      if (archived) params.set('archived', '1');
       return apiOrThrow(`/api/filings?${params}`, { schema: zList, signal }).then((d) => d.filings);
     },
     placeholderData: (previous) => previous,
@@ -133,8 +151,24 @@ export function useCreateFilingMutation() {
 export function useImportFilingMutation() {
   const onCreated = useFilingCreated();
   return useMutation({
-    mutationFn: (file: DeviceFileInput | unknown) => apiOrThrow('/api/filings/import', { method: 'POST', body: file, schema: zEnvelope }).then((d) => d.filing),
+    // refuseDuplicate: a file this organisation imported before is a 409 `duplicate_import` (ask first).
+    mutationFn: ({ file, refuseDuplicate }: { file: DeviceFileInput | unknown; refuseDuplicate: boolean }) =>
+      apiOrThrow(`/api/filings/import${refuseDuplicate ? '?duplicate=refuse' : ''}`, { method: 'POST', body: file, schema: zEnvelope }).then((d) => d.filing),
     onSuccess: onCreated,
+  });
+}
+
+/** Archive or restore a filing (its owner or an admin); the list and the filing refresh. */
+export function useArchiveFilingMutation(id: number) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (action: 'archive' | 'restore') => apiOrThrow(`/api/filings/${id}/${action}`, { method: 'POST', body: {}, schema: zEnvelope }).then((d) => d.filing),
+    onSuccess: (filing) => {
+      queryClient.setQueryData(filingKeys.detail(id), filing);
+      void queryClient.invalidateQueries({ queryKey: filingKeys.lists() });
+      // The timeline (review's query, under the same root) gains the archive or restore entry.
+      void queryClient.invalidateQueries({ queryKey: [...filingKeys.all, 'timeline', id] });
+    },
   });
 }
 

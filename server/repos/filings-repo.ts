@@ -1,5 +1,5 @@
 /** Drizzle queries for devices, filings, versions and the wizard's per-version data. */
-import { and, asc, desc, eq, inArray, or, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, isNull, or, sql } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 import {
   antennas,
@@ -43,10 +43,11 @@ function summaryQuery(db: Db) {
 
 export type FilingRow = NonNullable<ReturnType<typeof findFiling>>;
 
-export function listFilings(db: Db, organisationId: number, q: string | undefined, sort: 'updated' | 'name' | 'state') {
+export function listFilings(db: Db, organisationId: number, q: string | undefined, sort: 'updated' | 'name' | 'state', includeArchived = false) {
   const pattern = q ? `%${q.replace(/[%_\\]/g, (c) => `\\${c}`)}%` : undefined;
   const where = and(
     eq(filings.organisationId, organisationId),
+    includeArchived ? undefined : isNull(filings.archivedAt),
     pattern
       ? or(
           sql`${devices.name} like ${pattern} escape '\\'`,
@@ -426,4 +427,29 @@ export function insertFiling(db: Db, organisationId: number, deviceId: number, o
   const filing = db.insert(filings).values({ organisationId, deviceId, ownerUserId }).returning().get();
   const version = db.insert(filingVersions).values({ filingId: filing.id, number: 1, deviceId }).returning().get();
   return { filing, version };
+}
+
+export function setArchived(db: Db, filingId: number, state: { archivedAt: string | null; archivedByUserId: number | null }) {
+  db.update(filings).set(state).where(eq(filings.id, filingId)).run();
+}
+
+export function isArchived(db: Db, organisationId: number, filingId: number): boolean {
+  const row = db
+    .select({ archivedAt: filings.archivedAt })
+    .from(filings)
+    .where(and(eq(filings.organisationId, organisationId), eq(filings.id, filingId)))
+    .get();
+  return Boolean(row?.archivedAt);
+}
+
+/** Filings of the organisation imported from a file with this SHA-256, oldest first. */
+export function findImportsOf(db: Db, organisationId: number, importSha256: string) {
+  return summaryQuery(db)
+    .where(and(eq(filings.organisationId, organisationId), eq(filings.importSha256, importSha256)))
+    .orderBy(asc(filings.id))
+    .all();
+}
+
+export function setImportSha256(db: Db, filingId: number, importSha256: string) {
+  db.update(filings).set({ importSha256 }).where(eq(filings.id, filingId)).run();
 }

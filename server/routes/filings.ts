@@ -4,12 +4,13 @@
  */
 import { Router, type RequestHandler } from 'express';
 import { z } from 'zod';
-import { DATA_STEPS, zFilingListQuery, zNewFiling } from '../../constants/schemas/filings';
+import { DATA_STEPS, zFilingListQuery, zImportQuery, zNewFiling } from '../../constants/schemas/filings';
 import { zDeviceFile } from '../../constants/schemas/device-file';
 import { SCREENING_REGIMES } from '../../calc/screening/input';
 import type { AppContext } from '../context';
 import { requireAuth, requireRole } from '../middleware/auth';
 import { parseWith, strictId } from '../middleware/validate';
+import * as archiveService from '../services/filing-archive-service';
 import * as filingsService from '../services/filings-service';
 import * as screeningService from '../services/screening-service';
 import { evidenceCategoriesDocument } from './evidence';
@@ -36,8 +37,8 @@ export function filingRoutes({ db, readCaches }: AppContext): Router {
   const specialistOnly: RequestHandler = requireRole('specialist');
 
   router.get('/', (req, res) => {
-    const { q, sort } = parseWith(zFilingListQuery, req.query);
-    res.json({ filings: filingsService.listFilings(db, actorOf(req.user!), q, sort) });
+    const { q, sort, archived } = parseWith(zFilingListQuery, req.query);
+    res.json({ filings: filingsService.listFilings(db, actorOf(req.user!), q, sort, archived === '1') });
   });
 
   router.post('/', specialistOnly, (req, res) => {
@@ -46,9 +47,11 @@ export function filingRoutes({ db, readCaches }: AppContext): Router {
   });
 
   router.post('/import', specialistOnly, (req, res) => {
+    const { duplicate } = parseWith(zImportQuery, req.query);
     const parsed = zDeviceFile.safeParse(req.body);
     if (!parsed.success) throw filingsService.deviceFileProblems(parsed.error);
-    res.status(201).json({ filing: filingsService.importDeviceFile(db, actorOf(req.user!), parsed.data) });
+    const { warnings, ...filing } = filingsService.importDeviceFile(db, actorOf(req.user!), parsed.data, { refuseDuplicate: duplicate === 'refuse' });
+    res.status(201).json({ filing, warnings });
   });
 
   router.get('/:id', (req, res) => {
@@ -56,6 +59,17 @@ export function filingRoutes({ db, readCaches }: AppContext): Router {
     const filingId = parseWith(zId, req.params.id);
     const key = `${actor.organisationId}:${filingId}:${filingsService.canEdit(actor) ? 'edit' : 'read'}`;
     res.type('json').send(filingAnswers.get(key, () => JSON.stringify({ filing: filingsService.getFiling(db, actor, filingId) })));
+  });
+
+  // Owner or admin (checked in the service after the lookup, so another organisation gets 404).
+  router.post('/:id/archive', (req, res) => {
+    archiveService.archiveFiling(db, actorOf(req.user!), parseWith(zId, req.params.id));
+    res.json({ filing: filingsService.getFiling(db, actorOf(req.user!), parseWith(zId, req.params.id)) });
+  });
+
+  router.post('/:id/restore', (req, res) => {
+    archiveService.restoreFiling(db, actorOf(req.user!), parseWith(zId, req.params.id));
+    res.json({ filing: filingsService.getFiling(db, actorOf(req.user!), parseWith(zId, req.params.id)) });
   });
 
   router.put('/:id/steps/:step', specialistOnly, (req, res) => {

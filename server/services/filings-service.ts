@@ -23,7 +23,7 @@ import {
 } from '../../constants/schemas/filings';
 import { DEVICE_FILE_FORMAT, USE_POSITION_LABELS, powerModeIssues, zDeviceInfo, type DeviceFile, type DeviceFileInput } from '../../constants/schemas/device-file';
 import type { Role } from '../../constants/schemas/roles';
-import { conflict, forbidden, notFound, unprocessable } from '../http-error';
+import { conflict, forbidden, HttpError, notFound, unprocessable } from '../http-error';
 import { ruleSetWarnings } from '../../calc/versions';
 import { zodFieldErrors } from '../middleware/validate';
 import * as repo from '../repos/filings-repo';
@@ -67,11 +67,12 @@ function toSummary(row: repo.FilingRow, markets: string[]): FilingSummary {
     owner: { id: row.filing.ownerUserId, name: row.ownerName },
     updatedAt: row.filing.updatedAt,
     createdAt: row.filing.createdAt,
+    archivedAt: row.filing.archivedAt,
   };
 }
 
-export function listFilings(db: Db, actor: FilingActor, q: string | undefined, sort: 'updated' | 'name' | 'state'): FilingSummary[] {
-  const rows = repo.listFilings(db, actor.organisationId, q, sort);
+export function listFilings(db: Db, actor: FilingActor, q: string | undefined, sort: 'updated' | 'name' | 'state', includeArchived = false): FilingSummary[] {
+  const rows = repo.listFilings(db, actor.organisationId, q, sort, includeArchived);
   const markets = repo.marketsByVersion(db, rows.map((r) => r.version.id));
   return rows.map((r) => toSummary(r, markets.get(r.version.id) ?? []));
 }
@@ -182,7 +183,7 @@ export function getFiling(db: Db, actor: FilingActor, filingId: number): FilingD
   steps.push(evidenceStepStatus(db, row.version.id, { data, steps }));
   return {
     ...toSummary(row, markets),
-    editable: canEdit(actor) && EDITABLE_STATES.includes(row.version.state as VersionState),
+    editable: canEdit(actor) && !row.filing.archivedAt && EDITABLE_STATES.includes(row.version.state as VersionState),
     steps,
     data,
     simultaneous: repo.readSimultaneous(db, row.version.id),
@@ -213,12 +214,26 @@ export function createFiling(db: Db, actor: FilingActor, input: DeviceFileInput[
   return getFiling(db, actor, id);
 }
 
-/** Creates a filing from a whole device description file, in one transaction. */
-export function importDeviceFile(db: Db, actor: FilingActor, file: DeviceFile): FilingDetail {
+/** The parsed file's fingerprint: the same device file imported twice gives the same hash. */
+export const deviceFileSha256 = (file: DeviceFile) => createHash('sha256').update(JSON.stringify(file)).digest('hex');
+
+/**
+ * Creates a filing from a whole device description file, in one transaction. A file this
+ * organisation imported before gives a warning naming the earlier filing; with `refuseDuplicate`
+ * (the app asks first) it is a 409 `duplicate_import` instead and nothing is created.
+ */
+export function importDeviceFile(db: Db, actor: FilingActor, file: DeviceFile, { refuseDuplicate = false } = {}): FilingDetail & { warnings: string[] } {
   requireEditor(actor);
+  const importSha256 = deviceFileSha256(file);
+  const earlier = repo.findImportsOf(db, actor.organisationId, importSha256);
+  const duplicateWarning = earlier.length
+    ? `This device file was already imported as “${earlier[0].device.name} ${earlier[0].device.model}”${earlier[0].filing.archivedAt ? ' (archived)' : ''} on ${earlier[0].filing.createdAt.slice(0, 10)}.`
+    : null;
+  if (duplicateWarning && refuseDuplicate) throw new HttpError(409, 'duplicate_import', `${duplicateWarning} Open that filing, or import again to start a second one.`);
   const id = db.transaction((tx) => {
     const dev = repo.insertDevice(tx, actor.organisationId, file.device);
     const { filing, version } = repo.insertFiling(tx, actor.organisationId, dev.id, actor.id);
+    repo.setImportSha256(tx, filing.id, importSha256);
     repo.writeRadios(tx, version.id, { antennas: file.antennas, transmitters: file.transmitters });
     repo.writeUsePositions(tx, version.id, { usePositions: file.usePositions }, repo.antennaIdsByKey(tx, version.id));
     repo.writeMarkets(tx, version.id, { markets: file.markets });
@@ -230,11 +245,11 @@ export function importDeviceFile(db: Db, actor: FilingActor, file: DeviceFile): 
       action: 'filing.import',
       targetType: 'filing',
       targetId: filing.id,
-      details: { device: file.device.name, transmitters: file.transmitters.length, usePositions: file.usePositions.length },
+      details: { device: file.device.name, transmitters: file.transmitters.length, usePositions: file.usePositions.length, ...(earlier.length ? { duplicateOf: earlier[0].filing.id } : {}) },
     });
     return filing.id;
   });
-  return getFiling(db, actor, id);
+  return { ...getFiling(db, actor, id), warnings: duplicateWarning ? [`${duplicateWarning} This is a second filing from the same file.`] : [] };
 }
 
 const withoutRowId = <T extends { rowId?: number }>({ rowId: _rowId, ...rest }: T): Omit<T, 'rowId'> => rest;

@@ -125,7 +125,7 @@ function storedResultOf(db: Db, versionId: number, inputSha256: string) {
 }
 
 /**
- * SAR against depth in a default head stack for one transmitter at one use position, from the
+ * SAR against depth in the tissue stack of the position's kind for one transmitter at one use position, from the
  * screening table's own figures: the row's evaluated (time-averaged) EIRP at the row's most
  * restrictive frequency — the same engine call that builds the table, restricted to this
  * transmitter and position. `regime` picks the market's row (default: the first market's).
@@ -157,7 +157,7 @@ export function depthProfileOf(input: ScreeningInput, q: { transmitterId: string
   const { rows } = screenParsed({ ...input, markets: markets.slice(0, 1), transmitters: [tx], usePositions: [position] });
   const row = rows[0];
   const eirpW = row.powers.eirpMw / 1000;
-  const profile = screeningDepthProfile({ frequencyHz: row.frequencyHz, eirpW, separationM: row.separationM });
+  const profile = screeningDepthProfile({ frequencyHz: row.frequencyHz, eirpW, separationM: row.separationM, usePositionKind: position.kind });
   profile.derivation.notes.push(
     `Figures from the screening table’s ${row.regime} row: time-averaged EIRP ${eirpW.toPrecision(4)} W at its most restrictive frequency ${(row.frequencyHz / 1e6).toPrecision(6)} MHz.`,
   );

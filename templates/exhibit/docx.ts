@@ -25,7 +25,7 @@ import {
   WidthType,
 } from 'docx';
 import type { ExhibitModel } from './model';
-import { exhibitBlocks, fixed, num, derivationRows, signatureLines, type Block, type Column } from './layout';
+import { depthChartFootnote, exhibitBlocks, fixed, num, derivationRows, signatureLines, type Block, type Column } from './layout';
 import { EXHIBIT_TITLE, INTRO, SECTION, coverLines, documentSubject } from './texts';
 import { DOCX_FONT_FAMILY, DOCX_MONO_FAMILY } from './fonts';
 
@@ -113,11 +113,13 @@ function render(block: Block): (Paragraph | Table | TableOfContents)[] {
         table(
           [
             { title: 'Depth', width: 0.5, align: 'right' },
-            { title: 'SAR (estimate)', width: 0.5, align: 'right' },
+            { title: block.profile.scale === 'absolute' ? 'SAR (estimate)' : 'SAR relative to the surface', width: 0.5, align: 'right' },
           ],
-          block.profile.points.filter((_, i, all) => i % Math.max(1, Math.ceil(all.length / 24)) === 0).map((p) => [`${num(p.depthM * 1000, 3)} mm`, `${num(p.sarWPerKg, 3)} W/kg`]),
+          block.profile.points
+            .filter((_, i, all) => i % Math.max(1, Math.ceil(all.length / 24)) === 0)
+            .map((p) => [`${num(p.depthM * 1000, 3)} mm`, block.profile.scale === 'absolute' ? `${num(p.value, 3)} W/kg` : num(p.value, 3)]),
         ),
-        new Paragraph({ spacing: { after: 120 }, children: [new TextRun({ size: 16, text: `Averaged over 1 g: ${num(block.profile.averagedSarWPerKg['1g'], 3)} W/kg; over 10 g: ${num(block.profile.averagedSarWPerKg['10g'], 3)} W/kg (estimate).` })] }),
+        new Paragraph({ spacing: { after: 120 }, children: [new TextRun({ size: 16, text: depthChartFootnote(block.profile) })] }),
       ];
     case 'derivation': {
       const d = block.entry.derivation;

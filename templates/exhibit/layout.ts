@@ -31,6 +31,13 @@ export type Block =
   | { kind: 'pageBreak' };
 
 /** Up to `digits` significant digits, without trailing zeros or exponent for everyday values. */
+/** The line under the depth chart: the averages in W/kg beyond the reactive near field, the reason for a relative profile closer. */
+export function depthChartFootnote(p: ExhibitDepthProfile): string {
+  return p.averagedSarWPerKg
+    ? `Averaged over 1 g: ${num(p.averagedSarWPerKg['1g'], 3)} W/kg; over 10 g: ${num(p.averagedSarWPerKg['10g'], 3)} W/kg (model estimate, not a measured SAR).`
+    : 'Relative profile (surface = 1): no W/kg is given inside the reactive near field. Not a measured SAR.';
+}
+
 export function num(x: number | null | undefined, digits = 4): string {
   if (x === null || x === undefined || !Number.isFinite(x)) return '—';
   if (x === 0) return '0';
@@ -281,7 +288,7 @@ function screeningBlocks(m: ExhibitModel): Block[] {
   if (m.depthProfile) {
     blocks.push(
       { kind: 'heading', level: 2, text: 'SAR against depth (estimate)' },
-      { kind: 'paragraph', text: `${INTRO.depthChart} ${m.depthProfile.transmitterId} at ${m.depthProfile.usePositionId}, ${hz(m.depthProfile.frequencyHz)}, distance used ${mm(m.depthProfile.distanceUsedM)}; see ${m.depthProfile.appendixRef}.` },
+      { kind: 'paragraph', text: `${INTRO.depthChart} ${m.depthProfile.transmitterId} at ${m.depthProfile.usePositionId}, ${hz(m.depthProfile.frequencyHz)}, distance used ${mm(m.depthProfile.distanceUsedM)}; model: ${m.depthProfile.stackTitle}. ${m.depthProfile.scaleReason} See ${m.depthProfile.appendixRef}.` },
       { kind: 'depthChart', profile: m.depthProfile },
     );
   }

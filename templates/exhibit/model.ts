@@ -206,9 +206,15 @@ export interface ExhibitDepthProfile {
   usePositionId: string;
   frequencyHz: number;
   distanceUsedM: number;
-  points: { depthM: number; sarWPerKg: number }[];
+  /** Which model, in words (the tissue stack of the position's kind). */
+  stackTitle: string;
+  /** 'absolute': values in W/kg; 'relative': SAR over the surface SAR (inside the reactive near field). */
+  scale: 'absolute' | 'relative';
+  scaleReason: string;
+  points: { depthM: number; value: number }[];
   layers: { name: string; startDepthM: number }[];
-  averagedSarWPerKg: { '1g': number; '10g': number };
+  /** Only beyond the reactive near field. */
+  averagedSarWPerKg: { '1g': number; '10g': number } | null;
   appendixRef: string;
 }
 

@@ -9,7 +9,7 @@ import { createHash } from 'node:crypto';
 import fontkit from '@pdf-lib/fontkit';
 import { PDFArray, PDFDocument, PDFHexString, PDFName, degrees, rgb, type PDFFont, type PDFPage, type RGB } from 'pdf-lib';
 import type { ExhibitDepthProfile, ExhibitModel } from './model';
-import { exhibitBlocks, fixed, num, derivationRows, signatureLines, type Block, type Column, type MarginBar } from './layout';
+import { depthChartFootnote, exhibitBlocks, fixed, num, derivationRows, signatureLines, type Block, type Column, type MarginBar } from './layout';
 import { EXHIBIT_TITLE, INTRO, SECTION, coverLines, documentSubject, formatDateTime } from './texts';
 import { fontBytes, type FontRole } from './fonts';
 
@@ -331,7 +331,7 @@ class Flow {
     const top = this.y - 6;
     const bottom = top - h;
     const maxDepth = Math.max(...p.points.map((x) => x.depthM));
-    const maxSar = Math.max(...p.points.map((x) => x.sarWPerKg)) || 1;
+    const maxSar = Math.max(...p.points.map((x) => x.value)) || 1;
     const niceMax = niceCeil(maxSar);
     const xOf = (d: number) => left + (d / maxDepth) * width;
     const yOf = (s: number) => bottom + (s / niceMax) * h;
@@ -360,12 +360,12 @@ class Flow {
       const label = num(d * 1000, 3);
       this.text(label, xOf(d) - this.width(label, this.fonts.regular, 6.5) / 2, bottom - 10, this.fonts.regular, 6.5, MUTED);
     }
-    const path = p.points.map((pt, i) => `${i ? 'L' : 'M'}${(xOf(pt.depthM) - left).toFixed(2)},${(h - (yOf(pt.sarWPerKg) - bottom)).toFixed(2)}`).join(' ');
+    const path = p.points.map((pt, i) => `${i ? 'L' : 'M'}${(xOf(pt.depthM) - left).toFixed(2)},${(h - (yOf(pt.value) - bottom)).toFixed(2)}`).join(' ');
     this.page.drawSvgPath(path, { x: left, y: top, borderColor: ACCENT, borderWidth: 1.2 });
     this.text('Depth in tissue (mm)', left + width / 2 - 35, bottom - 21, this.fonts.regular, 7, INK);
-    this.page.drawText('SAR (W/kg)', { x: MARGIN_X + 4, y: bottom + h / 2 - 18, size: 7, font: this.fonts.regular, color: INK, rotate: degrees(90) });
+    this.page.drawText(p.scale === 'absolute' ? 'SAR (W/kg)' : 'SAR / surface SAR', { x: MARGIN_X + 4, y: bottom + h / 2 - 18, size: 7, font: this.fonts.regular, color: INK, rotate: degrees(90) });
     this.y = bottom - 30;
-    this.paragraph(`Averaged over 1 g: ${num(p.averagedSarWPerKg['1g'], 3)} W/kg; over 10 g: ${num(p.averagedSarWPerKg['10g'], 3)} W/kg (estimate).`, 'small');
+    this.paragraph(depthChartFootnote(p), 'small');
   }
 
   derivation(entry: { ref: string; title: string; derivation: ExhibitModel['appendix'][number]['derivation'] }) {

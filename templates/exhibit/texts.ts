@@ -34,7 +34,7 @@ export const INTRO = {
     'For every transmitter, use position and market: the rule that applies, the compared power at the band’s most restrictive frequency, the threshold, the result and the margin (10·log10 of threshold over evaluated value, in dB; negative means over the threshold). The reference in the last column points to the derivation in Appendix A.',
   marginChart: 'Smallest margin of each transmitter over all use positions, per market (dB). Bars left of zero are over the threshold.',
   depthChart:
-    'SAR against depth in a layered head model for the combination with the smallest margin (a screening estimate from a plane-wave model, not a measurement).',
+    'SAR against depth in layered tissue for the combination with the smallest margin: a screening estimate from a plane-wave model that explains the margin; it is not a measured SAR.',
   lab: 'Every SAR scan the lab reported, scaled to the maximum tune-up power (never scaled down): reported SAR = scaling × measured SAR, at 1 g and 10 g. The reference in the last column points to the derivation in Appendix A.',
   labUnits: 'SAR in W/kg; separation as tested; scaling = reported over measured SAR. A dash means the lab gave no value for that averaging mass. The exposure condition of each use position is in the coverage table below.',
   coverage: 'Every transmitter and use position the screening sends to SAR evaluation, and the scans that cover it.',

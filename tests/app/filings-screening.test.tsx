@@ -27,6 +27,7 @@ const FILING = {
   owner: { id: 2, name: 'Tomas Lindqvist' },
   updatedAt: '2026-03-01T10:00:00.000Z',
   createdAt: '2026-03-01T10:00:00.000Z',
+  archivedAt: null,
   editable: true,
   revisions: { device: 'r-device', radios: 'r-radios', 'use-positions': 'r-positions', markets: 'r-markets' },
   steps: [],

@@ -16,6 +16,7 @@ const FILING: FilingDetail = {
   owner: { id: 2, name: 'Tomas Lindqvist' },
   updatedAt: '2026-03-01T10:00:00.000Z',
   createdAt: '2026-03-01T10:00:00.000Z',
+  archivedAt: null,
   editable: true,
   steps: [],
   data: {

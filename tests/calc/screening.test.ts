@@ -12,7 +12,10 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import {
-  DEFAULT_HEAD_STACK,
+  HEAD_STACK,
+  LIMB_STACK,
+  TRUNK_STACK,
+  tissueStackFor,
   screenDevice,
   screeningDepthProfile,
   SCREENING_MIN_DISTANCE_M,
@@ -503,34 +506,75 @@ describe('screening input: malformed or inconsistent input is refused with paths
   });
 });
 
-describe('screening-depth-profile: SAR against depth in the default head stack (screening estimate)', () => {
-  it('default stack is skin / fat / bone / brain with a semi-infinite brain', () => {
-    expect(DEFAULT_HEAD_STACK.map((l) => l.tissue)).toEqual(['skin-dry', 'fat', 'bone-cortical', 'brain-grey-matter']);
-    expect(DEFAULT_HEAD_STACK[DEFAULT_HEAD_STACK.length - 1].thicknessM).toBeNull();
+/*
+ * screening-depth-profile — sources:
+ * - S = EIRP/(4πR²): FCC OET Bulletin 65 (Edition 97-01) Eq. (3);
+ * - reactive near-field boundary d = λ/2π (kr = 1): H. A. Wheeler, "The radiansphere around a small
+ *   antenna", Proc. IRE 47 (1959) 1325; C. A. Balanis, Antenna Theory, 4th ed. (2016), §4.2 (section
+ *   from memory). λ/2π at 2.45 GHz = 299 792 458/2.45e9/2π = 19.47 mm; at 835 MHz = 57.14 mm (python3);
+ * - the stacks' thicknesses are typical values, common practice (from memory): only the choice of
+ *   tissues per kind is asserted, and the profile against an independent plane-wave-layers call.
+ */
+describe('screening-depth-profile: SAR against depth in the tissue stack of the position kind (screening estimate)', () => {
+  it('picks the stack by kind: head skin/fat/bone/brain; body-worn, hotspot, far-field skin/fat/muscle; extremity skin/fat/muscle/bone', () => {
+    const tissues = (k: Parameters<typeof tissueStackFor>[0]) => tissueStackFor(k).layers.map((l) => l.tissue);
+    expect(tissues('head')).toEqual(['skin-dry', 'fat', 'bone-cortical', 'brain-grey-matter']);
+    for (const k of ['body-worn', 'hotspot', 'far-field'] as const) expect(tissues(k)).toEqual(['skin-dry', 'fat', 'muscle']);
+    expect(tissues('extremity')).toEqual(['skin-dry', 'fat', 'muscle', 'bone-cortical']);
+    for (const s of [HEAD_STACK, TRUNK_STACK, LIMB_STACK]) {
+      expect(s.layers[s.layers.length - 1].thicknessM).toBeNull();
+      // every finite layer lies within the chart's 20 mm close-up
+      expect(s.layers.reduce((a, l) => a + (l.thicknessM ?? 0), 0)).toBeLessThan(0.02);
+    }
+    const p = screeningDepthProfile({ frequencyHz: 2.45e9, eirpW: 0.1, separationM: 0.01, usePositionKind: 'body-worn' });
+    expect(p.stackId).toBe('trunk');
+    expect(p.stack.map((l) => l.name)).toEqual(['skin', 'fat', 'muscle']);
+    expect(p.derivation.notes[0]).toMatch(/^Model: Trunk: skin, fat, muscle as flat layers/);
+    expect(p.derivation.notes.join(' ')).toMatch(/typical adult values, common practice/);
   });
-  it('incident S = EIRP/(4πR²): 1 W at 20 cm = 1.989 W/m² (FCC OET Bulletin 65 Eq. (3), worked), and the profile is plane-wave-layers at that S', () => {
-    const p = screeningDepthProfile({ frequencyHz: 2.45e9, eirpW: 1, separationM: 0.2 });
-    expect(p.incidentPowerDensityWPerM2).toBeCloseTo(1.989, 3);
-    expect(p.estimate).toBe('screening');
-    const direct = planeWaveLayers({ frequencyHz: 2.45e9, incidentPowerDensityWPerM2: p.incidentPowerDensityWPerM2, layers: DEFAULT_HEAD_STACK.map((l) => ({ ...l })) });
-    expect(p.surfaceSarWPerKg).toBe(direct.surfaceSarWPerKg);
-    expect(p.sarProfile.length).toBeGreaterThanOrEqual(200);
-    expect(p.derivation.notes.join(' ')).toMatch(/Screening estimate/);
+  it('reactive near-field boundary λ/2π = 19.47 mm at 2.45 GHz and 57.14 mm at 835 MHz (Wheeler 1959; Balanis §4.2)', () => {
+    expect(screeningDepthProfile({ frequencyHz: 2.45e9, eirpW: 0.1, separationM: 0.01, usePositionKind: 'head' }).reactiveNearFieldBoundaryM * 1000).toBeCloseTo(19.47, 2);
+    expect(screeningDepthProfile({ frequencyHz: 835e6, eirpW: 0.1, separationM: 0.01, usePositionKind: 'head' }).reactiveNearFieldBoundaryM * 1000).toBeCloseTo(57.14, 2);
   });
-  it('R is floored at 5 mm: 0 mm gives the 5 mm density, 0.1/(4π·0.005²) = 318.31 W/m² for 0.1 W', () => {
-    const p = screeningDepthProfile({ frequencyHz: 1.8e9, eirpW: 0.1, separationM: 0 });
+  it('switches at d = λ/2π: 19 mm at 2.45 GHz is relative (no W/kg), 20 mm is absolute', () => {
+    const near = screeningDepthProfile({ frequencyHz: 2.45e9, eirpW: 0.1, separationM: 0.019, usePositionKind: 'body-worn' });
+    const far = screeningDepthProfile({ frequencyHz: 2.45e9, eirpW: 0.1, separationM: 0.02, usePositionKind: 'body-worn' });
+    expect(near.scale).toBe('relative');
+    expect(near.absolute).toBeNull();
+    expect(near.scaleReason).toMatch(/within the reactive near field \(λ\/2π = 19.5 mm/);
+    expect(Object.values(near.derivation.result).every((v) => v.unit === '1')).toBe(true);
+    expect(far.scale).toBe('absolute');
+    expect(far.absolute?.averagedSarWPerKg['1g']).toBeGreaterThan(0);
+    expect(far.scaleReason).toMatch(/beyond the reactive near field/);
+  });
+  it('a contact position stays relative even where the 5 mm floor exceeds λ/2π (10 GHz: 4.77 mm)', () => {
+    const p = screeningDepthProfile({ frequencyHz: 10e9, eirpW: 0.01, separationM: 0, usePositionKind: 'hotspot' });
     expect(p.distanceUsedM).toBe(SCREENING_MIN_DISTANCE_M);
-    expect(p.incidentPowerDensityWPerM2).toBeCloseTo(318.31, 2);
+    expect(p.reactiveNearFieldBoundaryM * 1000).toBeCloseTo(4.771, 3);
+    expect(p.scale).toBe('relative');
   });
-  it('SAR is linear in the incident power: doubling EIRP doubles every profile point (linear field equations)', () => {
-    const a = screeningDepthProfile({ frequencyHz: 0.9e9, eirpW: 0.2, separationM: 0.01 });
-    const b = screeningDepthProfile({ frequencyHz: 0.9e9, eirpW: 0.4, separationM: 0.01 });
-    a.sarProfile.forEach((pt, i) => expect(b.sarProfile[i].sarWPerKg).toBeCloseTo(2 * pt.sarWPerKg, 9));
+  it('absolute: S = EIRP/(4πR²), 1 W at 20 cm = 1.989 W/m² (OET 65 Eq. (3)), and the profile is plane-wave-layers on the trunk stack at that S', () => {
+    const p = screeningDepthProfile({ frequencyHz: 2.45e9, eirpW: 1, separationM: 0.2, usePositionKind: 'body-worn' });
+    expect(p.absolute!.incidentPowerDensityWPerM2).toBeCloseTo(1.989, 3);
+    const direct = planeWaveLayers({ frequencyHz: 2.45e9, incidentPowerDensityWPerM2: p.absolute!.incidentPowerDensityWPerM2, layers: TRUNK_STACK.layers.map((l) => ({ ...l })) });
+    expect(p.absolute!.surfaceSarWPerKg).toBe(direct.surfaceSarWPerKg);
+    expect(p.absolute!.sarProfile.length).toBeGreaterThanOrEqual(200);
+    expect(p.estimate).toBe('screening');
   });
-  it('is registered and refuses a frequency outside the tissue model (10 Hz–100 GHz)', () => {
-    expect(runCalculation('screening-depth-profile', { frequencyHz: 2.45e9, eirpW: 0.1, separationM: 0.01 }).ok).toBe(true);
-    const out = runCalculation('screening-depth-profile', { frequencyHz: 200e9, eirpW: 0.1, separationM: 0.01 });
-    expect(out.ok).toBe(false);
+  it('relative profile = local SAR ÷ surface SAR of the same plane-wave-layers solve (1 at the surface), whatever the EIRP', () => {
+    const a = screeningDepthProfile({ frequencyHz: 0.9e9, eirpW: 0.2, separationM: 0.01, usePositionKind: 'extremity' });
+    const b = screeningDepthProfile({ frequencyHz: 0.9e9, eirpW: 0.4, separationM: 0.01, usePositionKind: 'extremity' });
+    const direct = planeWaveLayers({ frequencyHz: 0.9e9, incidentPowerDensityWPerM2: 1, layers: LIMB_STACK.layers.map((l) => ({ ...l })) });
+    expect(a.relativeProfile[0].relativeSar).toBe(1);
+    a.relativeProfile.forEach((pt, i) => {
+      expect(b.relativeProfile[i].relativeSar).toBeCloseTo(pt.relativeSar, 12);
+      expect(pt.relativeSar).toBeCloseTo(direct.sarProfile[i].sarWPerKg / direct.surfaceSarWPerKg, 12);
+    });
+  });
+  it('is registered, needs the kind, and refuses a frequency outside the tissue model (10 Hz–100 GHz)', () => {
+    expect(runCalculation('screening-depth-profile', { frequencyHz: 2.45e9, eirpW: 0.1, separationM: 0.01, usePositionKind: 'head' }).ok).toBe(true);
+    expect(runCalculation('screening-depth-profile', { frequencyHz: 2.45e9, eirpW: 0.1, separationM: 0.01 }).ok).toBe(false);
+    expect(runCalculation('screening-depth-profile', { frequencyHz: 200e9, eirpW: 0.1, separationM: 0.01, usePositionKind: 'head' }).ok).toBe(false);
   });
 });
 

@@ -250,6 +250,10 @@ describe('screening of the demo tracker', () => {
     const row = table.rows.find((r: { transmitterId: string; usePositionId: string }) => r.transmitterId === 'WLAN-2G4' && r.usePositionId === 'belt-clip');
     expect(res.body.basis).toMatchObject({ regime: row.regime, frequencyHz: row.frequencyHz, eirpW: row.powers.eirpMw / 1000, separationM: row.separationM });
     expect(res.body.derivation.inputs.frequencyHz.value).toBe(row.frequencyHz);
+    // A belt clip faces the trunk (skin/fat/muscle), not a head stack; closer than λ/2π only the shape is given (no W/kg).
+    expect(res.body.stack.map((l: { name: string }) => l.name)).toEqual(['skin', 'fat', 'muscle']);
+    expect(res.body.scale).toBe(row.separationM > res.body.reactiveNearFieldBoundaryM ? 'absolute' : 'relative');
+    if (res.body.scale === 'relative') expect(res.body.absolute).toBeNull();
     const ised = await specialist.get(`/api/filings/${list[0].id}/screening/depth-profile?transmitterId=WLAN-2G4&usePositionId=belt-clip&regime=ised`);
     const isedRow = table.rows.find((r: { transmitterId: string; usePositionId: string; regime: string }) => r.transmitterId === 'WLAN-2G4' && r.usePositionId === 'belt-clip' && r.regime === 'ised');
     if (isedRow) expect(ised.body.basis.frequencyHz).toBe(isedRow.frequencyHz);

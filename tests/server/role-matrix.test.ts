@@ -13,7 +13,7 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { SIGNING_STATEMENT } from '../../constants/schemas/review';
-import { DEMO_DOCK_DEVICE } from '../../seeds/demo-filing';
+import { DEMO_DOCK_DEVICE, DEMO_TRACKER } from '../../seeds/demo-filing';
 import { apiRouteTable } from './support/route-table';
 import { createTestApp, OTHER_ORG, seedOtherOrganisation, seedUsers, signIn, type TestApp } from './support/test-app';
 
@@ -23,6 +23,8 @@ type Expected = Record<Caller, number>;
 
 interface Fixture {
   filingId: number;
+  /** The demo tracker (owned by the specialist): archived by the admin, then restored. */
+  trackerFilingId: number;
   engineerUserId: number;
   mailId: number;
 }
@@ -100,6 +102,16 @@ export const MATRIX: Record<string, Row> = {
   'POST /api/filings': { expect: onlyRole('specialist', 422, 422) },
   'POST /api/filings/import': { expect: onlyRole('specialist', 422, 422) },
   'GET /api/filings/:id': { expect: ownOrganisation(200) },
+  // Owner or admin, after the lookup. In caller order: the admin archives (200), then the specialist
+  // (the owner) finds it already archived (409); the restore row puts it back the same way.
+  'POST /api/filings/:id/archive': {
+    expect: { anon: 401, admin: 200, specialist: 409, engineer: 403, approver: 403, otherAdmin: 404, otherSpecialist: 404 },
+    params: (fx) => ({ id: fx.trackerFilingId }),
+  },
+  'POST /api/filings/:id/restore': {
+    expect: { anon: 401, admin: 200, specialist: 409, engineer: 403, approver: 403, otherAdmin: 404, otherSpecialist: 404 },
+    params: (fx) => ({ id: fx.trackerFilingId }),
+  },
   'PUT /api/filings/:id/steps/:step': { expect: onlyRole('specialist', 422, 404) },
   'GET /api/filings/:id/device.json': { expect: ownOrganisation(200) },
   'GET /api/filings/:id/screening': { expect: ownOrganisation(200) },
@@ -184,6 +196,7 @@ beforeAll(async () => {
   const filings = (await agents.get('specialist')!.get('/api/filings')).body.filings as { id: number; device: { model: string } }[];
   fx = {
     filingId: filings.find((f) => f.device.model === DEMO_DOCK_DEVICE.model)!.id,
+    trackerFilingId: filings.find((f) => f.device.model === DEMO_TRACKER.device.model)!.id,
     engineerUserId: users.find((u) => u.email === 'engineer@fieldfile.test')!.id,
     mailId: (await admin.get('/api/outbox')).body.messages[0].id,
   };

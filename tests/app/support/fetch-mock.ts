@@ -7,7 +7,7 @@ export interface MockReply {
   body?: unknown;
 }
 
-type Handler = MockReply | ((init: { body?: unknown }) => MockReply);
+type Handler = MockReply | ((init: { body?: unknown; query: URLSearchParams }) => MockReply);
 
 export interface FetchCall {
   method: string;
@@ -20,12 +20,13 @@ export function installFetchMock(routes: Record<string, Handler>) {
   const calls: FetchCall[] = [];
   const mock = jest.fn(async (input: string, init: RequestInit = {}) => {
     const method = (init.method ?? 'GET').toUpperCase();
-    const path = new URL(input, 'http://localhost').pathname;
+    const url = new URL(input, 'http://localhost');
+    const path = url.pathname;
     const body = typeof init.body === 'string' ? JSON.parse(init.body) : undefined;
     calls.push({ method, path, body, headers: { ...((init.headers ?? {}) as Record<string, string>) } });
     const handler = routes[`${method} ${path}`];
     if (!handler) throw new Error(`Unexpected request in test: ${method} ${path}`);
-    const reply = typeof handler === 'function' ? handler({ body }) : handler;
+    const reply = typeof handler === 'function' ? handler({ body, query: url.searchParams }) : handler;
     return {
       ok: reply.status >= 200 && reply.status < 300,
       status: reply.status,

@@ -84,6 +84,8 @@ export const GOLDEN_SCREENING: Record<string, ScreeningInputRaw> = {
 
 /** Depth profiles (calc/screening/depth-profile.ts) at fixed figures. */
 export const GOLDEN_DEPTH = {
-  'wifi-5mm': { frequencyHz: 2.45e9, eirpW: 0.0178, separationM: 0.005 },
-  'lte-20mm': { frequencyHz: 835e6, eirpW: 0.2, separationM: 0.02 },
-};
+  'wifi-5mm-head': { frequencyHz: 2.45e9, eirpW: 0.0178, separationM: 0.005, usePositionKind: 'head' },
+  'lte-20mm-body': { frequencyHz: 835e6, eirpW: 0.2, separationM: 0.02, usePositionKind: 'body-worn' },
+  'wifi-40mm-hotspot': { frequencyHz: 2.45e9, eirpW: 0.1, separationM: 0.04, usePositionKind: 'hotspot' },
+  'bt-30mm-limb': { frequencyHz: 2.44e9, eirpW: 0.005, separationM: 0.03, usePositionKind: 'extremity' },
+} as const;
