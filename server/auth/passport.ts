@@ -5,10 +5,10 @@
  * a deactivation takes effect at once.
  */
 import passport, { type PassportStatic } from 'passport';
-
-export type Passport = InstanceType<PassportStatic['Authenticator']>;
 import type { Db } from '../../db/client';
 import { loadSessionUser } from '../services/users-service';
+
+export type Passport = InstanceType<PassportStatic['Authenticator']>;
 
 interface SerializedUser {
   id: number;
