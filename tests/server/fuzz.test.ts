@@ -29,7 +29,14 @@ const RUNS_PER_ROUTE = 45;
 /** Routes that take no JSON (multipart uploads, the event stream) or end the caller's session. */
 const SKIP = new Set(['GET /api/jobs/:id/events', 'GET /api/filings/:id/versions/:n/package', 'GET /api/filings/:id/evidence/:evidenceId/file']);
 /** Where the caller should sign in as nobody: the sign-in and password routes. */
-const ANONYMOUS = new Set(['POST /api/auth/login', 'POST /api/auth/logout', 'POST /api/auth/set-password', 'POST /api/auth/accept-invitation', 'POST /api/auth/forgot-password', 'GET /api/auth/password-token/:token']);
+const ANONYMOUS = new Set([
+  'POST /api/auth/login',
+  'POST /api/auth/logout',
+  'POST /api/auth/set-password',
+  'POST /api/auth/accept-invitation',
+  'POST /api/auth/forgot-password',
+  'GET /api/auth/password-token/:token',
+]);
 const UNTRACKED_TABLES = new Set(['sessions', 'mail_messages', 'sqlite_sequence']);
 /** What keeping a step's draft writes: the draft row and the filing's last-changed time. */
 const DRAFT_WRITES = new Set(['INSERT step_drafts', 'UPDATE step_drafts', 'DELETE step_drafts', 'UPDATE filings']);
@@ -40,17 +47,62 @@ type Agent = ReturnType<typeof request.agent>;
 
 /** Field names used across the API, so random objects often hit real fields. */
 const FIELD_NAMES = [
-  'email', 'password', 'currentPassword', 'newPassword', 'name', 'roles', 'token', 'step', 'data', 'message', 'body', 'statement', 'sha256', 'model', 'brand', 'hvin', 'fccId',
-  'icId', 'markets', 'regime', 'transmitters', 'antennas', 'antennaId', 'usePositions', 'separations', 'separationM', 'frequencyHz', 'frequenciesHz', 'powerDbm', 'tuneUpDbm',
-  'gainDbi', 'dutyCycle', 'id', 'ids', 'measurements', 'sarWPerKg', 'rows', 'modules', 'groups', 'members', 'category', 'kind', 'value', 'unit', 'note', 'from', 'to',
+  'email',
+  'password',
+  'currentPassword',
+  'newPassword',
+  'name',
+  'roles',
+  'token',
+  'step',
+  'data',
+  'message',
+  'body',
+  'statement',
+  'sha256',
+  'model',
+  'brand',
+  'hvin',
+  'fccId',
+  'icId',
+  'markets',
+  'regime',
+  'transmitters',
+  'antennas',
+  'antennaId',
+  'usePositions',
+  'separations',
+  'separationM',
+  'frequencyHz',
+  'frequenciesHz',
+  'powerDbm',
+  'tuneUpDbm',
+  'gainDbi',
+  'dutyCycle',
+  'id',
+  'ids',
+  'measurements',
+  'sarWPerKg',
+  'rows',
+  'modules',
+  'groups',
+  'members',
+  'category',
+  'kind',
+  'value',
+  'unit',
+  'note',
+  'from',
+  'to',
 ];
 
-const numbers = fc.oneof(
-  fc.integer(),
-  fc.double({ noNaN: true, noDefaultInfinity: true }),
-  fc.constantFrom(0, -0, -1, 1, 1e308, -1e308, 5e-324, 2 ** 53, 1e9, 2.4e9, 0.5, 100),
+const numbers = fc.oneof(fc.integer(), fc.double({ noNaN: true, noDefaultInfinity: true }), fc.constantFrom(0, -0, -1, 1, 1e308, -1e308, 5e-324, 2 ** 53, 1e9, 2.4e9, 0.5, 100));
+const strings = fc.oneof(
+  fc.string({ maxLength: 40 }),
+  fc.string({ unit: 'grapheme', maxLength: 20 }),
+  fc.string({ unit: 'binary', maxLength: 10 }),
+  fc.constantFrom('', ' ', '0x1', '1e3', 'NaN', '-1', 'null', '__proto__', 'constructor', '<script>', "'; drop table users; --", 'a'.repeat(5000)),
 );
-const strings = fc.oneof(fc.string({ maxLength: 40 }), fc.string({ unit: 'grapheme', maxLength: 20 }), fc.string({ unit: 'binary', maxLength: 10 }), fc.constantFrom('', ' ', '0x1', '1e3', 'NaN', '-1', 'null', '__proto__', 'constructor', '<script>', "'; drop table users; --", 'a'.repeat(5000)));
 const leaf = fc.oneof(numbers, strings, fc.boolean(), fc.constant(null));
 const { tree } = fc.letrec<{ tree: unknown }>((tie) => ({
   tree: fc.oneof(
@@ -140,7 +192,9 @@ const agents = new Map<string, Agent>();
 function installChangeCounter(t: TestApp): string[] {
   const sqlite = t.handle.sqlite;
   sqlite.exec('CREATE TEMP TABLE fuzz_changes (id INTEGER PRIMARY KEY, change TEXT NOT NULL);');
-  const tables = (sqlite.prepare("SELECT name FROM sqlite_master WHERE type = 'table' AND name NOT LIKE 'sqlite_%' AND name NOT LIKE '__drizzle%'").pluck().all() as string[]).filter((n) => !UNTRACKED_TABLES.has(n));
+  const tables = (sqlite.prepare("SELECT name FROM sqlite_master WHERE type = 'table' AND name NOT LIKE 'sqlite_%' AND name NOT LIKE '__drizzle%'").pluck().all() as string[]).filter(
+    (n) => !UNTRACKED_TABLES.has(n),
+  );
   for (const table of tables) {
     for (const op of ['INSERT', 'UPDATE', 'DELETE']) {
       sqlite.exec(`CREATE TEMP TRIGGER "fuzz_${table}_${op}" AFTER ${op} ON main."${table}" BEGIN INSERT INTO temp.fuzz_changes (change) VALUES ('${op} ${table}'); END;`);
@@ -157,7 +211,8 @@ function checksum(tables: string[]): string {
   const hash = createHash('sha256');
   for (const table of tables) {
     hash.update(table);
-    for (const row of t.handle.sqlite.prepare(`SELECT * FROM "${table}"`).raw().iterate()) hash.update(JSON.stringify(row, (_k, v) => (Buffer.isBuffer(v) ? v.toString('hex') : typeof v === 'bigint' ? String(v) : v)));
+    for (const row of t.handle.sqlite.prepare(`SELECT * FROM "${table}"`).raw().iterate())
+      hash.update(JSON.stringify(row, (_k, v) => (Buffer.isBuffer(v) ? v.toString('hex') : typeof v === 'bigint' ? String(v) : v)));
   }
   return hash.digest('hex');
 }
@@ -169,11 +224,14 @@ const paramsFor = (): Record<string, string | number> => ({ id: filingId, step: 
 function send(agent: Agent, method: string, url: string, payload: unknown) {
   const m = method.toLowerCase() as 'get' | 'post' | 'put' | 'patch' | 'delete';
   if (method === 'GET') {
-    const query = payload && typeof payload === 'object' && !Array.isArray(payload) ? Object.fromEntries(Object.entries(payload).map(([k, v]) => [k, typeof v === 'string' ? v : JSON.stringify(v)])) : {};
+    const query =
+      payload && typeof payload === 'object' && !Array.isArray(payload) ? Object.fromEntries(Object.entries(payload).map(([k, v]) => [k, typeof v === 'string' ? v : JSON.stringify(v)])) : {};
     return agent.get(url).query(query);
   }
   // Raw JSON text, so top-level strings, numbers and null are sent as they are.
-  return agent[m](url).set('Content-Type', 'application/json').send(JSON.stringify(payload) ?? 'null');
+  return agent[m](url)
+    .set('Content-Type', 'application/json')
+    .send(JSON.stringify(payload) ?? 'null');
 }
 
 const targets: { key: string; method: string; url: string; arbitrary: fc.Arbitrary<unknown> }[] = [];
@@ -250,28 +308,32 @@ describe('fuzzing every JSON route', () => {
       const agent = caller.get(target.key)!;
       const before = checksum(tables);
       let accepted = 0;
-      await fc.assert(
-        fc.asyncProperty(target.arbitrary, async (payload) => {
-          payloads++;
-          const changesBefore = changeCount();
-          const res = await send(agent, target.method, target.url, payload);
-          const text = res.text ?? '';
-          const shown = `${target.key} ${JSON.stringify(payload)?.slice(0, 300)} → ${res.status} ${text.slice(0, 300)}`;
-          if (res.status >= 500) throw new Error(`5xx: ${shown}`);
-          if (STACK_TRACE.test(text)) throw new Error(`stack trace in the answer: ${shown}`);
-          // A wizard step keeps invalid input as its draft (by design: the 422 says so and gives draftSavedAt); nothing else may change.
-          const keptDraft = res.status === 422 && typeof res.body?.draftSavedAt === 'string';
-          if (keptDraft) {
-            const other = changesSince(changesBefore).split(', ').filter((c) => c && !DRAFT_WRITES.has(c));
-            if (other.length) throw new Error(`a step refused as a draft changed more than its draft (${other.join(', ')}): ${shown}`);
-            accepted++;
-          } else if (res.status >= 400) {
-            if (changeCount() !== changesBefore) throw new Error(`a refused payload changed stored data (${changesSince(changesBefore)}): ${shown}`);
-            if (res.type === 'application/json' && !(typeof res.body?.error?.message === 'string' && res.body.error.message.length > 0)) throw new Error(`a refusal without a message: ${shown}`);
-          } else accepted++;
-        }),
-        { seed: SEED + i, numRuns: RUNS_PER_ROUTE, endOnFailure: true },
-      ).catch((e: Error) => problems.push(((e.cause as Error | undefined)?.message ?? e.message).slice(0, 800)));
+      await fc
+        .assert(
+          fc.asyncProperty(target.arbitrary, async (payload) => {
+            payloads++;
+            const changesBefore = changeCount();
+            const res = await send(agent, target.method, target.url, payload);
+            const text = res.text ?? '';
+            const shown = `${target.key} ${JSON.stringify(payload)?.slice(0, 300)} → ${res.status} ${text.slice(0, 300)}`;
+            if (res.status >= 500) throw new Error(`5xx: ${shown}`);
+            if (STACK_TRACE.test(text)) throw new Error(`stack trace in the answer: ${shown}`);
+            // A wizard step keeps invalid input as its draft (by design: the 422 says so and gives draftSavedAt); nothing else may change.
+            const keptDraft = res.status === 422 && typeof res.body?.draftSavedAt === 'string';
+            if (keptDraft) {
+              const other = changesSince(changesBefore)
+                .split(', ')
+                .filter((c) => c && !DRAFT_WRITES.has(c));
+              if (other.length) throw new Error(`a step refused as a draft changed more than its draft (${other.join(', ')}): ${shown}`);
+              accepted++;
+            } else if (res.status >= 400) {
+              if (changeCount() !== changesBefore) throw new Error(`a refused payload changed stored data (${changesSince(changesBefore)}): ${shown}`);
+              if (res.type === 'application/json' && !(typeof res.body?.error?.message === 'string' && res.body.error.message.length > 0)) throw new Error(`a refusal without a message: ${shown}`);
+            } else accepted++;
+          }),
+          { seed: SEED + i, numRuns: RUNS_PER_ROUTE, endOnFailure: true },
+        )
+        .catch((e: Error) => problems.push(((e.cause as Error | undefined)?.message ?? e.message).slice(0, 800)));
       if (accepted === 0 && checksum(tables) !== before) problems.push(`${target.key}: every payload was refused, yet the stored data changed`);
     }
     expect(problems).toEqual([]);
