@@ -12,10 +12,9 @@
  * 4th ed., Wiley 2012, §1.4 and Table 1.1 (section/table numbers from memory).
  */
 import { z } from 'zod';
-import { defineCalculation } from '../types';
+import { defineCalculation, q } from '../types';
 import { complex, div, sqrt, toJson, type Complex } from './complex';
 import { CONSTANTS_SOURCE, EPSILON0_F_PER_M, MU0_H_PER_M } from './constants';
-import { q } from '../types';
 
 export const MEDIUM_SOURCES = [
   'C. A. Balanis, Advanced Engineering Electromagnetics, 2nd ed. (Wiley, 2012), ch. 4: plane waves in lossy media (chapter from memory)',

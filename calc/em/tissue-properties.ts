@@ -11,10 +11,9 @@
  * Mass densities: IT'IS tissue database v4.x averages.
  */
 import { z } from 'zod';
-import { CalcRangeError, defineCalculation } from '../types';
+import { CalcRangeError, defineCalculation, q } from '../types';
 import { add, complex, div, powReal, type Complex } from './complex';
 import { CONSTANTS_SOURCE, EPSILON0_F_PER_M } from './constants';
-import { q } from '../types';
 
 export const COLE_COLE_MIN_FREQUENCY_HZ = 10;
 export const COLE_COLE_MAX_FREQUENCY_HZ = 100e9;

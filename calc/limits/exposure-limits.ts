@@ -143,7 +143,6 @@ const icnirp1998Occupational: LimitTable = {
   ]),
 };
 
-const TABLE5_MEMORY = 'ICNIRP 2020 Table 5 values are from memory (ICNIRP 2020 Table 5): verify before release.';
 const NA_2020 = 'ICNIRP 2020 prints NA for this quantity in this range.';
 // ICNIRP 2020 Table 5, whole-body exposure, averaged over 30 min (from memory).
 const icnirp2020WholeBodyOccupational: LimitTable = {
@@ -199,7 +198,6 @@ const icnirp2020LocalGeneral: LimitTable = {
 // RSS-102 Issue 5 Tables 4/5 (= Safety Code 6 (2015) Tables 5/6), RSS-102 Issue 5 Tables 4–5, from memory.
 // Averaging: 6 min up to 15 GHz, 616000/f^1.2 min above (f in MHz).
 const isedAveraging = fn((f) => (f <= 15_000 ? 6 : 616_000 / f ** 1.2), '6 (f ≤ 15 GHz); 616000/f^1.2 (f > 15 GHz)');
-const ISED_MEMORY = 'RSS-102 Issue 5 reference levels (Tables 4–5) are from memory: verify before release.';
 const NO_S_ISED = 'RSS-102 gives no power-density reference level below 10 MHz.';
 const isedGeneral: LimitTable = {
   source: 'RSS-102 Issue 5 Table 4, reference levels for the general public (uncontrolled environment) = Safety Code 6 (2015) Table 5',

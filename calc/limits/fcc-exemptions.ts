@@ -6,12 +6,10 @@
  * - (C) MPE-based ERP threshold, Table 1 to §1.1307(b)(3)(i)(C), R ≥ λ/2π (Table 1 to 47 CFR §1.1307(b)(3)(i)(C), secondary source).
  */
 import { z } from 'zod';
-import { defineCalculation, type Derivation } from '../types';
-import { q } from '../types';
+import { CalcRangeError, defineCalculation, q, type Derivation } from '../types';
 import { SPEED_OF_LIGHT_M_PER_S } from '../em/constants';
 import { formatHz, formatM, inInterval, requireInRange, type Interval } from './range';
 import { compareToThreshold, type Verdict } from './verdict';
-import { CalcRangeError } from '../types';
 
 // ---------------------------------------------------------------------------------------------
 // (B) SAR-based exemption threshold

@@ -4,9 +4,8 @@
  */
 import { Controller, type Control, type FieldPath, type FieldValues } from 'react-hook-form';
 import { InputBox } from '../ui/input-box';
-import { toDisplay } from '../ui/number-field';
+import { NumberField, toDisplay } from '../ui/number-field';
 import { ReadValue } from '../ui/read-value';
-import { NumberField } from '../ui/number-field';
 import { SelectField } from '../ui/select-field';
 
 interface Common<T extends FieldValues> {

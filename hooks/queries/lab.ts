@@ -7,10 +7,10 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
 import type { LabResults } from '../../calc/lab/lab-results';
 import type { ImportMapping, ImportPreview } from '../../constants/schemas/lab';
-
-export type { ImportPreview };
 import { ApiProblem, apiOrThrow } from '../api-client';
 import { filingKeys } from './filings';
+
+export type { ImportPreview };
 
 export const labKeys = {
   all: (id: number) => [...filingKeys.all, 'lab', id] as const,

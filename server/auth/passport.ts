@@ -5,8 +5,6 @@
  * empties (server/read-caches.ts), so a role change or a deactivation takes effect at once.
  */
 import passport, { type PassportStatic } from 'passport';
-
-export type Passport = InstanceType<PassportStatic['Authenticator']>;
 import type { Db } from '../../db/client';
 import type { ReadCaches } from '../read-caches';
 import type { SessionUser } from '../../constants/schemas/auth';
@@ -21,6 +19,8 @@ function frozen(user: SessionUser): SessionUser {
   Object.freeze(user.organisation);
   return Object.freeze(user);
 }
+
+export type Passport = InstanceType<PassportStatic['Authenticator']>;
 
 interface SerializedUser {
   id: number;

@@ -8,9 +8,12 @@ process.on('disconnect', () => process.exit(1));
 process.once('message', (req: RenderRequest) => {
   const render = async (): Promise<Uint8Array> => {
     if (req.document === 'pdf') {
+      // Loaded lazily so a DOCX render does not pay for the PDF stack (and the other way round).
+      // eslint-disable-next-line @typescript-eslint/no-require-imports
       const { renderExhibitPdf } = require('../../templates/exhibit/pdf') as typeof import('../../templates/exhibit/pdf');
       return renderExhibitPdf(req.model, { producer: req.producer });
     }
+    // eslint-disable-next-line @typescript-eslint/no-require-imports
     const { renderExhibitDocx } = require('../../templates/exhibit/docx') as typeof import('../../templates/exhibit/docx');
     return renderExhibitDocx(req.model, { producer: req.producer });
   };

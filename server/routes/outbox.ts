@@ -7,7 +7,7 @@ import type { AppContext } from '../context';
 import { notFound } from '../http-error';
 import { requireRole } from '../middleware/auth';
 import { parseIdParam } from '../middleware/validate';
-import { findOrganisationMail, listOrganisationMail, type MailRow } from '../repos/mail-repo';
+import { getOutboxMessage, listOutbox, type MailRow } from '../services/outbox-service';
 
 const LIST_LIMIT = 200;
 
@@ -28,11 +28,10 @@ export function outboxRoutes({ db, config }: AppContext): Router {
     next(config.mail.smtp ? notFound('There is no outbox: mail goes out through the configured SMTP server and is not kept.') : undefined);
   });
   router.get('/', (req, res) => {
-    res.json({ messages: listOrganisationMail(db, req.user!.organisation.id, LIST_LIMIT).map(toDto) });
+    res.json({ messages: listOutbox(db, req.user!.organisation.id, LIST_LIMIT).map(toDto) });
   });
   router.get('/:id', (req, res) => {
-    const row = findOrganisationMail(db, req.user!.organisation.id, parseIdParam(req.params.id, 'No such message.'));
-    if (!row) throw notFound('No such message.');
+    const row = getOutboxMessage(db, req.user!.organisation.id, parseIdParam(req.params.id, 'No such message.'));
     res.json({ message: toDto(row) });
   });
   return router;

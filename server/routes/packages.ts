@@ -11,9 +11,8 @@ import multer from 'multer';
 import { z } from 'zod';
 import { requireAuth } from '../middleware/auth';
 import { parseWith } from '../middleware/validate';
-import { HttpError, notFound, unprocessable } from '../http-error';
+import { HttpError, unprocessable } from '../http-error';
 import * as service from '../services/package-service';
-import * as jobsRepo from '../repos/jobs-repo';
 import type { JobStatus } from '../jobs/queue';
 
 const zId = z.coerce.number({ error: 'The filing id must be a number.' }).int().positive();
@@ -66,8 +65,7 @@ export function packageRoutes(deps: service.PackageDeps): Router {
 
   router.get('/jobs/:id/events', requireAuth, (req, res) => {
     const id = parseWith(zJobId, req.params.id);
-    const row = jobsRepo.findJob(deps.db, id);
-    if (!row || row.organisationId !== req.user!.organisation.id) throw notFound('No such job in your organisation.');
+    service.requireOrganisationJob(deps, actorOf(req.user!), id);
     res.set({ 'Content-Type': 'text/event-stream', 'Cache-Control': 'no-store', Connection: 'keep-alive', 'X-Accel-Buffering': 'no' });
     res.flushHeaders();
     const send = (s: JobStatus) => {

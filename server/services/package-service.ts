@@ -203,6 +203,13 @@ export function verifyHash(deps: PackageDeps, actor: PackageActor, sha256: strin
   };
 }
 
+/** A job of the actor's organisation (another organisation's job is as good as missing: 404). */
+export function requireOrganisationJob(deps: PackageDeps, actor: PackageActor, jobId: number) {
+  const row = jobsRepo.findJob(deps.db, jobId);
+  if (!row || row.organisationId !== actor.organisationId) throw notFound('No such job in your organisation.');
+  return row;
+}
+
 export const VERIFY_MAX_BYTES = 512 * 1024 * 1024;
 
 /** Checks an uploaded zip: the whole file's hash first, then the manifest and every file in it. */

@@ -5,9 +5,8 @@
  */
 import { createHash } from 'node:crypto';
 import { gzipSync } from 'node:zlib';
-import { and, desc, eq, ne } from 'drizzle-orm';
 import type { Db } from '../../db/client';
-import { screeningResults } from '../../db/schema';
+import { findStoredScreening, replaceStoredScreening } from '../repos/screening-repo';
 import { ENGINE_VERSION, RULE_SET_VERSION } from '../../calc/versions';
 import { antennasOf, screeningInput, type ScreeningInput, type ScreeningRegime } from '../../calc/screening/input';
 import { SCREENING_CAUTIONS, screenParsed } from '../../calc/screening/screen';
@@ -114,14 +113,7 @@ export function screeningResponseForFiling(db: Db, cache: ScreeningCache, actor:
 
 /** A signed version's screening: the result stored at signing (for this input if there are several). */
 function storedResultOf(db: Db, versionId: number, inputSha256: string) {
-  const columns = { output: screeningResults.output, computedAt: screeningResults.computedAt };
-  return (
-    db
-      .select(columns)
-      .from(screeningResults)
-      .where(and(eq(screeningResults.versionId, versionId), eq(screeningResults.inputSha256, inputSha256), eq(screeningResults.engineVersion, ENGINE_VERSION), eq(screeningResults.ruleSetVersion, RULE_SET_VERSION)))
-      .get() ?? db.select(columns).from(screeningResults).where(eq(screeningResults.versionId, versionId)).orderBy(desc(screeningResults.id)).get()
-  );
+  return findStoredScreening(db, { versionId, inputSha256, engineVersion: ENGINE_VERSION, ruleSetVersion: RULE_SET_VERSION });
 }
 
 /**
@@ -176,11 +168,5 @@ export function depthProfileOf(input: ScreeningInput, q: { transmitterId: string
 export function storeScreeningOf(db: Db, versionId: number, input: ScreeningInput): void {
   const inputJson = JSON.stringify(input);
   const inputSha256 = createHash('sha256').update(inputJson).digest('hex');
-  db.delete(screeningResults)
-    .where(and(eq(screeningResults.versionId, versionId), ne(screeningResults.inputSha256, inputSha256)))
-    .run();
-  db.insert(screeningResults)
-    .values({ versionId, engineVersion: ENGINE_VERSION, ruleSetVersion: RULE_SET_VERSION, inputSha256, input: inputJson, output: JSON.stringify(screenParsed(input)) })
-    .onConflictDoNothing()
-    .run();
+  replaceStoredScreening(db, { versionId, inputSha256, engineVersion: ENGINE_VERSION, ruleSetVersion: RULE_SET_VERSION }, inputJson, JSON.stringify(screenParsed(input)));
 }

@@ -22,6 +22,7 @@ const FILING: FilingDetail = {
   updatedAt: '2026-03-01T10:00:00.000Z',
   createdAt: '2026-03-01T10:00:00.000Z',
   editable: true,
+  archivedAt: null,
   steps: [],
   data: {
     device: zDeviceStep.parse({ name: 'Kestrel handset', model: 'KH-2', applicant: 'Northfold Telemetry', productType: 'phone' }),

@@ -102,7 +102,6 @@ async function renameAndRemove(s: Session, size: 'phone' | 'desktop') {
   expect(after).toEqual([['LTE-B12', 'WLAN-5G', 'BT-LE']]);
 }
 
-// eslint-disable-next-line @typescript-eslint/no-explicit-any
 type StoredFiling = any;
 
 /** Polls the filing until `ok` holds for its stored data (autosave is debounced). */

@@ -4,7 +4,6 @@
  * 100-page test report (pdfjs-dist text, compared with the filing's numbers) in ≤ 3 s.
  */
 import http from 'node:http';
-import path from 'node:path';
 import type { BenchCase } from '../harness';
 import { startBenchServer } from '../bench-server';
 import { makePdf } from '../../../seeds/documents';
