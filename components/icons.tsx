@@ -86,14 +86,7 @@ const drawings = {
   chevronLeft: (c) => <Path d="m14.5 6-6 6 6 6" stroke={c} fill="none" strokeLinecap="round" strokeLinejoin="round" />,
   chevronDown: (c) => <Path d="m6 9.5 6 6 6-6" stroke={c} fill="none" strokeLinecap="round" strokeLinejoin="round" />,
   plus: (c) => <Path d="M12 5v14M5 12h14" stroke={c} fill="none" strokeLinecap="round" />,
-  link: (c) => (
-    <Path
-      d="M10.5 13.5a3.5 3.5 0 0 0 5 0l3-3a3.5 3.5 0 0 0-5-5l-1 1M13.5 10.5a3.5 3.5 0 0 0-5 0l-3 3a3.5 3.5 0 0 0 5 5l1-1"
-      stroke={c}
-      fill="none"
-      strokeLinecap="round"
-    />
-  ),
+  link: (c) => <Path d="M10.5 13.5a3.5 3.5 0 0 0 5 0l3-3a3.5 3.5 0 0 0-5-5l-1 1M13.5 10.5a3.5 3.5 0 0 0-5 0l-3 3a3.5 3.5 0 0 0 5 5l1-1" stroke={c} fill="none" strokeLinecap="round" />,
 } satisfies Record<string, Drawing>;
 
 export type IconName = keyof typeof drawings;

@@ -230,10 +230,7 @@ export function bandRangeWarnings(minMhz: number, maxMhz: number, bandLabel = ''
     return [`${cellName(named)} transmits at ${fmt(named.ulMinMhz)}–${fmt(named.ulMaxMhz)} MHz (${named.source}); this range reaches outside it${dl}.`];
   }
   const transmit = BAND_PRESETS.map((b): [number, number] => [b.ulMinMhz, b.ulMaxMhz]);
-  const downlinks = [
-    ...BAND_PRESETS.filter((b) => b.dlMinMhz !== undefined).map((b) => ({ band: cellName(b), dlMinMhz: b.dlMinMhz!, dlMaxMhz: b.dlMaxMhz! })),
-    ...DOWNLINK_ONLY,
-  ];
+  const downlinks = [...BAND_PRESETS.filter((b) => b.dlMinMhz !== undefined).map((b) => ({ band: cellName(b), dlMinMhz: b.dlMinMhz!, dlMaxMhz: b.dlMaxMhz! })), ...DOWNLINK_ONLY];
   const outside = uncovered(minMhz, maxMhz, transmit);
   const whole = outside.length === 1 && outside[0][0] === minMhz && outside[0][1] === maxMhz;
   if (whole) {

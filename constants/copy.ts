@@ -12,4 +12,3 @@ export const ROLE_ABILITIES: Record<Role, string> = {
   engineer: 'Read every filing and its screening; work on the lab steps a filing opens to engineers.',
   approver: 'Read every filing and its screening; review and sign the versions sent for approval.',
 };
-

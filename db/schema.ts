@@ -134,7 +134,6 @@ export const mailMessages = sqliteTable(
 // Filings: one device, one filing, numbered versions. The wizard's data belongs to a version so
 // that a signed version stays frozen while the next one is edited.
 
-
 export const devices = sqliteTable(
   'devices',
   {
@@ -522,9 +521,7 @@ export const labUncertaintyComponents = sqliteTable(
 );
 
 /** Each distinct lab-results computation for a version, with the engine and rule-set versions. */
-export const labResults = sqliteTable('lab_results', computedResultColumns(), (t) => [
-  uniqueIndex('lab_results_version_input').on(t.versionId, t.inputSha256, t.engineVersion, t.ruleSetVersion),
-]);
+export const labResults = sqliteTable('lab_results', computedResultColumns(), (t) => [uniqueIndex('lab_results_version_input').on(t.versionId, t.inputSha256, t.engineVersion, t.ruleSetVersion)]);
 
 /** The column mapping an organisation last used for a spreadsheet with a given header row. */
 export const labImportMappings = sqliteTable(
@@ -702,7 +699,9 @@ export const jobs = sqliteTable(
       .references(() => organisations.id),
     /** JSON: what the job works on. */
     payload: text('payload', { mode: 'json' }).notNull().$type<Record<string, unknown>>(),
-    state: text('state', { enum: ['queued', 'running', 'done', 'failed'] }).notNull().default('queued'),
+    state: text('state', { enum: ['queued', 'running', 'done', 'failed'] })
+      .notNull()
+      .default('queued'),
     stage: text('stage').notNull().default('queued'),
     percent: integer('percent').notNull().default(0),
     /** JSON: what a finished job produced. */

@@ -65,10 +65,7 @@ const FALLBACK_MESSAGES: Record<number, string> = {
   404: 'Not found.',
 };
 
-export async function api<S extends z.ZodType | undefined = undefined>(
-  path: string,
-  options: RequestOptions<S> = {},
-): Promise<ApiResult<Parsed<S>>> {
+export async function api<S extends z.ZodType | undefined = undefined>(path: string, options: RequestOptions<S> = {}): Promise<ApiResult<Parsed<S>>> {
   const { method = 'GET', body, schema, signal, headers = {} } = options;
   let response: Response;
   try {
@@ -121,10 +118,7 @@ export async function api<S extends z.ZodType | undefined = undefined>(
 }
 
 /** For query and mutation functions: the data, or a thrown ApiProblem. */
-export async function apiOrThrow<S extends z.ZodType | undefined = undefined>(
-  path: string,
-  options: RequestOptions<S> = {},
-): Promise<Parsed<S>> {
+export async function apiOrThrow<S extends z.ZodType | undefined = undefined>(path: string, options: RequestOptions<S> = {}): Promise<Parsed<S>> {
   const result = await api(path, options);
   if (!result.ok) throw result.problem;
   return result.data;

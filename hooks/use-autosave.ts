@@ -178,7 +178,13 @@ export function useAutosave<T extends FieldValues>({
       lastSent.current = body;
       if (conflicted.current) return;
       const ifMatch: Record<string, string> = basedOn.current ? { 'If-Match': `"${basedOn.current}"` } : {};
-      void fetch(stepUrl(filingId, step), { method: 'PUT', body, keepalive: true, credentials: 'include', headers: { 'Content-Type': 'application/json', Accept: 'application/json', ...ifMatch } }).catch(() => undefined);
+      void fetch(stepUrl(filingId, step), {
+        method: 'PUT',
+        body,
+        keepalive: true,
+        credentials: 'include',
+        headers: { 'Content-Type': 'application/json', Accept: 'application/json', ...ifMatch },
+      }).catch(() => undefined);
     };
     const web = Platform.OS === 'web' && typeof window !== 'undefined';
     if (web) window.addEventListener('pagehide', onPageHide);

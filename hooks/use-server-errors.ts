@@ -5,11 +5,7 @@
 import type { FieldPath, FieldValues, UseFormSetError } from 'react-hook-form';
 import { asProblem } from './api-client';
 
-export function applyServerErrors<T extends FieldValues>(
-  error: unknown,
-  setError: UseFormSetError<T>,
-  formFields: readonly FieldPath<T>[],
-): void {
+export function applyServerErrors<T extends FieldValues>(error: unknown, setError: UseFormSetError<T>, formFields: readonly FieldPath<T>[]): void {
   const problem = asProblem(error);
   let placed = 0;
   for (const [path, message] of Object.entries(problem.fields ?? {})) {

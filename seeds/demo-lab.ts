@@ -6,7 +6,22 @@
  */
 import type { BudgetComponent, Instrument, LiquidCheck, MeasurementInput, SystemCheck } from '../constants/schemas/lab';
 
-type Row = [tx: string, position: string, testPosition: string, channel: string, mhz: number, sepMm: number, powerDbm: number, sar1g: number | null, sar10g: number | null, drift: number, date: string, peak: [number, number], liquid: string, system: string];
+type Row = [
+  tx: string,
+  position: string,
+  testPosition: string,
+  channel: string,
+  mhz: number,
+  sepMm: number,
+  powerDbm: number,
+  sar1g: number | null,
+  sar10g: number | null,
+  drift: number,
+  date: string,
+  peak: [number, number],
+  liquid: string,
+  system: string,
+];
 
 const ROWS: Row[] = [
   ['LTE-B12', 'belt-clip', 'back, 10 mm', '23095', 707.5, 10, 23.6, 0.62, 0.41, -0.04, '2026-11-16', [12, 35], 'L-750', 'S-750'],
@@ -24,28 +39,30 @@ const ROWS: Row[] = [
   ['WLAN-5G', 'in-hand', 'back, touching', '100', 5500, 0, 13.2, null, 0.41, -0.05, '2026-11-18', [32, 16], 'L-5500', 'S-5500'],
 ];
 
-export const DEMO_MEASUREMENTS: MeasurementInput[] = ROWS.map(([transmitterId, usePositionId, testPosition, channel, mhz, sepMm, powerDbm, sar1g, sar10g, drift, testDate, peak, liquid, system], i) => ({
-  id: `M${String(i + 1).padStart(2, '0')}`,
-  transmitterId,
-  usePositionId,
-  testPosition,
-  channel,
-  frequencyHz: mhz * 1e6,
-  testSeparationM: sepMm / 1000,
-  measuredPowerDbm: powerDbm,
-  // Wi-Fi scans at the transmitter's own duty cycle: no duty-cycle scaling.
-  testDutyCycle: transmitterId === 'WLAN-2G4' ? 0.98 : transmitterId === 'WLAN-5G' ? 0.95 : 1,
-  sar1gWPerKg: sar1g,
-  sar10gWPerKg: sar10g,
-  // LTE Band 2 body-worn is at 0.91 W/kg (≥ 0.80): the lab repeated it once.
-  repeatSarWPerKg: transmitterId === 'LTE-B2' && usePositionId === 'belt-clip' ? [0.88] : [],
-  driftDb: drift,
-  testDate,
-  peakXMm: peak[0],
-  peakYMm: peak[1],
-  liquidCheckId: liquid,
-  systemCheckId: system,
-}));
+export const DEMO_MEASUREMENTS: MeasurementInput[] = ROWS.map(
+  ([transmitterId, usePositionId, testPosition, channel, mhz, sepMm, powerDbm, sar1g, sar10g, drift, testDate, peak, liquid, system], i) => ({
+    id: `M${String(i + 1).padStart(2, '0')}`,
+    transmitterId,
+    usePositionId,
+    testPosition,
+    channel,
+    frequencyHz: mhz * 1e6,
+    testSeparationM: sepMm / 1000,
+    measuredPowerDbm: powerDbm,
+    // Wi-Fi scans at the transmitter's own duty cycle: no duty-cycle scaling.
+    testDutyCycle: transmitterId === 'WLAN-2G4' ? 0.98 : transmitterId === 'WLAN-5G' ? 0.95 : 1,
+    sar1gWPerKg: sar1g,
+    sar10gWPerKg: sar10g,
+    // LTE Band 2 body-worn is at 0.91 W/kg (≥ 0.80): the lab repeated it once.
+    repeatSarWPerKg: transmitterId === 'LTE-B2' && usePositionId === 'belt-clip' ? [0.88] : [],
+    driftDb: drift,
+    testDate,
+    peakXMm: peak[0],
+    peakYMm: peak[1],
+    liquidCheckId: liquid,
+    systemCheckId: system,
+  }),
+);
 
 export const DEMO_LIQUID_CHECKS: LiquidCheck[] = [
   { id: 'L-750', date: '2026-11-16', liquid: 'head', frequencyHz: 750e6, relativePermittivity: 42.6, conductivitySPerM: 0.91, temperatureC: 21.4 },

@@ -57,7 +57,11 @@ const zEnv = z.object({
   /** A calculation through the API is stopped after this long (ms) and answers 503. */
   FIELDFILE_CALC_TIME_LIMIT_MS: z.coerce.number().int().min(100).max(600_000).default(15_000),
   /** Largest measurement spreadsheet accepted by the lab import, bytes (default 20 MB). */
-  FIELDFILE_IMPORT_MAX_BYTES: z.coerce.number().int().positive().default(20 * 1024 * 1024),
+  FIELDFILE_IMPORT_MAX_BYTES: z.coerce
+    .number()
+    .int()
+    .positive()
+    .default(20 * 1024 * 1024),
 });
 
 export type Env = z.infer<typeof zEnv>;
@@ -118,9 +122,7 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
     mail: {
       from: e.MAIL_FROM,
       catcherPort: e.FIELDFILE_MAIL_CATCHER_PORT,
-      smtp: e.SMTP_HOST
-        ? { host: e.SMTP_HOST, port: e.SMTP_PORT, secure: e.SMTP_SECURE, user: e.SMTP_USER, pass: e.SMTP_PASS }
-        : undefined,
+      smtp: e.SMTP_HOST ? { host: e.SMTP_HOST, port: e.SMTP_PORT, secure: e.SMTP_SECURE, user: e.SMTP_USER, pass: e.SMTP_PASS } : undefined,
     },
   };
 }

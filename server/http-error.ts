@@ -11,15 +11,12 @@ export class HttpError extends Error {
   }
 }
 
-export const badRequest = (message: string, fields?: Record<string, string>) =>
-  new HttpError(400, 'bad_request', message, fields);
-export const unprocessable = (message: string, fields?: Record<string, string>) =>
-  new HttpError(422, 'invalid_input', message, fields);
+export const badRequest = (message: string, fields?: Record<string, string>) => new HttpError(400, 'bad_request', message, fields);
+export const unprocessable = (message: string, fields?: Record<string, string>) => new HttpError(422, 'invalid_input', message, fields);
 export const unauthorized = (message = 'Sign in to continue.') => new HttpError(401, 'unauthorized', message);
 export const forbidden = (message = 'Your role does not allow this.') => new HttpError(403, 'forbidden', message);
 export const notFound = (message = 'Not found.') => new HttpError(404, 'not_found', message);
-export const conflict = (message: string, fields?: Record<string, string>) =>
-  new HttpError(409, 'conflict', message, fields);
+export const conflict = (message: string, fields?: Record<string, string>) => new HttpError(409, 'conflict', message, fields);
 
 /** A 429: the caller may try again after `retryAfterSec` (sent as Retry-After). */
 export class RetryLaterError extends HttpError {
@@ -31,5 +28,4 @@ export class RetryLaterError extends HttpError {
     super(429, code, message);
   }
 }
-export const tooManyRequests = (code: 'too_many_attempts' | 'busy', message: string, retryAfterSec: number) =>
-  new RetryLaterError(code, message, Math.max(1, Math.ceil(retryAfterSec)));
+export const tooManyRequests = (code: 'too_many_attempts' | 'busy', message: string, retryAfterSec: number) => new RetryLaterError(code, message, Math.max(1, Math.ceil(retryAfterSec)));

@@ -29,11 +29,11 @@ export function webBuildIsStale(distDir: string): boolean {
 export function buildWeb(distDir: string): void {
   const started = Date.now();
   console.log('[fieldfile] building the web app (expo export)…');
-  const result = spawnSync(
-    path.join(ROOT, 'node_modules', '.bin', 'expo'),
-    ['export', '--platform', 'web', '--output-dir', distDir],
-    { cwd: ROOT, stdio: 'inherit', env: { ...process.env, CI: '1', EXPO_NO_TELEMETRY: '1', EXPO_OFFLINE: '1' } },
-  );
+  const result = spawnSync(path.join(ROOT, 'node_modules', '.bin', 'expo'), ['export', '--platform', 'web', '--output-dir', distDir], {
+    cwd: ROOT,
+    stdio: 'inherit',
+    env: { ...process.env, CI: '1', EXPO_NO_TELEMETRY: '1', EXPO_OFFLINE: '1' },
+  });
   if (result.status !== 0) throw new Error(`expo export failed (exit ${result.status}); see the output above.`);
   // The fonts' licences travel with the fonts (SIL OFL 1.1 asks for it).
   const licences = path.join(distDir, 'licences');

@@ -15,8 +15,7 @@ export const ONE: Complex = complex(1, 0);
 
 export const add = (a: Complex, b: Complex): Complex => complex(a.re + b.re, a.im + b.im);
 export const sub = (a: Complex, b: Complex): Complex => complex(a.re - b.re, a.im - b.im);
-export const mul = (a: Complex, b: Complex): Complex =>
-  complex(a.re * b.re - a.im * b.im, a.re * b.im + a.im * b.re);
+export const mul = (a: Complex, b: Complex): Complex => complex(a.re * b.re - a.im * b.im, a.re * b.im + a.im * b.re);
 export const scale = (a: Complex, k: number): Complex => complex(a.re * k, a.im * k);
 export const conj = (a: Complex): Complex => complex(a.re, -a.im);
 export const abs = (a: Complex): number => Math.hypot(a.re, a.im);

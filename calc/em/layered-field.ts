@@ -15,20 +15,7 @@
  * Electromagnetics, 2nd ed., ch. 5 (reflection and transmission, multiple interfaces) — section
  * numbers from memory.
  */
-import {
-  abs2,
-  add,
-  complex,
-  conj,
-  div,
-  exp,
-  mul,
-  ONE,
-  scale,
-  sub,
-  ZERO,
-  type Complex,
-} from './complex';
+import { abs2, add, complex, conj, div, exp, mul, ONE, scale, sub, ZERO, type Complex } from './complex';
 import { FREE_SPACE_IMPEDANCE_OHM } from './constants';
 import { mediumProperties, type MediumProperties } from './medium';
 

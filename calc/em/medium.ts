@@ -48,12 +48,7 @@ export interface MediumProperties {
  * @param conductivitySPerM σ (effective conductivity, includes dielectric loss), S/m
  * @param relativePermeability μr, 1
  */
-export function mediumProperties(
-  frequencyHz: number,
-  relativePermittivity: number,
-  conductivitySPerM: number,
-  relativePermeability = 1,
-): MediumProperties {
+export function mediumProperties(frequencyHz: number, relativePermittivity: number, conductivitySPerM: number, relativePermeability = 1): MediumProperties {
   const omega = 2 * Math.PI * frequencyHz;
   const eps = EPSILON0_F_PER_M * relativePermittivity;
   const mu = MU0_H_PER_M * relativePermeability;
@@ -87,8 +82,7 @@ export const mediumInput = z.object({
 export const medium = defineCalculation({
   name: 'medium',
   title: 'Plane-wave parameters of a medium',
-  description:
-    'Intrinsic impedance, attenuation and phase constants, skin depth and loss tangent of a homogeneous medium for a uniform plane wave.',
+  description: 'Intrinsic impedance, attenuation and phase constants, skin depth and loss tangent of a homogeneous medium for a uniform plane wave.',
   input: mediumInput,
   sources: MEDIUM_SOURCES,
   compute(input) {
@@ -105,8 +99,7 @@ export const medium = defineCalculation({
     return {
       ...result,
       derivation: {
-        formula:
-          'η = √(jωμ/(σ + jωε)); α = ω√(με/2)·[√(1 + (σ/ωε)²) − 1]^½; β = ω√(με/2)·[√(1 + (σ/ωε)²) + 1]^½; δ = 1/α; tan δ = σ/(ωε)',
+        formula: 'η = √(jωμ/(σ + jωε)); α = ω√(με/2)·[√(1 + (σ/ωε)²) − 1]^½; β = ω√(με/2)·[√(1 + (σ/ωε)²) + 1]^½; δ = 1/α; tan δ = σ/(ωε)',
         inputs: {
           frequencyHz: q(frequencyHz, 'Hz'),
           relativePermittivity: q(relativePermittivity, '1'),

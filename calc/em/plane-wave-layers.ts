@@ -18,11 +18,7 @@ export const MIN_PROFILE_POINTS = 200;
 export const MAX_PROFILE_POINTS = 100_000;
 export const MAX_LAYERS = 50;
 
-const thickness = z
-  .number()
-  .positive()
-  .nullable()
-  .describe('Layer thickness, m; null for a semi-infinite last layer');
+const thickness = z.number().positive().nullable().describe('Layer thickness, m; null for a semi-infinite last layer');
 
 const materialLayer = z.strictObject({
   name: z.string().max(80).optional(),
@@ -58,13 +54,7 @@ export const planeWaveLayersInput = z
       .min(1)
       .max(MAX_LAYERS)
       .describe('Layers from the surface inwards; free space lies behind a finite last layer'),
-    profilePoints: z
-      .number()
-      .int()
-      .min(MIN_PROFILE_POINTS)
-      .max(MAX_PROFILE_POINTS)
-      .default(MIN_PROFILE_POINTS)
-      .describe('Number of evenly spaced SAR profile points (layer boundaries are added)'),
+    profilePoints: z.number().int().min(MIN_PROFILE_POINTS).max(MAX_PROFILE_POINTS).default(MIN_PROFILE_POINTS).describe('Number of evenly spaced SAR profile points (layer boundaries are added)'),
   })
   .superRefine((input, ctx) => {
     input.layers.forEach((layer, i) => {
@@ -215,15 +205,11 @@ function planeWaveLayersParsed(input: ParsedInput): PlaneWaveLayersResult {
   // A lossless semi-infinite last layer carries its power away: that is transmission, not absorption.
   const losslessHalfSpace = solution.semiInfinite && last.medium.attenuationNpPerM === 0;
 
-  const absorbedFractionByLayer = solution.layers.map((l, i) =>
-    losslessHalfSpace && i === solution.layers.length - 1 ? 0 : (l.powerInWPerM2 - l.powerOutWPerM2) / incident,
-  );
+  const absorbedFractionByLayer = solution.layers.map((l, i) => (losslessHalfSpace && i === solution.layers.length - 1 ? 0 : (l.powerInWPerM2 - l.powerOutWPerM2) / incident));
   const reflectedFraction = abs2(solution.reflectionCoefficient);
   const transmittedFraction = (losslessHalfSpace ? last.powerInWPerM2 : solution.transmittedWPerM2) / incident;
   const energyBalanceResidual = 1 - (reflectedFraction + transmittedFraction + absorbedFractionByLayer.reduce((a, b) => a + b, 0));
-  const fieldIntegralMismatch = Math.max(
-    ...solution.layers.map((l, i) => Math.abs(absorbedFromField(l) / incident - absorbedFractionByLayer[i])),
-  );
+  const fieldIntegralMismatch = Math.max(...solution.layers.map((l, i) => Math.abs(absorbedFromField(l) / incident - absorbedFractionByLayer[i])));
 
   const peaks = solution.layers.map(layerPeakSar);
   const cube1g = cubeAveragedSar(solution, 1e-3);
@@ -286,8 +272,7 @@ const SOURCES = [
 export const planeWaveLayersCalculation = defineCalculation({
   name: 'plane-wave-layers',
   title: 'Plane wave on planar tissue layers',
-  description:
-    'Normal-incidence plane wave from free space onto planar layers: reflected, absorbed and transmitted fractions, SAR profile, peak, surface and 1 g / 10 g cube-averaged SAR.',
+  description: 'Normal-incidence plane wave from free space onto planar layers: reflected, absorbed and transmitted fractions, SAR profile, peak, surface and 1 g / 10 g cube-averaged SAR.',
   input: planeWaveLayersInput,
   sources: SOURCES,
   compute(input) {
@@ -308,9 +293,9 @@ export const planeWaveLayersCalculation = defineCalculation({
     const notes = [
       'Fields are rms phasors; time convention e^(+jωt); layers are non-magnetic (μr = 1).',
       'Absorbed power per layer = difference of the Poynting flux at its faces; cross-checked against σ∫|E|² dz (see intermediate.fieldIntegralMismatch).',
-      'Cube averages assume the field is uniform across the cube face (infinite plane wave); the cube mass uses each layer\'s density.',
+      "Cube averages assume the field is uniform across the cube face (infinite plane wave); the cube mass uses each layer's density.",
     ];
-    if (input.layers.some((l) => 'tissue' in l)) notes.push('Tissue layers take εr, σ from the Gabriel 1996 Cole-Cole model and ρ from the IT\'IS database (see tissue-properties).');
+    if (input.layers.some((l) => 'tissue' in l)) notes.push("Tissue layers take εr, σ from the Gabriel 1996 Cole-Cole model and ρ from the IT'IS database (see tissue-properties).");
     if (!r.exitInterface) notes.push('The last layer is semi-infinite: no power is transmitted beyond it.');
     for (const key of ['1g', '10g'] as const) {
       if (r.cubes[key].extendsBeyondStack) notes.push(`The ${key} cube (side ${r.cubes[key].sideM} m) reaches past the finite stack into free space (no mass, no absorption there).`);
@@ -338,7 +323,10 @@ export const planeWaveLayersCalculation = defineCalculation({
         result: {
           reflectedFraction: q(r.reflectedFraction, '1'),
           transmittedFraction: q(r.transmittedFraction, '1'),
-          absorbedFraction: q(r.absorbedFractionByLayer.reduce((a, b) => a + b, 0), '1'),
+          absorbedFraction: q(
+            r.absorbedFractionByLayer.reduce((a, b) => a + b, 0),
+            '1',
+          ),
           surfaceSarWPerKg: q(r.surfaceSarWPerKg, 'W/kg'),
           averagedSar1gWPerKg: q(r.averagedSarWPerKg['1g'], 'W/kg'),
           averagedSar10gWPerKg: q(r.averagedSarWPerKg['10g'], 'W/kg'),

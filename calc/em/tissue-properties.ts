@@ -18,19 +18,7 @@ import { CONSTANTS_SOURCE, EPSILON0_F_PER_M } from './constants';
 export const COLE_COLE_MIN_FREQUENCY_HZ = 10;
 export const COLE_COLE_MAX_FREQUENCY_HZ = 100e9;
 
-export const TISSUE_IDS = [
-  'skin-dry',
-  'skin-wet',
-  'fat',
-  'bone-cortical',
-  'bone-cancellous',
-  'brain-grey-matter',
-  'brain-white-matter',
-  'csf',
-  'muscle',
-  'blood',
-  'dura',
-] as const;
+export const TISSUE_IDS = ['skin-dry', 'skin-wet', 'fat', 'bone-cortical', 'bone-cancellous', 'brain-grey-matter', 'brain-white-matter', 'csf', 'muscle', 'blood', 'dura'] as const;
 
 export type TissueId = (typeof TISSUE_IDS)[number];
 
@@ -82,7 +70,7 @@ function row(
 }
 
 const SKIN_SIGMA_NOTE =
-  'σ_i of skin is printed 0.000 in the IFAC table; 0.0002 (dry) / 0.0004 (wet) S/m from a public table citing IFAC and IT\'IS (Gabriel, Lau & Gabriel 1996 Cole-Cole parameter table) — below 0.03 % effect at RF.';
+  "σ_i of skin is printed 0.000 in the IFAC table; 0.0002 (dry) / 0.0004 (wet) S/m from a public table citing IFAC and IT'IS (Gabriel, Lau & Gabriel 1996 Cole-Cole parameter table) — below 0.03 % effect at RF.";
 
 //                   Δε1   τ1(ps)  α1    Δε2   τ2(ns)   α2    σi      Δε3     τ3(µs)   α3    Δε4     τ4(ms)  α4
 export const TISSUES: Record<TissueId, TissueEntry> = {
@@ -193,10 +181,7 @@ export const tissueProperties = defineCalculation({
           densityKgPerM3: q(r.densityKgPerM3, 'kg/m³'),
         },
         source: `${t.parameterSource} (${t.label}); density: ${t.densitySource}`,
-        notes: [
-          'Valid 10 Hz–100 GHz (range of the fitted data); τ1 in ps, τ2 in ns, τ3 in µs, τ4 in ms in the published table.',
-          ...t.notes,
-        ],
+        notes: ['Valid 10 Hz–100 GHz (range of the fitted data); τ1 in ps, τ2 in ns, τ3 in µs, τ4 in ms in the published table.', ...t.notes],
       },
     };
   },

@@ -99,8 +99,7 @@ function convert(input: UnitsInput): Row {
 export const units = defineCalculation({
   name: 'units',
   title: 'Power and gain unit conversions',
-  description:
-    'dBm ↔ mW ↔ W, dBi ↔ linear gain, ERP ↔ EIRP (2.15 dB) and time-averaged power from a duty cycle. Choose with `conversion`.',
+  description: 'dBm ↔ mW ↔ W, dBi ↔ linear gain, ERP ↔ EIRP (2.15 dB) and time-averaged power from a duty cycle. Choose with `conversion`.',
   input: unitsInput,
   sources: [DB_DEF, DBI_DEF, DIPOLE, DUTY],
   compute(input) {

@@ -18,7 +18,20 @@
  * - Co-transmission: KDB 447498 D01 v06 §4.3.2 (sum of SAR, estimated SAR of a test-excluded
  *   transmitter, SPLSR ≤ 0.04); far-field: Σ S_i/S_L,i ≤ 1 (47 CFR §1.1307(b)(3)(ii)(B); ICNIRP).
  */
-import { MAX_ANTENNAS, MAX_CHECK_RECORDS, MAX_COMBINATION_MEMBERS, MAX_COMBINATIONS, MAX_ID_CHARS, MAX_INSTRUMENTS, MAX_MEASUREMENTS, MAX_SCREENING_ROWS, MAX_TEXT_CHARS, MAX_TRANSMITTERS, MAX_UNCERTAINTY_COMPONENTS, MAX_USE_POSITIONS } from '../input-limits';
+import {
+  MAX_ANTENNAS,
+  MAX_CHECK_RECORDS,
+  MAX_COMBINATION_MEMBERS,
+  MAX_COMBINATIONS,
+  MAX_ID_CHARS,
+  MAX_INSTRUMENTS,
+  MAX_MEASUREMENTS,
+  MAX_SCREENING_ROWS,
+  MAX_TEXT_CHARS,
+  MAX_TRANSMITTERS,
+  MAX_UNCERTAINTY_COMPONENTS,
+  MAX_USE_POSITIONS,
+} from '../input-limits';
 import { z } from 'zod';
 import { CalcRangeError, defineCalculation, q, type Derivation, type Quantity, type WithDerivation } from '../types';
 import { sarLimit, type SarRegion } from '../limits/sar-limits';
@@ -73,9 +86,9 @@ const date = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'YYYY-MM-DD');
 
 export const labResultsInput = z.object({
   markets: z.array(z.object({ regime: z.enum(SCREENING_REGIMES), tier: z.enum(SCREENING_TIERS).default('general') })).max(SCREENING_REGIMES.length),
-  transmitters: z.array(
-    z.object({ id, frequencyMinHz: num, frequencyMaxHz: num, maxTuneUpPowerDbm: num, dutyCycle: num.pipe(z.number().gt(0).max(1)).default(1), antennaId: id }),
-  ).max(MAX_TRANSMITTERS),
+  transmitters: z
+    .array(z.object({ id, frequencyMinHz: num, frequencyMaxHz: num, maxTuneUpPowerDbm: num, dutyCycle: num.pipe(z.number().gt(0).max(1)).default(1), antennaId: id }))
+    .max(MAX_TRANSMITTERS),
   usePositions: z.array(z.object({ id, kind: z.enum(USE_POSITION_KINDS), separations: z.array(z.object({ antennaId: id, separationM: num })).max(MAX_ANTENNAS) })).max(MAX_USE_POSITIONS),
   /** Transmitter combinations that can be on together. */
   simultaneous: z.array(z.array(id).max(MAX_COMBINATION_MEMBERS)).max(MAX_COMBINATIONS).default([]),
@@ -101,29 +114,31 @@ export const labResultsInput = z.object({
     )
     .max(MAX_SCREENING_ROWS)
     .default([]),
-  measurements: z.array(
-    z.object({
-      id,
-      transmitterId: id,
-      usePositionId: id,
-      testPosition: text.default(''),
-      channel: text.default(''),
-      frequencyHz: num.pipe(z.number().positive()),
-      testSeparationM: num.pipe(z.number().min(0)),
-      measuredPowerDbm: num,
-      tuneUpPowerDbm: num.nullable().default(null),
-      testDutyCycle: num.pipe(z.number().gt(0).max(1)).default(1),
-      sar1gWPerKg: num.pipe(z.number().positive()).nullable().default(null),
-      sar10gWPerKg: num.pipe(z.number().positive()).nullable().default(null),
-      repeatSarWPerKg: z.array(num.pipe(z.number().positive())).max(3).default([]),
-      driftDb: num.nullable().default(null),
-      testDate: date,
-      peakXMm: num.nullable().default(null),
-      peakYMm: num.nullable().default(null),
-      liquidCheckId: id.nullable().default(null),
-      systemCheckId: id.nullable().default(null),
-    }),
-  ).max(MAX_MEASUREMENTS),
+  measurements: z
+    .array(
+      z.object({
+        id,
+        transmitterId: id,
+        usePositionId: id,
+        testPosition: text.default(''),
+        channel: text.default(''),
+        frequencyHz: num.pipe(z.number().positive()),
+        testSeparationM: num.pipe(z.number().min(0)),
+        measuredPowerDbm: num,
+        tuneUpPowerDbm: num.nullable().default(null),
+        testDutyCycle: num.pipe(z.number().gt(0).max(1)).default(1),
+        sar1gWPerKg: num.pipe(z.number().positive()).nullable().default(null),
+        sar10gWPerKg: num.pipe(z.number().positive()).nullable().default(null),
+        repeatSarWPerKg: z.array(num.pipe(z.number().positive())).max(3).default([]),
+        driftDb: num.nullable().default(null),
+        testDate: date,
+        peakXMm: num.nullable().default(null),
+        peakYMm: num.nullable().default(null),
+        liquidCheckId: id.nullable().default(null),
+        systemCheckId: id.nullable().default(null),
+      }),
+    )
+    .max(MAX_MEASUREMENTS),
   liquidChecks: z
     .array(
       z.object({
@@ -199,20 +214,7 @@ type MeasurementIn = In['measurements'][number];
 // Output
 
 export type CheckKind =
-  | 'power'
-  | 'limit'
-  | 'separation'
-  | 'band'
-  | 'drift'
-  | 'liquid'
-  | 'liquid-temperature'
-  | 'system-check'
-  | 'calibration'
-  | 'repeats'
-  | 'mass'
-  | 'uncertainty'
-  | 'coverage'
-  | 'co-transmission';
+  'power' | 'limit' | 'separation' | 'band' | 'drift' | 'liquid' | 'liquid-temperature' | 'system-check' | 'calibration' | 'repeats' | 'mass' | 'uncertainty' | 'coverage' | 'co-transmission';
 export type SubjectType = 'measurement' | 'liquid-check' | 'system-check' | 'instrument' | 'uncertainty' | 'coverage' | 'co-transmission';
 
 /** One check: what was compared, against which tolerance, from which source, and how to fix a failure. */
@@ -510,7 +512,9 @@ function rowChecks(ctx: Context, m: MeasurementIn, tuneUpPowerDbm: number, margi
       blocking: !powerOk,
       value: `measured ${fmt(m.measuredPowerDbm, 4)} dBm, tune-up ${fmt(tuneUpPowerDbm, 4)} dBm`,
       tolerance: 'measured power ≤ tune-up limit',
-      message: powerOk ? 'Measured power within the tune-up limit.' : `${m.id}: measured power ${fmt(m.measuredPowerDbm, 4)} dBm is above the tune-up limit ${fmt(tuneUpPowerDbm, 4)} dBm; the SAR is not scaled down.`,
+      message: powerOk
+        ? 'Measured power within the tune-up limit.'
+        : `${m.id}: measured power ${fmt(m.measuredPowerDbm, 4)} dBm is above the tune-up limit ${fmt(tuneUpPowerDbm, 4)} dBm; the SAR is not scaled down.`,
       howToFix: powerOk ? '' : 'Correct the tune-up limit (Radios, or this row’s tune-up column) or the measured power; a device above its declared limit needs a new declaration or a re-test.',
       source: SRC.power,
     }),
@@ -554,7 +558,17 @@ function rowChecks(ctx: Context, m: MeasurementIn, tuneUpPowerDbm: number, margi
   const separation = pos.separations.find((s) => s.antennaId === tx.antennaId);
   if (!separation) {
     out.push(
-      check({ kind: 'separation', subject, status: 'warning', blocking: false, value: `${fmt(m.testSeparationM * 1000)} mm`, tolerance: null, message: `${m.id}: use position ${pos.id} gives no separation for antenna ${tx.antennaId}.`, howToFix: 'Add the separation under Use positions.', source: SRC.separation }),
+      check({
+        kind: 'separation',
+        subject,
+        status: 'warning',
+        blocking: false,
+        value: `${fmt(m.testSeparationM * 1000)} mm`,
+        tolerance: null,
+        message: `${m.id}: use position ${pos.id} gives no separation for antenna ${tx.antennaId}.`,
+        howToFix: 'Add the separation under Use positions.',
+        source: SRC.separation,
+      }),
     );
   } else {
     const ok = m.testSeparationM <= separation.separationM + 1e-9;
@@ -589,7 +603,19 @@ function rowChecks(ctx: Context, m: MeasurementIn, tuneUpPowerDbm: number, margi
     );
   }
   if (m.driftDb === null) {
-    out.push(check({ kind: 'drift', subject, status: 'warning', blocking: false, value: null, tolerance: `±${POWER_DRIFT_TOLERANCE_PCT} %`, message: `${m.id}: no power drift recorded.`, howToFix: 'Enter the drift from the scan’s record (dB).', source: SRC.drift }));
+    out.push(
+      check({
+        kind: 'drift',
+        subject,
+        status: 'warning',
+        blocking: false,
+        value: null,
+        tolerance: `±${POWER_DRIFT_TOLERANCE_PCT} %`,
+        message: `${m.id}: no power drift recorded.`,
+        howToFix: 'Enter the drift from the scan’s record (dB).',
+        source: SRC.drift,
+      }),
+    );
   } else {
     const d = computePowerDrift({ startPowerDb: 0, endPowerDb: m.driftDb, tolerancePct: POWER_DRIFT_TOLERANCE_PCT });
     out.push(
@@ -611,12 +637,38 @@ function rowChecks(ctx: Context, m: MeasurementIn, tuneUpPowerDbm: number, margi
     ['system-check', m.systemCheckId, ctx.systemResults, 'system check'],
   ] as const) {
     if (linkId === null) {
-      out.push(check({ kind, subject, detail: 'link', status: 'warning', blocking: false, value: null, tolerance: null, message: `${m.id}: no ${label} linked.`, howToFix: `Link the ${label} this scan relied on.`, source: kind === 'liquid' ? SRC.liquid : SRC.system }));
+      out.push(
+        check({
+          kind,
+          subject,
+          detail: 'link',
+          status: 'warning',
+          blocking: false,
+          value: null,
+          tolerance: null,
+          message: `${m.id}: no ${label} linked.`,
+          howToFix: `Link the ${label} this scan relied on.`,
+          source: kind === 'liquid' ? SRC.liquid : SRC.system,
+        }),
+      );
       continue;
     }
     const c = results.get(linkId);
     if (!c) {
-      out.push(check({ kind, subject, detail: 'link', status: 'warning', blocking: false, value: linkId, tolerance: null, message: `${m.id}: linked ${label} ${linkId} is not listed.`, howToFix: `Enter ${label} ${linkId}, or link an existing one.`, source: kind === 'liquid' ? SRC.liquid : SRC.system }));
+      out.push(
+        check({
+          kind,
+          subject,
+          detail: 'link',
+          status: 'warning',
+          blocking: false,
+          value: linkId,
+          tolerance: null,
+          message: `${m.id}: linked ${label} ${linkId} is not listed.`,
+          howToFix: `Enter ${label} ${linkId}, or link an existing one.`,
+          source: kind === 'liquid' ? SRC.liquid : SRC.system,
+        }),
+      );
     } else if (c.status === 'fail') {
       out.push({ ...c, id: `${kind}:${m.id}:${linkId}`, subject, message: `${m.id} relied on ${label} ${linkId}, which is out of tolerance.` });
     }
@@ -658,7 +710,16 @@ function marginsFor(input: In, kind: UsePositionKind, sar1g: number | null, sar1
   });
 }
 
-function rowDerivation(m: MeasurementIn, tuneUp: number, fromTx: boolean, maxDuty: number, scaled: ReturnType<typeof computeReportedSar>, r1: number | null, r10: number | null, margins: MarketMargin[]): Derivation {
+function rowDerivation(
+  m: MeasurementIn,
+  tuneUp: number,
+  fromTx: boolean,
+  maxDuty: number,
+  scaled: ReturnType<typeof computeReportedSar>,
+  r1: number | null,
+  r10: number | null,
+  margins: MarketMargin[],
+): Derivation {
   const d = scaled.derivation;
   const marginEntries: [string, Quantity][] = margins
     .filter((mg) => mg.marginDb !== null)
@@ -738,7 +799,14 @@ function uncertaintyOf(input: In): { summary: UncertaintySummary; check: LabChec
   const required = highest !== null && highest.ratio >= 1;
   const budget = input.uncertainty.length
     ? computeUncertaintyBudget({
-        components: input.uncertainty.map((c) => ({ name: c.name, valuePct: c.valuePct, distribution: c.distribution, divisor: c.divisor ?? undefined, sensitivity: c.sensitivity, degreesOfFreedom: c.degreesOfFreedom })),
+        components: input.uncertainty.map((c) => ({
+          name: c.name,
+          valuePct: c.valuePct,
+          distribution: c.distribution,
+          divisor: c.divisor ?? undefined,
+          sensitivity: c.sensitivity,
+          degreesOfFreedom: c.degreesOfFreedom,
+        })),
         coverageFactor: 2,
         limitPct: SAR_EXPANDED_UNCERTAINTY_LIMIT_PCT,
       })
@@ -783,7 +851,9 @@ function uncertaintyOf(input: In): { summary: UncertaintySummary; check: LabChec
       blocking: !ok && required,
       value: `${highestText}; expanded ${budget.expandedPct.toFixed(1)} % (k = 2)`,
       tolerance: `expanded ≤ ${SAR_EXPANDED_UNCERTAINTY_LIMIT_PCT} %; ${reqText}`,
-      message: ok ? `Expanded uncertainty ${budget.expandedPct.toFixed(1)} % within ${SAR_EXPANDED_UNCERTAINTY_LIMIT_PCT} %.` : `Expanded uncertainty ${budget.expandedPct.toFixed(1)} % is above ${SAR_EXPANDED_UNCERTAINTY_LIMIT_PCT} %.`,
+      message: ok
+        ? `Expanded uncertainty ${budget.expandedPct.toFixed(1)} % within ${SAR_EXPANDED_UNCERTAINTY_LIMIT_PCT} %.`
+        : `Expanded uncertainty ${budget.expandedPct.toFixed(1)} % is above ${SAR_EXPANDED_UNCERTAINTY_LIMIT_PCT} %.`,
       howToFix: ok ? '' : 'Check each contribution’s value, distribution and sensitivity against the lab’s budget; the lab explains an uncertainty above 30 %.',
       source: SRC.uncertainty,
     }),
@@ -794,13 +864,27 @@ function coverageOf(input: In, posById: Context['posById']): { items: CoverageIt
   const byCombo = new Map<string, CoverageItem>();
   for (const s of input.screening) {
     const key = `${s.transmitterId}\u0000${s.usePositionId}`;
-    const item = byCombo.get(key) ?? { transmitterId: s.transmitterId, usePositionId: s.usePositionId, usePositionKind: posById.get(s.usePositionId)?.kind ?? 'head', regimes: [], measurementIds: [], status: 'not-required' };
+    const item = byCombo.get(key) ?? {
+      transmitterId: s.transmitterId,
+      usePositionId: s.usePositionId,
+      usePositionKind: posById.get(s.usePositionId)?.kind ?? 'head',
+      regimes: [],
+      measurementIds: [],
+      status: 'not-required',
+    };
     if (s.result === 'evaluate-sar' && !item.regimes.includes(s.regime)) item.regimes.push(s.regime);
     byCombo.set(key, item);
   }
   for (const m of input.measurements) {
     const key = `${m.transmitterId}\u0000${m.usePositionId}`;
-    const item = byCombo.get(key) ?? { transmitterId: m.transmitterId, usePositionId: m.usePositionId, usePositionKind: posById.get(m.usePositionId)?.kind ?? 'head', regimes: [], measurementIds: [], status: 'not-required' as const };
+    const item = byCombo.get(key) ?? {
+      transmitterId: m.transmitterId,
+      usePositionId: m.usePositionId,
+      usePositionKind: posById.get(m.usePositionId)?.kind ?? 'head',
+      regimes: [],
+      measurementIds: [],
+      status: 'not-required' as const,
+    };
     item.measurementIds.push(m.id);
     byCombo.set(key, item);
   }
@@ -894,7 +978,9 @@ function coTransmission(input: In, rows: LabRow[], posById: Context['posById']):
               intermediate: {},
               result: { sumOfRatios: q(r?.sum ?? null, '1'), pass: q(r?.pass ?? null, 'boolean') },
               source: SRC.mpe,
-              notes: [`Far-field power density at the use position’s separation from each transmitter’s EIRP (screening), against ${mk.regime === 'eu' ? '1999/519/EC (ICNIRP 1998)' : MARKET_LABEL[mk.regime]} ${mk.tier} reference levels at the band’s most restrictive frequency.`],
+              notes: [
+                `Far-field power density at the use position’s separation from each transmitter’s EIRP (screening), against ${mk.regime === 'eu' ? '1999/519/EC (ICNIRP 1998)' : MARKET_LABEL[mk.regime]} ${mk.tier} reference levels at the band’s most restrictive frequency.`,
+              ],
             },
           });
           continue;
@@ -917,13 +1003,16 @@ function coTransmission(input: In, rows: LabRow[], posById: Context['posById']):
           const s = screening.get(screeningKey(t, pos.id, mk.regime));
           if (s && s.result === 'exempt') {
             const est = kdbEstimatedSarWPerKg(s.timeAveragedPowerMw, s.frequencyHz, s.separationM, massG === 10);
-            notes.push(`${t}: exempt from testing; estimated ${massG} g SAR ${fmt(est)} W/kg = (P/d)·√f/${massG === 10 ? '18.75' : '7.5'} (P ${fmt(s.timeAveragedPowerMw)} mW, d ${fmt(s.separationM * 1000)} mm, f ${fmt(s.frequencyHz / 1e9)} GHz; 0.4/1.0 W/kg beyond 50 mm).`);
+            notes.push(
+              `${t}: exempt from testing; estimated ${massG} g SAR ${fmt(est)} W/kg = (P/d)·√f/${massG === 10 ? '18.75' : '7.5'} (P ${fmt(s.timeAveragedPowerMw)} mW, d ${fmt(s.separationM * 1000)} mm, f ${fmt(s.frequencyHz / 1e9)} GHz; 0.4/1.0 W/kg beyond 50 mm).`,
+            );
             return { transmitterId: t, basis: 'estimated', value: est, unit: 'W/kg', measurementId: null, peakMm: null };
           }
           notes.push(s ? `${t}: needs SAR evaluation in ${pos.id} and has no measurement.` : `${t}: not screened in ${pos.id} (no separation for its antenna under Use positions).`);
           return { transmitterId: t, basis: 'missing', value: null, unit: 'W/kg', measurementId: null, peakMm: null };
         });
-        if (massG === 10 && pos.kind !== 'extremity') notes.push('Estimated 10 g SAR uses the KDB 447498 §4.3.2 10 g divisor (given there for extremities); common practice for 10 g head/trunk limits.');
+        if (massG === 10 && pos.kind !== 'extremity')
+          notes.push('Estimated 10 g SAR uses the KDB 447498 §4.3.2 10 g divisor (given there for extremities); common practice for 10 g head/trunk limits.');
         const complete = contributions.every((c) => c.value !== null);
         let outcome: CoTransmissionResult['outcome'] = 'incomplete';
         let pairs: SplsrPair[] = [];

@@ -71,7 +71,10 @@ export function computeLiquidTarget(input: z.output<typeof liquidTargetInput>): 
   }
   const fMHz = f / HZ_PER_MHZ;
   // Segment [f1, f2] with f1 < f ≤ f2 (or f = f1 at the table's first entry).
-  const i = Math.max(1, HEAD_TSL_TARGETS.findIndex(([fe]) => fe >= fMHz));
+  const i = Math.max(
+    1,
+    HEAD_TSL_TARGETS.findIndex(([fe]) => fe >= fMHz),
+  );
   const [f1, e1, s1] = HEAD_TSL_TARGETS[i - 1];
   const [f2, e2, s2] = HEAD_TSL_TARGETS[i];
   const t = (fMHz - f1) / (f2 - f1);
@@ -112,10 +115,7 @@ export const liquidCheckInput = z.object({
   frequencyHz,
   measuredRelativePermittivity: z.number().positive(),
   measuredConductivitySPerM: z.number().positive(),
-  standard: z
-    .enum(['kdb-865664', 'iec-ieee-62209-1528'])
-    .default('kdb-865664')
-    .describe('Tolerance basis: ±5 % (IEEE 1528 / KDB 865664) or ±10 % (IEC/IEEE 62209-1528)'),
+  standard: z.enum(['kdb-865664', 'iec-ieee-62209-1528']).default('kdb-865664').describe('Tolerance basis: ±5 % (IEEE 1528 / KDB 865664) or ±10 % (IEC/IEEE 62209-1528)'),
   tolerancePct: z.number().positive().optional().describe('Overrides the standard’s tolerance, % of target'),
 });
 

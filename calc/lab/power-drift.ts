@@ -52,9 +52,7 @@ export function computePowerDrift(input: z.output<typeof powerDriftInput>): With
   const { tolerancePct } = input;
   const bySar = input.startSarWPerKg !== undefined;
   // SAR is proportional to power, so a SAR ratio is a power ratio.
-  const ratio = bySar
-    ? (input.endSarWPerKg as number) / (input.startSarWPerKg as number)
-    : 10 ** (((input.endPowerDb as number) - (input.startPowerDb as number)) / 10);
+  const ratio = bySar ? (input.endSarWPerKg as number) / (input.startSarWPerKg as number) : 10 ** (((input.endPowerDb as number) - (input.startPowerDb as number)) / 10);
   const driftDb = bySar ? powerRatioDb(ratio) : (input.endPowerDb as number) - (input.startPowerDb as number);
   const driftPct = (ratio - 1) * 100;
   const toleranceDb = { upper: powerRatioDb(1 + tolerancePct / 100), lower: powerRatioDb(1 - tolerancePct / 100) };

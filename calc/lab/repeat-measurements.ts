@@ -23,15 +23,8 @@ export const REPEAT_RATIO_LIMIT = 1.2;
 const CATEGORY_FACTOR = { 'general-1g': 1, 'extremity-10g': 2.5, 'occupational-1g': 5 } as const;
 
 export const repeatMeasurementsInput = z.object({
-  sarWPerKg: z
-    .array(z.number().positive())
-    .min(1)
-    .max(4)
-    .describe('SAR values in order: original highest measured SAR, then repeats done so far (W/kg)'),
-  exposure: z
-    .enum(['general-1g', 'extremity-10g', 'occupational-1g'])
-    .default('general-1g')
-    .describe('Exposure category; scales the 1-g thresholds ×1, ×2.5, ×5'),
+  sarWPerKg: z.array(z.number().positive()).min(1).max(4).describe('SAR values in order: original highest measured SAR, then repeats done so far (W/kg)'),
+  exposure: z.enum(['general-1g', 'extremity-10g', 'occupational-1g']).default('general-1g').describe('Exposure category; scales the 1-g thresholds ×1, ×2.5, ×5'),
 });
 
 export interface RepeatMeasurementsResult {
@@ -49,9 +42,7 @@ export interface RepeatMeasurementsResult {
 const ratio = (values: number[]) => Math.max(...values) / Math.min(...values);
 const fmt = (x: number) => Number(x.toFixed(4)).toString();
 
-export function computeRepeatMeasurements(
-  input: z.output<typeof repeatMeasurementsInput>,
-): WithDerivation<RepeatMeasurementsResult> {
+export function computeRepeatMeasurements(input: z.output<typeof repeatMeasurementsInput>): WithDerivation<RepeatMeasurementsResult> {
   const { sarWPerKg: values, exposure } = input;
   const factor = CATEGORY_FACTOR[exposure];
   const t = {
@@ -95,21 +86,14 @@ export function computeRepeatMeasurements(
           const over15 = three.some((v) => v >= t.thirdRepeat);
           if (over15 && r3 > REPEAT_RATIO_LIMIT) {
             repeatsRequired = 3;
-            why.push(
-              `Third repeat required (step 4): a value ≥ ${fmt(t.thirdRepeat)} W/kg and largest/smallest of the three = ${fmt(r3)} > ${REPEAT_RATIO_LIMIT}.`,
-            );
+            why.push(`Third repeat required (step 4): a value ≥ ${fmt(t.thirdRepeat)} W/kg and largest/smallest of the three = ${fmt(r3)} > ${REPEAT_RATIO_LIMIT}.`);
           } else {
-            const reasons = [
-              ...(over15 ? [] : [`no value ≥ ${fmt(t.thirdRepeat)} W/kg`]),
-              ...(r3 <= REPEAT_RATIO_LIMIT ? [`largest/smallest of the three = ${fmt(r3)} ≤ ${REPEAT_RATIO_LIMIT}`] : []),
-            ];
+            const reasons = [...(over15 ? [] : [`no value ≥ ${fmt(t.thirdRepeat)} W/kg`]), ...(r3 <= REPEAT_RATIO_LIMIT ? [`largest/smallest of the three = ${fmt(r3)} ≤ ${REPEAT_RATIO_LIMIT}`] : [])];
             why.push(`No third repeat (step 4): ${reasons.join(' and ')}.`);
           }
         }
       } else {
-        why.push(
-          `No second repeat (step 3): largest/smallest = ${fmt(r2)} ≤ ${REPEAT_RATIO_LIMIT} and both values < ${fmt(t.secondRepeat)} W/kg.`,
-        );
+        why.push(`No second repeat (step 3): largest/smallest = ${fmt(r2)} ≤ ${REPEAT_RATIO_LIMIT} and both values < ${fmt(t.secondRepeat)} W/kg.`);
       }
     }
   }
@@ -128,8 +112,7 @@ export function computeRepeatMeasurements(
     why,
     thresholdsWPerKg: t,
     derivation: {
-      formula:
-        'repeat once if SAR_orig ≥ T1; second if max/min(orig, r1) > 1.20 or any ≥ T2; third if any of (orig, r1, r2) ≥ T3 and max/min > 1.20',
+      formula: 'repeat once if SAR_orig ≥ T1; second if max/min(orig, r1) > 1.20 or any ≥ T2; third if any of (orig, r1, r2) ≥ T3 and max/min > 1.20',
       inputs: {
         sarWPerKg: q(values.join(', '), 'W/kg'),
         exposure: q(exposure, 'category'),
@@ -164,8 +147,7 @@ export const repeatMeasurements = plainFunction(repeatMeasurementsInput, compute
 export const repeatMeasurementsCalculation = defineCalculation({
   name: 'repeat-measurements',
   title: 'Repeated SAR measurements required',
-  description:
-    'KDB 865664 D01 repeat rule: given the original highest SAR and any repeats so far, how many repeats are required and why.',
+  description: 'KDB 865664 D01 repeat rule: given the original highest SAR and any repeats so far, how many repeats are required and why.',
   input: repeatMeasurementsInput,
   compute: computeRepeatMeasurements,
   sources: ['FCC KDB 865664 D01 v01r04 §2.8.1'],

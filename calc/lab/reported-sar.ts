@@ -72,9 +72,7 @@ export function computeReportedSar(input: z.output<typeof reportedSarInput>): Wi
     dutyCycleScalingApplied = ratio >= 1;
     dutyCycleScalingFactor = dutyCycleScalingApplied ? ratio : 1;
     if (!dutyCycleScalingApplied) {
-      notes.push(
-        `Maximum duty cycle ${dutyCycle.maximum} is below the measured ${dutyCycle.measured}: not scaled down (common practice).`,
-      );
+      notes.push(`Maximum duty cycle ${dutyCycle.maximum} is below the measured ${dutyCycle.measured}: not scaled down (common practice).`);
     }
   }
 
@@ -99,9 +97,7 @@ export function computeReportedSar(input: z.output<typeof reportedSarInput>): Wi
     withinLimit,
     marginToLimit,
     derivation: {
-      formula:
-        'SAR_reported = SAR_meas · max(1, 10^((P_tune-up − P_meas)/10)) · max(1, DC_max/DC_meas); ' +
-        'margin = SAR_limit − SAR_reported; margin_dB = 10·log10(SAR_limit/SAR_reported)',
+      formula: 'SAR_reported = SAR_meas · max(1, 10^((P_tune-up − P_meas)/10)) · max(1, DC_max/DC_meas); ' + 'margin = SAR_limit − SAR_reported; margin_dB = 10·log10(SAR_limit/SAR_reported)',
       inputs: {
         measuredSarWPerKg: q(measuredSarWPerKg, 'W/kg'),
         measuredPowerDbm: q(measuredPowerDbm, 'dBm'),
@@ -123,9 +119,7 @@ export function computeReportedSar(input: z.output<typeof reportedSarInput>): Wi
         marginDb: q(marginToLimit.marginDb, 'dB'),
         withinLimit: q(withinLimit, 'boolean'),
       },
-      source:
-        'FCC KDB 447498 D01 v06 and KDB 865664 D01 v01r04 (reported SAR scaled to maximum tune-up power; from memory); ' +
-        'default limit 47 CFR §1.1310(c) 1.6 W/kg (1 g)',
+      source: 'FCC KDB 447498 D01 v06 and KDB 865664 D01 v01r04 (reported SAR scaled to maximum tune-up power; from memory); ' + 'default limit 47 CFR §1.1310(c) 1.6 W/kg (1 g)',
       notes,
     },
   };
@@ -139,8 +133,7 @@ export const reportedSar = plainFunction(reportedSarInput, computeReportedSar);
 export const reportedSarCalculation = defineCalculation({
   name: 'reported-sar',
   title: 'Reported SAR and margin to the limit',
-  description:
-    'Scales a measured SAR to the maximum tune-up power and maximum duty cycle (never down) and gives the margin to the SAR limit in W/kg, % of limit and dB.',
+  description: 'Scales a measured SAR to the maximum tune-up power and maximum duty cycle (never down) and gives the margin to the SAR limit in W/kg, % of limit and dB.',
   input: reportedSarInput,
   compute: computeReportedSar,
   sources: ['FCC KDB 447498 D01 v06', 'FCC KDB 865664 D01 v01r04', '47 CFR §1.1310(c)'],

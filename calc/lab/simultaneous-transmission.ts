@@ -21,10 +21,7 @@ const MM_PER_M = 1000;
 const transmitter = z.object({
   id: z.string().min(1).max(MAX_ID_CHARS),
   sarWPerKg: z.number().nonnegative().describe('Reported (or estimated) SAR of this transmitter, W/kg'),
-  peakLocationM: z
-    .tuple([z.number(), z.number(), z.number()])
-    .optional()
-    .describe('Peak-SAR location [x, y, z] in metres, in one coordinate frame for all transmitters'),
+  peakLocationM: z.tuple([z.number(), z.number(), z.number()]).optional().describe('Peak-SAR location [x, y, z] in metres, in one coordinate frame for all transmitters'),
 });
 
 export const simultaneousTransmissionInput = z.object({
@@ -63,16 +60,7 @@ export interface SimultaneousTransmissionResult {
 
 // A top-level builder rather than a per-call closure or object spread: with 20 transmitters (190
 // pairs) those were the hot spot under tsx/esbuild (keepNames wraps every closure it creates).
-function pairOf(
-  a: string,
-  b: string,
-  pairSumWPerKg: number,
-  distanceMm: number | null,
-  splsr: number | null,
-  splsrRounded: number | null,
-  pass: boolean,
-  reason: string,
-): SplsrPair {
+function pairOf(a: string, b: string, pairSumWPerKg: number, distanceMm: number | null, splsr: number | null, splsrRounded: number | null, pass: boolean, reason: string): SplsrPair {
   return { a, b, pairSumWPerKg, distanceMm, splsr, splsrRounded, pass, reason };
 }
 
@@ -92,9 +80,7 @@ function pairResult(a: z.output<typeof transmitter>, b: z.output<typeof transmit
   return pairOf(a.id, b.id, pairSumWPerKg, distanceMm, splsr, splsrRounded, pass, `SPLSR ${splsrRounded.toFixed(2)} ${pass ? '≤' : '>'} ${splsrLimit}`);
 }
 
-export function computeSimultaneousTransmission(
-  input: z.output<typeof simultaneousTransmissionInput>,
-): WithDerivation<SimultaneousTransmissionResult> {
+export function computeSimultaneousTransmission(input: z.output<typeof simultaneousTransmissionInput>): WithDerivation<SimultaneousTransmissionResult> {
   const { limitWPerKg, sarAveraging, transmitters } = input;
   const splsrLimit = SPLSR_LIMIT[sarAveraging];
   const sumWPerKg = transmitters.reduce((s, t) => s + t.sarWPerKg, 0);
@@ -154,8 +140,7 @@ export const simultaneousTransmission = plainFunction(simultaneousTransmissionIn
 export const simultaneousTransmissionCalculation = defineCalculation({
   name: 'simultaneous-transmission',
   title: 'Simultaneous transmission: sum of SAR and SPLSR',
-  description:
-    'Sums the SAR of simultaneously transmitting antennas against the limit; when over, checks each pair’s SAR to peak location separation ratio.',
+  description: 'Sums the SAR of simultaneously transmitting antennas against the limit; when over, checks each pair’s SAR to peak location separation ratio.',
   input: simultaneousTransmissionInput,
   compute: computeSimultaneousTransmission,
   sources: ['FCC KDB 447498 D01 v06 §4.3.2'],

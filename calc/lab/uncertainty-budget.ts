@@ -35,12 +35,7 @@ const component = z.object({
   distribution: z.enum(['normal', 'rectangular', 'u-shaped', 'triangular']),
   divisor: z.number().positive().optional().describe('Overrides the distribution’s divisor, e.g. k = 2 for a normal U quoted at k = 2'),
   sensitivity: z.number().describe('Sensitivity coefficient c_i'),
-  degreesOfFreedom: z
-    .number()
-    .positive()
-    .nullable()
-    .optional()
-    .describe('Degrees of freedom ν_i; omit or null for infinite (Type B)'),
+  degreesOfFreedom: z.number().positive().nullable().optional().describe('Degrees of freedom ν_i; omit or null for infinite (Type B)'),
 });
 
 export const uncertaintyBudgetInput = z.object({
@@ -78,9 +73,7 @@ export interface UncertaintyBudgetResult {
   withinLimit: boolean;
 }
 
-export function computeUncertaintyBudget(
-  input: z.output<typeof uncertaintyBudgetInput>,
-): WithDerivation<UncertaintyBudgetResult> {
+export function computeUncertaintyBudget(input: z.output<typeof uncertaintyBudgetInput>): WithDerivation<UncertaintyBudgetResult> {
   const { coverageFactor, limitPct } = input;
   const components: BudgetComponentResult[] = input.components.map((c) => {
     const divisor = c.divisor ?? DIVISORS[c.distribution];
@@ -103,10 +96,7 @@ export function computeUncertaintyBudget(
   const expandedPct = coverageFactor * combinedStandardPct;
 
   // GUM eq. (G.2b); a term with ν_i = ∞ adds nothing to the denominator.
-  const denominator = components.reduce(
-    (s, c) => (c.degreesOfFreedom === null ? s : s + c.contributionPct ** 4 / c.degreesOfFreedom),
-    0,
-  );
+  const denominator = components.reduce((s, c) => (c.degreesOfFreedom === null ? s : s + c.contributionPct ** 4 / c.degreesOfFreedom), 0);
   const notes: string[] = [];
   let nuEff: number;
   if (combinedStandardPct === 0) {
@@ -140,9 +130,7 @@ export function computeUncertaintyBudget(
     derivation: {
       formula: 'u_i = a_i / divisor_i; u_c = √Σ(c_i·u_i)²; U = k·u_c; ν_eff = u_c⁴ / Σ((c_i·u_i)⁴/ν_i)',
       inputs: {
-        ...Object.fromEntries(
-          components.map((c) => [c.name, q(`${c.valuePct} % ${c.distribution}, divisor ${c.divisor}, c = ${c.sensitivity}`, '%')]),
-        ),
+        ...Object.fromEntries(components.map((c) => [c.name, q(`${c.valuePct} % ${c.distribution}, divisor ${c.divisor}, c = ${c.sensitivity}`, '%')])),
         coverageFactor: q(coverageFactor, '1'),
         limitPct: q(limitPct, '%'),
       },
@@ -167,8 +155,7 @@ export const uncertaintyBudget = plainFunction(uncertaintyBudgetInput, computeUn
 export const uncertaintyBudgetCalculation = defineCalculation({
   name: 'uncertainty-budget',
   title: 'Measurement uncertainty budget',
-  description:
-    'Combined and expanded uncertainty (k = 2 by default) with Welch–Satterthwaite effective degrees of freedom, checked against the 30 % psSAR ceiling.',
+  description: 'Combined and expanded uncertainty (k = 2 by default) with Welch–Satterthwaite effective degrees of freedom, checked against the 30 % psSAR ceiling.',
   input: uncertaintyBudgetInput,
   compute: computeUncertaintyBudget,
   sources: ['JCGM 100:2008 (GUM)', 'JCGM 101:2008 §6.4.6', 'IEC/IEEE 62209-1528:2020'],

@@ -88,7 +88,16 @@ const fccOccupational: LimitTable = {
   status: 'C (regulation text)',
   rows: rows([
     { from: 0.3, to: 3, label: '0.3–3.0 MHz', E: k(614), H: k(1.63), S: mwcm2(() => 100, '(100)'), averagingMin: SIX_MIN, notes: [FCC_PLANE_WAVE] },
-    { from: 3, to: 30, label: '3.0–30 MHz', E: fn((f) => 1842 / f, '1842/f'), H: fn((f) => 4.89 / f, '4.89/f'), S: mwcm2((f) => 900 / f ** 2, '(900/f²)'), averagingMin: SIX_MIN, notes: [FCC_PLANE_WAVE] },
+    {
+      from: 3,
+      to: 30,
+      label: '3.0–30 MHz',
+      E: fn((f) => 1842 / f, '1842/f'),
+      H: fn((f) => 4.89 / f, '4.89/f'),
+      S: mwcm2((f) => 900 / f ** 2, '(900/f²)'),
+      averagingMin: SIX_MIN,
+      notes: [FCC_PLANE_WAVE],
+    },
     { from: 30, to: 300, label: '30–300 MHz', E: k(61.4), H: k(0.163), S: mwcm2(() => 1.0, '1.0'), averagingMin: SIX_MIN },
     { from: 300, to: 1500, label: '300–1,500 MHz', E: null, H: null, S: mwcm2((f) => f / 300, 'f/300'), averagingMin: SIX_MIN, notes: [FCC_NO_FIELDS] },
     { from: 1500, to: 100_000, label: '1,500–100,000 MHz', E: null, H: null, S: mwcm2(() => 5, '5'), averagingMin: SIX_MIN, notes: [FCC_NO_FIELDS] },
@@ -102,7 +111,16 @@ const fccGeneral: LimitTable = {
   status: 'C (regulation text)',
   rows: rows([
     { from: 0.3, to: 1.34, label: '0.3–1.34 MHz', E: k(614), H: k(1.63), S: mwcm2(() => 100, '(100)'), averagingMin: THIRTY_MIN, notes: [FCC_PLANE_WAVE] },
-    { from: 1.34, to: 30, label: '1.34–30 MHz', E: fn((f) => 824 / f, '824/f'), H: fn((f) => 2.19 / f, '2.19/f'), S: mwcm2((f) => 180 / f ** 2, '(180/f²)'), averagingMin: THIRTY_MIN, notes: [FCC_PLANE_WAVE] },
+    {
+      from: 1.34,
+      to: 30,
+      label: '1.34–30 MHz',
+      E: fn((f) => 824 / f, '824/f'),
+      H: fn((f) => 2.19 / f, '2.19/f'),
+      S: mwcm2((f) => 180 / f ** 2, '(180/f²)'),
+      averagingMin: THIRTY_MIN,
+      notes: [FCC_PLANE_WAVE],
+    },
     { from: 30, to: 300, label: '30–300 MHz', E: k(27.5), H: k(0.073), S: mwcm2(() => 0.2, '0.2'), averagingMin: THIRTY_MIN },
     { from: 300, to: 1500, label: '300–1,500 MHz', E: null, H: null, S: mwcm2((f) => f / 1500, 'f/1500'), averagingMin: THIRTY_MIN, notes: [FCC_NO_FIELDS] },
     { from: 1500, to: 100_000, label: '1,500–100,000 MHz', E: null, H: null, S: mwcm2(() => 1.0, '1.0'), averagingMin: THIRTY_MIN, notes: [FCC_NO_FIELDS] },
@@ -123,7 +141,15 @@ const icnirp1998General: LimitTable = {
     { from: 0.15, to: 1, label: '0.15–1 MHz', E: k(87), H: fn((f) => 0.73 / f, '0.73/f'), S: null, averagingMin: icnirp1998Averaging, notes: [NO_S_1998] },
     { from: 1, to: 10, label: '1–10 MHz', E: fn((f) => 87 / f ** 0.5, '87/f^½'), H: fn((f) => 0.73 / f, '0.73/f'), S: null, averagingMin: icnirp1998Averaging, notes: [NO_S_1998] },
     { from: 10, to: 400, label: '10–400 MHz', E: k(28), H: k(0.073), S: k(2), averagingMin: icnirp1998Averaging },
-    { from: 400, to: 2000, label: '400–2000 MHz', E: fn((f) => 1.375 * f ** 0.5, '1.375 f^½'), H: fn((f) => 0.0037 * f ** 0.5, '0.0037 f^½'), S: fn((f) => f / 200, 'f/200'), averagingMin: icnirp1998Averaging },
+    {
+      from: 400,
+      to: 2000,
+      label: '400–2000 MHz',
+      E: fn((f) => 1.375 * f ** 0.5, '1.375 f^½'),
+      H: fn((f) => 0.0037 * f ** 0.5, '0.0037 f^½'),
+      S: fn((f) => f / 200, 'f/200'),
+      averagingMin: icnirp1998Averaging,
+    },
     { from: 2000, to: 300_000, label: '2–300 GHz', E: k(61), H: k(0.16), S: k(10), averagingMin: icnirp1998Averaging },
   ]),
 };
@@ -138,8 +164,26 @@ const icnirp1998Occupational: LimitTable = {
     { from: 0.1, to: 1, label: '0.065–1 MHz row (from 100 kHz)', E: k(610), H: fn((f) => 1.6 / f, '1.6/f'), S: null, averagingMin: icnirp1998Averaging, notes: [NO_S_1998, H_FROM_MEMORY] },
     { from: 1, to: 10, label: '1–10 MHz', E: fn((f) => 610 / f, '610/f'), H: fn((f) => 1.6 / f, '1.6/f'), S: null, averagingMin: icnirp1998Averaging, notes: [NO_S_1998, H_FROM_MEMORY] },
     { from: 10, to: 400, label: '10–400 MHz', E: k(61), H: k(0.16), S: k(10), averagingMin: icnirp1998Averaging, notes: [H_FROM_MEMORY] },
-    { from: 400, to: 2000, label: '400–2000 MHz', E: fn((f) => 3 * f ** 0.5, '3 f^½'), H: fn((f) => 0.008 * f ** 0.5, '0.008 f^½'), S: fn((f) => f / 40, 'f/40'), averagingMin: icnirp1998Averaging, notes: ['E and H from memory (ICNIRP 1998 Table 6); S_eq confirmed from a secondary source.'] },
-    { from: 2000, to: 300_000, label: '2–300 GHz', E: k(137), H: k(0.36), S: k(50), averagingMin: icnirp1998Averaging, notes: ['E and H from memory (ICNIRP 1998 Table 6); S_eq confirmed from a secondary source.'] },
+    {
+      from: 400,
+      to: 2000,
+      label: '400–2000 MHz',
+      E: fn((f) => 3 * f ** 0.5, '3 f^½'),
+      H: fn((f) => 0.008 * f ** 0.5, '0.008 f^½'),
+      S: fn((f) => f / 40, 'f/40'),
+      averagingMin: icnirp1998Averaging,
+      notes: ['E and H from memory (ICNIRP 1998 Table 6); S_eq confirmed from a secondary source.'],
+    },
+    {
+      from: 2000,
+      to: 300_000,
+      label: '2–300 GHz',
+      E: k(137),
+      H: k(0.36),
+      S: k(50),
+      averagingMin: icnirp1998Averaging,
+      notes: ['E and H from memory (ICNIRP 1998 Table 6); S_eq confirmed from a secondary source.'],
+    },
   ]),
 };
 
@@ -161,7 +205,15 @@ const icnirp2020WholeBodyGeneral: LimitTable = {
   rows: rows([
     { from: 0.1, to: 30, label: '0.1–30 MHz', E: fn((f) => 300 / f ** 0.7, '300/f_M^0.7'), H: fn((f) => 2.2 / f, '2.2/f_M'), S: null, averagingMin: THIRTY_MIN, notes: [NA_2020] },
     { from: 30, to: 400, label: '>30–400 MHz', E: k(27.7), H: k(0.073), S: k(2), averagingMin: THIRTY_MIN },
-    { from: 400, to: 2000, label: '>400–2000 MHz', E: fn((f) => 1.375 * f ** 0.5, '1.375 f_M^0.5'), H: fn((f) => 0.0037 * f ** 0.5, '0.0037 f_M^0.5'), S: fn((f) => f / 200, 'f_M/200'), averagingMin: THIRTY_MIN },
+    {
+      from: 400,
+      to: 2000,
+      label: '>400–2000 MHz',
+      E: fn((f) => 1.375 * f ** 0.5, '1.375 f_M^0.5'),
+      H: fn((f) => 0.0037 * f ** 0.5, '0.0037 f_M^0.5'),
+      S: fn((f) => f / 200, 'f_M/200'),
+      averagingMin: THIRTY_MIN,
+    },
     { from: 2000, to: 300_000, label: '>2–300 GHz', E: null, H: null, S: k(10), averagingMin: THIRTY_MIN, notes: [NA_2020] },
   ]),
 };
@@ -169,7 +221,17 @@ const icnirp2020WholeBodyGeneral: LimitTable = {
 // ICNIRP 2020 Table 6, local exposure, averaged over 6 min .
 // ">6 – <300 GHz" excludes 300 GHz, which has its own row.
 const lastRows = (sixTo300: Cell, at300: number) => [
-  { from: 6000, to: 300_000, interval: { min: 6000, max: 300_000, minInclusive: false, maxInclusive: false }, label: '>6–<300 GHz', E: null, H: null, S: sixTo300, averagingMin: SIX_MIN, notes: [NA_2020, 'Above 6 GHz S_inc is averaged over a 4 cm² square projected area (ICNIRP 2020 Table 6, from memory).'] },
+  {
+    from: 6000,
+    to: 300_000,
+    interval: { min: 6000, max: 300_000, minInclusive: false, maxInclusive: false },
+    label: '>6–<300 GHz',
+    E: null,
+    H: null,
+    S: sixTo300,
+    averagingMin: SIX_MIN,
+    notes: [NA_2020, 'Above 6 GHz S_inc is averaged over a 4 cm² square projected area (ICNIRP 2020 Table 6, from memory).'],
+  },
   { from: 300_000, to: 300_000, interval: { min: 300_000, max: 300_000 }, label: '300 GHz', E: null, H: null, S: k(at300), averagingMin: SIX_MIN, notes: [NA_2020] },
 ];
 const icnirp2020LocalOccupational: LimitTable = {
@@ -178,9 +240,20 @@ const icnirp2020LocalOccupational: LimitTable = {
   rows: rows([
     { from: 0.1, to: 30, label: '0.1–30 MHz', E: fn((f) => 1504 / f ** 0.7, '1504/f_M^0.7'), H: fn((f) => 10.8 / f, '10.8/f_M'), S: null, averagingMin: SIX_MIN, notes: [NA_2020] },
     { from: 30, to: 400, label: '>30–400 MHz', E: k(139), H: k(0.36), S: k(50), averagingMin: SIX_MIN },
-    { from: 400, to: 2000, label: '>400–2000 MHz', E: fn((f) => 10.58 * f ** 0.43, '10.58 f_M^0.43'), H: fn((f) => 0.0274 * f ** 0.43, '0.0274 f_M^0.43'), S: fn((f) => 0.29 * f ** 0.86, '0.29 f_M^0.86'), averagingMin: SIX_MIN },
+    {
+      from: 400,
+      to: 2000,
+      label: '>400–2000 MHz',
+      E: fn((f) => 10.58 * f ** 0.43, '10.58 f_M^0.43'),
+      H: fn((f) => 0.0274 * f ** 0.43, '0.0274 f_M^0.43'),
+      S: fn((f) => 0.29 * f ** 0.86, '0.29 f_M^0.86'),
+      averagingMin: SIX_MIN,
+    },
     { from: 2000, to: 6000, label: '>2–6 GHz', E: null, H: null, S: k(200), averagingMin: SIX_MIN, notes: [NA_2020] },
-    ...lastRows(fn((f) => 275 / (f / 1000) ** 0.177, '275/f_G^0.177'), 100),
+    ...lastRows(
+      fn((f) => 275 / (f / 1000) ** 0.177, '275/f_G^0.177'),
+      100,
+    ),
   ]),
 };
 const icnirp2020LocalGeneral: LimitTable = {
@@ -189,9 +262,20 @@ const icnirp2020LocalGeneral: LimitTable = {
   rows: rows([
     { from: 0.1, to: 30, label: '0.1–30 MHz', E: fn((f) => 671 / f ** 0.7, '671/f_M^0.7'), H: fn((f) => 4.9 / f, '4.9/f_M'), S: null, averagingMin: SIX_MIN, notes: [NA_2020] },
     { from: 30, to: 400, label: '>30–400 MHz', E: k(62), H: k(0.163), S: k(10), averagingMin: SIX_MIN },
-    { from: 400, to: 2000, label: '>400–2000 MHz', E: fn((f) => 4.72 * f ** 0.43, '4.72 f_M^0.43'), H: fn((f) => 0.0123 * f ** 0.43, '0.0123 f_M^0.43'), S: fn((f) => 0.058 * f ** 0.86, '0.058 f_M^0.86'), averagingMin: SIX_MIN },
+    {
+      from: 400,
+      to: 2000,
+      label: '>400–2000 MHz',
+      E: fn((f) => 4.72 * f ** 0.43, '4.72 f_M^0.43'),
+      H: fn((f) => 0.0123 * f ** 0.43, '0.0123 f_M^0.43'),
+      S: fn((f) => 0.058 * f ** 0.86, '0.058 f_M^0.86'),
+      averagingMin: SIX_MIN,
+    },
     { from: 2000, to: 6000, label: '>2–6 GHz', E: null, H: null, S: k(40), averagingMin: SIX_MIN, notes: [NA_2020] },
-    ...lastRows(fn((f) => 55 / (f / 1000) ** 0.177, '55/f_G^0.177'), 20),
+    ...lastRows(
+      fn((f) => 55 / (f / 1000) ** 0.177, '55/f_G^0.177'),
+      20,
+    ),
   ]),
 };
 
@@ -203,15 +287,48 @@ const isedGeneral: LimitTable = {
   source: 'RSS-102 Issue 5 Table 4, reference levels for the general public (uncontrolled environment) = Safety Code 6 (2015) Table 5',
   status: 'M (from memory)',
   rows: rows([
-    { from: 0.1, to: 1.1, label: '0.1–10 MHz (H); E (SAR basis) only from 1.1 MHz', E: null, H: fn((f) => 0.73 / f, '0.73/f'), S: null, averagingMin: isedAveraging, notes: [NO_S_ISED, 'No SAR-basis E-field reference level below 1.1 MHz; only the instantaneous nerve-stimulation limit applies (additionalLimits).'] },
+    {
+      from: 0.1,
+      to: 1.1,
+      label: '0.1–10 MHz (H); E (SAR basis) only from 1.1 MHz',
+      E: null,
+      H: fn((f) => 0.73 / f, '0.73/f'),
+      S: null,
+      averagingMin: isedAveraging,
+      notes: [NO_S_ISED, 'No SAR-basis E-field reference level below 1.1 MHz; only the instantaneous nerve-stimulation limit applies (additionalLimits).'],
+    },
     { from: 1.1, to: 10, label: '1.1–10 MHz', E: fn((f) => 87 / f ** 0.5, '87/f^0.5'), H: fn((f) => 0.73 / f, '0.73/f'), S: null, averagingMin: isedAveraging, notes: [NO_S_ISED] },
     { from: 10, to: 20, label: '10–20 MHz', E: k(27.46), H: k(0.0728), S: k(2), averagingMin: isedAveraging },
-    { from: 20, to: 48, label: '20–48 MHz', E: fn((f) => 58.07 / f ** 0.25, '58.07/f^0.25'), H: fn((f) => 0.154 / f ** 0.25, '0.1540/f^0.25'), S: fn((f) => 8.944 / f ** 0.5, '8.944/f^0.5'), averagingMin: isedAveraging },
+    {
+      from: 20,
+      to: 48,
+      label: '20–48 MHz',
+      E: fn((f) => 58.07 / f ** 0.25, '58.07/f^0.25'),
+      H: fn((f) => 0.154 / f ** 0.25, '0.1540/f^0.25'),
+      S: fn((f) => 8.944 / f ** 0.5, '8.944/f^0.5'),
+      averagingMin: isedAveraging,
+    },
     { from: 48, to: 300, label: '48–300 MHz', E: k(22.06), H: k(0.05852), S: k(1.291), averagingMin: isedAveraging },
-    { from: 300, to: 6000, label: '300–6000 MHz', E: fn((f) => 3.142 * f ** 0.3417, '3.142 f^0.3417'), H: fn((f) => 0.008335 * f ** 0.3417, '0.008335 f^0.3417'), S: fn((f) => 0.02619 * f ** 0.6834, '0.02619 f^0.6834'), averagingMin: isedAveraging },
+    {
+      from: 300,
+      to: 6000,
+      label: '300–6000 MHz',
+      E: fn((f) => 3.142 * f ** 0.3417, '3.142 f^0.3417'),
+      H: fn((f) => 0.008335 * f ** 0.3417, '0.008335 f^0.3417'),
+      S: fn((f) => 0.02619 * f ** 0.6834, '0.02619 f^0.6834'),
+      averagingMin: isedAveraging,
+    },
     { from: 6000, to: 15_000, label: '6000–15000 MHz', E: k(61.4), H: k(0.163), S: k(10), averagingMin: isedAveraging },
     { from: 15_000, to: 150_000, label: '15000–150000 MHz', E: k(61.4), H: k(0.163), S: k(10), averagingMin: isedAveraging },
-    { from: 150_000, to: 300_000, label: '150000–300000 MHz', E: fn((f) => 0.158 * f ** 0.5, '0.158 f^0.5'), H: fn((f) => 4.21e-4 * f ** 0.5, '4.21×10⁻⁴ f^0.5'), S: fn((f) => 6.67e-5 * f, '6.67×10⁻⁵ f'), averagingMin: isedAveraging },
+    {
+      from: 150_000,
+      to: 300_000,
+      label: '150000–300000 MHz',
+      E: fn((f) => 0.158 * f ** 0.5, '0.158 f^0.5'),
+      H: fn((f) => 4.21e-4 * f ** 0.5, '4.21×10⁻⁴ f^0.5'),
+      S: fn((f) => 6.67e-5 * f, '6.67×10⁻⁵ f'),
+      averagingMin: isedAveraging,
+    },
   ]),
   additional: (f) => (f <= 10 ? [{ basis: 'nerve stimulation (RSS-102 Table 4, 0.003–10 MHz)', electricFieldVPerM: 83, magneticFieldAPerM: 90, averaging: 'instantaneous' }] : []),
 };
@@ -219,15 +336,48 @@ const isedControlled: LimitTable = {
   source: 'RSS-102 Issue 5 Table 5, reference levels for the controlled environment = Safety Code 6 (2015) Table 6',
   status: 'M (from memory)',
   rows: rows([
-    { from: 0.1, to: 1.29, label: '0.1–10 MHz (H); E (SAR basis) only from 1.29 MHz', E: null, H: fn((f) => 1.6 / f, '1.6/f'), S: null, averagingMin: isedAveraging, notes: [NO_S_ISED, 'No SAR-basis E-field reference level below 1.29 MHz; only the instantaneous nerve-stimulation limit applies (additionalLimits).'] },
+    {
+      from: 0.1,
+      to: 1.29,
+      label: '0.1–10 MHz (H); E (SAR basis) only from 1.29 MHz',
+      E: null,
+      H: fn((f) => 1.6 / f, '1.6/f'),
+      S: null,
+      averagingMin: isedAveraging,
+      notes: [NO_S_ISED, 'No SAR-basis E-field reference level below 1.29 MHz; only the instantaneous nerve-stimulation limit applies (additionalLimits).'],
+    },
     { from: 1.29, to: 10, label: '1.29–10 MHz', E: fn((f) => 193 / f ** 0.5, '193/f^0.5'), H: fn((f) => 1.6 / f, '1.6/f'), S: null, averagingMin: isedAveraging, notes: [NO_S_ISED] },
     { from: 10, to: 20, label: '10–20 MHz', E: k(61.4), H: k(0.163), S: k(10), averagingMin: isedAveraging },
-    { from: 20, to: 48, label: '20–48 MHz', E: fn((f) => 129.8 / f ** 0.25, '129.8/f^0.25'), H: fn((f) => 0.3444 / f ** 0.25, '0.3444/f^0.25'), S: fn((f) => 44.72 / f ** 0.5, '44.72/f^0.5'), averagingMin: isedAveraging },
+    {
+      from: 20,
+      to: 48,
+      label: '20–48 MHz',
+      E: fn((f) => 129.8 / f ** 0.25, '129.8/f^0.25'),
+      H: fn((f) => 0.3444 / f ** 0.25, '0.3444/f^0.25'),
+      S: fn((f) => 44.72 / f ** 0.5, '44.72/f^0.5'),
+      averagingMin: isedAveraging,
+    },
     { from: 48, to: 100, label: '48–100 MHz', E: k(49.33), H: k(0.1309), S: k(6.455), averagingMin: isedAveraging },
-    { from: 100, to: 6000, label: '100–6000 MHz', E: fn((f) => 15.6 * f ** 0.25, '15.60 f^0.25'), H: fn((f) => 0.04138 * f ** 0.25, '0.04138 f^0.25'), S: fn((f) => 0.6455 * f ** 0.5, '0.6455 f^0.5'), averagingMin: isedAveraging },
+    {
+      from: 100,
+      to: 6000,
+      label: '100–6000 MHz',
+      E: fn((f) => 15.6 * f ** 0.25, '15.60 f^0.25'),
+      H: fn((f) => 0.04138 * f ** 0.25, '0.04138 f^0.25'),
+      S: fn((f) => 0.6455 * f ** 0.5, '0.6455 f^0.5'),
+      averagingMin: isedAveraging,
+    },
     { from: 6000, to: 15_000, label: '6000–15000 MHz', E: k(137), H: k(0.364), S: k(50), averagingMin: isedAveraging },
     { from: 15_000, to: 150_000, label: '15000–150000 MHz', E: k(137), H: k(0.364), S: k(50), averagingMin: isedAveraging },
-    { from: 150_000, to: 300_000, label: '150000–300000 MHz', E: fn((f) => 0.354 * f ** 0.5, '0.354 f^0.5'), H: fn((f) => 9.4e-4 * f ** 0.5, '9.40×10⁻⁴ f^0.5'), S: fn((f) => 3.33e-4 * f, '3.33×10⁻⁴ f'), averagingMin: isedAveraging },
+    {
+      from: 150_000,
+      to: 300_000,
+      label: '150000–300000 MHz',
+      E: fn((f) => 0.354 * f ** 0.5, '0.354 f^0.5'),
+      H: fn((f) => 9.4e-4 * f ** 0.5, '9.40×10⁻⁴ f^0.5'),
+      S: fn((f) => 3.33e-4 * f, '3.33×10⁻⁴ f'),
+      averagingMin: isedAveraging,
+    },
   ]),
   additional: (f) => (f <= 10 ? [{ basis: 'nerve stimulation (RSS-102 Table 5, 0.003–10 MHz)', electricFieldVPerM: 170, magneticFieldAPerM: 180, averaging: 'instantaneous' }] : []),
 };
@@ -326,9 +476,7 @@ export function computeExposureLimit(input: z.output<typeof exposureLimitInput>)
     ...(row.notes ?? []),
   ];
   if (limit.powerDensityWPerM2 !== null && limit.electricFieldVPerM === null) {
-    notes.push(
-      `Plane-wave equivalent E = √(377·S) = ${Math.sqrt(377 * limit.powerDensityWPerM2).toFixed(1)} V/m (free-space plane-wave conversion, Z0 ≈ 377 Ω; not a tabulated limit).`,
-    );
+    notes.push(`Plane-wave equivalent E = √(377·S) = ${Math.sqrt(377 * limit.powerDensityWPerM2).toFixed(1)} V/m (free-space plane-wave conversion, Z0 ≈ 377 Ω; not a tabulated limit).`);
   }
   if (limit.additionalLimits.length) notes.push('additionalLimits lists limits that apply in addition at this frequency.');
   const cell = (c: Cell | null) => (c ? c.text : 'no value');
@@ -358,9 +506,17 @@ export function computeExposureLimit(input: z.output<typeof exposureLimitInput>)
 export const exposureLimitCalculation = defineCalculation({
   name: 'exposure-limit',
   title: 'Exposure limit (MPE / reference level)',
-  description:
-    'Power density, E and H limits and averaging time at a frequency, for FCC, ISED, ICNIRP 1998 or ICNIRP 2020 (whole-body or local), general or occupational tier.',
+  description: 'Power density, E and H limits and averaging time at a frequency, for FCC, ISED, ICNIRP 1998 or ICNIRP 2020 (whole-body or local), general or occupational tier.',
   input: exposureLimitInput,
   compute: computeExposureLimit,
-  sources: [fccGeneral.source, fccOccupational.source, isedGeneral.source, isedControlled.source, icnirp1998General.source, icnirp1998Occupational.source, icnirp2020WholeBodyGeneral.source, icnirp2020LocalGeneral.source],
+  sources: [
+    fccGeneral.source,
+    fccOccupational.source,
+    isedGeneral.source,
+    isedControlled.source,
+    icnirp1998General.source,
+    icnirp1998Occupational.source,
+    icnirp2020WholeBodyGeneral.source,
+    icnirp2020LocalGeneral.source,
+  ],
 });

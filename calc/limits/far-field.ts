@@ -9,9 +9,7 @@ import { q } from '../types';
 import { dbiToLinear } from '../em/units';
 
 const SOURCE = 'FCC OET Bulletin 65 (Edition 97-01) Eq. (3): S = EIRP / (4πR²)';
-const FAR_FIELD_NOTES = [
-  'Far-field formula without ground reflection; in the near field (closer than about λ/2π, or 2D²/λ for a large aperture) it is not valid as such (common practice).',
-];
+const FAR_FIELD_NOTES = ['Far-field formula without ground reflection; in the near field (closer than about λ/2π, or 2D²/λ for a large aperture) it is not valid as such (common practice).'];
 
 /** Power density at distance R from an isotropic-equivalent source of the given EIRP, W/m². */
 export function farFieldPowerDensityWPerM2(eirpW: number, distanceM: number): number {

@@ -63,11 +63,7 @@ export function fccSarThresholdMw(frequencyHz: number, separationM: number): num
 export const fccSarExemptionInput = z.object({
   frequencyHz: z.number().positive().describe('Frequency, Hz (0.3–6 GHz)'),
   separationM: z.number().positive().describe('Separation distance, m (0.005–0.4)'),
-  powerMw: z
-    .number()
-    .nonnegative()
-    .optional()
-    .describe('Optional: the greater of available maximum time-averaged power and ERP, mW'),
+  powerMw: z.number().nonnegative().optional().describe('Optional: the greater of available maximum time-averaged power and ERP, mW'),
 });
 
 export function computeFccSarExemption(input: z.output<typeof fccSarExemptionInput>) {
@@ -237,9 +233,7 @@ export function computeFcc1mwExemption(input: z.output<typeof fcc1mwExemptionInp
     intermediate: {},
     result: { exempt: q(verdict.exempt, '1'), thresholdMw: q(FCC_BLANKET_EXEMPTION_MW, 'mW'), marginDb: q(verdict.marginDb, 'dB') },
     source: ONE_MW_SOURCE,
-    notes: [
-      'Wording of (i)(A) from memory (47 CFR §1.1307(b)(3)(i)(A), from memory): applies regardless of separation distance; medical implant devices may use only (i)(A) and (ii)(A).',
-    ],
+    notes: ['Wording of (i)(A) from memory (47 CFR §1.1307(b)(3)(i)(A), from memory): applies regardless of separation distance; medical implant devices may use only (i)(A) and (ii)(A).'],
   };
   return { exempt: verdict.exempt, thresholdMw: FCC_BLANKET_EXEMPTION_MW, marginDb: verdict.marginDb, condition: ONE_MW_CONDITION, derivation };
 }

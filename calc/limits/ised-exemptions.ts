@@ -76,9 +76,7 @@ export function isedSarExemption(frequencyHz: number, separationM: number, limbW
   const row0 = at(fb.i, db.i) + db.t * (at(fb.i, db.i + 1) - at(fb.i, db.i));
   const row1 = at(fb.i + 1, db.i) + db.t * (at(fb.i + 1, db.i + 1) - at(fb.i + 1, db.i));
   const base = row0 + fb.t * (row1 - row0);
-  const corners = [fb.i, fb.i + 1].flatMap((fi) =>
-    [db.i, db.i + 1].map((di) => ({ frequencyMHz: isedSarTableFrequenciesMHz[fi], separationMm: isedSarTableSeparationsMm[di], limitMw: at(fi, di) })),
-  );
+  const corners = [fb.i, fb.i + 1].flatMap((fi) => [db.i, db.i + 1].map((di) => ({ frequencyMHz: isedSarTableFrequenciesMHz[fi], separationMm: isedSarTableSeparationsMm[di], limitMw: at(fi, di) })));
   return {
     thresholdMw: base * (limbWorn ? ISED_LIMB_WORN_FACTOR : 1),
     tableFrequencyMHz: fMHz,
@@ -96,11 +94,7 @@ export const isedSarExemptionInput = z.object({
   frequencyHz: z.number().positive().describe('Frequency, Hz (100 kHz–5.8 GHz)'),
   separationM: z.number().nonnegative().describe('Separation distance, m (≤ 0.2)'),
   limbWorn: z.boolean().default(false).describe('Limb-worn device (10-g limit): Table 1 × 2.5'),
-  powerMw: z
-    .number()
-    .nonnegative()
-    .optional()
-    .describe('Optional: source-based time-averaged output power incl. tune-up, the higher of conducted power and e.i.r.p., mW'),
+  powerMw: z.number().nonnegative().optional().describe('Optional: source-based time-averaged output power incl. tune-up, the higher of conducted power and e.i.r.p., mW'),
 });
 
 export function computeIsedSarExemption(input: z.output<typeof isedSarExemptionInput>) {

@@ -50,19 +50,10 @@ function describe(r: Interval, format: (v: number) => string): string {
  * Throws a CalcRangeError naming the valid range (and the rule) when `value` lies outside it.
  * `kind` picks the formatting: frequency (Hz) or distance (m).
  */
-export function requireInRange(
-  field: string,
-  value: number,
-  r: Interval,
-  kind: 'frequency' | 'distance',
-  rule: string,
-  hint = '',
-): void {
+export function requireInRange(field: string, value: number, r: Interval, kind: 'frequency' | 'distance', rule: string, hint = ''): void {
   if (inInterval(value, r)) return;
   const format = kind === 'frequency' ? formatHz : formatM;
-  const message =
-    `${field} = ${format(value)} is outside the range of ${rule}: valid ${describe(r, format)}.` +
-    (hint ? ` ${hint}` : '');
+  const message = `${field} = ${format(value)} is outside the range of ${rule}: valid ${describe(r, format)}.` + (hint ? ` ${hint}` : '');
   throw new CalcRangeError(message, [{ path: [field], message }]);
 }
 

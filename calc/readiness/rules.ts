@@ -80,7 +80,11 @@ function testedSeparations(input: ReadinessInput): Map<string, number> {
 const manualPositions = (input: ReadinessInput) => input.usePositions.filter((p) => (MANUAL_SEPARATION_KINDS as readonly string[]).includes(p.kind));
 
 /** A hotspot use position tests an edge when its id names the edge as a word (“hotspot-top”, “HS_Top_edge”). */
-export const testsEdge = (usePositionId: string, edge: string) => usePositionId.toLowerCase().split(/[^a-z0-9]+/).includes(edge.toLowerCase());
+export const testsEdge = (usePositionId: string, edge: string) =>
+  usePositionId
+    .toLowerCase()
+    .split(/[^a-z0-9]+/)
+    .includes(edge.toLowerCase());
 
 export const READINESS_RULES: readonly ReadinessRule[] = [
   {
@@ -90,8 +94,7 @@ export const READINESS_RULES: readonly ReadinessRule[] = [
     fix: 'Fill in the device name, model, applicant and product type.',
     step: 'device',
     source: '47 CFR §2.1033(b)(1); Directive 2014/53/EU Annex V(a)',
-    check: (input) =>
-      DEVICE_FIELDS.filter(([field]) => !String(input.device[field] ?? '').trim()).map(([, label]) => ({ text: `The ${label} is missing.` })),
+    check: (input) => DEVICE_FIELDS.filter(([field]) => !String(input.device[field] ?? '').trim()).map(([, label]) => ({ text: `The ${label} is missing.` })),
   },
   {
     id: 'device-versions',
@@ -189,7 +192,8 @@ export const READINESS_RULES: readonly ReadinessRule[] = [
     fix: 'Enter what each record named lacks (power drift, the liquid and system check it relied on, the SAR at each averaging mass, the probe and its calibration).',
     step: 'measurements',
     source: 'IEC/IEEE 62209-1528:2020 and FCC KDB 865664 D01 v01r04 (what a SAR test record carries; from memory); common practice',
-    check: (input) => (input.lab?.measurements.length ? (labChecks(input, ['liquid', 'system-check', 'drift', 'calibration', 'repeat', 'separation', 'reference', 'record', 'other'], true) ?? []) : null),
+    check: (input) =>
+      input.lab?.measurements.length ? (labChecks(input, ['liquid', 'system-check', 'drift', 'calibration', 'repeat', 'separation', 'reference', 'record', 'other'], true) ?? []) : null,
   },
   {
     id: 'reported-sar-within-limit',
@@ -228,7 +232,8 @@ export const READINESS_RULES: readonly ReadinessRule[] = [
             if (!c) out.push({ text: `${name} is not evaluated.` });
             else if (c.status === 'over-limit') out.push({ text: `${name}: the sum is over the limit.` });
             else if (c.status === 'needs-simultaneous-measurement') out.push({ text: `${name} needs a simultaneous measurement.` });
-            else if (c.status === 'incomplete') out.push({ text: `${name} cannot be summed: a transmitter in it has no measurement here and no exemption to estimate its SAR from (or is not screened here).`, step: 'measurements' });
+            else if (c.status === 'incomplete')
+              out.push({ text: `${name} cannot be summed: a transmitter in it has no measurement here and no exemption to estimate its SAR from (or is not screened here).`, step: 'measurements' });
           }
       }
       return out;
@@ -340,7 +345,9 @@ export const READINESS_RULES: readonly ReadinessRule[] = [
       const stated = new Set(input.manualSeparations.map((s) => s.usePositionId));
       return positions
         .filter((p) => !stated.has(p.id))
-        .map((p) => ({ text: `The user manual states no separation for “${p.id}” (${p.kind}): add a sentence with the distance in mm, for example “at least ${mm(testedSeparations(input).get(p.id) ?? 0.01)} mm from the body”.` }));
+        .map((p) => ({
+          text: `The user manual states no separation for “${p.id}” (${p.kind}): add a sentence with the distance in mm, for example “at least ${mm(testedSeparations(input).get(p.id) ?? 0.01)} mm from the body”.`,
+        }));
     },
   },
   {
@@ -385,7 +392,8 @@ export const READINESS_RULES: readonly ReadinessRule[] = [
         if (e.distanceM > HOTSPOT_EDGE_DISTANCE_M + 1e-9) continue;
         const positions = hotspots.filter((p) => testsEdge(p.id, e.edge));
         if (!positions.length) {
-          if (!seen.has(key('edge', e.edge))) out.push({ text: `The ${e.edge} edge is ${mm(e.distanceM)} mm from ${e.antennaId} and no hotspot use position tests it (give one an id naming the edge, such as “hotspot-${e.edge}”).` });
+          if (!seen.has(key('edge', e.edge)))
+            out.push({ text: `The ${e.edge} edge is ${mm(e.distanceM)} mm from ${e.antennaId} and no hotspot use position tests it (give one an id naming the edge, such as “hotspot-${e.edge}”).` });
           seen.add(key('edge', e.edge));
           continue;
         }
@@ -395,7 +403,8 @@ export const READINESS_RULES: readonly ReadinessRule[] = [
             seen.add(key(t.id, p.id));
             const results = input.regimes.map((r) => rows.get(key(t.id, p.id, r)));
             if (results.some((r) => r === undefined)) out.push({ text: `${t.id} at hotspot “${p.id}” is not screened (give its separation for ${t.antennaId}).` });
-            else if (results.includes('evaluate-sar') && !measured.has(key(t.id, p.id))) out.push({ text: `${t.id} at hotspot “${p.id}” (${e.edge} edge, ${mm(e.distanceM)} mm from ${t.antennaId}) needs SAR and has no measurement.`, step: 'measurements' });
+            else if (results.includes('evaluate-sar') && !measured.has(key(t.id, p.id)))
+              out.push({ text: `${t.id} at hotspot “${p.id}” (${e.edge} edge, ${mm(e.distanceM)} mm from ${t.antennaId}) needs SAR and has no measurement.`, step: 'measurements' });
           }
       }
       return out;
@@ -410,8 +419,7 @@ export const READINESS_RULES: readonly ReadinessRule[] = [
     source: 'FCC KDB 941225 D06 (which hotspot edges are tested follows from the antenna-to-edge distances; from memory)',
     check: (input) => {
       if (!input.usePositions.some((p) => p.kind === 'hotspot')) return null;
-      if (input.hotspotEdges === null)
-        return [{ text: 'No antenna location drawing with readable text is on file, so which hotspot edges must be tested cannot be worked out.' }];
+      if (input.hotspotEdges === null) return [{ text: 'No antenna location drawing with readable text is on file, so which hotspot edges must be tested cannot be worked out.' }];
       const known = new Set(input.hotspotEdges.map((e) => e.antennaId));
       const used = [...new Set(input.transmitters.map((t) => t.antennaId))];
       return used.filter((a) => !known.has(a)).map((a) => ({ text: `The antenna drawing gives no edge distance for ${a}.` }));

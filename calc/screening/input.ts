@@ -96,9 +96,21 @@ export const screeningInput = z
   })
   .superRefine((input, ctx) => {
     const antennaIds = new Set(input.antennas.map((a) => a.id));
-    duplicateIssues(input.antennas.map((a) => a.id), 'antennas', ctx);
-    duplicateIssues(input.transmitters.map((t) => t.id), 'transmitters', ctx);
-    duplicateIssues(input.usePositions.map((p) => p.id), 'usePositions', ctx);
+    duplicateIssues(
+      input.antennas.map((a) => a.id),
+      'antennas',
+      ctx,
+    );
+    duplicateIssues(
+      input.transmitters.map((t) => t.id),
+      'transmitters',
+      ctx,
+    );
+    duplicateIssues(
+      input.usePositions.map((p) => p.id),
+      'usePositions',
+      ctx,
+    );
     const regimes = input.markets.map((m) => m.regime);
     regimes.forEach((r, i) => {
       if (regimes.indexOf(r) !== i) ctx.addIssue({ code: 'custom', path: ['markets', i, 'regime'], message: `market "${r}" is listed twice` });
@@ -119,8 +131,10 @@ export const screeningInput = z
         const at = ['usePositions', i, 'powerModes', j];
         const max = maxDbmOf.get(m.transmitterId);
         if (max === undefined) ctx.addIssue({ code: 'custom', path: [...at, 'transmitterId'], message: `unknown transmitter id "${m.transmitterId}"` });
-        else if (m.reducedTuneUpPowerDbm >= max) ctx.addIssue({ code: 'custom', path: [...at, 'reducedTuneUpPowerDbm'], message: `a reduced power must be below the maximum tune-up power (${max} dBm)` });
-        if (p.powerModes!.findIndex((o) => o.transmitterId === m.transmitterId) !== j) ctx.addIssue({ code: 'custom', path: [...at, 'transmitterId'], message: `transmitter "${m.transmitterId}" has two power modes in this use position` });
+        else if (m.reducedTuneUpPowerDbm >= max)
+          ctx.addIssue({ code: 'custom', path: [...at, 'reducedTuneUpPowerDbm'], message: `a reduced power must be below the maximum tune-up power (${max} dBm)` });
+        if (p.powerModes!.findIndex((o) => o.transmitterId === m.transmitterId) !== j)
+          ctx.addIssue({ code: 'custom', path: [...at, 'transmitterId'], message: `transmitter "${m.transmitterId}" has two power modes in this use position` });
       }),
     );
     input.usePositions.forEach((p, i) =>

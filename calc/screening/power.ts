@@ -31,8 +31,7 @@ export interface EvaluatedPowers {
   notes: string[];
 }
 
-export const POWER_FORMULA =
-  'P_tune = 10^(P_dBm/10) mW; P_avg = P_tune × duty cycle; EIRP = P_avg × 10^(G_dBi/10); ERP = EIRP − 2.15 dB (÷ 1.64)';
+export const POWER_FORMULA = 'P_tune = 10^(P_dBm/10) mW; P_avg = P_tune × duty cycle; EIRP = P_avg × 10^(G_dBi/10); ERP = EIRP − 2.15 dB (÷ 1.64)';
 
 const POWER_NOTE =
   'Time-averaged: tune-up power (tolerance included) × duty cycle (source-based time averaging, common practice per FCC KDB 447498); ERP = EIRP − 2.15 dB (half-wave dipole gain 2.15 dBi, IEEE Std 145-2013).';

@@ -79,7 +79,10 @@ function referenceLevelRuleSet(regime: EuLikeRegime, ctx: RuleContext): RuleSet 
     threshold(f) {
       const nearM = reactiveNearFieldM(f);
       if (separationM < nearM) {
-        return { notApplicable: `R = ${formatM(separationM)} is closer than λ/2π = ${formatM(nearM)} at ${formatHz(f)}: the far-field formula is not valid there (common practice)`, result: 'evaluate-mpe' };
+        return {
+          notApplicable: `R = ${formatM(separationM)} is closer than λ/2π = ${formatM(nearM)} at ${formatHz(f)}: the far-field formula is not valid there (common practice)`,
+          result: 'evaluate-mpe',
+        };
       }
       const s = exposureLimit(f, limitRegime, tier).powerDensityWPerM2;
       if (s === null) return { notApplicable: `no power-density reference level at ${formatHz(f)}: E and H must be assessed`, result: 'evaluate-mpe' };

@@ -25,9 +25,7 @@ const TABLE_1_MAX_SEPARATION_M = 0.2;
 
 export function isedRuleSet(ctx: RuleContext): RuleSet {
   const { separationM, powers, kind, tier } = ctx;
-  const notes: string[] = [
-    `Rests on ${ISED_RULE_EDITION}: Issue 6 (15 Dec 2023) superseded it and revised the exemption limits, which are not in this rule set (${RULE_SET_VERSION}).`,
-  ];
+  const notes: string[] = [`Rests on ${ISED_RULE_EDITION}: Issue 6 (15 Dec 2023) superseded it and revised the exemption limits, which are not in this rule set (${RULE_SET_VERSION}).`];
   if (tier === 'occupational') notes.push('The RSS-102 exemption limits are set for the general public; applying them to a controlled environment is conservative.');
   if (separationM <= TABLE_1_MAX_SEPARATION_M) {
     const limbWorn = kind === 'extremity';
@@ -52,9 +50,7 @@ export function isedRuleSet(ctx: RuleContext): RuleSet {
       uncovered: {
         result: sarOrMpe,
         reason: (f) =>
-          f <= 6e9
-            ? `RSS-102 Table 1 has no row above 5800 MHz (${formatHz(f)}): SAR evaluation`
-            : `above 6 GHz RSS-102 assesses power density, and §2.5.2 applies only beyond 20 cm (${formatHz(f)})`,
+          f <= 6e9 ? `RSS-102 Table 1 has no row above 5800 MHz (${formatHz(f)}): SAR evaluation` : `above 6 GHz RSS-102 assesses power density, and §2.5.2 applies only beyond 20 cm (${formatHz(f)})`,
       },
     };
   }

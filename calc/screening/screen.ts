@@ -13,9 +13,33 @@
 import type { Derivation, Quantity } from '../types';
 import { q } from '../types';
 import { formatHz } from './format';
-import { antennasOf, powerModeOf, streamsOf, type PowerModeTrigger, type ScreeningInput, type ScreeningMarket, type ScreeningRegime, type ScreeningTransmitter, type ScreeningUsePosition, type UsePositionKind } from './input';
+import {
+  antennasOf,
+  powerModeOf,
+  streamsOf,
+  type PowerModeTrigger,
+  type ScreeningInput,
+  type ScreeningMarket,
+  type ScreeningRegime,
+  type ScreeningTransmitter,
+  type ScreeningUsePosition,
+  type UsePositionKind,
+} from './input';
 import { evaluatedPowers, withPowerMode, type EvaluatedPowers } from './power';
-import { fmt, isWorse, METHOD_LABELS, NEAR_THRESHOLD_DB, screenBand, UNIT, UNROUNDED_COMPARISON, type MethodId, type Probe, type ScreeningResult, type ScreeningRule, type ThresholdKind } from './rule';
+import {
+  fmt,
+  isWorse,
+  METHOD_LABELS,
+  NEAR_THRESHOLD_DB,
+  screenBand,
+  UNIT,
+  UNROUNDED_COMPARISON,
+  type MethodId,
+  type Probe,
+  type ScreeningResult,
+  type ScreeningRule,
+  type ThresholdKind,
+} from './rule';
 import type { RuleContext, RuleSet } from './rule-set';
 import { fccRuleSet } from './rules-fcc';
 import { isedRuleSet } from './rules-ised';
@@ -248,12 +272,12 @@ function blanketRow(c: Combination, set: RuleSet): ScreeningRow {
   });
   row.thresholdMw = b.thresholdMw;
   row.derivation = {
-      formula: `${c.powers.formula}; ${d.formula}`,
-      inputs: rowInputs(c),
-      intermediate: assignAll({}, c.powers.intermediate, d.intermediate),
-      result: { result: q('exempt', 'text'), thresholdMw: q(b.thresholdMw, 'mW'), marginDb: q(marginDb, 'dB') },
-      source: d.source,
-      notes: [...c.powers.notes, '§1.1307(b)(3)(i)(A) does not depend on frequency or separation: the band is not searched (frequencyHz reports its lower edge).', ...d.notes],
+    formula: `${c.powers.formula}; ${d.formula}`,
+    inputs: rowInputs(c),
+    intermediate: assignAll({}, c.powers.intermediate, d.intermediate),
+    result: { result: q('exempt', 'text'), thresholdMw: q(b.thresholdMw, 'mW'), marginDb: q(marginDb, 'dB') },
+    source: d.source,
+    notes: [...c.powers.notes, '§1.1307(b)(3)(i)(A) does not depend on frequency or separation: the band is not searched (frequencyHz reports its lower edge).', ...d.notes],
   };
   return row;
 }
@@ -288,7 +312,6 @@ function bandRow(c: Combination, set: RuleSet): ScreeningRow {
   if (rule) {
     if (worst.threshold !== null) row[THRESHOLD_FIELD[rule.kind]] = worst.threshold;
     if (rule.kind === 'power-density') row.evaluatedPowerDensityWPerM2 = rule.evaluated;
-
   }
   if (worst.result === 'exempt') {
     // §4.3.2: the highest estimate over the band, for the simultaneous-transmission sum.
@@ -434,7 +457,11 @@ export function screenParsed(input: ScreeningInput): ScreeningOutput {
       }
     }
   }
-  const summary = summarizeScreening(rows, gaps, input.markets.map((m) => m.regime));
+  const summary = summarizeScreening(
+    rows,
+    gaps,
+    input.markets.map((m) => m.regime),
+  );
   const notes = [...SCREENING_CAUTIONS];
   if (!input.markets.length) notes.push('No markets selected: nothing to screen.');
   if (gaps.length) notes.push(`${gaps.length} transmitter × use position combination(s) could not be screened (see gaps).`);
@@ -454,7 +481,8 @@ export function screenParsed(input: ScreeningInput): ScreeningOutput {
     conditions,
     summary,
     derivation: {
-      formula: 'for each transmitter × use position × market: the applicable exemption rule at the band’s most restrictive frequency (edges and breakpoints); result = exempt | evaluate-sar | evaluate-mpe',
+      formula:
+        'for each transmitter × use position × market: the applicable exemption rule at the band’s most restrictive frequency (edges and breakpoints); result = exempt | evaluate-sar | evaluate-mpe',
       inputs: {
         transmitters: q(input.transmitters.length, '1'),
         usePositions: q(input.usePositions.length, '1'),

@@ -53,30 +53,14 @@ export function ChangePasswordForm({ email, name }: { email: string; name: strin
         </Notice>
       ) : null}
       <FormTextField control={control} name="currentPassword" label="Current password" testID="change-password-current" autoComplete="current-password" secureTextEntry />
-      <FormTextField
-        control={control}
-        name="newPassword"
-        label="New password"
-        hint={NEW_PASSWORD_HINT}
-        testID="change-password-new"
-        autoComplete="new-password"
-        secureTextEntry
-      />
+      <FormTextField control={control} name="newPassword" label="New password" hint={NEW_PASSWORD_HINT} testID="change-password-new" autoComplete="new-password" secureTextEntry />
       <FormTextField control={control} name="confirmPassword" label="New password again" testID="change-password-confirm" autoComplete="new-password" secureTextEntry onSubmitEditing={onSubmit} />
       {rootError ? (
         <Notice tone="error" testID="change-password-error">
           {rootError}
         </Notice>
       ) : null}
-      <Button
-        label="Change password"
-        variant="secondary"
-        busyLabel="Saving…"
-        busy={formState.isSubmitting}
-        onPress={onSubmit}
-        testID="change-password-submit"
-        style={{ alignSelf: 'flex-start' }}
-      />
+      <Button label="Change password" variant="secondary" busyLabel="Saving…" busy={formState.isSubmitting} onPress={onSubmit} testID="change-password-submit" style={{ alignSelf: 'flex-start' }} />
     </View>
   );
 }

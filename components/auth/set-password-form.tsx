@@ -52,25 +52,8 @@ export function SetPasswordForm({
   const rootError = formState.errors.root?.server?.message ?? formState.errors.token?.message;
   return (
     <View style={{ gap: space.lg }} testID="set-password-form">
-      <FormTextField
-        control={control}
-        name="password"
-        label="New password"
-        hint={NEW_PASSWORD_HINT}
-        testID="set-password-password"
-        autoComplete="new-password"
-        secureTextEntry
-        autoFocus
-      />
-      <FormTextField
-        control={control}
-        name="confirmPassword"
-        label="New password again"
-        testID="set-password-confirm"
-        autoComplete="new-password"
-        secureTextEntry
-        onSubmitEditing={onSubmit}
-      />
+      <FormTextField control={control} name="password" label="New password" hint={NEW_PASSWORD_HINT} testID="set-password-password" autoComplete="new-password" secureTextEntry autoFocus />
+      <FormTextField control={control} name="confirmPassword" label="New password again" testID="set-password-confirm" autoComplete="new-password" secureTextEntry onSubmitEditing={onSubmit} />
       {rootError ? (
         <Notice tone="error" testID="set-password-error">
           {rootError}

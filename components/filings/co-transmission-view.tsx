@@ -60,7 +60,16 @@ export function CoTransmissionView({ filing }: { filing: FilingDetail }) {
       </Card>
       {all.length ? (
         <Card title="Sums per use position and market">
-          {markets.length > 1 ? <ChoiceChips label="Market" hideLabel choices={[{ value: 'all', label: 'All markets' }, ...markets.map((m) => ({ value: m, label: regimeShort(m) }))]} value={market} onChange={setMarket} testID="cotx-market" /> : null}
+          {markets.length > 1 ? (
+            <ChoiceChips
+              label="Market"
+              hideLabel
+              choices={[{ value: 'all', label: 'All markets' }, ...markets.map((m) => ({ value: m, label: regimeShort(m) }))]}
+              value={market}
+              onChange={setMarket}
+              testID="cotx-market"
+            />
+          ) : null}
           <View role="list" style={styles.list}>
             {shown.map((c) => {
               const o = OUTCOME[c.outcome];
@@ -102,7 +111,13 @@ export function CoTransmissionView({ filing }: { filing: FilingDetail }) {
           ))}
         </View>
       </Notice>
-      <Sheet visible={!!opened} onClose={() => setOpened(null)} title="How computed: co-transmission" subtitle={opened ? `${opened.transmitterIds.join(' + ')} at ${opened.usePositionId}, ${regimeShort(opened.regime)}` : undefined} testID="cotx-how-computed">
+      <Sheet
+        visible={!!opened}
+        onClose={() => setOpened(null)}
+        title="How computed: co-transmission"
+        subtitle={opened ? `${opened.transmitterIds.join(' + ')} at ${opened.usePositionId}, ${regimeShort(opened.regime)}` : undefined}
+        testID="cotx-how-computed"
+      >
         {opened ? <DerivationBlock d={opened.derivation} /> : null}
       </Sheet>
     </View>

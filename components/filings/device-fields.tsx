@@ -19,7 +19,19 @@ const TEXT_FIELDS = [
 const PRODUCT_CHOICES = PRODUCT_TYPES.map((value) => ({ value, label: PRODUCT_TYPE_LABELS[value] }));
 
 /** `onSubmit`: Enter in a text field submits (the new-filing form; autosaved steps have nothing to submit). */
-export function DeviceFields<T extends FieldValues>({ control, prefix = '', editable = true, testIDPrefix = 'device', onSubmit }: { control: Control<T>; prefix?: '' | 'device.'; editable?: boolean; testIDPrefix?: string; onSubmit?: () => void }) {
+export function DeviceFields<T extends FieldValues>({
+  control,
+  prefix = '',
+  editable = true,
+  testIDPrefix = 'device',
+  onSubmit,
+}: {
+  control: Control<T>;
+  prefix?: '' | 'device.';
+  editable?: boolean;
+  testIDPrefix?: string;
+  onSubmit?: () => void;
+}) {
   const wide = useIsWide();
   const name = (key: string) => `${prefix}${key}` as FieldPath<T>;
   return (
@@ -30,22 +42,24 @@ export function DeviceFields<T extends FieldValues>({ control, prefix = '', edit
             <Controller
               control={control}
               name={name(f.key)}
-              render={({ field, fieldState }) => !editable ? (
-                <ReadValue label={f.label} value={field.value ?? ''} testID={`${testIDPrefix}-${f.key}`} />
-              ) : (
-                <InputBox
-                  ref={field.ref}
-                  onSubmitEditing={onSubmit}
-                  label={f.label}
-                  placeholder={f.placeholder}
-                  value={field.value ?? ''}
-                  onChangeText={field.onChange}
-                  onBlur={field.onBlur}
-                  error={fieldState.error?.message}
-                  editable={editable}
-                  testID={`${testIDPrefix}-${f.key}`}
-                />
-              )}
+              render={({ field, fieldState }) =>
+                !editable ? (
+                  <ReadValue label={f.label} value={field.value ?? ''} testID={`${testIDPrefix}-${f.key}`} />
+                ) : (
+                  <InputBox
+                    ref={field.ref}
+                    onSubmitEditing={onSubmit}
+                    label={f.label}
+                    placeholder={f.placeholder}
+                    value={field.value ?? ''}
+                    onChangeText={field.onChange}
+                    onBlur={field.onBlur}
+                    error={fieldState.error?.message}
+                    editable={editable}
+                    testID={`${testIDPrefix}-${f.key}`}
+                  />
+                )
+              }
             />
           </View>
         ))}
@@ -54,7 +68,15 @@ export function DeviceFields<T extends FieldValues>({ control, prefix = '', edit
         control={control}
         name={name('productType')}
         render={({ field, fieldState }) => (
-          <ChoiceChips label="Product type" choices={PRODUCT_CHOICES} value={field.value} onChange={field.onChange} disabled={!editable} error={fieldState.error?.message} testID={`${testIDPrefix}-productType`} />
+          <ChoiceChips
+            label="Product type"
+            choices={PRODUCT_CHOICES}
+            value={field.value}
+            onChange={field.onChange}
+            disabled={!editable}
+            error={fieldState.error?.message}
+            testID={`${testIDPrefix}-productType`}
+          />
         )}
       />
     </View>

@@ -8,16 +8,7 @@ import { Controller, useFieldArray, useWatch, type Control, type UseFormReturn }
 import { StyleSheet, View } from 'react-native';
 import { INTEGRATIONS, INTEGRATION_LABELS } from '../../constants/schemas/device-file';
 import type { DeviceStepInput, FilingDetail } from '../../constants/schemas/filings';
-import {
-  FCC_ID_SOURCE,
-  fccIdText,
-  granteeCodeProblem,
-  ISED_NUMBER_SOURCE,
-  isedCompanyNumberProblem,
-  isedNumberText,
-  isedUpnProblem,
-  productCodeProblem,
-} from '../../constants/schemas/grant-ids';
+import { FCC_ID_SOURCE, fccIdText, granteeCodeProblem, ISED_NUMBER_SOURCE, isedCompanyNumberProblem, isedNumberText, isedUpnProblem, productCodeProblem } from '../../constants/schemas/grant-ids';
 import { space } from '../../constants/theme';
 import { useIsWide } from '../../hooks/use-is-wide';
 import { Card } from '../ui/card';
@@ -118,13 +109,26 @@ function ModelVariants({ form, editable }: { form: UseFormReturn<DeviceValues>; 
   const variants = useFieldArray({ control, name: 'modelVariants', keyName: 'key' });
   const values = useWatch({ control, name: 'modelVariants' }) ?? [];
   const columns: EditColumn[] = [
-    { key: 'model', label: 'Model number', flex: 1, render: (i, h) => <FormText control={control} editable={editable} name={`modelVariants.${i}.model`} label="Variant model number" hideLabel={h} testID={`variant-${i}-model`} /> },
+    {
+      key: 'model',
+      label: 'Model number',
+      flex: 1,
+      render: (i, h) => <FormText control={control} editable={editable} name={`modelVariants.${i}.model`} label="Variant model number" hideLabel={h} testID={`variant-${i}-model`} />,
+    },
     {
       key: 'difference',
       label: 'How it differs from the tested model',
       flex: 2.5,
       render: (i, h) => (
-        <FormText control={control} editable={editable} name={`modelVariants.${i}.difference`} label="How it differs" placeholder="e.g. housing colour only" hideLabel={h} testID={`variant-${i}-difference`} />
+        <FormText
+          control={control}
+          editable={editable}
+          name={`modelVariants.${i}.difference`}
+          label="How it differs"
+          placeholder="e.g. housing colour only"
+          hideLabel={h}
+          testID={`variant-${i}-difference`}
+        />
       ),
     },
   ];
@@ -160,24 +164,57 @@ function Modules({ form, filing, editable }: { form: UseFormReturn<DeviceValues>
   const columns: EditColumn[] = [
     { key: 'id', label: 'Module id', flex: 1, render: (i, h) => <FormText {...common} name={`modules.${i}.id`} label="Module id" hideLabel={h} testID={`module-${i}-id`} /> },
     { key: 'name', label: 'Maker and model', flex: 1.6, render: (i, h) => <FormText {...common} name={`modules.${i}.name`} label="Maker and model" hideLabel={h} testID={`module-${i}-name`} /> },
-    { key: 'grantee', label: 'FCC grantee', flex: 0.9, half: true, render: (i, h) => <FormText {...common} capitals name={`modules.${i}.fccGranteeCode`} label="FCC grantee code" hideLabel={h} testID={`module-${i}-fccGranteeCode`} /> },
-    { key: 'product', label: 'FCC product', flex: 1, half: true, render: (i, h) => <FormText {...common} capitals name={`modules.${i}.fccProductCode`} label="FCC product code" hideLabel={h} testID={`module-${i}-fccProductCode`} /> },
-    { key: 'cn', label: 'ISED CN', flex: 0.8, half: true, render: (i, h) => <FormText {...common} capitals name={`modules.${i}.isedCompanyNumber`} label="ISED company number" hideLabel={h} testID={`module-${i}-isedCompanyNumber`} /> },
-    { key: 'upn', label: 'ISED UPN', flex: 0.9, half: true, render: (i, h) => <FormText {...common} capitals name={`modules.${i}.isedUpn`} label="ISED UPN" hideLabel={h} testID={`module-${i}-isedUpn`} /> },
+    {
+      key: 'grantee',
+      label: 'FCC grantee',
+      flex: 0.9,
+      half: true,
+      render: (i, h) => <FormText {...common} capitals name={`modules.${i}.fccGranteeCode`} label="FCC grantee code" hideLabel={h} testID={`module-${i}-fccGranteeCode`} />,
+    },
+    {
+      key: 'product',
+      label: 'FCC product',
+      flex: 1,
+      half: true,
+      render: (i, h) => <FormText {...common} capitals name={`modules.${i}.fccProductCode`} label="FCC product code" hideLabel={h} testID={`module-${i}-fccProductCode`} />,
+    },
+    {
+      key: 'cn',
+      label: 'ISED CN',
+      flex: 0.8,
+      half: true,
+      render: (i, h) => <FormText {...common} capitals name={`modules.${i}.isedCompanyNumber`} label="ISED company number" hideLabel={h} testID={`module-${i}-isedCompanyNumber`} />,
+    },
+    {
+      key: 'upn',
+      label: 'ISED UPN',
+      flex: 0.9,
+      half: true,
+      render: (i, h) => <FormText {...common} capitals name={`modules.${i}.isedUpn`} label="ISED UPN" hideLabel={h} testID={`module-${i}-isedUpn`} />,
+    },
     {
       key: 'sep',
       label: 'Min. separation (mm)',
       flex: 0.9,
       half: true,
-      render: (i, h) => <FormNumber {...common} optional name={`modules.${i}.minSeparationM`} label="Grant’s minimum separation" unit="mm" scale={1e-3} hideLabel={h} testID={`module-${i}-minSeparation`} />,
+      render: (i, h) => (
+        <FormNumber {...common} optional name={`modules.${i}.minSeparationM`} label="Grant’s minimum separation" unit="mm" scale={1e-3} hideLabel={h} testID={`module-${i}-minSeparation`} />
+      ),
     },
-    { key: 'conditions', label: 'Other grant conditions', flex: 1.8, render: (i, h) => <FormText {...common} name={`modules.${i}.conditions`} label="Other grant conditions" placeholder="e.g. antenna gain at most 3 dBi" hideLabel={h} testID={`module-${i}-conditions`} /> },
+    {
+      key: 'conditions',
+      label: 'Other grant conditions',
+      flex: 1.8,
+      render: (i, h) => (
+        <FormText {...common} name={`modules.${i}.conditions`} label="Other grant conditions" placeholder="e.g. antenna gain at most 3 dBi" hideLabel={h} testID={`module-${i}-conditions`} />
+      ),
+    },
   ];
   return (
     <View style={styles.modules}>
       <Text variant="small" tone="muted">
-        Each certified module inside, with its grant. Screening warns where a use position brings a module transmitter’s antenna closer than the grant’s minimum separation; pick the module of
-        each of its transmitters under Radios.
+        Each certified module inside, with its grant. Screening warns where a use position brings a module transmitter’s antenna closer than the grant’s minimum separation; pick the module of each of
+        its transmitters under Radios.
       </Text>
       <EditRows
         noun="module"
@@ -186,7 +223,18 @@ function Modules({ form, filing, editable }: { form: UseFormReturn<DeviceValues>
         keyOf={(i) => modules.fields[i].key}
         titleOf={(i) => values[i]?.id ?? ''}
         onAdd={() =>
-          modules.append({ id: nextId('MOD', values.map((m) => m?.id ?? '')), name: '', fccGranteeCode: '', fccProductCode: '', isedCompanyNumber: '', isedUpn: '', conditions: '' })
+          modules.append({
+            id: nextId(
+              'MOD',
+              values.map((m) => m?.id ?? ''),
+            ),
+            name: '',
+            fccGranteeCode: '',
+            fccProductCode: '',
+            isedCompanyNumber: '',
+            isedUpn: '',
+            conditions: '',
+          })
         }
         onRemove={(i) => modules.remove(i)}
         removalEffects={effects}

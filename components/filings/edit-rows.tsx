@@ -231,9 +231,7 @@ function MoreRow({ children }: { children: React.ReactNode }) {
   if (!children) return null;
   return (
     <View role="row">
-      <View role="cell">
-        {children}
-      </View>
+      <View role="cell">{children}</View>
     </View>
   );
 }

@@ -28,7 +28,15 @@ export function EvidencePicker({ onFiles, wide, accept, disabled }: EvidencePick
     },
   });
   const choose = (
-    <Button label="Choose files…" variant="secondary" icon="plus" disabled={disabled} onPress={() => input.current?.click()} testID="evidence-choose" style={{ alignSelf: wide ? 'center' : 'flex-start' }} />
+    <Button
+      label="Choose files…"
+      variant="secondary"
+      icon="plus"
+      disabled={disabled}
+      onPress={() => input.current?.click()}
+      testID="evidence-choose"
+      style={{ alignSelf: wide ? 'center' : 'flex-start' }}
+    />
   );
   if (!wide) {
     return (

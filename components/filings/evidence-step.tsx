@@ -34,7 +34,11 @@ export function EvidenceStep({ filing }: { filing: FilingDetail }) {
   return (
     <View style={styles.stack}>
       <RequiredCard list={list} />
-      {list.editable ? <UploadCard filingId={filing.id} list={list} /> : <Notice tone="info">{`You can read and download this version’s evidence; uploading needs the engineer or specialist role on a version that is not signed.`}</Notice>}
+      {list.editable ? (
+        <UploadCard filingId={filing.id} list={list} />
+      ) : (
+        <Notice tone="info">{`You can read and download this version’s evidence; uploading needs the engineer or specialist role on a version that is not signed.`}</Notice>
+      )}
       <FindingsCard filingId={filing.id} list={list} />
       <RecordsCard filingId={filing.id} list={list} />
       <CautionNote />
@@ -93,7 +97,9 @@ function UploadCard({ filingId, list }: { filingId: number; list: EvidenceList }
   const [uploads, setUploads] = useState<Upload[]>([]);
   const [categoryError, setCategoryError] = useState<string | undefined>();
   const chosen = UPLOADABLE_CATEGORIES.find((c) => c.id === category);
-  const missingFirst = [...UPLOADABLE_CATEGORIES].sort((a, b) => Number(list.required.some((r) => r.category === b.id && !r.present)) - Number(list.required.some((r) => r.category === a.id && !r.present)));
+  const missingFirst = [...UPLOADABLE_CATEGORIES].sort(
+    (a, b) => Number(list.required.some((r) => r.category === b.id && !r.present)) - Number(list.required.some((r) => r.category === a.id && !r.present)),
+  );
   const patch = (id: number, p: Partial<Upload>) => setUploads((all) => all.map((u) => (u.id === id ? { ...u, ...p } : u)));
 
   const send = async (files: PickedFile[]) => {
@@ -110,7 +116,14 @@ function UploadCard({ filingId, list }: { filingId: number; list: EvidenceList }
         try {
           const res = await uploadEvidence(
             filingId,
-            { file: f.file, fileName: f.fileName, category: chosen.id, title: files.length === 1 ? title.trim() || undefined : undefined, note: note.trim() || undefined, documentDate: documentDate.trim() || undefined },
+            {
+              file: f.file,
+              fileName: f.fileName,
+              category: chosen.id,
+              title: files.length === 1 ? title.trim() || undefined : undefined,
+              note: note.trim() || undefined,
+              documentDate: documentDate.trim() || undefined,
+            },
             (progress) => patch(id, { progress }),
           );
           patch(id, { state: 'filed', progress: 1, message: res.notice });
@@ -182,7 +195,12 @@ const MEDIA_SHORT: Record<string, string> = {
 };
 
 function UploadRow({ u }: { u: Upload }) {
-  const look = u.state === 'filed' ? { icon: 'check' as const, color: palette.pass, word: 'Filed' } : u.state === 'refused' ? { icon: 'cross' as const, color: palette.fail, word: 'Refused' } : { icon: 'pending' as const, color: palette.inkMuted, word: `${Math.round(u.progress * 100)} %` };
+  const look =
+    u.state === 'filed'
+      ? { icon: 'check' as const, color: palette.pass, word: 'Filed' }
+      : u.state === 'refused'
+        ? { icon: 'cross' as const, color: palette.fail, word: 'Refused' }
+        : { icon: 'pending' as const, color: palette.inkMuted, word: `${Math.round(u.progress * 100)} %` };
   return (
     <View role="listitem" style={styles.uploadRow} testID="evidence-upload-row" accessibilityLabel={`${u.fileName}: ${look.word}`}>
       <View style={styles.uploadHead}>
@@ -222,7 +240,11 @@ function FindingsCard({ filingId, list }: { filingId: number; list: EvidenceList
   }
   const open = list.findings.filter((f) => !f.explanation).length;
   return (
-    <Card title="Read-back of the test reports" aside={<StatusBadge tone={open ? 'fail' : 'pass'} icon={open ? 'warning' : 'check'} label={open ? `${open} to explain` : 'All explained'} />} testID="evidence-findings">
+    <Card
+      title="Read-back of the test reports"
+      aside={<StatusBadge tone={open ? 'fail' : 'pass'} icon={open ? 'warning' : 'check'} label={open ? `${open} to explain` : 'All explained'} />}
+      testID="evidence-findings"
+    >
       <View role="list" style={styles.rows}>
         {list.findings.map((f) => (
           <FindingRow key={`${f.evidenceId}-${f.key}`} filingId={filingId} f={f} editable={list.editable} record={list.records.find((r) => r.id === f.evidenceId)} />
@@ -257,7 +279,14 @@ function FindingRow({ filingId, f, editable, record }: { filingId: number; f: Re
           <View style={{ flex: 1, minWidth: 220 }}>
             <InputBox label="Why the difference is acceptable" value={reason} onChangeText={setReason} error={problem?.fields?.reason ?? problem?.message} testID="finding-reason" />
           </View>
-          <Button label="Mark explained" variant="secondary" busy={explain.isPending} onPress={() => explain.mutate({ evidenceId: f.evidenceId, key: f.key, reason })} testID="finding-explain" style={{ alignSelf: 'flex-end' }} />
+          <Button
+            label="Mark explained"
+            variant="secondary"
+            busy={explain.isPending}
+            onPress={() => explain.mutate({ evidenceId: f.evidenceId, key: f.key, reason })}
+            testID="finding-explain"
+            style={{ alignSelf: 'flex-end' }}
+          />
         </View>
       ) : null}
     </View>
@@ -268,7 +297,11 @@ function RecordsCard({ filingId, list }: { filingId: number; list: EvidenceList 
   const remove = useRemoveEvidenceMutation(filingId);
   if (!list.records.length) return <Notice tone="caution">{`Nothing is filed in version ${list.version.number} yet.`}</Notice>;
   return (
-    <Card title={`Filed in version ${list.version.number}`} aside={<Text variant="small" tone="muted">{`${formatBytes(list.limits.usedBytes)} of ${formatBytes(list.limits.maxFilingBytes)}`}</Text>} testID="evidence-records">
+    <Card
+      title={`Filed in version ${list.version.number}`}
+      aside={<Text variant="small" tone="muted">{`${formatBytes(list.limits.usedBytes)} of ${formatBytes(list.limits.maxFilingBytes)}`}</Text>}
+      testID="evidence-records"
+    >
       {remove.error ? <Notice tone="error">{asProblem(remove.error).message}</Notice> : null}
       <View role="list" style={styles.rows}>
         {list.records.map((r) => (
@@ -294,14 +327,14 @@ function RecordsCard({ filingId, list }: { filingId: number; list: EvidenceList 
             ) : null}
             <View style={styles.actions}>
               <Button label="Download" variant="secondary" compact onPress={() => globalThis.open?.(evidenceFileUrl(filingId, r.id), '_self')} testID="evidence-download" />
-              {list.editable ? <Button label="Remove" variant="secondary" compact busy={remove.isPending && remove.variables === r.id} onPress={() => remove.mutate(r.id)} testID="evidence-remove" /> : null}
+              {list.editable ? (
+                <Button label="Remove" variant="secondary" compact busy={remove.isPending && remove.variables === r.id} onPress={() => remove.mutate(r.id)} testID="evidence-remove" />
+              ) : null}
             </View>
           </View>
         ))}
       </View>
-      {list.history.length ? (
-        <Text variant="small" tone="muted">{`${list.history.length} replaced file${list.history.length === 1 ? '' : 's'} kept in this version’s history.`}</Text>
-      ) : null}
+      {list.history.length ? <Text variant="small" tone="muted">{`${list.history.length} replaced file${list.history.length === 1 ? '' : 's'} kept in this version’s history.`}</Text> : null}
     </Card>
   );
 }

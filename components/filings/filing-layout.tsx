@@ -20,7 +20,6 @@ import { pageOfPath } from './filing-pages';
 import { StepList } from './step-list';
 import { useFilingId } from './use-filing-id';
 
-
 export function FilingLayout() {
   const id = useFilingId();
   const filing = useFilingQuery(id);
@@ -66,7 +65,11 @@ export function FilingLayout() {
           </Pressable>
         </Link>
         <Link href={`/filings/${f.id}`} asChild>
-          <Pressable style={StyleSheet.flatten([styles.identity, active === 'overview' && styles.identityActive])} testID="step-link-overview" aria-current={active === 'overview' ? 'page' : undefined}>
+          <Pressable
+            style={StyleSheet.flatten([styles.identity, active === 'overview' && styles.identityActive])}
+            testID="step-link-overview"
+            aria-current={active === 'overview' ? 'page' : undefined}
+          >
             <Text variant="heading" numberOfLines={2}>
               {f.device.name}
             </Text>

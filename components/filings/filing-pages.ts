@@ -53,10 +53,7 @@ export const threadsOn = (threads: ReviewThreadDto[], step: string) => threads.f
 export function rowChoices(data: FilingDetail['data'], step: string): { value: string; label: string }[] {
   switch (step) {
     case 'radios':
-      return [
-        ...data.radios.transmitters.map((t) => ({ value: t.id, label: `Transmitter ${t.id}` })),
-        ...data.radios.antennas.map((a) => ({ value: a.id, label: `Antenna ${a.id}` })),
-      ];
+      return [...data.radios.transmitters.map((t) => ({ value: t.id, label: `Transmitter ${t.id}` })), ...data.radios.antennas.map((a) => ({ value: a.id, label: `Antenna ${a.id}` }))];
     case 'use-positions':
       return data['use-positions'].usePositions.map((p) => ({ value: p.id, label: `Use position ${p.id}` }));
     case 'markets':

@@ -72,25 +72,27 @@ export function FormNumber<T extends FieldValues>({
     <Controller
       control={control}
       name={name}
-      render={({ field, fieldState }) => !editable ? (
-        <ReadValue label={rest.label} hideLabel={rest.hideLabel} value={toDisplay(field.value, scale)} unit={unit} numeric testID={rest.testID} />
-      ) : (
-        <NumberField
-          {...rest}
-          ref={field.ref}
-          unit={unit}
-          scale={scale}
-          editable={editable}
-          value={field.value}
-          onChange={(raw) => {
-            const v = raw as number | null;
-            field.onChange(optional && v === null ? undefined : v);
-            onValueChange?.(v);
-          }}
-          onBlur={field.onBlur}
-          error={fieldState.error?.message}
-        />
-      )}
+      render={({ field, fieldState }) =>
+        !editable ? (
+          <ReadValue label={rest.label} hideLabel={rest.hideLabel} value={toDisplay(field.value, scale)} unit={unit} numeric testID={rest.testID} />
+        ) : (
+          <NumberField
+            {...rest}
+            ref={field.ref}
+            unit={unit}
+            scale={scale}
+            editable={editable}
+            value={field.value}
+            onChange={(raw) => {
+              const v = raw as number | null;
+              field.onChange(optional && v === null ? undefined : v);
+              onValueChange?.(v);
+            }}
+            onBlur={field.onBlur}
+            error={fieldState.error?.message}
+          />
+        )
+      }
     />
   );
 }

@@ -60,8 +60,7 @@ export function ImportDeviceFile() {
   return (
     <View style={styles.wrap} testID="import-device-file">
       <Text tone="soft">
-        A JSON file in Fieldfile’s own device format ({DEVICE_FILE_FORMAT}): device, markets, antennas, transmitters, use positions. Its schema is published at
-        /api/schema/device.json.
+        A JSON file in Fieldfile’s own device format ({DEVICE_FILE_FORMAT}): device, markets, antennas, transmitters, use positions. Its schema is published at /api/schema/device.json.
       </Text>
       <FilePicker
         onPick={(name, content) => {
@@ -98,7 +97,11 @@ export function ImportDeviceFile() {
           {`${duplicateNote} Press “Import as a second filing” to create it anyway.`}
         </Notice>
       ) : null}
-      {parseError ? <Notice tone="error" title="Nothing was imported">{parseError}</Notice> : null}
+      {parseError ? (
+        <Notice tone="error" title="Nothing was imported">
+          {parseError}
+        </Notice>
+      ) : null}
       {problem ? (
         <Notice tone="error" title={problem.message} testID="import-problems">
           {problem.fields ? (
@@ -117,7 +120,16 @@ export function ImportDeviceFile() {
           ) : null}
         </Notice>
       ) : null}
-      <Button label={duplicateNote ? 'Import as a second filing' : 'Import and create filing'} icon="plus" onPress={submit} disabled={!text.trim()} busy={importFile.isPending} busyLabel="Importing…" testID="import-submit" style={{ alignSelf: 'flex-start' }} />
+      <Button
+        label={duplicateNote ? 'Import as a second filing' : 'Import and create filing'}
+        icon="plus"
+        onPress={submit}
+        disabled={!text.trim()}
+        busy={importFile.isPending}
+        busyLabel="Importing…"
+        testID="import-submit"
+        style={{ alignSelf: 'flex-start' }}
+      />
     </View>
   );
 }

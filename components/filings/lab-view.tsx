@@ -34,8 +34,19 @@ export const CHECK_LOOK: Record<LabCheck['status'], { icon: IconName; tone: Badg
   warning: { icon: 'warning', tone: 'caution', label: 'Check' },
   fail: { icon: 'cross', tone: 'fail', label: 'Out of tolerance' },
 };
-const FAIL_WORD: Partial<Record<CheckKind, string>> = { limit: 'Over limit', power: 'Above tune-up', coverage: 'Missing', repeats: 'Repeat needed', band: 'Not in band', separation: 'Too far', 'co-transmission': 'Needs attention', uncertainty: 'Needed', calibration: 'Not calibrated' };
-export const checkLabel = (c: LabCheck) => (c.status === 'fail' ? (FAIL_WORD[c.kind] ?? CHECK_LOOK.fail.label) : c.status === 'pass' ? (c.kind === 'coverage' ? 'Measured' : CHECK_LOOK.pass.label) : CHECK_LOOK.warning.label);
+const FAIL_WORD: Partial<Record<CheckKind, string>> = {
+  limit: 'Over limit',
+  power: 'Above tune-up',
+  coverage: 'Missing',
+  repeats: 'Repeat needed',
+  band: 'Not in band',
+  separation: 'Too far',
+  'co-transmission': 'Needs attention',
+  uncertainty: 'Needed',
+  calibration: 'Not calibrated',
+};
+export const checkLabel = (c: LabCheck) =>
+  c.status === 'fail' ? (FAIL_WORD[c.kind] ?? CHECK_LOOK.fail.label) : c.status === 'pass' ? (c.kind === 'coverage' ? 'Measured' : CHECK_LOOK.pass.label) : CHECK_LOOK.warning.label;
 
 const KIND_TITLES: { kinds: CheckKind[]; title: string }[] = [
   { kinds: ['liquid', 'liquid-temperature'], title: 'Liquid checks' },
@@ -84,7 +95,13 @@ export function LabView({ filing }: { filing: FilingDetail }) {
       <Text variant="small" tone="muted" testID="lab-versions">
         Engine {r.engineVersion} · rule set {r.ruleSetVersion} · computed {formatDateTime(r.computedAt)} for version {r.version}
       </Text>
-      <Sheet visible={!!opened} onClose={() => setOpened(null)} title={opened?.kind === 'row' ? `How computed: ${opened.row.measurementId}` : opened?.kind === 'check' ? `Check: ${opened.check.subject.id}` : 'How computed'} subtitle={opened?.kind === 'row' ? `${opened.row.transmitterId} at ${opened.row.usePositionId} · ${opened.row.testPosition || 'test position not given'}` : undefined} testID="lab-how-computed">
+      <Sheet
+        visible={!!opened}
+        onClose={() => setOpened(null)}
+        title={opened?.kind === 'row' ? `How computed: ${opened.row.measurementId}` : opened?.kind === 'check' ? `Check: ${opened.check.subject.id}` : 'How computed'}
+        subtitle={opened?.kind === 'row' ? `${opened.row.transmitterId} at ${opened.row.usePositionId} · ${opened.row.testPosition || 'test position not given'}` : undefined}
+        testID="lab-how-computed"
+      >
         {opened?.kind === 'row' ? <RowDetail row={opened.row} /> : opened?.kind === 'check' ? <CheckItem check={opened.check} /> : null}
       </Sheet>
     </View>
@@ -96,9 +113,21 @@ function HighestTable({ r, onOpen }: { r: FilingLabResults; onOpen: (row: LabRow
   if (!r.highest.length) return null;
   const rowOf = (h: HighestReported) => r.rows.find((x) => x.measurementId === h.measurementId);
   const look = (h: HighestReported): { tone: BadgeTone; icon: IconName; label: string } =>
-    h.withinLimit === null ? { tone: 'caution', icon: 'pending', label: 'Not measured' } : h.withinLimit ? { tone: 'pass', icon: 'check', label: 'Within limit' } : { tone: 'fail', icon: 'cross', label: 'Over limit' };
+    h.withinLimit === null
+      ? { tone: 'caution', icon: 'pending', label: 'Not measured' }
+      : h.withinLimit
+        ? { tone: 'pass', icon: 'check', label: 'Within limit' }
+        : { tone: 'fail', icon: 'cross', label: 'Over limit' };
   return (
-    <Card title="Highest reported SAR" aside={<Text variant="small" tone="muted">Per market and exposure condition, scaled to the tune-up limit.</Text>} testID="lab-highest">
+    <Card
+      title="Highest reported SAR"
+      aside={
+        <Text variant="small" tone="muted">
+          Per market and exposure condition, scaled to the tune-up limit.
+        </Text>
+      }
+      testID="lab-highest"
+    >
       <View role={wide ? 'table' : 'list'} style={wide ? styles.table : styles.cards}>
         {wide ? (
           <View role="row" style={[styles.tr, styles.th]}>
@@ -115,7 +144,15 @@ function HighestTable({ r, onOpen }: { r: FilingLabResults; onOpen: (row: LabRow
           const from = h.measurementId ? `${h.transmitterId} · ${h.usePositionId} (${h.measurementId})` : '—';
           const mass = `${h.averagingMassKg * 1000} g`;
           return wide ? (
-            <Pressable key={i} role="row" style={({ pressed }) => [styles.tr, i % 2 === 1 && styles.zebra, pressed && styles.pressed]} onPress={() => row && onOpen(row)} disabled={!row} accessibilityLabel={`${regimeShort(h.regime)} ${CONDITION_LABEL(h.usePositionKind)}: ${sar(h.reportedSarWPerKg)}, ${l.label}`} testID={`highest-${h.regime}-${h.usePositionKind}`}>
+            <Pressable
+              key={i}
+              role="row"
+              style={({ pressed }) => [styles.tr, i % 2 === 1 && styles.zebra, pressed && styles.pressed]}
+              onPress={() => row && onOpen(row)}
+              disabled={!row}
+              accessibilityLabel={`${regimeShort(h.regime)} ${CONDITION_LABEL(h.usePositionKind)}: ${sar(h.reportedSarWPerKg)}, ${l.label}`}
+              testID={`highest-${h.regime}-${h.usePositionKind}`}
+            >
               <Text role="cell" variant="smallStrong" style={[styles.td, { flex: 0.8 }]}>
                 {regimeShort(h.regime)}
               </Text>
@@ -139,7 +176,14 @@ function HighestTable({ r, onOpen }: { r: FilingLabResults; onOpen: (row: LabRow
               </View>
             </Pressable>
           ) : (
-            <Pressable key={i} role="listitem" style={({ pressed }) => [styles.card, pressed && styles.pressed]} onPress={() => row && onOpen(row)} disabled={!row} testID={`highest-${h.regime}-${h.usePositionKind}`}>
+            <Pressable
+              key={i}
+              role="listitem"
+              style={({ pressed }) => [styles.card, pressed && styles.pressed]}
+              onPress={() => row && onOpen(row)}
+              disabled={!row}
+              testID={`highest-${h.regime}-${h.usePositionKind}`}
+            >
               <View style={styles.cardHead}>
                 <Text variant="bodyStrong" style={{ flex: 1 }}>
                   {regimeShort(h.regime)} · {CONDITION_LABEL(h.usePositionKind)} ({mass})
@@ -169,14 +213,43 @@ function Measurements({ r, onOpen }: { r: FilingLabResults; onOpen: (row: LabRow
   const positions = [...new Set(r.rows.map((x) => x.usePositionId))];
   const rows = r.rows.filter((x) => (position === 'all' || x.usePositionId === position) && (flagFilter === 'all' || x.flags.some((f) => f.status !== 'pass')));
   return (
-    <Card title={`Measurements (${r.rows.length})`} aside={<Text variant="small" tone="muted">Tap a row to see how it was scaled.</Text>} testID="lab-measurements">
+    <Card
+      title={`Measurements (${r.rows.length})`}
+      aside={
+        <Text variant="small" tone="muted">
+          Tap a row to see how it was scaled.
+        </Text>
+      }
+      testID="lab-measurements"
+    >
       {r.rows.length === 0 ? (
         <Text tone="muted">No measurements yet. The test engineer imports the lab’s spreadsheet above.</Text>
       ) : (
         <>
           <View style={styles.filters}>
-            {positions.length > 1 ? <ChoiceChips label="Use position" hideLabel choices={[{ value: 'all', label: 'All positions' }, ...positions.map((p) => ({ value: p, label: p }))]} value={position} onChange={setPosition} testID="lab-filter-position" /> : null}
-            <ChoiceChips label="Flags" hideLabel choices={[{ value: 'all', label: 'All rows' }, { value: 'flagged', label: 'With flags' }] as const} value={flagFilter} onChange={setFlagFilter} testID="lab-filter-flags" />
+            {positions.length > 1 ? (
+              <ChoiceChips
+                label="Use position"
+                hideLabel
+                choices={[{ value: 'all', label: 'All positions' }, ...positions.map((p) => ({ value: p, label: p }))]}
+                value={position}
+                onChange={setPosition}
+                testID="lab-filter-position"
+              />
+            ) : null}
+            <ChoiceChips
+              label="Flags"
+              hideLabel
+              choices={
+                [
+                  { value: 'all', label: 'All rows' },
+                  { value: 'flagged', label: 'With flags' },
+                ] as const
+              }
+              value={flagFilter}
+              onChange={setFlagFilter}
+              testID="lab-filter-flags"
+            />
           </View>
           {wide ? <MeasurementTable rows={rows} onOpen={onOpen} /> : <MeasurementCards rows={rows} onOpen={onOpen} />}
         </>
@@ -215,7 +288,14 @@ function MeasurementTable({ rows, onOpen }: { rows: LabRow[]; onOpen: (row: LabR
         ))}
       </View>
       {rows.map((x, i) => (
-        <Pressable key={x.measurementId} role="row" onPress={() => onOpen(x)} style={({ pressed }) => [styles.tr, i % 2 === 1 && styles.zebra, pressed && styles.pressed]} accessibilityLabel={`${x.measurementId}: how computed`} testID={`lab-row-${x.measurementId}`}>
+        <Pressable
+          key={x.measurementId}
+          role="row"
+          onPress={() => onOpen(x)}
+          style={({ pressed }) => [styles.tr, i % 2 === 1 && styles.zebra, pressed && styles.pressed]}
+          accessibilityLabel={`${x.measurementId}: how computed`}
+          testID={`lab-row-${x.measurementId}`}
+        >
           <Text role="cell" variant="smallStrong" style={[styles.td, { flex: 0.6 }]}>
             {x.measurementId}
           </Text>
@@ -305,7 +385,12 @@ function FlagLine({ check }: { check: LabCheck }) {
     <View style={styles.flagLine}>
       <StatusBadge tone={l.tone} icon={l.icon} label={checkLabel(check)} />
       <Text variant="small" style={{ flex: 1, minWidth: 180 }}>
-        {check.message} {check.howToFix ? <Text variant="small" tone="soft">How to fix: {check.howToFix}</Text> : null}
+        {check.message}{' '}
+        {check.howToFix ? (
+          <Text variant="small" tone="soft">
+            How to fix: {check.howToFix}
+          </Text>
+        ) : null}
       </Text>
     </View>
   );
@@ -383,7 +468,19 @@ function Checks({ r, onOpen }: { r: FilingLabResults; onOpen: (c: LabCheck) => v
   const u = r.uncertainty;
   return (
     <Card title="Measurement checks" aside={<Text variant="small" tone="muted">{`${r.summary.failing} out of tolerance · ${r.summary.warnings} to check`}</Text>} testID="lab-checks">
-      <ChoiceChips label="Show" hideLabel choices={[{ value: 'attention', label: 'Needs attention' }, { value: 'all', label: 'Every check' }] as const} value={only} onChange={setOnly} testID="lab-checks-filter" />
+      <ChoiceChips
+        label="Show"
+        hideLabel
+        choices={
+          [
+            { value: 'attention', label: 'Needs attention' },
+            { value: 'all', label: 'Every check' },
+          ] as const
+        }
+        value={only}
+        onChange={setOnly}
+        testID="lab-checks-filter"
+      />
       <Text variant="small" tone="soft" testID="lab-uncertainty">
         Uncertainty budget {u.required ? 'required' : 'not required'}
         {u.highestMeasuredSarWPerKg !== null ? ` (highest measured ${sig(u.highestMeasuredSarWPerKg, 3)} W/kg, ${u.highestMeasuredMass})` : ''}
@@ -399,7 +496,14 @@ function Checks({ r, onOpen }: { r: FilingLabResults; onOpen: (c: LabCheck) => v
               {title}
             </Text>
             {items.map((c) => (
-              <Pressable key={c.id} onPress={() => onOpen(c)} style={({ pressed }) => [styles.checkRow, pressed && styles.pressed]} accessibilityRole="button" accessibilityLabel={`${c.subject.id}: ${checkLabel(c)}. ${c.message}`} testID={`check-row-${c.id}`}>
+              <Pressable
+                key={c.id}
+                onPress={() => onOpen(c)}
+                style={({ pressed }) => [styles.checkRow, pressed && styles.pressed]}
+                accessibilityRole="button"
+                accessibilityLabel={`${c.subject.id}: ${checkLabel(c)}. ${c.message}`}
+                testID={`check-row-${c.id}`}
+              >
                 <StatusBadge tone={CHECK_LOOK[c.status].tone} icon={CHECK_LOOK[c.status].icon} label={checkLabel(c)} />
                 <View style={{ flex: 1, minWidth: 200, gap: 2 }}>
                   <Text variant="small">{c.message}</Text>

@@ -33,9 +33,7 @@ export function MarketsStep({ filing }: { filing: FilingDetail }) {
   const stepForm = useStepForm<MarketsValues>(filing, 'markets', fromDraft);
   const { form, editable } = stepForm;
   return (
-    <StepFrame stepForm={stepForm}
-      intro="The rule sets the filing is screened against. Each market gets its own column of results."
-    >
+    <StepFrame stepForm={stepForm} intro="The rule sets the filing is screened against. Each market gets its own column of results.">
       <Controller
         control={form.control}
         name="markets"
@@ -64,7 +62,14 @@ export function MarketsStep({ filing }: { filing: FilingDetail }) {
                     />
                     {m ? (
                       <View style={styles.options}>
-                        <ChoiceChips label="Exposure tier" choices={TIER_CHOICES} value={m.tier} disabled={!editable} onChange={(tier) => set(regime, { ...m, tier })} testID={`market-${regime}-tier`} />
+                        <ChoiceChips
+                          label="Exposure tier"
+                          choices={TIER_CHOICES}
+                          value={m.tier}
+                          disabled={!editable}
+                          onChange={(tier) => set(regime, { ...m, tier })}
+                          testID={`market-${regime}-tier`}
+                        />
                         {regime === 'fcc' ? (
                           <ChoiceChips
                             label="SAR screening method"

@@ -62,9 +62,7 @@ export function MeasurementImport({ filingId }: { filingId: number }) {
 
   return (
     <View style={styles.wrap} testID="lab-import">
-      <Text tone="soft">
-        The lab’s table as CSV (comma, semicolon or tab; decimal commas are recognised) or XLSX. A file with the standard header needs no mapping:
-      </Text>
+      <Text tone="soft">The lab’s table as CSV (comma, semicolon or tab; decimal commas are recognised) or XLSX. A file with the standard header needs no mapping:</Text>
       <Text variant="mono" style={styles.header} selectable>
         {IMPORT_FIELDS.slice(0, 15).join(',')}
       </Text>
@@ -87,13 +85,7 @@ export function MeasurementImport({ filingId }: { filingId: number }) {
       ) : null}
       {preview && done === null ? <PreviewBlock preview={preview} /> : null}
       {preview && needsMapping && file ? (
-        <MappingEditor
-          headers={preview.headers}
-          mapping={mapping ?? preview.mapping}
-          onChange={setMapping}
-          onCheck={() => run(file, true, mapping ?? preview.mapping)}
-          busy={mutation.isPending}
-        />
+        <MappingEditor headers={preview.headers} mapping={mapping ?? preview.mapping} onChange={setMapping} onCheck={() => run(file, true, mapping ?? preview.mapping)} busy={mutation.isPending} />
       ) : null}
       {clean && file ? (
         <Button
@@ -128,7 +120,10 @@ function PreviewBlock({ preview }: { preview: ImportPreview }) {
   const bad = new Map<string, string>();
   for (const p of preview.problems) if (p.field) bad.set(`${p.line}|${p.field}`, p.message);
   const fields = (Object.keys(preview.mapping) as ImportField[]).filter((f) => preview.mapping[f]);
-  const rows = [...preview.rows.filter((r) => preview.problems.some((p) => p.line === r.line)), ...preview.rows.filter((r) => !preview.problems.some((p) => p.line === r.line))].slice(0, PREVIEW_SHOWN);
+  const rows = [...preview.rows.filter((r) => preview.problems.some((p) => p.line === r.line)), ...preview.rows.filter((r) => !preview.problems.some((p) => p.line === r.line))].slice(
+    0,
+    PREVIEW_SHOWN,
+  );
   const describe = `${preview.format.toUpperCase()}${preview.delimiter ? `, “${preview.delimiter === '\t' ? 'tab' : preview.delimiter}”-separated` : ''}${preview.decimalComma ? ', decimal commas' : ''} · ${preview.rowCount} row${preview.rowCount === 1 ? '' : 's'} · columns ${MAPPING_SOURCE[preview.mappingSource]}`;
   return (
     <View style={{ gap: space.sm }} testID="lab-import-preview">
@@ -152,7 +147,11 @@ function PreviewBlock({ preview }: { preview: ImportPreview }) {
               </Text>
             </View>
           ))}
-          {preview.problems.length > 50 ? <Text variant="small" tone="muted">…and {preview.problems.length - 50} more.</Text> : null}
+          {preview.problems.length > 50 ? (
+            <Text variant="small" tone="muted">
+              …and {preview.problems.length - 50} more.
+            </Text>
+          ) : null}
         </View>
       ) : (
         <Notice tone="success" title="Every row reads cleanly" testID="lab-import-clean">
@@ -181,7 +180,13 @@ function PreviewBlock({ preview }: { preview: ImportPreview }) {
                 {fields.map((f) => {
                   const message = bad.get(`${r.line}|${f}`);
                   return (
-                    <View key={f} style={[styles.pc, message ? styles.badCell : null]} role="cell" accessibilityLabel={message ? `Line ${r.line}, ${preview.mapping[f]!.column}: ${message}` : undefined} testID={message ? `bad-cell-${r.line}-${f}` : undefined}>
+                    <View
+                      key={f}
+                      style={[styles.pc, message ? styles.badCell : null]}
+                      role="cell"
+                      accessibilityLabel={message ? `Line ${r.line}, ${preview.mapping[f]!.column}: ${message}` : undefined}
+                      testID={message ? `bad-cell-${r.line}-${f}` : undefined}
+                    >
                       <Text variant="small" numberOfLines={1}>
                         {r.cells[f] ?? ''}
                       </Text>
@@ -240,7 +245,14 @@ function MappingEditor({ headers, mapping, onChange, onCheck, busy }: { headers:
             </View>
             {kind ? (
               <View style={{ flex: 1, minWidth: 90 }}>
-                <SelectField label={`Unit of ${f}`} hideLabel options={Object.keys(UNIT_FACTORS[kind]).map((u) => ({ value: u, label: u }))} value={mapping[f]?.unit ?? FIELD_DEFAULT_UNIT[f] ?? ''} onChange={(v) => set(f, { unit: v })} testID={`map-${f}-unit`} />
+                <SelectField
+                  label={`Unit of ${f}`}
+                  hideLabel
+                  options={Object.keys(UNIT_FACTORS[kind]).map((u) => ({ value: u, label: u }))}
+                  value={mapping[f]?.unit ?? FIELD_DEFAULT_UNIT[f] ?? ''}
+                  onChange={(v) => set(f, { unit: v })}
+                  testID={`map-${f}-unit`}
+                />
               </View>
             ) : (
               <View style={{ flex: 1, minWidth: 90 }} />

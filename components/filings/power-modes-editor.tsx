@@ -46,8 +46,7 @@ export function PowerModesEditor({
   const common = { control, editable };
   const taken = new Set(values.map((m) => m?.transmitterId));
   const free = transmitters.filter((t) => !taken.has(t.id));
-  const txOptions = (current: string | undefined) =>
-    transmitters.filter((t) => t.id === current || !taken.has(t.id)).map((t) => ({ value: t.id, label: `${t.id} (max ${t.maxTuneUpPowerDbm} dBm)` }));
+  const txOptions = (current: string | undefined) => transmitters.filter((t) => t.id === current || !taken.has(t.id)).map((t) => ({ value: t.id, label: `${t.id} (max ${t.maxTuneUpPowerDbm} dBm)` }));
 
   return (
     <View style={styles.wrap} testID={`pos-${index}-power-modes`}>

@@ -112,7 +112,11 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
     const antennaKey = antennas.fields[antennaIndex]?.key;
     transmitters.fields.forEach((f, j) => {
       const more = followsMore.current.get(f.key) ?? [];
-      if (antennaKey && more.includes(antennaKey)) setMore(j, more.filter((k) => k !== antennaKey));
+      if (antennaKey && more.includes(antennaKey))
+        setMore(
+          j,
+          more.filter((k) => k !== antennaKey),
+        );
     });
     antennas.remove(antennaIndex);
   };
@@ -120,7 +124,10 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
     const more = followsMore.current.get(transmitters.fields[j]?.key ?? '') ?? [];
     const next = on ? [...more.filter((k) => k !== antennaKey), antennaKey] : more.filter((k) => k !== antennaKey);
     // Kept in the order of the antenna list.
-    setMore(j, antennas.fields.map((f) => f.key).filter((k) => next.includes(k)));
+    setMore(
+      j,
+      antennas.fields.map((f) => f.key).filter((k) => next.includes(k)),
+    );
   };
   const follow = (txIndex: number, label: string) => {
     const k = antennaValues.findIndex((a) => a?.id === label);
@@ -157,15 +164,50 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
       flex: 1.2,
       render: (i, h) => <FormText {...common} name={`antennas.${i}.id`} label="Antenna id" hideLabel={h} testID={`antenna-${i}-id`} onValueChange={(next) => relabel(i, next)} />,
     },
-    { key: 'gain', label: 'Gain (dBi)', flex: 0.9, half: true, render: (i, h) => <FormNumber {...common} name={`antennas.${i}.gainDbi`} label="Gain" unit="dBi" hideLabel={h} testID={`antenna-${i}-gain`} /> },
-    { key: 'location', label: 'Where it sits', flex: 2.4, render: (i, h) => <FormText {...common} name={`antennas.${i}.location`} label="Where it sits" placeholder="e.g. top edge" hideLabel={h} testID={`antenna-${i}-location`} /> },
+    {
+      key: 'gain',
+      label: 'Gain (dBi)',
+      flex: 0.9,
+      half: true,
+      render: (i, h) => <FormNumber {...common} name={`antennas.${i}.gainDbi`} label="Gain" unit="dBi" hideLabel={h} testID={`antenna-${i}-gain`} />,
+    },
+    {
+      key: 'location',
+      label: 'Where it sits',
+      flex: 2.4,
+      render: (i, h) => <FormText {...common} name={`antennas.${i}.location`} label="Where it sits" placeholder="e.g. top edge" hideLabel={h} testID={`antenna-${i}-location`} />,
+    },
   ];
   const txColumns: EditColumn[] = [
     { key: 'id', label: 'Id', flex: 1.1, render: (i, h) => <FormText {...common} name={`transmitters.${i}.id`} label="Transmitter id" hideLabel={h} testID={`tx-${i}-id`} /> },
-    { key: 'technology', label: 'Technology', flex: 1.5, half: true, render: (i, h) => <FormText {...common} name={`transmitters.${i}.technology`} label="Technology" placeholder="e.g. LTE" hideLabel={h} testID={`tx-${i}-technology`} /> },
-    { key: 'band', label: 'Band', flex: 1.4, half: true, render: (i, h) => <FormText {...common} name={`transmitters.${i}.band`} label="Band" placeholder="e.g. Band 12" hideLabel={h} testID={`tx-${i}-band`} /> },
-    { key: 'fmin', label: 'Lowest (MHz)', flex: 1.1, half: true, render: (i, h) => <FormNumber {...common} name={`transmitters.${i}.frequencyMinHz`} label="Lowest frequency" unit="MHz" scale={1e6} hideLabel={h} testID={`tx-${i}-fmin`} /> },
-    { key: 'fmax', label: 'Highest (MHz)', flex: 1.1, half: true, render: (i, h) => <FormNumber {...common} name={`transmitters.${i}.frequencyMaxHz`} label="Highest frequency" unit="MHz" scale={1e6} hideLabel={h} testID={`tx-${i}-fmax`} /> },
+    {
+      key: 'technology',
+      label: 'Technology',
+      flex: 1.5,
+      half: true,
+      render: (i, h) => <FormText {...common} name={`transmitters.${i}.technology`} label="Technology" placeholder="e.g. LTE" hideLabel={h} testID={`tx-${i}-technology`} />,
+    },
+    {
+      key: 'band',
+      label: 'Band',
+      flex: 1.4,
+      half: true,
+      render: (i, h) => <FormText {...common} name={`transmitters.${i}.band`} label="Band" placeholder="e.g. Band 12" hideLabel={h} testID={`tx-${i}-band`} />,
+    },
+    {
+      key: 'fmin',
+      label: 'Lowest (MHz)',
+      flex: 1.1,
+      half: true,
+      render: (i, h) => <FormNumber {...common} name={`transmitters.${i}.frequencyMinHz`} label="Lowest frequency" unit="MHz" scale={1e6} hideLabel={h} testID={`tx-${i}-fmin`} />,
+    },
+    {
+      key: 'fmax',
+      label: 'Highest (MHz)',
+      flex: 1.1,
+      half: true,
+      render: (i, h) => <FormNumber {...common} name={`transmitters.${i}.frequencyMaxHz`} label="Highest frequency" unit="MHz" scale={1e6} hideLabel={h} testID={`tx-${i}-fmax`} />,
+    },
     {
       key: 'power',
       label: 'Max tune-up (dBm)',
@@ -256,14 +298,7 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
             {others.length ? (
               <View style={styles.checks}>
                 {others.map((a) => (
-                  <Checkbox
-                    key={a.key}
-                    label={a.label}
-                    checked={more.includes(a.label)}
-                    disabled={!editable}
-                    onChange={(on) => toggleMore(i, a.key, on)}
-                    testID={`tx-${i}-antenna-${a.label}`}
-                  />
+                  <Checkbox key={a.key} label={a.label} checked={more.includes(a.label)} disabled={!editable} onChange={(on) => toggleMore(i, a.key, on)} testID={`tx-${i}-antenna-${a.label}`} />
                 ))}
               </View>
             ) : (
@@ -363,9 +398,7 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
   };
 
   return (
-    <StepFrame stepForm={stepForm}
-      intro="Every transmitter with its band, maximum tune-up power and the antenna it uses. Frequencies in MHz, power in dBm, gain in dBi."
-    >
+    <StepFrame stepForm={stepForm} intro="Every transmitter with its band, maximum tune-up power and the antenna it uses. Frequencies in MHz, power in dBm, gain in dBi.">
       <Card title="Antennas">
         <EditRows
           noun="antenna"
@@ -373,7 +406,16 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
           count={antennas.fields.length}
           keyOf={(i) => antennas.fields[i].key}
           titleOf={(i) => antennaValues[i]?.id ?? ''}
-          onAdd={() => antennas.append({ id: nextId('ANT', antennaValues.map((a) => a?.id)), gainDbi: 0, location: '' })}
+          onAdd={() =>
+            antennas.append({
+              id: nextId(
+                'ANT',
+                antennaValues.map((a) => a?.id),
+              ),
+              gainDbi: 0,
+              location: '',
+            })
+          }
           onRemove={removeAntenna}
           removalEffects={antennaEffects}
           editable={editable}
@@ -390,7 +432,10 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
           titleOf={(i) => transmitterValues[i]?.id ?? ''}
           onAdd={() =>
             transmitters.append({
-              id: nextId('TX', transmitterValues.map((t) => t?.id)),
+              id: nextId(
+                'TX',
+                transmitterValues.map((t) => t?.id),
+              ),
               technology: '',
               band: '',
               frequencyMinHz: null,
@@ -415,8 +460,7 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
         />
         <View style={styles.note}>
           <Text variant="small" tone="muted">
-            Duty cycle is the largest share of time the transmitter can be on (100 % = continuous). Screening evaluates each band at both edges and wherever a rule
-            changes inside it.
+            Duty cycle is the largest share of time the transmitter can be on (100 % = continuous). Screening evaluates each band at both edges and wherever a rule changes inside it.
           </Text>
         </View>
       </Card>

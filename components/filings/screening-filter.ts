@@ -39,7 +39,23 @@ const cell = (v: string | number | null) => {
 
 /** RFC 4180 CSV of the rows as shown (after filtering), with a header line. */
 export function screeningCsv(rows: readonly ScreeningRowDto[]): string {
-  const head = ['Transmitter', 'Use position', 'Position kind', 'Antenna', 'Separation (mm)', 'Power mode', 'Market', 'Tier', 'Method', 'Frequency (MHz)', 'Evaluated', 'Threshold', 'Result', 'Margin (dB)', 'Source'];
+  const head = [
+    'Transmitter',
+    'Use position',
+    'Position kind',
+    'Antenna',
+    'Separation (mm)',
+    'Power mode',
+    'Market',
+    'Tier',
+    'Method',
+    'Frequency (MHz)',
+    'Evaluated',
+    'Threshold',
+    'Result',
+    'Margin (dB)',
+    'Source',
+  ];
   const lines = rows.map((r) =>
     [
       r.transmitterId,

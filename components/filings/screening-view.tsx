@@ -84,7 +84,14 @@ export function ScreeningView({ filing }: { filing: FilingDetail }) {
           </View>
         </Notice>
       ) : null}
-      <Card title="Every combination" aside={<Text variant="small" tone="muted">Tap a figure to see how it was computed.</Text>}>
+      <Card
+        title="Every combination"
+        aside={
+          <Text variant="small" tone="muted">
+            Tap a figure to see how it was computed.
+          </Text>
+        }
+      >
         <View style={styles.filters} testID="screening-filters">
           {regimes.length > 1 ? (
             <ChoiceChips
@@ -104,10 +111,22 @@ export function ScreeningView({ filing }: { filing: FilingDetail }) {
           />
           <View style={styles.selects}>
             <View style={styles.select}>
-              <SelectField label="Transmitter" options={[{ value: ALL, label: 'Every transmitter' }, ...transmitterIds.map((t) => ({ value: t, label: t }))]} value={filter.transmitterId} onChange={(transmitterId) => refine({ transmitterId })} testID="screening-transmitter" />
+              <SelectField
+                label="Transmitter"
+                options={[{ value: ALL, label: 'Every transmitter' }, ...transmitterIds.map((t) => ({ value: t, label: t }))]}
+                value={filter.transmitterId}
+                onChange={(transmitterId) => refine({ transmitterId })}
+                testID="screening-transmitter"
+              />
             </View>
             <View style={styles.select}>
-              <SelectField label="Use position" options={[{ value: ALL, label: 'Every use position' }, ...positionIds.map((p) => ({ value: p, label: p }))]} value={filter.usePositionId} onChange={(usePositionId) => refine({ usePositionId })} testID="screening-position" />
+              <SelectField
+                label="Use position"
+                options={[{ value: ALL, label: 'Every use position' }, ...positionIds.map((p) => ({ value: p, label: p }))]}
+                value={filter.usePositionId}
+                onChange={(usePositionId) => refine({ usePositionId })}
+                testID="screening-position"
+              />
             </View>
           </View>
           <View style={styles.filterBar}>
@@ -115,7 +134,9 @@ export function ScreeningView({ filing }: { filing: FilingDetail }) {
               {isFiltered(filter) ? `${rows.length} of ${s.rows.length} combinations match` : `${s.rows.length} combinations`}
             </Text>
             {isFiltered(filter) ? <Button label="Clear filters" variant="quiet" compact onPress={() => refine(NO_FILTER)} testID="screening-clear" /> : null}
-            {Platform.OS === 'web' && rows.length ? <Button label="Download CSV" variant="secondary" compact icon="link" onPress={() => downloadCsv(rows, filing.device.name)} testID="screening-csv" /> : null}
+            {Platform.OS === 'web' && rows.length ? (
+              <Button label="Download CSV" variant="secondary" compact icon="link" onPress={() => downloadCsv(rows, filing.device.name)} testID="screening-csv" />
+            ) : null}
           </View>
         </View>
         {s.rows.length === 0 ? (
@@ -126,7 +147,13 @@ export function ScreeningView({ filing }: { filing: FilingDetail }) {
           <>
             <ScreeningRows rows={rows.slice(0, shown)} onOpen={open} />
             {rows.length > shown ? (
-              <Button label={`Show ${Math.min(ROWS_PAGE, rows.length - shown)} more (${rows.length - shown} not shown)`} variant="secondary" onPress={() => setShown((n) => n + ROWS_PAGE)} testID="screening-more" style={{ alignSelf: 'flex-start' }} />
+              <Button
+                label={`Show ${Math.min(ROWS_PAGE, rows.length - shown)} more (${rows.length - shown} not shown)`}
+                variant="secondary"
+                onPress={() => setShown((n) => n + ROWS_PAGE)}
+                testID="screening-more"
+                style={{ alignSelf: 'flex-start' }}
+              />
             ) : null}
           </>
         )}
@@ -166,11 +193,21 @@ function downloadCsv(rows: ScreeningRowDto[], deviceName: string) {
 function Summary({ s, onPick, active }: { s: FilingScreening; onPick: (regime: string, result: ScreeningFilter['result']) => void; active: ScreeningFilter }) {
   const wide = useIsWide();
   const entries = Object.entries(s.summary.byRegime) as [MarketRegime, ScreeningCounts][];
-  if (!entries.length) return <Notice tone="caution" title="No markets chosen">Pick at least one market under Markets to screen against it.</Notice>;
+  if (!entries.length)
+    return (
+      <Notice tone="caution" title="No markets chosen">
+        Pick at least one market under Markets to screen against it.
+      </Notice>
+    );
   return (
     <View style={[styles.summary, wide && styles.summaryWide]} testID="screening-summary">
       {entries.map(([regime, c]) => (
-        <View key={regime} style={styles.summaryCard} testID={`summary-${regime}`} accessibilityLabel={`${REGIME_LABELS[regime]}: ${c.combinations} combinations, ${c.exempt} exempt, ${c.evaluateSar} need SAR, ${c.evaluateMpe} need MPE`}>
+        <View
+          key={regime}
+          style={styles.summaryCard}
+          testID={`summary-${regime}`}
+          accessibilityLabel={`${REGIME_LABELS[regime]}: ${c.combinations} combinations, ${c.exempt} exempt, ${c.evaluateSar} need SAR, ${c.evaluateMpe} need MPE`}
+        >
           <Text variant="label" tone="accent">
             {regimeShort(regime)}
           </Text>
@@ -205,9 +242,34 @@ function Summary({ s, onPick, active }: { s: FilingScreening; onPick: (regime: s
   );
 }
 
-function Count({ label, n, icon, color = palette.ink, selected, onPress, testID, a11y }: { label: string; n: number; icon?: 'check' | 'warning'; color?: string; selected: boolean; onPress: () => void; testID: string; a11y: string }) {
+function Count({
+  label,
+  n,
+  icon,
+  color = palette.ink,
+  selected,
+  onPress,
+  testID,
+  a11y,
+}: {
+  label: string;
+  n: number;
+  icon?: 'check' | 'warning';
+  color?: string;
+  selected: boolean;
+  onPress: () => void;
+  testID: string;
+  a11y: string;
+}) {
   return (
-    <Pressable style={({ pressed }) => [styles.count, selected && styles.countOn, pressed && styles.pressed]} onPress={onPress} accessibilityRole="button" accessibilityLabel={a11y} aria-pressed={selected} testID={testID}>
+    <Pressable
+      style={({ pressed }) => [styles.count, selected && styles.countOn, pressed && styles.pressed]}
+      onPress={onPress}
+      accessibilityRole="button"
+      accessibilityLabel={a11y}
+      aria-pressed={selected}
+      testID={testID}
+    >
       <Text variant="title" style={{ color, fontVariant: ['tabular-nums'] }}>
         {n}
       </Text>
@@ -278,7 +340,13 @@ function ScreeningRows({ rows, onOpen }: { rows: ScreeningRowDto[]; onOpen: (row
           <Figure flex={1.05} numeric label={evaluatedText(row)} onPress={() => onOpen(row, 'evaluated')} testID={`cell-${i}-evaluated`} />
           <Figure flex={1.1} numeric label={thresholdText(row)} onPress={() => onOpen(row, 'threshold')} testID={`cell-${i}-threshold`} />
           <View role="cell" style={[styles.td, { flex: 1.55 }]}>
-            <Pressable style={({ pressed }) => [styles.cellPress, { flex: 1 }, pressed && styles.pressed]} onPress={() => onOpen(row, 'result')} accessibilityRole="button" accessibilityLabel={`How computed: result ${RESULT_LOOK[row.result].label}`} testID={`cell-${i}-result`}>
+            <Pressable
+              style={({ pressed }) => [styles.cellPress, { flex: 1 }, pressed && styles.pressed]}
+              onPress={() => onOpen(row, 'result')}
+              accessibilityRole="button"
+              accessibilityLabel={`How computed: result ${RESULT_LOOK[row.result].label}`}
+              testID={`cell-${i}-result`}
+            >
               <ResultBadge row={row} />
             </Pressable>
           </View>
@@ -310,7 +378,13 @@ function Figure({ label, onPress, flex, numeric, testID }: { label: string; onPr
   // The row's children must be cells (ARIA table); the button sits inside its cell.
   return (
     <View role="cell" style={[styles.td, { flex }]}>
-      <Pressable onPress={onPress} accessibilityRole="button" accessibilityLabel={`How computed: ${label}`} testID={testID} style={({ pressed }) => [styles.cellPress, { flex: 1 }, pressed && styles.pressed]}>
+      <Pressable
+        onPress={onPress}
+        accessibilityRole="button"
+        accessibilityLabel={`How computed: ${label}`}
+        testID={testID}
+        style={({ pressed }) => [styles.cellPress, { flex: 1 }, pressed && styles.pressed]}
+      >
         <Text variant={numeric ? 'figure' : 'small'} style={[numeric ? styles.figure : styles.link]}>
           {label}
         </Text>
@@ -344,14 +418,27 @@ function RowCard({ row, index, onOpen }: { row: ScreeningRowDto; index: number; 
         </View>
         <ResultBadge row={row} />
       </View>
-      <Pressable onPress={() => onOpen(row, 'method')} style={({ pressed }) => [styles.methodRow, pressed && styles.pressed]} accessibilityRole="button" accessibilityLabel={`How computed: method ${row.methodLabel}`} testID={`cell-${index}-method`}>
+      <Pressable
+        onPress={() => onOpen(row, 'method')}
+        style={({ pressed }) => [styles.methodRow, pressed && styles.pressed]}
+        accessibilityRole="button"
+        accessibilityLabel={`How computed: method ${row.methodLabel}`}
+        testID={`cell-${index}-method`}
+      >
         <Text variant="small" tone="soft" style={{ flex: 1 }}>
           {row.methodLabel}
         </Text>
       </Pressable>
       <View style={styles.cardFigures}>
         {items.map((it) => (
-          <Pressable key={it.key} onPress={() => onOpen(row, it.key)} style={({ pressed }) => [styles.cardFigure, pressed && styles.pressed]} accessibilityRole="button" accessibilityLabel={`How computed: ${it.label} ${it.value}`} testID={`cell-${index}-${it.key}`}>
+          <Pressable
+            key={it.key}
+            onPress={() => onOpen(row, it.key)}
+            style={({ pressed }) => [styles.cardFigure, pressed && styles.pressed]}
+            accessibilityRole="button"
+            accessibilityLabel={`How computed: ${it.label} ${it.value}`}
+            testID={`cell-${index}-${it.key}`}
+          >
             <Text variant="small" tone="muted">
               {it.label}
             </Text>
@@ -372,7 +459,18 @@ const styles = StyleSheet.create({
   summaryWide: { flexDirection: 'row', flexWrap: 'wrap' },
   summaryCard: { flexGrow: 1, flexBasis: 300, minWidth: 0, backgroundColor: palette.surface, borderWidth: 1, borderColor: palette.line, borderRadius: radii.lg, padding: space.lg, gap: space.xs },
   counts: { flexDirection: 'row', flexWrap: 'wrap', gap: space.xs, paddingTop: space.xs },
-  count: { gap: 0, flexGrow: 1, flexBasis: 88, minWidth: 0, minHeight: layout.touchMinPx, paddingHorizontal: space.xs, paddingVertical: 2, borderRadius: radii.md, borderWidth: 1, borderColor: 'transparent' },
+  count: {
+    gap: 0,
+    flexGrow: 1,
+    flexBasis: 88,
+    minWidth: 0,
+    minHeight: layout.touchMinPx,
+    paddingHorizontal: space.xs,
+    paddingVertical: 2,
+    borderRadius: radii.md,
+    borderWidth: 1,
+    borderColor: 'transparent',
+  },
   countOn: { borderColor: palette.accent, backgroundColor: palette.accentSoft },
   filters: { gap: space.md },
   selects: { flexDirection: 'row', flexWrap: 'wrap', gap: space.md },

@@ -25,23 +25,15 @@ const SET_OPTIONS = STANDARD_POSITION_SET_KEYS.map((k) => ({ value: k, label: ST
 
 const mm = (m: number) => `${Number((m * 1000).toFixed(1))} mm`;
 
-export function StandardPositionsCard({
-  productType,
-  existingIds,
-  onAdd,
-}: {
-  productType: ProductType;
-  existingIds: readonly (string | undefined)[];
-  onAdd: (positions: StandardPosition[]) => void;
-}) {
+export function StandardPositionsCard({ productType, existingIds, onAdd }: { productType: ProductType; existingIds: readonly (string | undefined)[]; onAdd: (positions: StandardPosition[]) => void }) {
   const [set, setSet] = useState<StandardPositionSetKey | ''>(POSITION_SET_OF_PRODUCT[productType] ?? '');
   const toAdd = set ? standardPositionsToAdd(set, existingIds) : [];
   return (
     <Card title="Standard test positions">
       <View style={styles.body} testID="standard-positions">
         <Text variant="small" tone="muted">
-          The usual SAR test positions for a kind of product, to start from: each is added with its exposure condition and every antenna a transmitter uses at the
-          position’s test separation (conservative: the antenna sits at least that far in) — edit or remove any of them.
+          The usual SAR test positions for a kind of product, to start from: each is added with its exposure condition and every antenna a transmitter uses at the position’s test separation
+          (conservative: the antenna sits at least that far in) — edit or remove any of them.
         </Text>
         {productType === 'iot-module' ? (
           <Text variant="small" testID="standard-positions-module">

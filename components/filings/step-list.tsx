@@ -119,7 +119,16 @@ export function StepList({ filing, activeStep, compact, wizardOnly }: { filing: 
 
 const styles = StyleSheet.create({
   list: { gap: space.xxs },
-  item: { flexDirection: 'row', gap: space.md, minHeight: layout.touchMinPx, paddingVertical: space.sm, paddingHorizontal: space.md, borderRadius: radii.md, borderLeftWidth: 3, borderLeftColor: 'transparent' },
+  item: {
+    flexDirection: 'row',
+    gap: space.md,
+    minHeight: layout.touchMinPx,
+    paddingVertical: space.sm,
+    paddingHorizontal: space.md,
+    borderRadius: radii.md,
+    borderLeftWidth: 3,
+    borderLeftColor: 'transparent',
+  },
   active: { backgroundColor: palette.accentSoft, borderLeftColor: palette.accent },
   // The review pages follow the wizard, set apart by a rule.
   firstReview: { marginTop: space.sm, borderTopWidth: 1, borderTopColor: palette.line, paddingTop: space.md, borderTopLeftRadius: 0, borderTopRightRadius: 0 },

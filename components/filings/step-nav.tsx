@@ -10,11 +10,7 @@ export function StepNav({ filingId, page }: { filingId: number; page: FilingPage
   const { prev, next } = neighbours(page);
   return (
     <View style={styles.nav} role="navigation" aria-label="Steps">
-      {prev ? (
-        <Button label={`Back: ${PAGE_LABELS[prev]}`} variant="secondary" icon="chevronLeft" onPress={() => router.push(`/filings/${filingId}/${prev}`)} testID="step-prev" />
-      ) : (
-        <View />
-      )}
+      {prev ? <Button label={`Back: ${PAGE_LABELS[prev]}`} variant="secondary" icon="chevronLeft" onPress={() => router.push(`/filings/${filingId}/${prev}`)} testID="step-prev" /> : <View />}
       {next ? (
         <Button label={`Next: ${PAGE_LABELS[next]}`} icon="chevronRight" onPress={() => router.push(`/filings/${filingId}/${next}`)} testID="step-next" />
       ) : (

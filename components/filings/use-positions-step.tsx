@@ -57,9 +57,7 @@ export function UsePositionsStep({ filing }: { filing: FilingDetail }) {
       ...(p.powerModes ? { powerModes: arrayOf(p.powerModes).filter((m) => transmitterIds.includes(String(m.transmitterId))) as unknown as PowerModeRow[] } : {}),
     })),
   });
-  const stepForm = useStepForm<UsePositionsValues>(filing, 'use-positions', (raw, saved) =>
-    keepKnown(isObject(raw) ? (arrayOf(raw.usePositions) as unknown as PositionRow[]) : saved.usePositions),
-  );
+  const stepForm = useStepForm<UsePositionsValues>(filing, 'use-positions', (raw, saved) => keepKnown(isObject(raw) ? (arrayOf(raw.usePositions) as unknown as PositionRow[]) : saved.usePositions));
   const { form, editable } = stepForm;
   const { control } = form;
   const positions = useFieldArray({ control, name: 'usePositions', keyName: 'key' });
@@ -95,14 +93,10 @@ export function UsePositionsStep({ filing }: { filing: FilingDetail }) {
     })),
   ];
 
-  const lacking = values
-    .map((p) => ({ id: p?.id, missing: usedIds.filter((a) => !(p?.separations ?? []).some((s) => s.antennaId === a)) }))
-    .filter((p) => p.missing.length);
+  const lacking = values.map((p) => ({ id: p?.id, missing: usedIds.filter((a) => !(p?.separations ?? []).some((s) => s.antennaId === a)) })).filter((p) => p.missing.length);
 
   return (
-    <StepFrame stepForm={stepForm}
-      intro="How close the body gets to each antenna in each way the product is used, in millimetres (0 mm = touching)."
-    >
+    <StepFrame stepForm={stepForm} intro="How close the body gets to each antenna in each way the product is used, in millimetres (0 mm = touching).">
       {antennaIds.length === 0 ? (
         <Notice tone="caution" title="No antennas yet">
           Add the antennas under Radios first; each use position needs a separation for every antenna a transmitter uses.
@@ -115,7 +109,16 @@ export function UsePositionsStep({ filing }: { filing: FilingDetail }) {
           count={positions.fields.length}
           keyOf={(i) => positions.fields[i].key}
           titleOf={(i) => values[i]?.id ?? ''}
-          onAdd={() => positions.append({ id: nextId('POS', values.map((p) => p?.id)), kind: 'body-worn', separations: [] })}
+          onAdd={() =>
+            positions.append({
+              id: nextId(
+                'POS',
+                values.map((p) => p?.id),
+              ),
+              kind: 'body-worn',
+              separations: [],
+            })
+          }
           onRemove={(i) => positions.remove(i)}
           removalEffects={positionEffects}
           details={powerDetails}
@@ -140,7 +143,21 @@ export function UsePositionsStep({ filing }: { filing: FilingDetail }) {
   );
 }
 
-function SeparationInput({ control, index, antennaId, used, hideLabel, editable }: { control: Control<UsePositionsValues>; index: number; antennaId: string; used: boolean; hideLabel: boolean; editable: boolean }) {
+function SeparationInput({
+  control,
+  index,
+  antennaId,
+  used,
+  hideLabel,
+  editable,
+}: {
+  control: Control<UsePositionsValues>;
+  index: number;
+  antennaId: string;
+  used: boolean;
+  hideLabel: boolean;
+  editable: boolean;
+}) {
   return (
     <Controller
       control={control}

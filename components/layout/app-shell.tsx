@@ -116,12 +116,7 @@ function BottomBar() {
         const active = isActive(item, pathname);
         return (
           <Link key={item.href} href={item.href} asChild>
-            <Pressable
-              testID={`nav-${item.id}`}
-              accessibilityLabel={item.label}
-              aria-current={active ? 'page' : undefined}
-              style={styles.tab}
-            >
+            <Pressable testID={`nav-${item.id}`} accessibilityLabel={item.label} aria-current={active ? 'page' : undefined} style={styles.tab}>
               <View style={[styles.tabMarker, active && styles.tabMarkerActive]} />
               <Icon name={item.icon} size={22} color={active ? palette.accent : palette.inkMuted} strokeWidth={active ? 2 : 1.7} />
               <Text variant="small" style={[styles.tabLabel, { color: active ? palette.ink : palette.inkMuted }]} numberOfLines={1}>
@@ -155,13 +150,40 @@ const styles = StyleSheet.create({
   wide: { flex: 1, flexDirection: 'row', backgroundColor: palette.paper },
   narrow: { flex: 1, backgroundColor: palette.paper },
   main: { flex: 1, minWidth: 0 },
-  sidebar: { width: layout.sidebarWidthPx, backgroundColor: palette.paperDeep, borderRightWidth: 1, borderRightColor: palette.line, paddingHorizontal: space.md, paddingVertical: space.xl, gap: space.xl },
+  sidebar: {
+    width: layout.sidebarWidthPx,
+    backgroundColor: palette.paperDeep,
+    borderRightWidth: 1,
+    borderRightColor: palette.line,
+    paddingHorizontal: space.md,
+    paddingVertical: space.xl,
+    gap: space.xl,
+  },
   sidebarBrand: { paddingHorizontal: space.sm, gap: space.sm },
   sidebarNav: { gap: space.xxs, flex: 1 },
-  sidebarLink: { flexDirection: 'row', alignItems: 'center', gap: space.md, minHeight: layout.touchMinPx, paddingHorizontal: space.md, borderRadius: radii.md, borderLeftWidth: 3, borderLeftColor: 'transparent' },
+  sidebarLink: {
+    flexDirection: 'row',
+    alignItems: 'center',
+    gap: space.md,
+    minHeight: layout.touchMinPx,
+    paddingHorizontal: space.md,
+    borderRadius: radii.md,
+    borderLeftWidth: 3,
+    borderLeftColor: 'transparent',
+  },
   sidebarLinkActive: { backgroundColor: palette.surface, borderLeftColor: palette.accent },
   sidebarUser: { flexDirection: 'row', alignItems: 'center', gap: space.sm, padding: space.sm, borderRadius: radii.md, borderTopWidth: 1, borderTopColor: palette.line },
-  topBar: { flexDirection: 'row', alignItems: 'center', justifyContent: 'space-between', gap: space.md, paddingHorizontal: space.lg, paddingBottom: space.sm, backgroundColor: palette.surface, borderBottomWidth: 1, borderBottomColor: palette.line },
+  topBar: {
+    flexDirection: 'row',
+    alignItems: 'center',
+    justifyContent: 'space-between',
+    gap: space.md,
+    paddingHorizontal: space.lg,
+    paddingBottom: space.sm,
+    backgroundColor: palette.surface,
+    borderBottomWidth: 1,
+    borderBottomColor: palette.line,
+  },
   topOrg: { flexShrink: 1, textAlign: 'right' },
   bottomBar: { flexDirection: 'row', backgroundColor: palette.surface, borderTopWidth: 1, borderTopColor: palette.line },
   tab: { flex: 1, alignItems: 'center', justifyContent: 'center', gap: 2, minHeight: layout.bottomBarHeightPx, paddingBottom: space.xs },

@@ -68,12 +68,7 @@ export function PackageCard({ filingId, versionNumber }: { filingId: number; ver
               {job.percent} %
             </Text>
           </View>
-          <View
-            style={styles.track}
-            accessibilityRole="progressbar"
-            accessibilityLabel="Package build"
-            accessibilityValue={{ min: 0, max: 100, now: job.percent }}
-          >
+          <View style={styles.track} accessibilityRole="progressbar" accessibilityLabel="Package build" accessibilityValue={{ min: 0, max: 100, now: job.percent }}>
             <View style={[styles.fill, { width: `${Math.max(2, job.percent)}%` }]} />
           </View>
         </View>
@@ -104,9 +99,7 @@ export function PackageCard({ filingId, versionNumber }: { filingId: number; ver
         </View>
       ) : null}
       <View style={styles.actions}>
-        {ready && s.canDownload ? (
-          <Button label="Download the zip" icon="link" onPress={() => void Linking.openURL(packageDownloadUrl(filingId, versionNumber))} testID="package-download" />
-        ) : null}
+        {ready && s.canDownload ? <Button label="Download the zip" icon="link" onPress={() => void Linking.openURL(packageDownloadUrl(filingId, versionNumber))} testID="package-download" /> : null}
         {s.canBuild && !running ? (
           <Button
             label={s.package ? (signed ? 'Build again' : 'Build the preview again') : signed ? 'Build the package' : 'Build a preview'}

@@ -71,16 +71,7 @@ function Thread({ filingId, thread, review, showWhere }: { filingId: number; thr
       ))}
       {review.can.reply.allowed && !resolved ? (
         <View style={styles.replyRow}>
-          <InputBox
-            label="Answer"
-            hideLabel
-            placeholder="Write an answer…"
-            value={reply}
-            onChangeText={setReply}
-            multiline
-            error={problemText(replying.error)}
-            testID={`thread-${thread.id}-reply`}
-          />
+          <InputBox label="Answer" hideLabel placeholder="Write an answer…" value={reply} onChangeText={setReply} multiline error={problemText(replying.error)} testID={`thread-${thread.id}-reply`} />
           <View style={styles.actions}>
             <Button
               label="Send answer"
@@ -144,9 +135,7 @@ function NewThread({ filing, fixedStep }: { filing: FilingDetail; fixedStep?: st
           testID="new-thread-step"
         />
       ) : null}
-      {rows.length ? (
-        <ChoiceChips label="About the row" choices={[{ value: WHOLE_STEP, label: 'The whole step' }, ...rows]} value={rowRef} onChange={setRowRef} testID="new-thread-row" />
-      ) : null}
+      {rows.length ? <ChoiceChips label="About the row" choices={[{ value: WHOLE_STEP, label: 'The whole step' }, ...rows]} value={rowRef} onChange={setRowRef} testID="new-thread-row" /> : null}
       <InputBox label="Comment" value={body} onChangeText={setBody} multiline error={problemText(adding.error)} testID="new-thread-body" />
       {adding.isSuccess && !body ? <Notice tone="success">Comment added. Return the version when you have left every comment.</Notice> : null}
       <Button

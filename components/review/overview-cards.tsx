@@ -87,7 +87,10 @@ function ReadinessSummary({ filingId, readiness }: { filingId: number; readiness
             <View key={i.id} style={styles.item}>
               <Icon name="blocked" size={14} color={palette.fail} />
               <Text variant="small" style={{ flex: 1 }}>
-                {i.title} <Text variant="small" tone="muted">({PAGE_LABELS[i.step as FilingPage] ?? i.step})</Text>
+                {i.title}{' '}
+                <Text variant="small" tone="muted">
+                  ({PAGE_LABELS[i.step as FilingPage] ?? i.step})
+                </Text>
               </Text>
             </View>
           ))}
@@ -178,7 +181,9 @@ export function VersionsCard({ filingId }: { filingId: number }) {
               <Text variant="small" tone="soft">
                 {v.signature ? `Signed by ${v.signature.signer.name}, ${formatDateTime(v.signature.signedAt)}` : `Started ${formatDateTime(v.createdAt)}`}
               </Text>
-              {v.number > 1 ? <ArrowLink href={`/filings/${filingId}/compare?from=${v.number - 1}&to=${v.number}`} label={`Compare with version ${v.number - 1}`} testID={`overview-compare-v${v.number}`} /> : null}
+              {v.number > 1 ? (
+                <ArrowLink href={`/filings/${filingId}/compare?from=${v.number - 1}&to=${v.number}`} label={`Compare with version ${v.number - 1}`} testID={`overview-compare-v${v.number}`} />
+              ) : null}
             </View>
           );
         })}

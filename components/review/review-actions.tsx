@@ -28,7 +28,11 @@ export function RequestReviewAction({ filingId, review, readiness }: { filingId:
   return (
     <View style={styles.block} testID="request-review-form">
       {blocking.length ? (
-        <Notice tone="caution" title={`Not ready for review: ${blocking.length} item${blocking.length === 1 ? '' : 's'} block${blocking.length === 1 ? 's' : ''} signing`} testID="request-review-blocked">
+        <Notice
+          tone="caution"
+          title={`Not ready for review: ${blocking.length} item${blocking.length === 1 ? '' : 's'} block${blocking.length === 1 ? 's' : ''} signing`}
+          testID="request-review-blocked"
+        >
           <View style={styles.items}>
             {blocking.map((i) => (
               <Link key={i.id} href={isFilingPage(i.step) ? `/filings/${filingId}/${i.step}` : `/filings/${filingId}/readiness`} asChild>

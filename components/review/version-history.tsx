@@ -31,7 +31,15 @@ export function SignatureBlock({ filingId, version }: { filingId: number; versio
       <Text variant="mono" style={styles.hash} selectable testID={`signature-hash-v${version.number}`}>
         SHA-256 {s.contentSha256}
       </Text>
-      <Button label="Verify the signature" variant="secondary" compact busy={verify.isPending} onPress={() => verify.mutate(version.number)} style={{ alignSelf: 'flex-start' }} testID={`verify-v${version.number}`} />
+      <Button
+        label="Verify the signature"
+        variant="secondary"
+        compact
+        busy={verify.isPending}
+        onPress={() => verify.mutate(version.number)}
+        style={{ alignSelf: 'flex-start' }}
+        testID={`verify-v${version.number}`}
+      />
       {v ? (
         <Notice tone={v.matches ? 'success' : 'error'} title={v.matches ? 'Matches' : 'Does not match'} testID={`verify-result-v${version.number}`}>
           {v.matches

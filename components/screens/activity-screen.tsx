@@ -96,8 +96,7 @@ function useFilters(): [AuditFilters, (next: AuditFilters) => void] {
     person: idParam(params.person),
     kind: (AUDIT_KINDS as readonly string[]).includes(params.kind ?? '') ? (params.kind as AuditKind) : undefined,
   };
-  const set = (next: AuditFilters) =>
-    router.setParams({ filing: next.filing ? String(next.filing) : undefined, person: next.person ? String(next.person) : undefined, kind: next.kind ?? undefined });
+  const set = (next: AuditFilters) => router.setParams({ filing: next.filing ? String(next.filing) : undefined, person: next.person ? String(next.person) : undefined, kind: next.kind ?? undefined });
   return [filters, set];
 }
 
@@ -125,10 +124,22 @@ function ActivityList() {
       <Card>
         <View style={[styles.filters, wide && styles.filtersWide]} testID="activity-filters">
           <View style={wide ? styles.filterWide : undefined}>
-            <SelectField label="Filing" options={filingOptions} value={filters.filing ? String(filters.filing) : ALL} onChange={(v) => setFilters({ ...filters, filing: idParam(v) })} testID="activity-filter-filing" />
+            <SelectField
+              label="Filing"
+              options={filingOptions}
+              value={filters.filing ? String(filters.filing) : ALL}
+              onChange={(v) => setFilters({ ...filters, filing: idParam(v) })}
+              testID="activity-filter-filing"
+            />
           </View>
           <View style={wide ? styles.filterWide : undefined}>
-            <SelectField label="Person" options={personOptions} value={filters.person ? String(filters.person) : ALL} onChange={(v) => setFilters({ ...filters, person: idParam(v) })} testID="activity-filter-person" />
+            <SelectField
+              label="Person"
+              options={personOptions}
+              value={filters.person ? String(filters.person) : ALL}
+              onChange={(v) => setFilters({ ...filters, person: idParam(v) })}
+              testID="activity-filter-person"
+            />
           </View>
           <View style={wide ? styles.filterWide : undefined}>
             <SelectField

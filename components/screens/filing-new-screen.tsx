@@ -78,8 +78,15 @@ function NewFilingForm() {
     <View style={{ gap: space.lg }} testID="new-filing-form">
       <DeviceFields control={form.control} prefix="device." testIDPrefix="new-device" onSubmit={() => void submit()} />
       {rootError ? <Notice tone="error">{rootError}</Notice> : null}
-      <Button label="Create filing and add radios" icon="chevronRight" onPress={() => void submit()} busy={create.isPending} busyLabel="Creating…" testID="new-filing-submit" style={{ alignSelf: 'flex-start' }} />
+      <Button
+        label="Create filing and add radios"
+        icon="chevronRight"
+        onPress={() => void submit()}
+        busy={create.isPending}
+        busyLabel="Creating…"
+        testID="new-filing-submit"
+        style={{ alignSelf: 'flex-start' }}
+      />
     </View>
   );
 }
-

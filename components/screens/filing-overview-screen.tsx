@@ -55,11 +55,16 @@ export function FilingOverviewScreen() {
       ) : null}
       <Card title="Progress" aside={<StatusBadge tone={state.tone} icon={state.icon} label={state.label} />}>
         <Text tone="soft" testID="filing-progress">
-          {done} of {f.steps.length} steps complete.{' '}
-          {done < f.steps.length ? `Next: ${STEP_LABELS[next.step]}.` : 'Screening is ready to read.'}
+          {done} of {f.steps.length} steps complete. {done < f.steps.length ? `Next: ${STEP_LABELS[next.step]}.` : 'Screening is ready to read.'}
         </Text>
         {!wide ? <StepList filing={f} activeStep="overview" /> : null}
-        <Button label={`Go to ${STEP_LABELS[next.step]}`} icon="chevronRight" onPress={() => router.push(`/filings/${f.id}/${next.step}`)} style={{ alignSelf: 'flex-start' }} testID="overview-continue" />
+        <Button
+          label={`Go to ${STEP_LABELS[next.step]}`}
+          icon="chevronRight"
+          onPress={() => router.push(`/filings/${f.id}/${next.step}`)}
+          style={{ alignSelf: 'flex-start' }}
+          testID="overview-continue"
+        />
       </Card>
       <ReadinessCard filingId={f.id} />
       <ReviewCard filing={f} />
@@ -92,8 +97,7 @@ export function FilingOverviewScreen() {
       </Card>
       <Card title="Device file">
         <Text variant="small" tone="soft">
-          The whole device — identity, markets, antennas, transmitters and use positions — as one JSON file (fieldfile.device/1), for your lab’s tools or to start another
-          filing from it.
+          The whole device — identity, markets, antennas, transmitters and use positions — as one JSON file (fieldfile.device/1), for your lab’s tools or to start another filing from it.
         </Text>
         <Button label="Export device.json" variant="secondary" icon="link" onPress={() => void Linking.openURL(deviceFileUrl(f.id))} style={{ alignSelf: 'flex-start' }} testID="export-device-file" />
       </Card>

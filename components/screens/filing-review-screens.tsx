@@ -82,7 +82,13 @@ export function FilingReviewScreen() {
   const state = STATE_LOOK[rv.version.state];
   const anyAction = Object.values(rv.can).some((c) => c.allowed);
   return (
-    <Screen eyebrow={eyebrowOf('review', f.device.name)} title="Review and signing" pageTitle={`Review · ${f.device.name}`} subtitle={`${f.device.name} · ${f.device.model} · version ${rv.version.number}`} testID="review-screen">
+    <Screen
+      eyebrow={eyebrowOf('review', f.device.name)}
+      title="Review and signing"
+      pageTitle={`Review · ${f.device.name}`}
+      subtitle={`${f.device.name} · ${f.device.model} · version ${rv.version.number}`}
+      testID="review-screen"
+    >
       {!wide ? <BackLink href={`/filings/${id}`} label="All steps" /> : null}
       <Card title="Summary" aside={<StatusBadge tone={state.tone} icon={state.icon} label={state.label} testID="review-state" />}>
         <Text tone="soft" testID="review-state-words">
@@ -122,7 +128,14 @@ export function FilingReviewScreen() {
         </Text>
         <StepsToRead filing={f} review={rv} />
       </Card>
-      <Card title="Checklist" aside={<Text variant="small" tone="soft">{readinessWords(r.counts)}</Text>}>
+      <Card
+        title="Checklist"
+        aside={
+          <Text variant="small" tone="soft">
+            {readinessWords(r.counts)}
+          </Text>
+        }
+      >
         <ReadinessChecklistView readiness={r} filingId={id} onlyFailing={r.counts.blocking + r.counts.warnings > 0} />
         <Link href={`/filings/${id}/readiness`} asChild>
           <Pressable accessibilityRole="link" style={styles.link}>

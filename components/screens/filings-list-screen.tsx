@@ -66,12 +66,7 @@ export function FilingsListScreen() {
           <InputBox label="Search device, model or applicant" value={search} onChangeText={setSearch} placeholder="e.g. TH4" testID="filings-search" autoCorrect={false} />
         </View>
         <ChoiceChips label="Sort by" choices={SORT_CHOICES} value={sort} onChange={setSort} testID="filings-sort" />
-        <Checkbox
-          label="Show archived filings"
-          checked={showArchived}
-          onChange={(next) => router.setParams({ archived: next ? '1' : undefined })}
-          testID="filings-show-archived"
-        />
+        <Checkbox label="Show archived filings" checked={showArchived} onChange={(next) => router.setParams({ archived: next ? '1' : undefined })} testID="filings-show-archived" />
       </View>
       {filings.isPending ? (
         <Loading label="Loading filings…" />
@@ -120,7 +115,13 @@ function FilingRow({ filing }: { filing: FilingSummary }) {
           <StatusBadge tone={state.tone} icon={state.icon} label={`v${filing.version.number} · ${state.label}`} />
           {filing.archivedAt ? <StatusBadge tone="caution" icon="info" label="Archived" testID={`filing-archived-${filing.id}`} /> : null}
           <View style={styles.markets}>
-            {filing.markets.length ? filing.markets.map((m) => <Chip key={m} label={regimeShort(m)} />) : <Text variant="small" tone="muted">No markets yet</Text>}
+            {filing.markets.length ? (
+              filing.markets.map((m) => <Chip key={m} label={regimeShort(m)} />)
+            ) : (
+              <Text variant="small" tone="muted">
+                No markets yet
+              </Text>
+            )}
           </View>
           <Text variant="small" tone="muted" style={wide ? styles.when : undefined}>
             {formatDateTime(filing.updatedAt)} · {filing.owner.name}

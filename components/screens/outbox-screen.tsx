@@ -26,12 +26,7 @@ function OutboxList() {
   const wide = useIsWide();
   const messages = useOutboxQuery();
   return (
-    <Screen
-      eyebrow={me.organisation.name}
-      title="Sent mail"
-      subtitle="Every message Fieldfile has sent, as the recipient sees it."
-      testID="outbox-screen"
-    >
+    <Screen eyebrow={me.organisation.name} title="Sent mail" subtitle="Every message Fieldfile has sent, as the recipient sees it." testID="outbox-screen">
       <Card>
         {messages.isPending ? (
           <Loading label="Loading mail…" />
@@ -46,11 +41,7 @@ function OutboxList() {
           <View style={{ marginVertical: -space.sm }}>
             {messages.data.map((m, i) => (
               <Link key={m.id} href={`/outbox/${m.id}`} asChild>
-                <Pressable
-                  testID={`outbox-item-${m.id}`}
-                  accessibilityLabel={`${m.subject}, to ${m.to}`}
-                  style={StyleSheet.flatten([styles.item, i > 0 && styles.itemDivider])}
-                >
+                <Pressable testID={`outbox-item-${m.id}`} accessibilityLabel={`${m.subject}, to ${m.to}`} style={StyleSheet.flatten([styles.item, i > 0 && styles.itemDivider])}>
                   <View style={[styles.itemBody, wide && styles.itemBodyWide]}>
                     <View style={{ flex: 1, minWidth: 0 }}>
                       <Text variant="bodyStrong" numberOfLines={1}>
@@ -80,7 +71,10 @@ function OutboxList() {
 
 /** The message's first words, without the greeting line, for the list. */
 function snippet(text: string): string {
-  const lines = text.split(/\r?\n/).map((l) => l.trim()).filter(Boolean);
+  const lines = text
+    .split(/\r?\n/)
+    .map((l) => l.trim())
+    .filter(Boolean);
   const body = /^(hello|hi|dear)\b/i.test(lines[0] ?? '') ? lines.slice(1) : lines;
   return body.join(' ').slice(0, 180);
 }

@@ -88,7 +88,8 @@ function VerifyResult({ result }: { result: VerifyResultDto }) {
       <Text testID="verify-message">{result.message}</Text>
       {result.package ? (
         <Text variant="small" tone="soft">
-          {result.package.device} · filing {result.package.filingId}, version {result.package.versionNumber} · {result.signed ? 'signed package' : result.package.kind === 'signed' ? 'signed package, altered' : 'DRAFT preview'}
+          {result.package.device} · filing {result.package.filingId}, version {result.package.versionNumber} ·{' '}
+          {result.signed ? 'signed package' : result.package.kind === 'signed' ? 'signed package, altered' : 'DRAFT preview'}
         </Text>
       ) : null}
       <Text variant="mono" selectable style={{ fontSize: 12 }}>

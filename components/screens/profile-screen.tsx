@@ -51,7 +51,16 @@ export function ProfileScreen() {
         <ChangePasswordForm email={user.email} name={user.name} />
       </Card>
       {logout.isError ? <Notice tone="error">{asProblem(logout.error).message}</Notice> : null}
-      <Button label="Sign out" icon="signOut" variant="secondary" busy={logout.isPending} busyLabel="Signing out…" onPress={() => logout.mutate()} testID="sign-out" style={{ alignSelf: 'flex-start' }} />
+      <Button
+        label="Sign out"
+        icon="signOut"
+        variant="secondary"
+        busy={logout.isPending}
+        busyLabel="Signing out…"
+        onPress={() => logout.mutate()}
+        testID="sign-out"
+        style={{ alignSelf: 'flex-start' }}
+      />
     </Screen>
   );
 }

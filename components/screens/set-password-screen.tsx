@@ -33,7 +33,11 @@ export function SetPasswordScreen() {
 
   let body: React.ReactNode;
   if (!token) {
-    body = <Notice tone="error" title="This link is incomplete">Open the link from your e-mail again, or ask for a new one.</Notice>;
+    body = (
+      <Notice tone="error" title="This link is incomplete">
+        Open the link from your e-mail again, or ask for a new one.
+      </Notice>
+    );
   } else if (owner.isPending) {
     body = <Loading label="Checking your link…" />;
   } else if (owner.isError) {

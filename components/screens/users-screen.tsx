@@ -38,7 +38,17 @@ function UsersList() {
         </Text>
         <InviteUserForm />
       </Card>
-      <Card title="Members" aside={users.data ? <Text variant="small" tone="muted">{summary}</Text> : null} testID="users-list">
+      <Card
+        title="Members"
+        aside={
+          users.data ? (
+            <Text variant="small" tone="muted">
+              {summary}
+            </Text>
+          ) : null
+        }
+        testID="users-list"
+      >
         {users.isPending ? (
           <Loading label="Loading people…" />
         ) : users.isError ? (

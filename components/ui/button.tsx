@@ -32,12 +32,7 @@ export function Button({ label, variant = 'primary', icon, busy, busyLabel, comp
       accessibilityLabel={label}
       accessibilityState={{ disabled: !!inactive, busy: !!busy }}
       disabled={inactive}
-      style={({ pressed }) => [
-        styles.base,
-        compact && styles.compact,
-        { backgroundColor: pressed ? l.bgPressed : l.bg, borderColor: l.border, opacity: disabled && !busy ? 0.5 : 1 },
-        style,
-      ]}
+      style={({ pressed }) => [styles.base, compact && styles.compact, { backgroundColor: pressed ? l.bgPressed : l.bg, borderColor: l.border, opacity: disabled && !busy ? 0.5 : 1 }, style]}
       {...rest}
     >
       <View style={styles.inner}>

@@ -59,7 +59,17 @@ export function Checkbox({
 const styles = StyleSheet.create({
   row: { flexDirection: 'row', alignItems: 'flex-start', gap: space.md, minHeight: layout.touchMinPx, paddingVertical: space.sm, paddingHorizontal: space.xs, borderRadius: radii.md },
   pressed: { backgroundColor: palette.paper },
-  box: { width: 20, height: 20, marginTop: 1, borderRadius: radii.sm, borderWidth: 1.5, borderColor: palette.inkMuted, backgroundColor: palette.surface, alignItems: 'center', justifyContent: 'center' },
+  box: {
+    width: 20,
+    height: 20,
+    marginTop: 1,
+    borderRadius: radii.sm,
+    borderWidth: 1.5,
+    borderColor: palette.inkMuted,
+    backgroundColor: palette.surface,
+    alignItems: 'center',
+    justifyContent: 'center',
+  },
   boxOn: { backgroundColor: palette.accent, borderColor: palette.accent },
   text: { flex: 1, gap: 1 },
 });

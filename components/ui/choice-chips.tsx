@@ -35,7 +35,10 @@ export function ChoiceChips<V extends string>({
   testID?: string;
 }) {
   const refs = useRef<(View | null)[]>([]);
-  const tabStop = Math.max(0, choices.findIndex((c) => c.value === value));
+  const tabStop = Math.max(
+    0,
+    choices.findIndex((c) => c.value === value),
+  );
   const move = (from: number, step: number) => {
     const to = (from + step + choices.length) % choices.length;
     onChange(choices[to]!.value);
@@ -83,9 +86,7 @@ export function ChoiceChips<V extends string>({
           );
         })}
       </View>
-      {error ? (
-        <FieldError message={error} testID={testID ? `${testID}-error` : undefined} />
-      ) : null}
+      {error ? <FieldError message={error} testID={testID ? `${testID}-error` : undefined} /> : null}
     </View>
   );
 }

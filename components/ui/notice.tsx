@@ -13,19 +13,7 @@ const look: Record<Tone, { icon: IconName; fg: string; bg: string; border: strin
   caution: { icon: 'warning', fg: palette.caution, bg: palette.cautionSoft, border: '#E5D3A6' },
 };
 
-export function Notice({
-  tone = 'info',
-  title,
-  children,
-  testID,
-  style,
-}: {
-  tone?: Tone;
-  title?: string;
-  children?: React.ReactNode;
-  testID?: string;
-  style?: StyleProp<ViewStyle>;
-}) {
+export function Notice({ tone = 'info', title, children, testID, style }: { tone?: Tone; title?: string; children?: React.ReactNode; testID?: string; style?: StyleProp<ViewStyle> }) {
   const l = look[tone];
   return (
     <View

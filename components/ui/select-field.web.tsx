@@ -32,9 +32,7 @@ export function SelectField({ label, hideLabel, options, value, onChange, placeh
         !known ? createElement('option', { value: value ?? '', disabled: true }, value ? `${value} (not in the list)` : placeholder) : null,
         ...options.map((o) => createElement('option', { key: o.value, value: o.value }, o.label)),
       )}
-      {error ? (
-        <FieldError message={error} testID={testID ? `${testID}-error` : undefined} />
-      ) : null}
+      {error ? <FieldError message={error} testID={testID ? `${testID}-error` : undefined} /> : null}
     </View>
   );
 }

@@ -9,7 +9,21 @@ import { Icon } from '../icons';
 import { Text } from './text';
 
 /** Without `onClose` the sheet cannot be dismissed (it waits for what it asks). */
-export function Sheet({ title, subtitle, visible, onClose, children, testID }: { title: string; subtitle?: string; visible: boolean; onClose?: () => void; children: React.ReactNode; testID?: string }) {
+export function Sheet({
+  title,
+  subtitle,
+  visible,
+  onClose,
+  children,
+  testID,
+}: {
+  title: string;
+  subtitle?: string;
+  visible: boolean;
+  onClose?: () => void;
+  children: React.ReactNode;
+  testID?: string;
+}) {
   const wide = useIsWide();
   return (
     <Modal visible={visible} transparent animationType={wide ? 'fade' : 'slide'} onRequestClose={onClose ?? (() => undefined)}>
@@ -28,9 +42,15 @@ export function Sheet({ title, subtitle, visible, onClose, children, testID }: {
               ) : null}
             </View>
             {onClose ? (
-            <Pressable onPress={onClose} accessibilityRole="button" accessibilityLabel="Close" testID={testID ? `${testID}-close` : undefined} style={({ pressed }) => [styles.close, pressed && { backgroundColor: palette.paperDeep }]}>
-              <Icon name="cross" size={20} />
-            </Pressable>
+              <Pressable
+                onPress={onClose}
+                accessibilityRole="button"
+                accessibilityLabel="Close"
+                testID={testID ? `${testID}-close` : undefined}
+                style={({ pressed }) => [styles.close, pressed && { backgroundColor: palette.paperDeep }]}
+              >
+                <Icon name="cross" size={20} />
+              </Pressable>
             ) : null}
           </View>
           <ScrollView contentContainerStyle={styles.body}>{children}</ScrollView>

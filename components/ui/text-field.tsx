@@ -5,11 +5,7 @@ import { InputBox, type InputBoxProps } from './input-box';
 export type TextFieldProps = InputBoxProps;
 export const TextField = InputBox;
 
-export function FormTextField<T extends FieldValues>({
-  control,
-  name,
-  ...field
-}: Omit<TextFieldProps, 'value' | 'onChangeText' | 'error'> & { control: Control<T>; name: FieldPath<T> }) {
+export function FormTextField<T extends FieldValues>({ control, name, ...field }: Omit<TextFieldProps, 'value' | 'onChangeText' | 'error'> & { control: Control<T>; name: FieldPath<T> }) {
   return (
     <Controller
       control={control}

@@ -89,7 +89,15 @@ export function InviteUserForm({ onInvited }: { onInvited?: (result: InviteResul
           </Notice>
         )
       ) : null}
-      <Button label="Send invitation" icon="outbox" busyLabel="Sending…" busy={formState.isSubmitting} onPress={onSubmit} testID="invite-submit" style={{ alignSelf: wide ? 'flex-start' : 'stretch' }} />
+      <Button
+        label="Send invitation"
+        icon="outbox"
+        busyLabel="Sending…"
+        busy={formState.isSubmitting}
+        onPress={onSubmit}
+        testID="invite-submit"
+        style={{ alignSelf: wide ? 'flex-start' : 'stretch' }}
+      />
     </View>
   );
 }

@@ -67,7 +67,16 @@ export function UserRow({ user, isSelf }: { user: UserDto; isSelf: boolean }) {
 
       {mode === 'view' ? (
         <View style={styles.actions}>
-          <Button label="Change roles" variant="secondary" compact onPress={() => { setRoles(user.roles); setMode('roles'); }} testID={`user-edit-roles-${slug}`} />
+          <Button
+            label="Change roles"
+            variant="secondary"
+            compact
+            onPress={() => {
+              setRoles(user.roles);
+              setMode('roles');
+            }}
+            testID={`user-edit-roles-${slug}`}
+          />
           {user.invitationPending && user.active ? (
             <Button label="Send invitation again" variant="quiet" compact busy={resend.isPending} onPress={() => resend.mutate(user.id)} testID={`user-resend-${slug}`} />
           ) : null}
@@ -82,7 +91,11 @@ export function UserRow({ user, isSelf }: { user: UserDto; isSelf: boolean }) {
       {mode === 'roles' ? (
         <View style={styles.panel}>
           <RolePicker value={roles} onChange={setRoles} error={rolesError} testIDPrefix={`user-role-${slug}`} disabledRoles={isSelf ? ['admin'] : []} />
-          {isSelf ? <Text variant="small" tone="muted">You cannot remove your own admin role; another admin can.</Text> : null}
+          {isSelf ? (
+            <Text variant="small" tone="muted">
+              You cannot remove your own admin role; another admin can.
+            </Text>
+          ) : null}
           <View style={styles.actions}>
             <Button label="Save roles" compact busy={update.isPending} onPress={saveRoles} testID={`user-save-roles-${slug}`} />
             <Button label="Cancel" variant="quiet" compact onPress={() => setMode('view')} />

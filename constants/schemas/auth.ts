@@ -13,10 +13,7 @@ export const zEmail = z
 
 export const zLogin = z.strictObject({
   email: zEmail,
-  password: z
-    .string({ error: 'Enter your password.' })
-    .min(1, 'Enter your password.')
-    .max(PASSWORD_MAX, `A password has at most ${PASSWORD_MAX} characters.`),
+  password: z.string({ error: 'Enter your password.' }).min(1, 'Enter your password.').max(PASSWORD_MAX, `A password has at most ${PASSWORD_MAX} characters.`),
 });
 export type LoginInput = z.input<typeof zLogin>;
 export type LoginOutput = z.output<typeof zLogin>;

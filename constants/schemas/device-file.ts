@@ -92,8 +92,7 @@ const text = (label: string, max = TEXT_MAX) =>
     .trim()
     .min(1, `Enter the ${label}.`)
     .max(max, `The ${label} has at most ${max} characters.`);
-const optionalText = (label: string, max = TEXT_MAX) =>
-  z.string().trim().max(max, `The ${label} has at most ${max} characters.`).default('');
+const optionalText = (label: string, max = TEXT_MAX) => z.string().trim().max(max, `The ${label} has at most ${max} characters.`).default('');
 
 export const zItemId = z
   .string({ error: 'Enter an id.' })
@@ -104,8 +103,7 @@ export const zItemId = z
 
 const finite = (label: string) => z.number({ error: `Enter the ${label} as a number.` }).refine(Number.isFinite, `The ${label} must be a finite number.`);
 
-const zSeparationM = (label: string) =>
-  finite(label).pipe(z.number().min(0, `A ${label} cannot be negative.`).max(SEPARATION_MAX_M, `A ${label} is at most ${SEPARATION_MAX_M} m.`));
+const zSeparationM = (label: string) => finite(label).pipe(z.number().min(0, `A ${label} cannot be negative.`).max(SEPARATION_MAX_M, `A ${label} is at most ${SEPARATION_MAX_M} m.`));
 
 /** Another model number the filing covers, and how it differs from the tested one. */
 export const zModelVariant = z.strictObject({
@@ -122,9 +120,7 @@ export const zModuleGrant = z
     fccProductCode: zProductCode,
     isedCompanyNumber: zIsedCompanyNumber,
     isedUpn: zIsedUpn,
-    minSeparationM: zSeparationM('minimum separation')
-      .optional()
-      .describe('The module grant’s minimum separation from the body, m; screening warns where a use position is closer.'),
+    minSeparationM: zSeparationM('minimum separation').optional().describe('The module grant’s minimum separation from the body, m; screening warns where a use position is closer.'),
     conditions: optionalText('grant conditions', 400).describe('Other conditions of the module’s grant, as the grant states them.'),
   })
   .superRefine((m, ctx) => {
@@ -188,19 +184,13 @@ export type Market = z.output<typeof zMarket>;
 
 export const zAntenna = z.strictObject({
   id: zItemId,
-  gainDbi: finite('antenna gain')
-    .pipe(z.number().min(GAIN_MIN_DBI, `Gain must be at least ${GAIN_MIN_DBI} dBi.`).max(GAIN_MAX_DBI, `Gain must be at most ${GAIN_MAX_DBI} dBi.`)),
+  gainDbi: finite('antenna gain').pipe(z.number().min(GAIN_MIN_DBI, `Gain must be at least ${GAIN_MIN_DBI} dBi.`).max(GAIN_MAX_DBI, `Gain must be at most ${GAIN_MAX_DBI} dBi.`)),
   location: optionalText('antenna location'),
 });
 export type Antenna = z.output<typeof zAntenna>;
 
 const zFrequencyHz = (label: string) =>
-  finite(label).pipe(
-    z
-      .number()
-      .min(FREQUENCY_MIN_HZ, `The ${label} must be at least 100 kHz (0.1 MHz).`)
-      .max(FREQUENCY_MAX_HZ, `The ${label} must be at most 300 GHz (300 000 MHz).`),
-  );
+  finite(label).pipe(z.number().min(FREQUENCY_MIN_HZ, `The ${label} must be at least 100 kHz (0.1 MHz).`).max(FREQUENCY_MAX_HZ, `The ${label} must be at most 300 GHz (300 000 MHz).`));
 
 const zPowerDbm = (label: string) =>
   finite(label).pipe(z.number().min(POWER_MIN_DBM, `The ${label} must be at least ${POWER_MIN_DBM} dBm.`).max(POWER_MAX_DBM, `The ${label} must be at most ${POWER_MAX_DBM} dBm.`));
@@ -252,11 +242,16 @@ export const zTransmitter = z
     if (hasTarget && hasTolerance) {
       const upper = t.tuneUpTargetDbm! + t.tuneUpToleranceDb!;
       if (Math.abs(upper - t.maxTuneUpPowerDbm) > TUNE_UP_MATCH_DB) {
-        ctx.addIssue({ code: 'custom', path: ['maxTuneUpPowerDbm'], message: `Target ${t.tuneUpTargetDbm} dBm + tolerance ${t.tuneUpToleranceDb} dB gives ${Number(upper.toFixed(2))} dBm: the maximum is that upper bound.` });
+        ctx.addIssue({
+          code: 'custom',
+          path: ['maxTuneUpPowerDbm'],
+          message: `Target ${t.tuneUpTargetDbm} dBm + tolerance ${t.tuneUpToleranceDb} dB gives ${Number(upper.toFixed(2))} dBm: the maximum is that upper bound.`,
+        });
       }
     }
     t.moreAntennaIds.forEach((a, j) => {
-      if (a === t.antennaId || t.moreAntennaIds.indexOf(a) !== j) ctx.addIssue({ code: 'custom', path: ['moreAntennaIds', j], message: `Antenna "${a}" is already one of this transmitter’s antennas.` });
+      if (a === t.antennaId || t.moreAntennaIds.indexOf(a) !== j)
+        ctx.addIssue({ code: 'custom', path: ['moreAntennaIds', j], message: `Antenna "${a}" is already one of this transmitter’s antennas.` });
     });
     const preset = t.dutyCyclePreset ? findDutyFactorPreset(t.dutyCyclePreset) : undefined;
     if (preset && Math.abs(preset.dutyCycle - t.dutyCycle) > 1e-6) {
@@ -278,7 +273,9 @@ export const zPowerMode = z.strictObject({
   ),
   trigger: z
     .enum(POWER_MODE_TRIGGERS, { error: 'Pick what triggers the reduction: hotspot back-off, proximity sensor or time-averaged SAR limit.' })
-    .describe('What holds the power down in this position: "hotspot-back-off" (hotspot mode on), "proximity-sensor" (a body within the sensor’s triggering distance) or "time-averaged-sar" (a time-averaged SAR algorithm’s power limit).'),
+    .describe(
+      'What holds the power down in this position: "hotspot-back-off" (hotspot mode on), "proximity-sensor" (a body within the sensor’s triggering distance) or "time-averaged-sar" (a time-averaged SAR algorithm’s power limit).',
+    ),
 });
 export type PowerMode = z.output<typeof zPowerMode>;
 

@@ -67,17 +67,50 @@ const IMAGES = [MEDIA.png, MEDIA.jpeg, MEDIA.heic, MEDIA.tiff] as const;
 export const EVIDENCE_CATEGORIES: readonly EvidenceCategory[] = [
   { id: 'test-report', label: 'RF-exposure test report', description: 'The lab’s SAR or MPE test report; a long report may come in several parts.', accepts: [MEDIA.pdf], multiple: true },
   { id: 'report-appendix', label: 'Report appendices', description: 'SAR plots, area and zoom scans, system-check plots that accompany the report.', accepts: [MEDIA.pdf, ...IMAGES], multiple: true },
-  { id: 'calibration-certificate', label: 'Calibration certificates', description: 'Probe, reference dipole and measurement electronics certificates, each with its calibration date.', accepts: [MEDIA.pdf], multiple: true, dateLabel: 'Calibration date' },
-  { id: 'check-records', label: 'Liquid and system check records', description: 'Tissue-simulating liquid measurements and system checks with their dates.', accepts: [MEDIA.pdf, MEDIA.xlsx, MEDIA.csv], multiple: true, dateLabel: 'Check date' },
+  {
+    id: 'calibration-certificate',
+    label: 'Calibration certificates',
+    description: 'Probe, reference dipole and measurement electronics certificates, each with its calibration date.',
+    accepts: [MEDIA.pdf],
+    multiple: true,
+    dateLabel: 'Calibration date',
+  },
+  {
+    id: 'check-records',
+    label: 'Liquid and system check records',
+    description: 'Tissue-simulating liquid measurements and system checks with their dates.',
+    accepts: [MEDIA.pdf, MEDIA.xlsx, MEDIA.csv],
+    multiple: true,
+    dateLabel: 'Check date',
+  },
   { id: 'setup-photos', label: 'Test setup photos', description: 'Photos of the device in each tested position.', accepts: [MEDIA.pdf, ...IMAGES], multiple: true },
   { id: 'antenna-drawing', label: 'Antenna location drawing', description: 'Where each antenna sits, with antenna-to-edge distances.', accepts: [MEDIA.pdf, MEDIA.png, MEDIA.jpeg], multiple: true },
   { id: 'tune-up-table', label: 'Tune-up power table', description: 'Declared maximum tune-up power and tolerance per mode and band.', accepts: [MEDIA.pdf, MEDIA.xlsx, MEDIA.csv], multiple: false },
   { id: 'user-manual', label: 'User-manual excerpt', description: 'The manual pages with the separation-distance and RF-exposure statements.', accepts: [MEDIA.pdf, MEDIA.docx], multiple: true },
-  { id: 'user-manual-bilingual', label: 'User-manual excerpt, English and French', description: 'The separation-distance and RF-exposure statements in English and French, as Canada asks.', accepts: [MEDIA.pdf, MEDIA.docx], multiple: true },
+  {
+    id: 'user-manual-bilingual',
+    label: 'User-manual excerpt, English and French',
+    description: 'The separation-distance and RF-exposure statements in English and French, as Canada asks.',
+    accepts: [MEDIA.pdf, MEDIA.docx],
+    multiple: true,
+  },
   { id: 'label-drawing', label: 'Label drawing', description: 'The product label artwork and where it sits on the device.', accepts: [MEDIA.pdf, MEDIA.png, MEDIA.jpeg], multiple: false },
   { id: 'applicant-declaration', label: 'Applicant declarations', description: 'Declarations and attestations signed by the applicant.', accepts: [MEDIA.pdf], multiple: true, dateLabel: 'Signed on' },
-  { id: 'exemption-analysis', label: 'Exemption analysis', description: 'Why every transmitter is exempt from testing; Fieldfile writes it from the screening.', accepts: [], multiple: false, writtenByFieldfile: true },
-  { id: 'other', label: 'Other supporting document', description: 'Anything else a reviewer may ask for.', accepts: [MEDIA.pdf, ...IMAGES, MEDIA.xlsx, MEDIA.docx, MEDIA.csv, MEDIA.text], multiple: true },
+  {
+    id: 'exemption-analysis',
+    label: 'Exemption analysis',
+    description: 'Why every transmitter is exempt from testing; Fieldfile writes it from the screening.',
+    accepts: [],
+    multiple: false,
+    writtenByFieldfile: true,
+  },
+  {
+    id: 'other',
+    label: 'Other supporting document',
+    description: 'Anything else a reviewer may ask for.',
+    accepts: [MEDIA.pdf, ...IMAGES, MEDIA.xlsx, MEDIA.docx, MEDIA.csv, MEDIA.text],
+    multiple: true,
+  },
 ];
 
 export const CATEGORY_BY_ID = Object.fromEntries(EVIDENCE_CATEGORIES.map((c) => [c.id, c])) as Record<EvidenceCategoryId, EvidenceCategory>;
@@ -92,10 +125,7 @@ export const DEFAULT_MAX_FILE_BYTES = 100 * 1024 * 1024;
 export const DEFAULT_MAX_FILING_BYTES = 2 * 1024 * 1024 * 1024;
 
 export const zEvidenceFields = z.strictObject({
-  category: z.enum(
-    UPLOADABLE_CATEGORIES.map((c) => c.id) as [EvidenceCategoryId, ...EvidenceCategoryId[]],
-    { error: `Pick a category: ${UPLOADABLE_CATEGORIES.map((c) => c.id).join(', ')}.` },
-  ),
+  category: z.enum(UPLOADABLE_CATEGORIES.map((c) => c.id) as [EvidenceCategoryId, ...EvidenceCategoryId[]], { error: `Pick a category: ${UPLOADABLE_CATEGORIES.map((c) => c.id).join(', ')}.` }),
   title: z.string().trim().max(EVIDENCE_TITLE_MAX, `Keep the title under ${EVIDENCE_TITLE_MAX} characters.`).optional(),
   note: z.string().trim().max(EVIDENCE_NOTE_MAX, `Keep the note under ${EVIDENCE_NOTE_MAX} characters.`).optional(),
   documentDate: z.iso.date({ error: 'Give the date as YYYY-MM-DD.' }).optional(),

@@ -3,19 +3,7 @@
  * file's parts, so a form and the file agree) and the shapes the API returns.
  */
 import { z } from 'zod';
-import {
-  MAX_ANTENNAS,
-  MAX_TRANSMITTERS,
-  MAX_USE_POSITIONS,
-  REGIMES,
-  deviceInfoSchema,
-  zAntenna,
-  zDeviceInfo,
-  zModuleGrant,
-  zMarket,
-  zTransmitter,
-  zUsePosition,
-} from './device-file';
+import { MAX_ANTENNAS, MAX_TRANSMITTERS, MAX_USE_POSITIONS, REGIMES, deviceInfoSchema, zAntenna, zDeviceInfo, zModuleGrant, zMarket, zTransmitter, zUsePosition } from './device-file';
 
 /** A version's life: draft → in review → returned (with comments) → in review → signed. */
 export const VERSION_STATES = ['draft', 'in-review', 'returned', 'signed'] as const;
@@ -103,15 +91,13 @@ export const zUsePositionsStep = z
 export type UsePositionsStep = z.output<typeof zUsePositionsStep>;
 export type UsePositionsStepInput = z.input<typeof zUsePositionsStep>;
 
-export const zMarketsStep = z
-  .strictObject({ markets: z.array(zMarket).max(REGIMES.length) })
-  .superRefine((v, ctx) => {
-    const seen = new Set<string>();
-    v.markets.forEach((m, i) => {
-      if (seen.has(m.regime)) ctx.addIssue({ code: 'custom', path: ['markets', i, 'regime'], message: `${m.regime} is listed twice.` });
-      seen.add(m.regime);
-    });
+export const zMarketsStep = z.strictObject({ markets: z.array(zMarket).max(REGIMES.length) }).superRefine((v, ctx) => {
+  const seen = new Set<string>();
+  v.markets.forEach((m, i) => {
+    if (seen.has(m.regime)) ctx.addIssue({ code: 'custom', path: ['markets', i, 'regime'], message: `${m.regime} is listed twice.` });
+    seen.add(m.regime);
   });
+});
 export type MarketsStep = z.output<typeof zMarketsStep>;
 
 export const STEP_SCHEMAS = {

@@ -76,11 +76,7 @@ export const zIsedCompanyNumber = codeField(isedCompanyNumberProblem, 'ISED comp
 export const zIsedUpn = codeField(isedUpnProblem, 'ISED unique product number (UPN), up to 11 letters and digits (RSP-100); "" when not stated.');
 
 /** The two halves of an identifier go together: one without the other is flagged on the empty one. */
-export function pairIssues(
-  v: { fccGranteeCode: string; fccProductCode: string; isedCompanyNumber: string; isedUpn: string },
-  ctx: z.RefinementCtx,
-  at: (string | number)[] = [],
-) {
+export function pairIssues(v: { fccGranteeCode: string; fccProductCode: string; isedCompanyNumber: string; isedUpn: string }, ctx: z.RefinementCtx, at: (string | number)[] = []) {
   if (v.fccGranteeCode && !v.fccProductCode) ctx.addIssue({ code: 'custom', path: [...at, 'fccProductCode'], message: 'Enter the product code that goes with the grantee code.' });
   if (!v.fccGranteeCode && v.fccProductCode) ctx.addIssue({ code: 'custom', path: [...at, 'fccGranteeCode'], message: 'Enter the grantee code that goes with the product code.' });
   if (v.isedCompanyNumber && !v.isedUpn) ctx.addIssue({ code: 'custom', path: [...at, 'isedUpn'], message: 'Enter the UPN that goes with the company number.' });

@@ -217,10 +217,7 @@ export const FIELD_DEFAULT_UNIT: Partial<Record<ImportField, string>> = {
 };
 
 /** A column mapping: for each field, the file's column header and the unit its values are in. */
-export const zImportMapping = z.partialRecord(
-  z.enum(IMPORT_FIELDS),
-  z.strictObject({ column: z.string().min(1).max(TEXT_MAX), unit: z.string().max(10).optional() }),
-);
+export const zImportMapping = z.partialRecord(z.enum(IMPORT_FIELDS), z.strictObject({ column: z.string().min(1).max(TEXT_MAX), unit: z.string().max(10).optional() }));
 export type ImportMapping = z.output<typeof zImportMapping>;
 
 export interface ImportProblem {

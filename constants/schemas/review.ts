@@ -34,11 +34,7 @@ export const SIGNING_STATEMENT =
 export const MAX_COMMENT_LENGTH = 4000;
 export const MAX_ROW_REF_LENGTH = 80;
 
-const body = z
-  .string({ error: 'Write a comment.' })
-  .trim()
-  .min(1, 'Write a comment.')
-  .max(MAX_COMMENT_LENGTH, `Keep a comment under ${MAX_COMMENT_LENGTH} characters.`);
+const body = z.string({ error: 'Write a comment.' }).trim().min(1, 'Write a comment.').max(MAX_COMMENT_LENGTH, `Keep a comment under ${MAX_COMMENT_LENGTH} characters.`);
 
 export const zNewThread = z.strictObject({
   step: z.string({ error: 'Say which step the comment is about.' }).trim().min(1, 'Say which step the comment is about.').max(40),

@@ -3,11 +3,7 @@ import { NAME_MAX } from './limits';
 import { zEmail } from './auth';
 import { zRole } from './roles';
 
-const zName = z
-  .string({ error: 'Enter a name.' })
-  .trim()
-  .min(1, 'Enter a name.')
-  .max(NAME_MAX, `A name has at most ${NAME_MAX} characters.`);
+const zName = z.string({ error: 'Enter a name.' }).trim().min(1, 'Enter a name.').max(NAME_MAX, `A name has at most ${NAME_MAX} characters.`);
 
 const zRoles = z
   .array(zRole, { error: 'Pick at least one role.' })

@@ -134,7 +134,8 @@ export function useVerifyZipMutation() {
       form.append('file', file, file.name ?? 'package.zip');
       const response = await fetch(`${API_BASE}/api/packages/verify`, { method: 'POST', body: form, credentials: 'include', headers: { Accept: 'application/json' } });
       const body = await response.json().catch(() => null);
-      if (!response.ok) throw new ApiProblem({ status: response.status, code: body?.error?.code ?? 'error', message: body?.error?.message ?? 'The zip could not be checked.', fields: body?.error?.fields });
+      if (!response.ok)
+        throw new ApiProblem({ status: response.status, code: body?.error?.code ?? 'error', message: body?.error?.message ?? 'The zip could not be checked.', fields: body?.error?.fields });
       return zVerifyResult.parse(body);
     },
   });

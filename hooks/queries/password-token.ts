@@ -34,15 +34,13 @@ export function usePasswordTokenQuery(token: string) {
 
 export function useSetPasswordMutation() {
   return useMutation({
-    mutationFn: (input: { token: string; password: string }) =>
-      apiOrThrow('/api/auth/set-password', { method: 'POST', body: input, schema: zPasswordSet }),
+    mutationFn: (input: { token: string; password: string }) => apiOrThrow('/api/auth/set-password', { method: 'POST', body: input, schema: zPasswordSet }),
   });
 }
 
 export function useAcceptInvitationMutation() {
   return useMutation({
-    mutationFn: (input: { token: string; password: string }) =>
-      apiOrThrow('/api/auth/accept-invitation', { method: 'POST', body: input, schema: zPasswordSet }),
+    mutationFn: (input: { token: string; password: string }) => apiOrThrow('/api/auth/accept-invitation', { method: 'POST', body: input, schema: zPasswordSet }),
   });
 }
 
@@ -59,7 +57,6 @@ const zPasswordChanged = z.object({ sessionsEnded: z.number() });
 
 export function useChangePasswordMutation() {
   return useMutation({
-    mutationFn: (input: { currentPassword: string; newPassword: string }) =>
-      apiOrThrow('/api/auth/change-password', { method: 'POST', body: input, schema: zPasswordChanged }),
+    mutationFn: (input: { currentPassword: string; newPassword: string }) => apiOrThrow('/api/auth/change-password', { method: 'POST', body: input, schema: zPasswordChanged }),
   });
 }

@@ -41,8 +41,7 @@ export function useInviteUserMutation() {
 export function useUpdateUserMutation() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: ({ id, changes }: { id: number; changes: UpdateUserInput }) =>
-      apiOrThrow(`/api/users/${id}`, { method: 'PATCH', body: changes, schema: zUserEnvelope }).then((d) => d.user),
+    mutationFn: ({ id, changes }: { id: number; changes: UpdateUserInput }) => apiOrThrow(`/api/users/${id}`, { method: 'PATCH', body: changes, schema: zUserEnvelope }).then((d) => d.user),
     onSuccess: () => {
       void queryClient.invalidateQueries({ queryKey: userKeys.all });
       void queryClient.invalidateQueries({ queryKey: auditKeys.all });

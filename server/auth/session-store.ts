@@ -12,10 +12,9 @@
 import session from 'express-session';
 import type Database from 'better-sqlite3';
 // eslint-disable-next-line @typescript-eslint/no-require-imports
-const makeStore = require('better-sqlite3-session-store') as (s: typeof session) => new (options: {
-  client: Database.Database;
-  expired?: { clear?: boolean; intervalMs?: number };
-}) => session.MemoryStore & { clearExpiredSessions(): void };
+const makeStore = require('better-sqlite3-session-store') as (
+  s: typeof session,
+) => new (options: { client: Database.Database; expired?: { clear?: boolean; intervalMs?: number } }) => session.MemoryStore & { clearExpiredSessions(): void };
 // (typed as MemoryStore only because it is a concrete Store class; the package implements
 // get/set/destroy/touch/all/length/clear on SQLite.)
 

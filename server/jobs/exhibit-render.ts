@@ -49,7 +49,11 @@ export function renderInChild(document: ExhibitDocument, model: ExhibitModel, pr
     };
     signal?.addEventListener('abort', abort, { once: true });
     child.on('message', (reply: RenderReply) =>
-      settle(() => (reply.ok ? resolve({ bytes: Buffer.from(reply.bytes.buffer, reply.bytes.byteOffset, reply.bytes.byteLength), maxRssMb: reply.maxRssMb }) : reject(new Error(`Rendering the exhibit ${document.toUpperCase()} failed: ${reply.error}`)))),
+      settle(() =>
+        reply.ok
+          ? resolve({ bytes: Buffer.from(reply.bytes.buffer, reply.bytes.byteOffset, reply.bytes.byteLength), maxRssMb: reply.maxRssMb })
+          : reject(new Error(`Rendering the exhibit ${document.toUpperCase()} failed: ${reply.error}`)),
+      ),
     );
     child.on('error', (err) => settle(() => reject(err)));
     child.on('exit', (code, sig) => settle(() => reject(new Error(`The exhibit ${document.toUpperCase()} renderer stopped (${sig ?? `exit ${code}`}).`))));

@@ -12,8 +12,7 @@ export const MAX_JSON_DEPTH = 32;
 
 const BODY_METHODS = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
 
-const hasBody = (headers: Record<string, string | string[] | undefined>) =>
-  headers['transfer-encoding'] !== undefined || Number(headers['content-length'] ?? 0) > 0;
+const hasBody = (headers: Record<string, string | string[] | undefined>) => headers['transfer-encoding'] !== undefined || Number(headers['content-length'] ?? 0) > 0;
 
 export const requireJsonBody: RequestHandler = (req, _res, next) => {
   if (!BODY_METHODS.has(req.method) || !hasBody(req.headers)) return next();
@@ -60,8 +59,6 @@ export function noteInvalidUtf8(req: object, _res: unknown, buf: Buffer): void {
 
 export const refuseMalformedJson: RequestHandler = (req, _res, next) => {
   if (req.body === undefined || !req.is('application/json')) return next();
-  const problem = (req as unknown as Record<symbol, boolean>)[INVALID_UTF8]
-    ? 'The body is not valid UTF-8 text; send it encoded as UTF-8.'
-    : findBodyProblem(req.body);
+  const problem = (req as unknown as Record<symbol, boolean>)[INVALID_UTF8] ? 'The body is not valid UTF-8 text; send it encoded as UTF-8.' : findBodyProblem(req.body);
   next(problem ? unprocessable(problem, { _: problem }) : undefined);
 };

@@ -25,12 +25,7 @@ export function listOrganisationAudit(db: Db, organisationId: number, limit: num
   const where: SQL[] = [eq(auditLog.organisationId, organisationId)];
   if (filters.filingId !== undefined) {
     const id = filters.filingId;
-    where.push(
-      or(
-        and(eq(auditLog.targetType, 'filing'), eq(auditLog.targetId, String(id))),
-        and(eq(auditLog.targetType, 'evidence'), sql`json_extract(${auditLog.details}, '$.filingId') = ${id}`),
-      )!,
-    );
+    where.push(or(and(eq(auditLog.targetType, 'filing'), eq(auditLog.targetId, String(id))), and(eq(auditLog.targetType, 'evidence'), sql`json_extract(${auditLog.details}, '$.filingId') = ${id}`))!);
   }
   if (filters.actorUserId !== undefined) where.push(eq(auditLog.actorUserId, filters.actorUserId));
   if (filters.actions) {

@@ -41,7 +41,13 @@ export function deleteEvidence(db: Db, id: number): void {
 
 /** How many records anywhere point to these bytes. */
 export function countBySha256(db: Db, sha256: string): number {
-  return db.select({ n: sql<number>`count(*)` }).from(evidenceFiles).where(eq(evidenceFiles.sha256, sha256)).get()?.n ?? 0;
+  return (
+    db
+      .select({ n: sql<number>`count(*)` })
+      .from(evidenceFiles)
+      .where(eq(evidenceFiles.sha256, sha256))
+      .get()?.n ?? 0
+  );
 }
 
 /** Bytes of the version's current evidence, each distinct content counted once. */
@@ -117,11 +123,13 @@ export function carryEvidenceForward(db: Db, fromVersionId: number, toVersionId:
   const explanations = db.select().from(evidenceExplanations).where(eq(evidenceExplanations.versionId, fromVersionId)).all();
   for (const old of current) {
     const { id, versionId: _v, replacesId: _r, replacedById: _b, carriedFromId: _c, ...rest } = old;
-    const copy = db.insert(evidenceFiles).values({ ...rest, versionId: toVersionId, carriedFromId: id }).returning({ id: evidenceFiles.id }).get();
+    const copy = db
+      .insert(evidenceFiles)
+      .values({ ...rest, versionId: toVersionId, carriedFromId: id })
+      .returning({ id: evidenceFiles.id })
+      .get();
     for (const e of explanations.filter((x) => x.evidenceId === id)) {
-      db.insert(evidenceExplanations)
-        .values({ versionId: toVersionId, evidenceId: copy.id, findingKey: e.findingKey, reason: e.reason, userId: e.userId, at: e.at })
-        .run();
+      db.insert(evidenceExplanations).values({ versionId: toVersionId, evidenceId: copy.id, findingKey: e.findingKey, reason: e.reason, userId: e.userId, at: e.at }).run();
     }
   }
   return current.length;

@@ -31,14 +31,16 @@ const summaryColumns = {
 };
 
 function summaryQuery(db: Db) {
-  return db
-    .select(summaryColumns)
-    .from(filings)
-    .innerJoin(filingVersions, and(eq(filingVersions.filingId, filings.id), eq(filingVersions.number, latestVersion)))
-    // Each version names its own device row (version N+1 gets a copy); older rows fall back to the filing's.
-    .innerJoin(devices, eq(devices.id, sql`coalesce(${filingVersions.deviceId}, ${filings.deviceId})`))
-    // The owner's name as the filing's organisation knows it.
-    .leftJoin(memberships, and(eq(memberships.userId, filings.ownerUserId), eq(memberships.organisationId, filings.organisationId)));
+  return (
+    db
+      .select(summaryColumns)
+      .from(filings)
+      .innerJoin(filingVersions, and(eq(filingVersions.filingId, filings.id), eq(filingVersions.number, latestVersion)))
+      // Each version names its own device row (version N+1 gets a copy); older rows fall back to the filing's.
+      .innerJoin(devices, eq(devices.id, sql`coalesce(${filingVersions.deviceId}, ${filings.deviceId})`))
+      // The owner's name as the filing's organisation knows it.
+      .leftJoin(memberships, and(eq(memberships.userId, filings.ownerUserId), eq(memberships.organisationId, filings.organisationId)))
+  );
 }
 
 export type FilingRow = NonNullable<ReturnType<typeof findFiling>>;
@@ -48,16 +50,9 @@ export function listFilings(db: Db, organisationId: number, q: string | undefine
   const where = and(
     eq(filings.organisationId, organisationId),
     includeArchived ? undefined : isNull(filings.archivedAt),
-    pattern
-      ? or(
-          sql`${devices.name} like ${pattern} escape '\\'`,
-          sql`${devices.model} like ${pattern} escape '\\'`,
-          sql`${devices.applicant} like ${pattern} escape '\\'`,
-        )
-      : undefined,
+    pattern ? or(sql`${devices.name} like ${pattern} escape '\\'`, sql`${devices.model} like ${pattern} escape '\\'`, sql`${devices.applicant} like ${pattern} escape '\\'`) : undefined,
   );
-  const order =
-    sort === 'name' ? [sql`${devices.name} collate nocase`, desc(filings.updatedAt)] : sort === 'state' ? [asc(filingVersions.state), desc(filings.updatedAt)] : [desc(filings.updatedAt)];
+  const order = sort === 'name' ? [sql`${devices.name} collate nocase`, desc(filings.updatedAt)] : sort === 'state' ? [asc(filingVersions.state), desc(filings.updatedAt)] : [desc(filings.updatedAt)];
   return summaryQuery(db)
     .where(where)
     .orderBy(...order)
@@ -89,7 +84,11 @@ function deviceColumns({ modules: _m, ...info }: DeviceInfo | DeviceStep) {
 }
 
 export function insertDevice(db: Db, organisationId: number, info: DeviceInfo) {
-  const device = db.insert(devices).values({ organisationId, ...deviceColumns(info) }).returning().get();
+  const device = db
+    .insert(devices)
+    .values({ organisationId, ...deviceColumns(info) })
+    .returning()
+    .get();
   writeModules(db, device.id, info.modules);
   return device;
 }
@@ -119,7 +118,11 @@ function writeModules(db: Db, deviceId: number, modules: DeviceStep['modules']) 
     db.update(transmitters).set({ moduleId: null }).where(inArray(transmitters.moduleId, match.removed)).run();
     db.delete(deviceModules).where(inArray(deviceModules.id, match.removed)).run();
   }
-  for (const id of match.kept) db.update(deviceModules).set({ key: parkedKey(id) }).where(eq(deviceModules.id, id)).run();
+  for (const id of match.kept)
+    db.update(deviceModules)
+      .set({ key: parkedKey(id) })
+      .where(eq(deviceModules.id, id))
+      .run();
   modules.forEach((m, sortOrder) => {
     const values = {
       key: m.id,
@@ -134,7 +137,10 @@ function writeModules(db: Db, deviceId: number, modules: DeviceStep['modules']) 
     };
     const id = match.rowOf.get(m);
     if (id) db.update(deviceModules).set(values).where(eq(deviceModules.id, id)).run();
-    else db.insert(deviceModules).values({ deviceId, ...values }).run();
+    else
+      db.insert(deviceModules)
+        .values({ deviceId, ...values })
+        .run();
   });
 }
 
@@ -165,7 +171,12 @@ export function readRadios(db: Db, versionId: number): RadiosStep {
     const links = db
       .select({ transmitterId: transmitterAntennas.transmitterId, antennaId: transmitterAntennas.antennaId })
       .from(transmitterAntennas)
-      .where(inArray(transmitterAntennas.transmitterId, txs.map((t) => t.id)))
+      .where(
+        inArray(
+          transmitterAntennas.transmitterId,
+          txs.map((t) => t.id),
+        ),
+      )
       .orderBy(asc(transmitterAntennas.sortOrder))
       .all();
     for (const l of links) more.set(l.transmitterId, [...(more.get(l.transmitterId) ?? []), keyById.get(l.antennaId)!]);
@@ -235,15 +246,31 @@ export function writeRadios(db: Db, versionId: number, radios: RadiosStep) {
   const ant = matchRows(oldAntennas, radios.antennas);
   const tx = matchRows(oldTxs, radios.transmitters);
   if (tx.removed.length) db.delete(transmitters).where(inArray(transmitters.id, tx.removed)).run();
-  for (const id of tx.kept) db.update(transmitters).set({ key: parkedKey(id) }).where(eq(transmitters.id, id)).run();
-  for (const id of ant.kept) db.update(antennas).set({ key: parkedKey(id) }).where(eq(antennas.id, id)).run();
+  for (const id of tx.kept)
+    db.update(transmitters)
+      .set({ key: parkedKey(id) })
+      .where(eq(transmitters.id, id))
+      .run();
+  for (const id of ant.kept)
+    db.update(antennas)
+      .set({ key: parkedKey(id) })
+      .where(eq(antennas.id, id))
+      .run();
 
   const antennaRow = new Map<string, number>();
   radios.antennas.forEach((a, sortOrder) => {
     const values = { key: a.id, gainDbi: a.gainDbi, location: a.location, sortOrder };
     const id = ant.rowOf.get(a);
     if (id) db.update(antennas).set(values).where(eq(antennas.id, id)).run();
-    antennaRow.set(a.id, id ?? db.insert(antennas).values({ versionId, ...values }).returning().get().id);
+    antennaRow.set(
+      a.id,
+      id ??
+        db
+          .insert(antennas)
+          .values({ versionId, ...values })
+          .returning()
+          .get().id,
+    );
   });
   const moduleRow = moduleIdsByKey(db, versionId);
   radios.transmitters.forEach((t, sortOrder) => {
@@ -261,7 +288,12 @@ export function writeRadios(db: Db, versionId: number, radios: RadiosStep) {
     if (id) {
       db.update(transmitters).set(values).where(eq(transmitters.id, id)).run();
       db.delete(transmitterAntennas).where(eq(transmitterAntennas.transmitterId, id)).run();
-    } else id = db.insert(transmitters).values({ versionId, ...values }).returning().get().id;
+    } else
+      id = db
+        .insert(transmitters)
+        .values({ versionId, ...values })
+        .returning()
+        .get().id;
     if (moreAntennaIds.length) {
       db.insert(transmitterAntennas)
         .values(moreAntennaIds.map((a, i) => ({ transmitterId: id, antennaId: antennaRow.get(a)!, sortOrder: i })))
@@ -275,12 +307,7 @@ export function writeRadios(db: Db, versionId: number, radios: RadiosStep) {
 /** A combination that lost members down to one transmitter is no combination any more. */
 function dropShrunkCombinations(db: Db, versionId: number) {
   db.delete(simultaneousGroups)
-    .where(
-      and(
-        eq(simultaneousGroups.versionId, versionId),
-        sql`(select count(*) from ${simultaneousGroupMembers} where ${simultaneousGroupMembers.groupId} = ${simultaneousGroups.id}) < 2`,
-      ),
-    )
+    .where(and(eq(simultaneousGroups.versionId, versionId), sql`(select count(*) from ${simultaneousGroupMembers} where ${simultaneousGroupMembers.groupId} = ${simultaneousGroups.id}) < 2`))
     .run();
 }
 
@@ -297,10 +324,20 @@ export function readUsePositions(db: Db, versionId: number): UsePositionsStep {
   const positions = db.select().from(usePositions).where(eq(usePositions.versionId, versionId)).orderBy(asc(usePositions.sortOrder)).all();
   const modes = positions.length
     ? db
-        .select({ usePositionId: usePositionPowerModes.usePositionId, transmitterKey: transmitters.key, reducedTuneUpPowerDbm: usePositionPowerModes.reducedTuneUpPowerDbm, trigger: usePositionPowerModes.trigger })
+        .select({
+          usePositionId: usePositionPowerModes.usePositionId,
+          transmitterKey: transmitters.key,
+          reducedTuneUpPowerDbm: usePositionPowerModes.reducedTuneUpPowerDbm,
+          trigger: usePositionPowerModes.trigger,
+        })
         .from(usePositionPowerModes)
         .innerJoin(transmitters, eq(transmitters.id, usePositionPowerModes.transmitterId))
-        .where(inArray(usePositionPowerModes.usePositionId, positions.map((p) => p.id)))
+        .where(
+          inArray(
+            usePositionPowerModes.usePositionId,
+            positions.map((p) => p.id),
+          ),
+        )
         .orderBy(asc(usePositionPowerModes.sortOrder))
         .all()
     : [];
@@ -309,7 +346,12 @@ export function readUsePositions(db: Db, versionId: number): UsePositionsStep {
         .select({ usePositionId: usePositionSeparations.usePositionId, antennaKey: antennas.key, separationM: usePositionSeparations.separationM, sortOrder: antennas.sortOrder })
         .from(usePositionSeparations)
         .innerJoin(antennas, eq(antennas.id, usePositionSeparations.antennaId))
-        .where(inArray(usePositionSeparations.usePositionId, positions.map((p) => p.id)))
+        .where(
+          inArray(
+            usePositionSeparations.usePositionId,
+            positions.map((p) => p.id),
+          ),
+        )
         .orderBy(asc(antennas.sortOrder))
         .all()
     : [];
@@ -337,7 +379,11 @@ export function writeUsePositions(db: Db, versionId: number, step: UsePositionsS
   const old = db.select({ id: usePositions.id, key: usePositions.key }).from(usePositions).where(eq(usePositions.versionId, versionId)).all();
   const match = matchRows(old, step.usePositions);
   if (match.removed.length) db.delete(usePositions).where(inArray(usePositions.id, match.removed)).run();
-  for (const id of match.kept) db.update(usePositions).set({ key: parkedKey(id) }).where(eq(usePositions.id, id)).run();
+  for (const id of match.kept)
+    db.update(usePositions)
+      .set({ key: parkedKey(id) })
+      .where(eq(usePositions.id, id))
+      .run();
   if (match.kept.length) {
     db.delete(usePositionSeparations).where(inArray(usePositionSeparations.usePositionId, match.kept)).run();
     db.delete(usePositionPowerModes).where(inArray(usePositionPowerModes.usePositionId, match.kept)).run();
@@ -347,7 +393,12 @@ export function writeUsePositions(db: Db, versionId: number, step: UsePositionsS
     const values = { key: p.id, kind: p.kind, sortOrder };
     let id = match.rowOf.get(p);
     if (id) db.update(usePositions).set(values).where(eq(usePositions.id, id)).run();
-    else id = db.insert(usePositions).values({ versionId, ...values }).returning().get().id;
+    else
+      id = db
+        .insert(usePositions)
+        .values({ versionId, ...values })
+        .returning()
+        .get().id;
     if (p.separations.length) {
       db.insert(usePositionSeparations)
         .values(p.separations.map((s) => ({ usePositionId: id, antennaId: antennaIds.get(s.antennaId)!, separationM: s.separationM })))
@@ -355,7 +406,9 @@ export function writeUsePositions(db: Db, versionId: number, step: UsePositionsS
     }
     if (p.powerModes?.length) {
       db.insert(usePositionPowerModes)
-        .values(p.powerModes.map((m, i) => ({ usePositionId: id, transmitterId: transmitterIds.get(m.transmitterId)!, reducedTuneUpPowerDbm: m.reducedTuneUpPowerDbm, trigger: m.trigger, sortOrder: i })))
+        .values(
+          p.powerModes.map((m, i) => ({ usePositionId: id, transmitterId: transmitterIds.get(m.transmitterId)!, reducedTuneUpPowerDbm: m.reducedTuneUpPowerDbm, trigger: m.trigger, sortOrder: i })),
+        )
         .run();
     }
   });

@@ -32,7 +32,11 @@ export function markFailed(db: Db, id: number, error: string) {
 
 /** Jobs left queued or running by a server that stopped: they failed. Returns how many. */
 export function failInterrupted(db: Db, error: string): number {
-  return db.update(jobs).set({ state: 'failed', error, finishedAt: now }).where(inArray(jobs.state, ['queued', 'running'])).run().changes;
+  return db
+    .update(jobs)
+    .set({ state: 'failed', error, finishedAt: now })
+    .where(inArray(jobs.state, ['queued', 'running']))
+    .run().changes;
 }
 
 /** The newest job of this kind whose payload has this key (e.g. the version being packaged). */

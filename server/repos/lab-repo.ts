@@ -86,7 +86,11 @@ function writeKeyed(db: Db, table: KeyedTable, versionId: number, rows: { id: st
   db.delete(table).where(eq(table.versionId, versionId)).run();
   insertChunked(
     rows.map(({ id, ...rest }, sortOrder) => ({ versionId, key: id, ...rest, sortOrder })),
-    (chunk) => db.insert(table).values(chunk as never).run(),
+    (chunk) =>
+      db
+        .insert(table)
+        .values(chunk as never)
+        .run(),
   );
 }
 

@@ -15,7 +15,11 @@ export function findVersion(db: Db, organisationId: number, filingId: number, nu
     .where(and(eq(filings.organisationId, organisationId), eq(filings.id, filingId), eq(filingVersions.number, number)))
     .get();
   if (!row) return undefined;
-  const latest = db.select({ n: max(filingVersions.number) }).from(filingVersions).where(eq(filingVersions.filingId, filingId)).get();
+  const latest = db
+    .select({ n: max(filingVersions.number) })
+    .from(filingVersions)
+    .where(eq(filingVersions.filingId, filingId))
+    .get();
   return { ...row, isLatest: latest?.n === number };
 }
 export type VersionRow = NonNullable<ReturnType<typeof findVersion>>;
@@ -39,7 +43,11 @@ export function findScreeningOutput(db: Db, versionId: number, inputSha256: stri
 export type PackageRow = typeof packages.$inferSelect;
 
 export function findPackage(db: Db, versionId: number, kind: 'signed' | 'preview'): PackageRow | undefined {
-  return db.select().from(packages).where(and(eq(packages.versionId, versionId), eq(packages.kind, kind))).get();
+  return db
+    .select()
+    .from(packages)
+    .where(and(eq(packages.versionId, versionId), eq(packages.kind, kind)))
+    .get();
 }
 
 /** Replaces the version's package of this kind; returns the row it replaced, if any. */
@@ -51,18 +59,24 @@ export function replacePackage(db: Db, row: Omit<typeof packages.$inferInsert, '
 
 /** Packages with this zip hash or manifest hash, with the filing and version they belong to. */
 export function findPackagesBy(db: Db, column: 'sha256' | 'manifestSha256', sha256: string) {
-  return db
-    .select({ pkg: packages, filingId: filings.id, organisationId: filings.organisationId, versionNumber: filingVersions.number, deviceName: devices.name, deviceModel: devices.model })
-    .from(packages)
-    .innerJoin(filingVersions, eq(filingVersions.id, packages.versionId))
-    .innerJoin(filings, eq(filings.id, filingVersions.filingId))
-    // The version's own device row (an older version keeps the name and model it was filed with).
-    .innerJoin(devices, eq(devices.id, sql`coalesce(${filingVersions.deviceId}, ${filings.deviceId})`))
-    .where(eq(packages[column], sha256))
-    .orderBy(desc(packages.id))
-    .all();
+  return (
+    db
+      .select({ pkg: packages, filingId: filings.id, organisationId: filings.organisationId, versionNumber: filingVersions.number, deviceName: devices.name, deviceModel: devices.model })
+      .from(packages)
+      .innerJoin(filingVersions, eq(filingVersions.id, packages.versionId))
+      .innerJoin(filings, eq(filings.id, filingVersions.filingId))
+      // The version's own device row (an older version keeps the name and model it was filed with).
+      .innerJoin(devices, eq(devices.id, sql`coalesce(${filingVersions.deviceId}, ${filings.deviceId})`))
+      .where(eq(packages[column], sha256))
+      .orderBy(desc(packages.id))
+      .all()
+  );
 }
 
 export function allStorageKeys(db: Db): string[] {
-  return db.select({ key: packages.storageKey }).from(packages).all().map((r) => r.key);
+  return db
+    .select({ key: packages.storageKey })
+    .from(packages)
+    .all()
+    .map((r) => r.key);
 }

@@ -4,20 +4,7 @@
  */
 import { and, asc, desc, eq, inArray, sql } from 'drizzle-orm';
 import type { Db } from '../../db/client';
-import {
-  auditLog,
-  deviceModules,
-  devices,
-  filings,
-  filingVersions,
-  membershipRoles,
-  memberships,
-  reviewComments,
-  reviewThreads,
-  users,
-  versionEditors,
-  versionSignatures,
-} from '../../db/schema';
+import { auditLog, deviceModules, devices, filings, filingVersions, membershipRoles, memberships, reviewComments, reviewThreads, users, versionEditors, versionSignatures } from '../../db/schema';
 import type { VersionState } from '../../constants/schemas/filings';
 
 export type VersionRow = typeof filingVersions.$inferSelect;
@@ -60,7 +47,10 @@ export function copyDevice(db: Db, deviceId: number) {
   const { id: _id, createdAt: _c, updatedAt: _u, ...rest } = findDevice(db, deviceId)!;
   const copy = db.insert(devices).values(rest).returning().get();
   const modules = db.select().from(deviceModules).where(eq(deviceModules.deviceId, deviceId)).all();
-  if (modules.length) db.insert(deviceModules).values(modules.map(({ id: _m, deviceId: _d, ...m }) => ({ ...m, deviceId: copy.id }))).run();
+  if (modules.length)
+    db.insert(deviceModules)
+      .values(modules.map(({ id: _m, deviceId: _d, ...m }) => ({ ...m, deviceId: copy.id })))
+      .run();
   return copy;
 }
 
@@ -160,11 +150,7 @@ export function membersWithRole(db: Db, organisationId: number, role: string) {
 
 export function usersByIds(db: Db, ids: number[]) {
   if (!ids.length) return [];
-  return db
-    .select({ id: users.id, name: users.name, email: users.email, active: users.active })
-    .from(users)
-    .where(inArray(users.id, ids))
-    .all();
+  return db.select({ id: users.id, name: users.name, email: users.email, active: users.active }).from(users).where(inArray(users.id, ids)).all();
 }
 
 export function passwordHashOf(db: Db, userId: number): string | null {

@@ -63,7 +63,10 @@ export function updateMembership(db: Db, membershipId: number, patch: { name?: s
 export function acceptPendingMemberships(db: Db, userId: number, organisationId: number | null): void {
   const where = [eq(memberships.userId, userId), isNull(memberships.acceptedAt)];
   if (organisationId !== null) where.push(eq(memberships.organisationId, organisationId));
-  db.update(memberships).set({ acceptedAt: nowIso() }).where(and(...where)).run();
+  db.update(memberships)
+    .set({ acceptedAt: nowIso() })
+    .where(and(...where))
+    .run();
 }
 
 /**
@@ -136,10 +139,7 @@ export function replaceRoles(db: Db, membershipId: number, roles: readonly Role[
   }
 }
 
-export function insertPasswordToken(
-  db: Db,
-  values: { userId: number; tokenSha256: string; purpose: PasswordTokenRow['purpose']; organisationId: number | null; expiresAt: string },
-): void {
+export function insertPasswordToken(db: Db, values: { userId: number; tokenSha256: string; purpose: PasswordTokenRow['purpose']; organisationId: number | null; expiresAt: string }): void {
   db.insert(passwordTokens).values(values).run();
 }
 
@@ -159,7 +159,10 @@ export function markPasswordTokenUsed(db: Db, id: number): void {
 export function retirePasswordTokens(db: Db, userId: number, purpose: PasswordTokenRow['purpose'], organisationId: number | null): void {
   const where = [eq(passwordTokens.userId, userId), eq(passwordTokens.purpose, purpose), isNull(passwordTokens.usedAt)];
   if (organisationId !== null) where.push(eq(passwordTokens.organisationId, organisationId));
-  db.update(passwordTokens).set({ usedAt: nowIso() }).where(and(...where)).run();
+  db.update(passwordTokens)
+    .set({ usedAt: nowIso() })
+    .where(and(...where))
+    .run();
 }
 
 /**

@@ -14,8 +14,7 @@ import { parseWith, validateBody } from '../middleware/validate';
 import { acceptInvitation, checkCredentials, DEAD_LINK_MESSAGE, describePasswordToken, recordSignInBlocked, setPasswordWithToken } from '../services/users-service';
 import { recordAudit } from '../services/audit';
 
-const loginAsync = (req: Request, user: Express.User) =>
-  new Promise<void>((resolve, reject) => req.login(user, (err) => (err ? reject(err) : resolve())));
+const loginAsync = (req: Request, user: Express.User) => new Promise<void>((resolve, reject) => req.login(user, (err) => (err ? reject(err) : resolve())));
 
 /**
  * `gate` is mounted before the session middleware: a sign-in refused by the guard (busy, too

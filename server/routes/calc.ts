@@ -29,7 +29,11 @@ export function calcRoutes({ calcPool }: AppContext): Router {
     }
     if ('timedOut' in outcome) {
       res.set('Retry-After', '30');
-      throw new HttpError(503, 'calc_time_limit', `The calculation ran longer than ${outcome.limitMs / 1000} s and was stopped. Split the input into smaller parts, or try again when the server is less busy.`);
+      throw new HttpError(
+        503,
+        'calc_time_limit',
+        `The calculation ran longer than ${outcome.limitMs / 1000} s and was stopped. Split the input into smaller parts, or try again when the server is less busy.`,
+      );
     }
     if ('tooLarge' in outcome) {
       throw new HttpError(413, 'result_too_large', `The result would be ${mb(outcome.tooLarge)}, more than the ${mb(MAX_CALC_RESULT_BYTES)} an answer may carry. Split the input into smaller parts.`);

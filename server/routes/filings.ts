@@ -23,7 +23,11 @@ const actorOf = (user: Express.User): filingsService.FilingActor => ({ id: user.
 /** Assembled filing answers kept at once, in characters of JSON (a filing's answer is tens of KB). */
 const FILING_ANSWER_CACHE_CHARS = 32 * 1024 * 1024;
 
-const slug = (s: string) => s.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'device';
+const slug = (s: string) =>
+  s
+    .toLowerCase()
+    .replace(/[^a-z0-9]+/g, '-')
+    .replace(/^-|-$/g, '') || 'device';
 
 export function filingRoutes({ db, readCaches }: AppContext): Router {
   const router = Router();
@@ -79,10 +83,13 @@ export function filingRoutes({ db, readCaches }: AppContext): Router {
       return;
     }
     if ('stale' in result) {
-      res.status(409).set('ETag', `"${result.current.revision}"`).json({
-        error: { code: 'stale_step', message: 'Someone saved this step after you opened it; nothing of yours was saved. Load their version or keep yours.' },
-        current: result.current,
-      });
+      res
+        .status(409)
+        .set('ETag', `"${result.current.revision}"`)
+        .json({
+          error: { code: 'stale_step', message: 'Someone saved this step after you opened it; nothing of yours was saved. Load their version or keep yours.' },
+          current: result.current,
+        });
       return;
     }
     res.status(422).json({

@@ -29,7 +29,13 @@ export function labRoutes({ db, config }: AppContext): Router {
       if (!err) return next();
       if (err instanceof multer.MulterError) {
         if (err.code === 'LIMIT_FILE_SIZE') {
-          return next(new HttpError(413, 'too_large', `The file is larger than the ${Math.round(config.importMaxBytes / 1024 / 1024)} MB import limit; split it or ask your admin to raise FIELDFILE_IMPORT_MAX_BYTES.`));
+          return next(
+            new HttpError(
+              413,
+              'too_large',
+              `The file is larger than the ${Math.round(config.importMaxBytes / 1024 / 1024)} MB import limit; split it or ask your admin to raise FIELDFILE_IMPORT_MAX_BYTES.`,
+            ),
+          );
         }
         return next(new HttpError(400, 'bad_request', `The upload is not valid (${err.message}); send one file in the “file” field.`));
       }

@@ -18,7 +18,13 @@ import type { JobStatus } from '../jobs/queue';
 const zId = z.coerce.number({ error: 'The filing id must be a number.' }).int().positive();
 const zVersion = z.coerce.number({ error: 'The version must be a number.' }).int().positive();
 const zJobId = z.coerce.number({ error: 'The job id must be a number.' }).int().positive();
-const zHashBody = z.strictObject({ sha256: z.string().trim().toLowerCase().regex(/^[0-9a-f]{64}$/, 'Give the SHA-256 as 64 hexadecimal characters.') });
+const zHashBody = z.strictObject({
+  sha256: z
+    .string()
+    .trim()
+    .toLowerCase()
+    .regex(/^[0-9a-f]{64}$/, 'Give the SHA-256 as 64 hexadecimal characters.'),
+});
 const HEARTBEAT_MS = 15_000;
 
 const actorOf = (user: Express.User): service.PackageActor => ({ id: user.id, organisationId: user.organisation.id, roles: user.roles });

@@ -73,16 +73,19 @@ const ROW_IDENTITY_FIELDS = new Set(['id', 'rowId']);
 
 function flatten(v: VersionData): Flat {
   const out: Flat = new Map();
-  const put = (step: string, key: string, label: string, field: string, value: unknown) => out.set(`${step}|${key}|${field}`, { step, label: `${label} · ${FIELD_WORDS[field] ?? field}`, value: show(field, value) });
+  const put = (step: string, key: string, label: string, field: string, value: unknown) =>
+    out.set(`${step}|${key}|${field}`, { step, label: `${label} · ${FIELD_WORDS[field] ?? field}`, value: show(field, value) });
   const items = (step: string, kind: string, list: { id: string }[]) => {
-    for (const item of list) for (const [field, value] of Object.entries(item)) if (!ROW_IDENTITY_FIELDS.has(field) && typeof value !== 'object') put(step, `${kind}:${item.id}`, `${kind} ${item.id}`, field, value);
+    for (const item of list)
+      for (const [field, value] of Object.entries(item)) if (!ROW_IDENTITY_FIELDS.has(field) && typeof value !== 'object') put(step, `${kind}:${item.id}`, `${kind} ${item.id}`, field, value);
   };
   for (const [field, value] of Object.entries(v.data.device)) if (!ROW_IDENTITY_FIELDS.has(field)) put('device', 'device', 'Device', field, value);
   items('radios', 'Antenna', v.data.radios.antennas);
   items('radios', 'Transmitter', v.data.radios.transmitters);
   items('use-positions', 'Use position', v.data['use-positions'].usePositions);
   for (const p of v.data['use-positions'].usePositions)
-    for (const s of p.separations) out.set(`use-positions|${p.id}|sep:${s.antennaId}`, { step: 'use-positions', label: `Use position ${p.id} · separation to ${s.antennaId}`, value: show('separationM', s.separationM) });
+    for (const s of p.separations)
+      out.set(`use-positions|${p.id}|sep:${s.antennaId}`, { step: 'use-positions', label: `Use position ${p.id} · separation to ${s.antennaId}`, value: show('separationM', s.separationM) });
   items(
     'markets',
     'Market',

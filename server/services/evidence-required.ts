@@ -62,11 +62,7 @@ export function requiredEvidenceRules(f: EvidenceFacts): RequiredRule[] {
 }
 
 /** The rules with what is present: uploaded categories count; Fieldfile's own exhibits always do. */
-export function requiredEvidence(
-  f: EvidenceFacts,
-  present: readonly { id: number; category: EvidenceCategoryId }[],
-  writtenByFieldfile: (c: EvidenceCategoryId) => boolean,
-): RequiredCategory[] {
+export function requiredEvidence(f: EvidenceFacts, present: readonly { id: number; category: EvidenceCategoryId }[], writtenByFieldfile: (c: EvidenceCategoryId) => boolean): RequiredCategory[] {
   return requiredEvidenceRules(f).map((r) => {
     const evidenceIds = present.filter((p) => p.category === r.category).map((p) => p.id);
     const own = writtenByFieldfile(r.category);

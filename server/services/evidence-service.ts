@@ -63,7 +63,10 @@ export function requireEvidenceEditable(db: Db, actor: FilingActor, filingId: nu
  */
 export function safeDisplayName(raw: string | undefined, max = 200): string {
   let name = (raw ?? '').split(/[/\\]/).pop() ?? '';
-  name = name.replace(/[\u0000-\u001f\u007f-\u009f\u200e\u200f\u202a-\u202e\u2066-\u2069]/g, '').replace(/\s+/g, ' ').trim();
+  name = name
+    .replace(/[\u0000-\u001f\u007f-\u009f\u200e\u200f\u202a-\u202e\u2066-\u2069]/g, '')
+    .replace(/\s+/g, ' ')
+    .trim();
   name = name.replace(/^\.+/, '');
   if (!name) return 'file';
   if ([...name].length <= max) return name;
@@ -78,14 +81,16 @@ export async function sniffMediaType(storage: ByteStorage, stored: StoredObject,
   const sniffed = await fileTypeFromStream((await storage.get(stored.sha256)) as unknown as Parameters<typeof fileTypeFromStream>[0]);
   if (sniffed) return { mime: sniffed.mime, label: MEDIA_LABELS[sniffed.mime as MediaType] ?? `a .${sniffed.ext} file` };
   const head = stored.head.subarray(0, Math.max(0, stored.head.length - 4));
-  const isText = !head.includes(0) && (() => {
-    try {
-      new TextDecoder('utf-8', { fatal: true }).decode(head);
-      return true;
-    } catch {
-      return false;
-    }
-  })();
+  const isText =
+    !head.includes(0) &&
+    (() => {
+      try {
+        new TextDecoder('utf-8', { fatal: true }).decode(head);
+        return true;
+      } catch {
+        return false;
+      }
+    })();
   if (isText && stored.sizeBytes > 0) {
     const mime = /\.csv$/i.test(fileName) ? MEDIA.csv : MEDIA.text;
     return { mime, label: MEDIA_LABELS[mime] };
@@ -114,9 +119,7 @@ export async function recordUpload(db: Db, storage: ByteStorage, config: Config,
     const fileName = safeDisplayName(input.originalName);
     const sniffed = await sniffMediaType(storage, stored, fileName);
     if (!category.accepts.includes(sniffed.mime as MediaType)) {
-      throw unsupportedType(
-        `“${fileName}” is ${sniffed.label} (${sniffed.mime}) by its content; ${category.label} takes ${category.accepts.map((m) => MEDIA_LABELS[m]).join(', ')}.`,
-      );
+      throw unsupportedType(`“${fileName}” is ${sniffed.label} (${sniffed.mime}) by its content; ${category.label} takes ${category.accepts.map((m) => MEDIA_LABELS[m]).join(', ')}.`);
     }
     if (stored.sizeBytes === 0) throw unprocessable('The file is empty.');
     const current = repo.listEvidence(db, versionId).filter((r) => r.row.replacedById === null);
@@ -220,7 +223,14 @@ function findings(db: Db, row: filingsRepo.FilingRow, records: EvidenceRecord[])
   const { data } = v;
   const lab = versionLabResults(db, row.version.id, labDeviceDataOf(v), { screening: screenVersion(v), screeningKey: screeningKeyOf(v) });
   const numbers = filingNumbersOf(data.device.model, data.radios.transmitters, data['use-positions'].usePositions, lab?.results?.highest ?? []);
-  const report = versionReadBack(db, row.version.id, records, numbers, data.radios.antennas.map((a) => a.id)).report ?? [];
+  const report =
+    versionReadBack(
+      db,
+      row.version.id,
+      records,
+      numbers,
+      data.radios.antennas.map((a) => a.id),
+    ).report ?? [];
   return report.map(({ tuneUp: _t, title: _title, ...f }) => f);
 }
 
@@ -247,7 +257,14 @@ export async function openEvidenceFile(db: Db, storage: ByteStorage, actor: Fili
   const row = repo.findEvidenceInFiling(db, filingId, evidenceId);
   if (!row) throw notFound('No such evidence in this filing.');
   const stream: Readable = await storage.get(row.sha256);
-  recordAudit(db, { organisationId: actor.organisationId, actorUserId: actor.id, action: 'evidence.download', targetType: 'evidence', targetId: row.id, details: { filingId, fileName: row.fileName, sha256: row.sha256 } });
+  recordAudit(db, {
+    organisationId: actor.organisationId,
+    actorUserId: actor.id,
+    action: 'evidence.download',
+    targetType: 'evidence',
+    targetId: row.id,
+    details: { filingId, fileName: row.fileName, sha256: row.sha256 },
+  });
   return { row, stream };
 }
 
@@ -258,7 +275,14 @@ export async function removeEvidence(db: Db, storage: ByteStorage, actor: Filing
   db.transaction((tx) => {
     repo.deleteEvidence(tx, row.id);
     filingsRepo.touchFiling(tx, filingId);
-    recordAudit(tx, { organisationId: actor.organisationId, actorUserId: actor.id, action: 'evidence.delete', targetType: 'evidence', targetId: row.id, details: { filingId, version: filing.version.number, category: row.category, fileName: row.fileName, sha256: row.sha256 } });
+    recordAudit(tx, {
+      organisationId: actor.organisationId,
+      actorUserId: actor.id,
+      action: 'evidence.delete',
+      targetType: 'evidence',
+      targetId: row.id,
+      details: { filingId, version: filing.version.number, category: row.category, fileName: row.fileName, sha256: row.sha256 },
+    });
   });
   await discardIfUnreferenced(db, storage, row.sha256);
 }
@@ -270,7 +294,14 @@ export function explainFinding(db: Db, config: Config, actor: FilingActor, filin
   if (!finding) throw notFound('No such read-back finding on this evidence.');
   db.transaction((tx) => {
     repo.upsertExplanation(tx, { versionId: filing.version.id, evidenceId, findingKey, reason, userId: actor.id });
-    recordAudit(tx, { organisationId: actor.organisationId, actorUserId: actor.id, action: 'evidence.finding-explain', targetType: 'evidence', targetId: evidenceId, details: { filingId, findingKey, reason } });
+    recordAudit(tx, {
+      organisationId: actor.organisationId,
+      actorUserId: actor.id,
+      action: 'evidence.finding-explain',
+      targetType: 'evidence',
+      targetId: evidenceId,
+      details: { filingId, findingKey, reason },
+    });
   });
   return listEvidence(db, config, actor, filingId);
 }

@@ -33,7 +33,11 @@ function threshold(row: ScreeningRow): { threshold: number | null; thresholdUnit
   return { threshold: null, thresholdUnit: null };
 }
 
-const categorySlug = (s: string) => s.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'other';
+const categorySlug = (s: string) =>
+  s
+    .toLowerCase()
+    .replace(/[^a-z0-9]+/g, '-')
+    .replace(/^-|-$/g, '') || 'other';
 
 /** Evidence paths inside the zip: evidence/<category id>/<file>, unique, in a fixed order. */
 export function evidencePaths(items: PackageEvidence[]): string[] {
@@ -178,7 +182,16 @@ export function assembleExhibit(db: Db, organisationId: number, filingId: number
     lab: lab?.lab ?? null,
     readiness: readinessSection(db, version.version, version.filing.deviceId, signed, documentDate),
     signature,
-    evidence: evidence.map((e) => ({ categoryId: e.categoryId, category: e.category, title: e.title, path: e.path, fileName: e.fileName, sizeBytes: e.sizeBytes, sha256: e.sha256, uploadedAt: e.uploadedAt })),
+    evidence: evidence.map((e) => ({
+      categoryId: e.categoryId,
+      category: e.category,
+      title: e.title,
+      path: e.path,
+      fileName: e.fileName,
+      sizeBytes: e.sizeBytes,
+      sha256: e.sha256,
+      uploadedAt: e.uploadedAt,
+    })),
     appendix,
     cautions: [...CAUTIONS, ...SCREENING_CAUTIONS],
   };

@@ -165,7 +165,14 @@ export function labSection(db: Db, versionId: number, data: LabVersionData, scre
           expandedPercent: u.expandedPct,
           coverageFactor: u.coverageFactor,
           limitPercent: u.limitPct,
-          components: labData.components.map((c) => ({ name: c.name, valuePercent: c.valuePct, distribution: c.distribution, divisor: c.divisor, sensitivity: c.sensitivity, degreesOfFreedom: c.degreesOfFreedom })),
+          components: labData.components.map((c) => ({
+            name: c.name,
+            valuePercent: c.valuePct,
+            distribution: c.distribution,
+            divisor: c.divisor,
+            sensitivity: c.sensitivity,
+            degreesOfFreedom: c.degreesOfFreedom,
+          })),
           appendixRef: u.derivation ? entry('U1', 'Combined and expanded measurement uncertainty', u.derivation) : null,
         }
       : null;

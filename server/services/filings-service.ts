@@ -73,7 +73,10 @@ function toSummary(row: repo.FilingRow, markets: string[]): FilingSummary {
 
 export function listFilings(db: Db, actor: FilingActor, q: string | undefined, sort: 'updated' | 'name' | 'state', includeArchived = false): FilingSummary[] {
   const rows = repo.listFilings(db, actor.organisationId, q, sort, includeArchived);
-  const markets = repo.marketsByVersion(db, rows.map((r) => r.version.id));
+  const markets = repo.marketsByVersion(
+    db,
+    rows.map((r) => r.version.id),
+  );
   return rows.map((r) => toSummary(r, markets.get(r.version.id) ?? []));
 }
 
@@ -146,7 +149,8 @@ export function stepStatuses(data: FilingDetail['data'], draftSteps: Set<DataSte
     for (const m of p.powerModes ?? []) {
       // A later Radios save can lower the maximum under a stored reduction: say so here (screening leaves it out).
       const max = data.radios.transmitters.find((t) => t.id === m.transmitterId)?.maxTuneUpPowerDbm;
-      if (max !== undefined && m.reducedTuneUpPowerDbm >= max) positions.push(`“${p.id}”: the reduced power of ${m.transmitterId} (${m.reducedTuneUpPowerDbm} dBm) is not below its maximum tune-up power (${max} dBm).`);
+      if (max !== undefined && m.reducedTuneUpPowerDbm >= max)
+        positions.push(`“${p.id}”: the reduced power of ${m.transmitterId} (${m.reducedTuneUpPowerDbm} dBm) is not below its maximum tune-up power (${max} dBm).`);
     }
   }
   const markets: string[] = data.markets.markets.length ? [] : ['Pick at least one market.'];
@@ -208,7 +212,14 @@ export function createFiling(db: Db, actor: FilingActor, input: DeviceFileInput[
     const dev = repo.insertDevice(tx, actor.organisationId, device);
     const { filing, version } = repo.insertFiling(tx, actor.organisationId, dev.id, actor.id);
     addVersionEditor(tx, version.id, actor.id);
-    recordAudit(tx, { organisationId: actor.organisationId, actorUserId: actor.id, action: 'filing.create', targetType: 'filing', targetId: filing.id, details: { device: device.name, model: device.model } });
+    recordAudit(tx, {
+      organisationId: actor.organisationId,
+      actorUserId: actor.id,
+      action: 'filing.create',
+      targetType: 'filing',
+      targetId: filing.id,
+      details: { device: device.name, model: device.model },
+    });
     return filing.id;
   });
   return getFiling(db, actor, id);
@@ -322,9 +333,7 @@ export function saveStep(db: Db, actor: FilingActor, filingId: number, step: Dat
     // A reduced power names a transmitter under Radios and stays below its maximum.
     const maxDbmOf = new Map(repo.readRadios(db, versionId).transmitters.map((t) => [t.id as string | undefined, t.maxTuneUpPowerDbm as number | undefined]));
     const addIssue = ({ path, message }: { path: (string | number)[]; message: string }) => void (fields[path.join('.')] ??= message);
-    (parsed.data as UsePositionsStep).usePositions.forEach((p, i) =>
-      powerModeIssues(p.powerModes ?? [], maxDbmOf, ['usePositions', i], { addIssue }, (id) => `No transmitter “${id}” under Radios.`),
-    );
+    (parsed.data as UsePositionsStep).usePositions.forEach((p, i) => powerModeIssues(p.powerModes ?? [], maxDbmOf, ['usePositions', i], { addIssue }, (id) => `No transmitter “${id}” under Radios.`));
   }
   if (!parsed.success || Object.keys(fields).length) {
     const draftSavedAt = db.transaction((tx) => {
@@ -345,7 +354,14 @@ export function saveStep(db: Db, actor: FilingActor, filingId: number, step: Dat
       if (step === 'markets') repo.writeMarkets(tx, versionId, data);
       repo.touchFiling(tx, filingId);
       addVersionEditor(tx, versionId, actor.id);
-      recordAudit(tx, { organisationId: actor.organisationId, actorUserId: actor.id, action: 'filing.step-save', targetType: 'filing', targetId: filingId, details: { step, version: row.version.number } });
+      recordAudit(tx, {
+        organisationId: actor.organisationId,
+        actorUserId: actor.id,
+        action: 'filing.step-save',
+        targetType: 'filing',
+        targetId: filingId,
+        details: { step, version: row.version.number },
+      });
     }
     repo.clearDraft(tx, versionId, step);
   });

@@ -126,7 +126,10 @@ async function readXlsx(buffer: Buffer): Promise<Table> {
 }
 
 const normal = (s: string) => s.toLowerCase().replace(/[^a-z0-9]/g, '');
-const headerSha = (headers: string[]) => createHash('sha256').update(headers.map((h) => h.trim().toLowerCase()).join('\t')).digest('hex');
+const headerSha = (headers: string[]) =>
+  createHash('sha256')
+    .update(headers.map((h) => h.trim().toLowerCase()).join('\t'))
+    .digest('hex');
 
 /** Fields whose canonical header is present, with the default unit. */
 function headerMapping(headers: string[]): ImportMapping {
@@ -245,7 +248,14 @@ const KEY_OF_FIELD = Object.fromEntries(Object.entries(FIELD_OF_PATH).map(([k, f
  * Parses, maps and validates a file. Throws 415 for a file that is not CSV/XLSX, 422 for one that
  * cannot be read at all; otherwise returns the preview with every problem.
  */
-export async function previewImport(db: Db, actor: FilingActor, filingId: number, buffer: Buffer, given: unknown, dryRun: boolean): Promise<{ preview: ImportPreview; measurements: Measurement[]; headerSha256: string; versionId: number }> {
+export async function previewImport(
+  db: Db,
+  actor: FilingActor,
+  filingId: number,
+  buffer: Buffer,
+  given: unknown,
+  dryRun: boolean,
+): Promise<{ preview: ImportPreview; measurements: Measurement[]; headerSha256: string; versionId: number }> {
   requireEngineer(actor);
   const row = loadFiling(db, actor, filingId);
   requireEditable(row);
@@ -327,7 +337,8 @@ export async function previewImport(db: Db, actor: FilingActor, filingId: number
     const seen = new Map<string, number>();
     measurements.forEach((m, i) => {
       const prev = seen.get(m.id);
-      if (prev !== undefined) problems.push({ line: lineOfRow[i], column: mapping.measurement_id?.column ?? null, field: 'measurement_id', message: `Measurement id “${m.id}” is also on line ${prev}.` });
+      if (prev !== undefined)
+        problems.push({ line: lineOfRow[i], column: mapping.measurement_id?.column ?? null, field: 'measurement_id', message: `Measurement id “${m.id}” is also on line ${prev}.` });
       seen.set(m.id, lineOfRow[i]);
     });
     const ref = measurementReferenceProblems(measurements, knownIds(db, row.version.id), (i, f) => `${i}|${f}`);
@@ -379,7 +390,14 @@ export async function importMeasurements(db: Db, actor: FilingActor, filingId: n
     repo.writeMeasurements(tx, versionId, measurements);
     repo.saveImportMapping(tx, actor.organisationId, headerSha256, preview.mapping);
     filingsRepo.touchFiling(tx, filingId);
-    recordAudit(tx, { organisationId: actor.organisationId, actorUserId: actor.id, action: 'lab.measurements.import', targetType: 'filing', targetId: filingId, details: { rows: measurements.length, format: preview.format } });
+    recordAudit(tx, {
+      organisationId: actor.organisationId,
+      actorUserId: actor.id,
+      action: 'lab.measurements.import',
+      targetType: 'filing',
+      targetId: filingId,
+      details: { rows: measurements.length, format: preview.format },
+    });
   });
   return { ...preview, imported: measurements.length };
 }

@@ -44,8 +44,7 @@ export interface VersionLabResults {
   stored: number;
 }
 
-export const hasLabData = (lab: LabData) =>
-  lab.measurements.length + lab.liquidChecks.length + lab.systemChecks.length + lab.instruments.length + lab.components.length > 0;
+export const hasLabData = (lab: LabData) => lab.measurements.length + lab.liquidChecks.length + lab.systemChecks.length + lab.instruments.length + lab.components.length > 0;
 
 /** Forgets every cached result (tests and benchmarks time a cold computation with it). */
 export function clearLabResultsCache(): void {

@@ -62,8 +62,10 @@ export function measurementReferenceProblems(
   rows.forEach((m, i) => {
     if (!known.transmitters.has(m.transmitterId)) fields[pathOf(i, 'transmitterId')] = `Unknown transmitter “${m.transmitterId}”; this filing has ${list(known.transmitters)}.`;
     if (!known.usePositions.has(m.usePositionId)) fields[pathOf(i, 'usePositionId')] = `Unknown use position “${m.usePositionId}”; this filing has ${list(known.usePositions)}.`;
-    if (m.liquidCheckId !== null && !known.liquidChecks.has(m.liquidCheckId)) fields[pathOf(i, 'liquidCheckId')] = `Unknown liquid check “${m.liquidCheckId}”; enter it under liquid checks first (${list(known.liquidChecks)}).`;
-    if (m.systemCheckId !== null && !known.systemChecks.has(m.systemCheckId)) fields[pathOf(i, 'systemCheckId')] = `Unknown system check “${m.systemCheckId}”; enter it under system checks first (${list(known.systemChecks)}).`;
+    if (m.liquidCheckId !== null && !known.liquidChecks.has(m.liquidCheckId))
+      fields[pathOf(i, 'liquidCheckId')] = `Unknown liquid check “${m.liquidCheckId}”; enter it under liquid checks first (${list(known.liquidChecks)}).`;
+    if (m.systemCheckId !== null && !known.systemChecks.has(m.systemCheckId))
+      fields[pathOf(i, 'systemCheckId')] = `Unknown system check “${m.systemCheckId}”; enter it under system checks first (${list(known.systemChecks)}).`;
   });
   return fields;
 }
@@ -95,7 +97,14 @@ export function replaceLabSet(db: Db, actor: FilingActor, filingId: number, set:
   db.transaction((tx) => {
     (WRITERS[set] as (db: Db, versionId: number, rows: unknown) => void)(tx, row.version.id, rows);
     filingsRepo.touchFiling(tx, filingId);
-    recordAudit(tx, { organisationId: actor.organisationId, actorUserId: actor.id, action: `lab.${set}.replace`, targetType: 'filing', targetId: filingId, details: { version: row.version.number, rows: (rows as unknown[]).length } });
+    recordAudit(tx, {
+      organisationId: actor.organisationId,
+      actorUserId: actor.id,
+      action: `lab.${set}.replace`,
+      targetType: 'filing',
+      targetId: filingId,
+      details: { version: row.version.number, rows: (rows as unknown[]).length },
+    });
   });
   return readLabSet(db, actor, filingId, set);
 }

@@ -47,7 +47,13 @@ export interface Manifest {
   documentDate: string;
   engine: { version: string; ruleSetVersion: string; ruleSetDocuments: string[] };
   signature: AssembledExhibit['model']['signature'];
-  readiness: { basis: 'at-signing' | 'current'; asOf: string; ready: boolean; counts: { blocking: number; warnings: number; passed: number; notApplicable: number }; items: { id: string; status: string }[] } | null;
+  readiness: {
+    basis: 'at-signing' | 'current';
+    asOf: string;
+    ready: boolean;
+    counts: { blocking: number; warnings: number; passed: number; notApplicable: number };
+    items: { id: string; status: string }[];
+  } | null;
   files: ManifestFile[];
 }
 
@@ -84,7 +90,11 @@ function evidenceStream(e: AssembledExhibit['evidence'][number], onBytes: (n: nu
   );
 }
 
-const slug = (s: string) => s.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'device';
+const slug = (s: string) =>
+  s
+    .toLowerCase()
+    .replace(/[^a-z0-9]+/g, '-')
+    .replace(/^-|-$/g, '') || 'device';
 
 export function packageFileName(a: AssembledExhibit): string {
   return `${slug(`${a.model.device.name}`)}-v${a.model.versionNumber}${a.model.draft ? '-draft' : ''}.zip`;

@@ -87,7 +87,7 @@ export function packageStatus(deps: PackageDeps, actor: PackageActor, filingId: 
     kind,
     package: row ? info(row) : null,
     upToDate: !!row && row.modelSha256 === a.modelSha256,
-    job: job ? deps.queue.get(job.id) ?? null : null,
+    job: job ? (deps.queue.get(job.id) ?? null) : null,
     canDownload: has(actor, 'approver', 'specialist') || (kind === 'preview' && has(actor, 'engineer')),
     canBuild: has(actor, 'approver', 'specialist') || (kind === 'preview' && has(actor, 'engineer')),
   };
@@ -144,7 +144,13 @@ export function registerPackageJobs(deps: PackageDeps) {
         jobId: job.id,
         builtAt: new Date().toISOString(),
       });
-      recordAudit(tx, { organisationId: job.organisationId, action: 'package.build', targetType: 'filing', targetId: filingId, details: { version: versionNumber, kind, sha256: built.sha256, sizeBytes: built.sizeBytes } });
+      recordAudit(tx, {
+        organisationId: job.organisationId,
+        action: 'package.build',
+        targetType: 'filing',
+        targetId: filingId,
+        details: { version: versionNumber, kind, sha256: built.sha256, sizeBytes: built.sizeBytes },
+      });
       return r;
     });
     // The replaced zip's bytes go unless another row still points at the same content.
@@ -161,7 +167,14 @@ export async function openDownload(deps: PackageDeps, actor: PackageActor, filin
   const row = repo.findPackage(deps.db, a.version.version.id, kind);
   if (!row) throw conflict(kind === 'signed' ? 'The signed package is not built yet; start its build and download it when it is done.' : 'No preview is built for this version yet; build one first.');
   if (kind === 'preview' && row.modelSha256 !== a.modelSha256) throw conflict('The data changed since this preview was built; build the preview again.');
-  recordAudit(deps.db, { organisationId: actor.organisationId, actorUserId: actor.id, action: 'package.download', targetType: 'filing', targetId: filingId, details: { version: versionNumber, kind, sha256: row.sha256 } });
+  recordAudit(deps.db, {
+    organisationId: actor.organisationId,
+    actorUserId: actor.id,
+    action: 'package.download',
+    targetType: 'filing',
+    targetId: filingId,
+    details: { version: versionNumber, kind, sha256: row.sha256 },
+  });
   return { row, stream: await deps.storage.get(row.storageKey) };
 }
 
@@ -278,4 +291,3 @@ export async function verifyZip(deps: PackageDeps, actor: PackageActor, filePath
       : `The ${what} of filing ${d.filingId}, version ${d.versionNumber}: every file matches its manifest (the zip container itself was rewritten).`,
   };
 }
-

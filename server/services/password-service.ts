@@ -76,11 +76,7 @@ export async function mailPasswordChanged(mailer: Mailer, to: string, how: 'chan
  * Replaces the signed-in person's password after checking the current one; ends every other
  * session of the account (this one stays signed in).
  */
-export async function changePassword(
-  db: Db,
-  who: { userId: number; sessionId: string },
-  input: { currentPassword: string; newPassword: string },
-): Promise<{ email: string; sessionsEnded: number }> {
+export async function changePassword(db: Db, who: { userId: number; sessionId: string }, input: { currentPassword: string; newPassword: string }): Promise<{ email: string; sessionsEnded: number }> {
   const user = repo.findUserById(db, who.userId);
   if (!user?.passwordHash || !(await verifyPassword(input.currentPassword, user.passwordHash))) {
     throw unprocessable('That is not your current password.', { currentPassword: 'That is not your current password.' });

@@ -72,7 +72,11 @@ export function screeningKeyOf(v: VersionData): string {
   let key = screeningKeys.get(v);
   if (key === undefined) {
     const input = screeningInputOf(v);
-    key = input ? createHash('sha256').update(`${ENGINE_VERSION}\u0000${RULE_SET_VERSION}\u0000${JSON.stringify(input)}`).digest('hex') : 'none';
+    key = input
+      ? createHash('sha256')
+          .update(`${ENGINE_VERSION}\u0000${RULE_SET_VERSION}\u0000${JSON.stringify(input)}`)
+          .digest('hex')
+      : 'none';
     screeningKeys.set(v, key);
   }
   return key;
@@ -172,10 +176,20 @@ export function labFeed(lab: VersionLabResults | null): ReadinessInput['lab'] {
     })),
     highest: r.highest
       .filter((h) => h.reportedSarWPerKg !== null)
-      .map((h) => ({ regime: h.regime, usePositionKind: h.usePositionKind, reportedSarWPerKg: h.reportedSarWPerKg!, limitWPerKg: h.limitWPerKg, transmitterId: h.transmitterId!, usePositionId: h.usePositionId! })),
+      .map((h) => ({
+        regime: h.regime,
+        usePositionKind: h.usePositionKind,
+        reportedSarWPerKg: h.reportedSarWPerKg!,
+        limitWPerKg: h.limitWPerKg,
+        transmitterId: h.transmitterId!,
+        usePositionId: h.usePositionId!,
+      })),
     checks,
     coTransmission: r.coTransmission.map((c) => ({ transmitterIds: c.transmitterIds, usePositionId: c.usePositionId, regime: c.regime, status: CO_TX_STATUS[c.outcome] })),
-    uncertainty: r.uncertainty.highestMeasuredSarWPerKg === null ? null : { required: r.uncertainty.required, given: r.uncertainty.expandedPct !== null, expandedPct: r.uncertainty.expandedPct, limitPct: r.uncertainty.limitPct },
+    uncertainty:
+      r.uncertainty.highestMeasuredSarWPerKg === null
+        ? null
+        : { required: r.uncertainty.required, given: r.uncertainty.expandedPct !== null, expandedPct: r.uncertainty.expandedPct, limitPct: r.uncertainty.limitPct },
   };
 }
 
@@ -270,7 +284,13 @@ export function feedContext(db: Db, versionId: number, v: VersionData, screening
       const { data } = v;
       const numbers = filingNumbersOf(data.device.model, data.radios.transmitters, data['use-positions'].usePositions, ctx.lab()?.results?.highest ?? []);
       const documents = listEvidence(db, versionId).map((r) => r.row);
-      return (readBack = versionReadBack(db, versionId, documents, numbers, data.radios.antennas.map((a) => a.id)));
+      return (readBack = versionReadBack(
+        db,
+        versionId,
+        documents,
+        numbers,
+        data.radios.antennas.map((a) => a.id),
+      ));
     },
   };
   return ctx;

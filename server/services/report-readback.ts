@@ -62,10 +62,7 @@ export async function extractPdfText(data: Uint8Array): Promise<PdfText> {
     return { status: 'read', pages };
   } catch (err) {
     const e = err as { name?: string; message?: string };
-    const reason =
-      e.name === 'PasswordException'
-        ? 'The PDF is encrypted with a password, so its text could not be read.'
-        : `The PDF could not be read (${e.message ?? 'damaged file'}).`;
+    const reason = e.name === 'PasswordException' ? 'The PDF is encrypted with a password, so its text could not be read.' : `The PDF could not be read (${e.message ?? 'damaged file'}).`;
     return { status: 'unreadable', reason, pages: [] };
   } finally {
     await doc?.destroy();
@@ -216,8 +213,7 @@ export function compareReport(pages: string[], f: FilingNumbers): ReadBackDraft[
 
 /** A distance as the text states it, in mm ("10 mm", "1.5 cm", "0,5 cm"). */
 const DISTANCE = /(\d+(?:[.,]\d+)?)\s*(mm|cm)\b/gi;
-const distancesMm = (line: string) =>
-  [...line.matchAll(DISTANCE)].map((m) => ({ mm: Number(m[1].replace(',', '.')) * (m[2].toLowerCase() === 'cm' ? 10 : 1), index: m.index ?? 0 }));
+const distancesMm = (line: string) => [...line.matchAll(DISTANCE)].map((m) => ({ mm: Number(m[1].replace(',', '.')) * (m[2].toLowerCase() === 'cm' ? 10 : 1), index: m.index ?? 0 }));
 
 export interface ManualSeparationStatement {
   /** The condition the sentence names; null when it names none ("from your body"). */

@@ -225,7 +225,10 @@ export async function requestReview(ctx: ReviewContext, actor: ReviewActor, fili
     repo
       .membersWithRole(db, actor.organisationId, 'approver')
       .filter((u) => u.id !== actor.id)
-      .map((u) => ({ to: u.email, ...renderReviewRequestedMail({ recipientName: u.name, deviceName: row.device.name, model: row.device.model, version: version.number, actorName: actor.name, link }) })),
+      .map((u) => ({
+        to: u.email,
+        ...renderReviewRequestedMail({ recipientName: u.name, deviceName: row.device.name, model: row.device.model, version: version.number, actorName: actor.name, link }),
+      })),
   );
   return getReview(db, actor, filingId);
 }
@@ -363,10 +366,7 @@ export function verifyVersion(db: Db, actor: FilingActor, filingId: number, numb
  * markets and co-transmission combinations. Other parts of the product add their own copy step
  * to `versionCopiers` (evidence is carried by reference, lab data by value).
  */
-export const versionCopiers: ((db: Db, fromVersionId: number, toVersionId: number) => void)[] = [
-  copyLabData,
-  (db, from, to) => void carryEvidenceForward(db, from, to),
-];
+export const versionCopiers: ((db: Db, fromVersionId: number, toVersionId: number) => void)[] = [copyLabData, (db, from, to) => void carryEvidenceForward(db, from, to)];
 
 export function startNextVersion(db: Db, actor: FilingActor, filingId: number) {
   const { row, version } = load(db, actor, filingId);

@@ -27,7 +27,6 @@ export interface ScreeningMeta {
   cautions: string[];
 }
 
-
 export function screeningInputFor(detail: ReturnType<typeof getFiling>): ScreeningInput {
   const modules = detail.data.device.modules;
   return screeningInput.parse({
@@ -126,10 +125,7 @@ export function depthProfileForFiling(db: Db, actor: FilingActor, filingId: numb
   const detail = getFiling(db, actor, filingId);
   return {
     ...depthProfileOf(screeningInputFor(detail), q),
-    cautions: [
-      'A screening estimate from a plane-wave model of layered tissue; it never replaces a SAR measurement where the rules require one.',
-      ...SCREENING_CAUTIONS,
-    ],
+    cautions: ['A screening estimate from a plane-wave model of layered tissue; it never replaces a SAR measurement where the rules require one.', ...SCREENING_CAUTIONS],
   };
 }
 

@@ -28,8 +28,7 @@ export const INVITATION_TTL_MS = 7 * 24 * 3600 * 1000;
 export const RESET_TTL_MS = 3600 * 1000;
 
 /** What a dead link (expired, used, unknown) is answered with, whichever kind it was. */
-export const DEAD_LINK_MESSAGE =
-  'This link has expired or was already used. For a new password link, use “Forgot your password?” on the sign-in page; for a new invitation, ask your admin.';
+export const DEAD_LINK_MESSAGE = 'This link has expired or was already used. For a new password link, use “Forgot your password?” on the sign-in page; for a new invitation, ask your admin.';
 
 const sha256 = (s: string) => createHash('sha256').update(s).digest('hex');
 

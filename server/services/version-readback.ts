@@ -74,7 +74,16 @@ export function versionReadBack(db: Db, versionId: number, documents: readonly R
     for (const { doc, text } of reports) {
       const drafts: ReadBackDraft[] =
         text.status === 'unreadable'
-          ? [{ key: 'unreadable', kind: 'unreadable', page: null, message: `“${doc.title}” was stored, but ${text.reason?.replace(/^The PDF/, 'its PDF') ?? 'it could not be read'} Check it by hand.`, reportValue: null, filingValue: null }]
+          ? [
+              {
+                key: 'unreadable',
+                kind: 'unreadable',
+                page: null,
+                message: `“${doc.title}” was stored, but ${text.reason?.replace(/^The PDF/, 'its PDF') ?? 'it could not be read'} Check it by hand.`,
+                reportValue: null,
+                filingValue: null,
+              },
+            ]
           : compareReport(text.pages, numbers);
       for (const d of drafts) report.push({ ...d, evidenceId: doc.id, title: doc.title, explanation: explained.get(`${doc.id}|${d.key}`) ?? null });
     }

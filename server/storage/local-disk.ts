@@ -10,16 +10,7 @@ import path from 'node:path';
 import { createHash, randomBytes } from 'node:crypto';
 import { Transform, type Readable, type TransformCallback } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
-import {
-  HEAD_BYTES,
-  ObjectNotFoundError,
-  ObjectTooLargeError,
-  isSha256,
-  type ByteStorage,
-  type PutOptions,
-  type StoredObject,
-  type SweepReport,
-} from './byte-storage';
+import { HEAD_BYTES, ObjectNotFoundError, ObjectTooLargeError, isSha256, type ByteStorage, type PutOptions, type StoredObject, type SweepReport } from './byte-storage';
 
 const TMP = '.tmp';
 
@@ -122,8 +113,7 @@ export function createLocalDiskStorage(root: string): ByteStorage {
     async sweepOrphans(isReferenced, { minAgeMs = 0 } = {}): Promise<SweepReport> {
       const report: SweepReport = { removedObjects: [], removedTemporaryFiles: 0 };
       const cutoff = Date.now() - minAgeMs;
-      const oldEnough = async (file: string) =>
-        minAgeMs <= 0 || ((await fsp.stat(file).catch(() => undefined))?.mtimeMs ?? Infinity) <= cutoff;
+      const oldEnough = async (file: string) => minAgeMs <= 0 || ((await fsp.stat(file).catch(() => undefined))?.mtimeMs ?? Infinity) <= cutoff;
       for (const name of await fsp.readdir(tmpDir).catch(() => [] as string[])) {
         const file = path.join(tmpDir, name);
         if (await oldEnough(file)) {
@@ -131,8 +121,7 @@ export function createLocalDiskStorage(root: string): ByteStorage {
           report.removedTemporaryFiles++;
         }
       }
-      const level = async (dir: string) =>
-        (await fsp.readdir(dir, { withFileTypes: true }).catch(() => [])).filter((d) => d.name !== TMP);
+      const level = async (dir: string) => (await fsp.readdir(dir, { withFileTypes: true }).catch(() => [])).filter((d) => d.name !== TMP);
       for (const a of await level(root)) {
         if (!a.isDirectory()) continue;
         for (const b of await level(path.join(root, a.name))) {

@@ -12,12 +12,7 @@ export interface ReferenceSource {
   referenced(db: Db): Iterable<string>;
 }
 
-export async function sweepOrphans(
-  storages: Storages,
-  db: Db,
-  sources: ReferenceSource[],
-  options: { minAgeMs?: number } = {},
-): Promise<Partial<Record<keyof Storages, SweepReport>>> {
+export async function sweepOrphans(storages: Storages, db: Db, sources: ReferenceSource[], options: { minAgeMs?: number } = {}): Promise<Partial<Record<keyof Storages, SweepReport>>> {
   const reports: Partial<Record<keyof Storages, SweepReport>> = {};
   const areas = [...new Set(sources.map((s) => s.area))];
   for (const area of areas) {

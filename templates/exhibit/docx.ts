@@ -6,24 +6,7 @@
  * here). The zip container is rewritten with fixed dates so the same model gives the same bytes.
  */
 import JSZip from 'jszip';
-import {
-  AlignmentType,
-  BorderStyle,
-  Document,
-  Footer,
-  Header,
-  HeadingLevel,
-  Packer,
-  PageNumber,
-  Paragraph,
-  ShadingType,
-  Table,
-  TableCell,
-  TableOfContents,
-  TableRow,
-  TextRun,
-  WidthType,
-} from 'docx';
+import { AlignmentType, BorderStyle, Document, Footer, Header, HeadingLevel, Packer, PageNumber, Paragraph, ShadingType, Table, TableCell, TableOfContents, TableRow, TextRun, WidthType } from 'docx';
 import type { ExhibitModel } from './model';
 import { depthChartFootnote, exhibitBlocks, fixed, num, derivationRows, signatureLines, type Block, type Column } from './layout';
 import { EXHIBIT_TITLE, INTRO, SECTION, coverLines, documentSubject } from './texts';
@@ -63,7 +46,17 @@ function table(columns: Column[], rows: string[][], header = true): Table {
     width: { size: TEXT_WIDTH_TWIPS, type: WidthType.DXA },
     columnWidths: widths,
     borders: { top: BORDER, bottom: BORDER, left: BORDER, right: BORDER, insideHorizontal: BORDER, insideVertical: BORDER },
-    rows: [...(header ? [make(columns.map((c) => c.title), true)] : []), ...rows.map((r) => make(r, false))],
+    rows: [
+      ...(header
+        ? [
+            make(
+              columns.map((c) => c.title),
+              true,
+            ),
+          ]
+        : []),
+      ...rows.map((r) => make(r, false)),
+    ],
   });
 }
 
@@ -139,9 +132,7 @@ function renumberBookmarks(xml: string): string {
   const map = new Map<string, number>();
   for (const m of xml.matchAll(/<w:bookmarkStart[^>]*w:id="(\d+)"/g)) if (!map.has(m[1])) map.set(m[1], map.size + 1);
   const ids = (n: string) => String(map.get(n) ?? n);
-  return xml
-    .replace(/_Toc(\d+)/g, (_, n: string) => `_Toc${ids(n)}`)
-    .replace(/(<w:bookmark(?:Start|End)[^>]*w:id=")(\d+)"/g, (_, head: string, n: string) => `${head}${ids(n)}"`);
+  return xml.replace(/_Toc(\d+)/g, (_, n: string) => `_Toc${ids(n)}`).replace(/(<w:bookmark(?:Start|End)[^>]*w:id=")(\d+)"/g, (_, head: string, n: string) => `${head}${ids(n)}"`);
 }
 
 /** Rewrites the DOCX container: fixed entry dates and the document's own date in core.xml. */
@@ -185,7 +176,11 @@ export async function renderExhibitDocx(m: ExhibitModel, opts: { producer: strin
         properties: { page: { size: { width: 11906, height: 16838 }, margin: { top: 1134, bottom: 1134, left: 1134, right: 1134 } } },
         headers: {
           default: new Header({
-            children: [new Paragraph({ children: [...draftRun, new TextRun({ text: `${EXHIBIT_TITLE} · ${m.device.name} (${m.device.model}) · filing ${m.filingId} v${m.versionNumber}`, size: 15, color: '60676F' })] })],
+            children: [
+              new Paragraph({
+                children: [...draftRun, new TextRun({ text: `${EXHIBIT_TITLE} · ${m.device.name} (${m.device.model}) · filing ${m.filingId} v${m.versionNumber}`, size: 15, color: '60676F' })],
+              }),
+            ],
           }),
         },
         footers: {

@@ -34,8 +34,9 @@ let cache: Record<FontRole, Uint8Array> | undefined;
 
 /** The font files' bytes, read once per process. */
 export function fontBytes(): Record<FontRole, Uint8Array> {
-  cache ??= Object.fromEntries(
-    Object.entries({ ...FONT_FILES, symbols: SYMBOL_FONT_FILE }).map(([role, file]) => [role, fs.readFileSync(path.join(FONT_DIR, file))]),
-  ) as unknown as Record<FontRole, Uint8Array>;
+  cache ??= Object.fromEntries(Object.entries({ ...FONT_FILES, symbols: SYMBOL_FONT_FILE }).map(([role, file]) => [role, fs.readFileSync(path.join(FONT_DIR, file))])) as unknown as Record<
+    FontRole,
+    Uint8Array
+  >;
   return cache;
 }

@@ -120,13 +120,14 @@ function summaryBlocks(m: ExhibitModel): Block[] {
     },
   ];
   if (m.lab?.highestReported.length) {
-    blocks.push(
-      { kind: 'heading', level: 2, text: 'Highest reported SAR per market and exposure condition' },
-      highestSarTable(m),
-    );
+    blocks.push({ kind: 'heading', level: 2, text: 'Highest reported SAR per market and exposure condition' }, highestSarTable(m));
   }
   if (m.screening.gaps.length) {
-    blocks.push({ kind: 'paragraph', style: 'caution', text: `${m.screening.gaps.length} combination(s) could not be screened. ${m.screening.gaps.map((g) => `${g.transmitterId} at ${g.usePositionId}: ${g.message}`).join(' ')}` });
+    blocks.push({
+      kind: 'paragraph',
+      style: 'caution',
+      text: `${m.screening.gaps.length} combination(s) could not be screened. ${m.screening.gaps.map((g) => `${g.transmitterId} at ${g.usePositionId}: ${g.message}`).join(' ')}`,
+    });
   }
   return blocks;
 }
@@ -288,7 +289,10 @@ function screeningBlocks(m: ExhibitModel): Block[] {
   if (m.depthProfile) {
     blocks.push(
       { kind: 'heading', level: 2, text: 'SAR against depth (estimate)' },
-      { kind: 'paragraph', text: `${INTRO.depthChart} ${m.depthProfile.transmitterId} at ${m.depthProfile.usePositionId}, ${hz(m.depthProfile.frequencyHz)}, distance used ${mm(m.depthProfile.distanceUsedM)}; model: ${m.depthProfile.stackTitle}. ${m.depthProfile.scaleReason} See ${m.depthProfile.appendixRef}.` },
+      {
+        kind: 'paragraph',
+        text: `${INTRO.depthChart} ${m.depthProfile.transmitterId} at ${m.depthProfile.usePositionId}, ${hz(m.depthProfile.frequencyHz)}, distance used ${mm(m.depthProfile.distanceUsedM)}; model: ${m.depthProfile.stackTitle}. ${m.depthProfile.scaleReason} See ${m.depthProfile.appendixRef}.`,
+      },
       { kind: 'depthChart', profile: m.depthProfile },
     );
   }
@@ -334,18 +338,22 @@ function labBlocks(m: ExhibitModel): Block[] {
   );
   if (lab.highestReported.length) blocks.push({ kind: 'heading', level: 2, text: 'Highest reported SAR per market and exposure condition' }, highestSarTable(m));
   if (lab.coverage.some((c) => c.status !== 'not-required')) {
-    blocks.push({ kind: 'heading', level: 2, text: 'Coverage against the screening' }, { kind: 'paragraph', text: INTRO.coverage }, {
-      kind: 'table',
-      columns: [
-        { title: 'Transmitter', width: 0.15 },
-        { title: 'Use position', width: 0.17 },
-        { title: 'Condition', width: 0.17 },
-        { title: 'SAR evaluation needed in', width: 0.2 },
-        { title: 'Scans', width: 0.16 },
-        { title: 'State', width: 0.15 },
-      ],
-      rows: lab.coverage.map((c) => [c.transmitterId, c.usePositionId, c.exposureCondition, c.markets.join(', ') || '—', c.measurementIds.join(', ') || '—', COVERAGE_WORDS[c.status]]),
-    });
+    blocks.push(
+      { kind: 'heading', level: 2, text: 'Coverage against the screening' },
+      { kind: 'paragraph', text: INTRO.coverage },
+      {
+        kind: 'table',
+        columns: [
+          { title: 'Transmitter', width: 0.15 },
+          { title: 'Use position', width: 0.17 },
+          { title: 'Condition', width: 0.17 },
+          { title: 'SAR evaluation needed in', width: 0.2 },
+          { title: 'Scans', width: 0.16 },
+          { title: 'State', width: 0.15 },
+        ],
+        rows: lab.coverage.map((c) => [c.transmitterId, c.usePositionId, c.exposureCondition, c.markets.join(', ') || '—', c.measurementIds.join(', ') || '—', COVERAGE_WORDS[c.status]]),
+      },
+    );
   }
   return blocks;
 }
@@ -355,37 +363,43 @@ const COVERAGE_WORDS = { measured: '✓ Measured', missing: '× Not measured', '
 function coTransmissionBlocks(m: ExhibitModel): Block[] {
   const blocks: Block[] = [{ kind: 'heading', level: 1, text: SECTION.coTransmission }];
   if (m.simultaneousGroups.length) {
-    blocks.push({ kind: 'paragraph', text: INTRO.coTransmissionGroups }, {
-      kind: 'table',
-      columns: [
-        { title: 'Group', width: 0.12 },
-        { title: 'Transmitters on together', width: 0.88 },
-      ],
-      rows: m.simultaneousGroups.map((g, i) => [String(i + 1), g.join(' + ')]),
-    });
+    blocks.push(
+      { kind: 'paragraph', text: INTRO.coTransmissionGroups },
+      {
+        kind: 'table',
+        columns: [
+          { title: 'Group', width: 0.12 },
+          { title: 'Transmitters on together', width: 0.88 },
+        ],
+        rows: m.simultaneousGroups.map((g, i) => [String(i + 1), g.join(' + ')]),
+      },
+    );
   }
   if (!m.lab?.coTransmission.length) return [...blocks, { kind: 'paragraph', text: INTRO.coTransmissionMissing }];
-  blocks.push({ kind: 'paragraph', text: INTRO.coTransmission }, {
-    kind: 'table',
-    columns: [
-      { title: 'Market', width: 0.09 },
-      { title: 'Use position', width: 0.12 },
-      { title: 'Transmitters and their parts', width: 0.37 },
-      { title: 'Sum', width: 0.1, align: 'right' },
-      { title: 'Limit', width: 0.08, align: 'right' },
-      { title: 'Outcome', width: 0.19 },
-      { title: 'Ref.', width: 0.05, align: 'right' },
-    ],
-    rows: m.lab.coTransmission.map((c) => [
-      c.market,
-      `${c.usePositionId} (${c.exposureCondition})`,
-      c.contributions.join('; '),
-      c.sum === null ? '—' : c.unit === 'W/kg' ? `${fixed(c.sum, 2)} W/kg` : num(c.sum, 3),
-      c.unit === 'W/kg' ? `${num(c.limit)} W/kg` : num(c.limit),
-      `${c.pass ? '✓' : '×'} ${c.outcome}`,
-      c.appendixRef,
-    ]),
-  });
+  blocks.push(
+    { kind: 'paragraph', text: INTRO.coTransmission },
+    {
+      kind: 'table',
+      columns: [
+        { title: 'Market', width: 0.09 },
+        { title: 'Use position', width: 0.12 },
+        { title: 'Transmitters and their parts', width: 0.37 },
+        { title: 'Sum', width: 0.1, align: 'right' },
+        { title: 'Limit', width: 0.08, align: 'right' },
+        { title: 'Outcome', width: 0.19 },
+        { title: 'Ref.', width: 0.05, align: 'right' },
+      ],
+      rows: m.lab.coTransmission.map((c) => [
+        c.market,
+        `${c.usePositionId} (${c.exposureCondition})`,
+        c.contributions.join('; '),
+        c.sum === null ? '—' : c.unit === 'W/kg' ? `${fixed(c.sum, 2)} W/kg` : num(c.sum, 3),
+        c.unit === 'W/kg' ? `${num(c.limit)} W/kg` : num(c.limit),
+        `${c.pass ? '✓' : '×'} ${c.outcome}`,
+        c.appendixRef,
+      ]),
+    },
+  );
   return blocks;
 }
 
@@ -408,18 +422,21 @@ function checkBlocks(m: ExhibitModel): Block[] {
   };
   const setup = lab.checks.filter((c) => c.subjectType === 'liquid-check' || c.subjectType === 'system-check' || c.subjectType === 'instrument' || c.subjectType === 'uncertainty');
   if (setup.length) {
-    blocks.push({ kind: 'heading', level: 2, text: 'Liquid, system, calibration and uncertainty checks' }, {
-      kind: 'table',
-      columns: [
-        { title: 'Check', width: 0.14 },
-        { title: 'Of', width: 0.1 },
-        { title: 'Value', width: 0.36 },
-        { title: 'Tolerance', width: 0.22 },
-        { title: 'Outcome', width: 0.1 },
-        { title: 'Source', width: 0.08 },
-      ],
-      rows: setup.map((c) => [c.kind, c.subject, c.status === 'pass' ? c.value : `${c.value}. ${c.message}`, c.tolerance, CHECK_STATUS_WORDS[c.status] ?? c.status, ref(c.source)]),
-    });
+    blocks.push(
+      { kind: 'heading', level: 2, text: 'Liquid, system, calibration and uncertainty checks' },
+      {
+        kind: 'table',
+        columns: [
+          { title: 'Check', width: 0.14 },
+          { title: 'Of', width: 0.1 },
+          { title: 'Value', width: 0.36 },
+          { title: 'Tolerance', width: 0.22 },
+          { title: 'Outcome', width: 0.1 },
+          { title: 'Source', width: 0.08 },
+        ],
+        rows: setup.map((c) => [c.kind, c.subject, c.status === 'pass' ? c.value : `${c.value}. ${c.message}`, c.tolerance, CHECK_STATUS_WORDS[c.status] ?? c.status, ref(c.source)]),
+      },
+    );
   }
   const perScan = lab.checks.filter((c) => c.subjectType === 'measurement');
   if (perScan.length) {
@@ -454,30 +471,36 @@ function checkBlocks(m: ExhibitModel): Block[] {
     }
   }
   if (lab.instruments.length) {
-    blocks.push({ kind: 'heading', level: 2, text: 'Instruments' }, {
-      kind: 'table',
-      columns: [
-        { title: 'Id', width: 0.1 },
-        { title: 'Kind', width: 0.18 },
-        { title: 'Model', width: 0.22 },
-        { title: 'Serial', width: 0.14 },
-        { title: 'Calibrated', width: 0.12 },
-        { title: 'Due', width: 0.12 },
-        { title: 'On test dates', width: 0.12 },
-      ],
-      rows: lab.instruments.map((i) => [i.id, i.kind, i.model || '—', i.serial || '—', i.calibratedOn, i.calibrationDueOn, i.inCalibration ? '✓ In calibration' : '× Not in calibration']),
-    });
+    blocks.push(
+      { kind: 'heading', level: 2, text: 'Instruments' },
+      {
+        kind: 'table',
+        columns: [
+          { title: 'Id', width: 0.1 },
+          { title: 'Kind', width: 0.18 },
+          { title: 'Model', width: 0.22 },
+          { title: 'Serial', width: 0.14 },
+          { title: 'Calibrated', width: 0.12 },
+          { title: 'Due', width: 0.12 },
+          { title: 'On test dates', width: 0.12 },
+        ],
+        rows: lab.instruments.map((i) => [i.id, i.kind, i.model || '—', i.serial || '—', i.calibratedOn, i.calibrationDueOn, i.inCalibration ? '✓ In calibration' : '× Not in calibration']),
+      },
+    );
   }
   if (sources.length) {
-    blocks.push({ kind: 'heading', level: 2, text: 'Sources of the tolerances' }, {
-      kind: 'table',
-      header: false,
-      columns: [
-        { title: '', width: 0.06 },
-        { title: '', width: 0.94 },
-      ],
-      rows: sources.map((src, i) => [`[${i + 1}]`, src]),
-    });
+    blocks.push(
+      { kind: 'heading', level: 2, text: 'Sources of the tolerances' },
+      {
+        kind: 'table',
+        header: false,
+        columns: [
+          { title: '', width: 0.06 },
+          { title: '', width: 0.94 },
+        ],
+        rows: sources.map((src, i) => [`[${i + 1}]`, src]),
+      },
+    );
   }
   return blocks;
 }
@@ -492,7 +515,12 @@ function uncertaintyBlocks(m: ExhibitModel): Block[] {
     rows: [
       ['Budget required', `${u.required ? 'Yes' : 'No'}: ${highest}`],
       ['Combined standard uncertainty', u.combinedStandardPercent === null ? '—' : `${fixed(u.combinedStandardPercent, 1)} %`],
-      ['Expanded uncertainty', u.expandedPercent === null ? 'No budget entered' : `${fixed(u.expandedPercent, 1)} % (k = ${num(u.coverageFactor)}); at most ${num(u.limitPercent)} %${u.appendixRef ? `; see ${u.appendixRef}` : ''}`],
+      [
+        'Expanded uncertainty',
+        u.expandedPercent === null
+          ? 'No budget entered'
+          : `${fixed(u.expandedPercent, 1)} % (k = ${num(u.coverageFactor)}); at most ${num(u.limitPercent)} %${u.appendixRef ? `; see ${u.appendixRef}` : ''}`,
+      ],
     ],
   });
   if (u.components.length) {
@@ -506,7 +534,14 @@ function uncertaintyBlocks(m: ExhibitModel): Block[] {
         { title: 'Sensitivity', width: 0.13, align: 'right' },
         { title: 'Degrees of freedom', width: 0.13, align: 'right' },
       ],
-      rows: u.components.map((c) => [c.name, `${fixed(c.valuePercent, 2)} %`, c.distribution, c.divisor === null ? 'from distribution' : num(c.divisor), num(c.sensitivity), c.degreesOfFreedom === null ? '∞' : num(c.degreesOfFreedom)]),
+      rows: u.components.map((c) => [
+        c.name,
+        `${fixed(c.valuePercent, 2)} %`,
+        c.distribution,
+        c.divisor === null ? 'from distribution' : num(c.divisor),
+        num(c.sensitivity),
+        c.degreesOfFreedom === null ? '∞' : num(c.degreesOfFreedom),
+      ]),
     });
   }
   return blocks;

@@ -210,7 +210,8 @@ class Flow {
     const lh = size * 1.3;
     const padX = 3.5;
     const padY = 3;
-    const fontFor = (col: number, header: boolean) => (header ? this.fonts.semibold : opts.mono?.includes(col) ? this.fonts.mono : opts.firstBold && col === 0 ? this.fonts.medium : this.fonts.regular);
+    const fontFor = (col: number, header: boolean) =>
+      header ? this.fonts.semibold : opts.mono?.includes(col) ? this.fonts.mono : opts.firstBold && col === 0 ? this.fonts.medium : this.fonts.regular;
     const widths = this.columnWidths(columns, rows, opts.header !== false, fontFor, size, padX, opts.mono ?? []);
     // A mono column (hashes) is set small enough that its longest word fits on one line, so a
     // hash is never broken and a reader can search and copy it whole (not below 5.5 pt).
@@ -223,7 +224,13 @@ class Flow {
       const wrapped = cells.map((c, i) => this.wrap(c, fontFor(i, header), header ? size : sizes[i], widths[i] - 2 * padX));
       return { wrapped, height: Math.max(...wrapped.map((l) => l.length)) * lh + 2 * padY };
     };
-    const header = opts.header === false ? null : layout(columns.map((c) => c.title), true);
+    const header =
+      opts.header === false
+        ? null
+        : layout(
+            columns.map((c) => c.title),
+            true,
+          );
     const drawRow = (row: { wrapped: string[][]; height: number }, isHeader: boolean, zebra: boolean) => {
       const top = this.y;
       if (isHeader) this.page.drawRectangle({ x: MARGIN_X, y: top - row.height, width: TEXT_W, height: row.height, color: HEADER_FILL });
@@ -435,7 +442,10 @@ function cover(flow: Flow, m: ExhibitModel) {
   flow.y = Math.min(flow.y, BOTTOM + 120);
   flow.page.drawLine({ start: { x: MARGIN_X, y: flow.y }, end: { x: MARGIN_X + TEXT_W, y: flow.y }, thickness: 0.4, color: RULE });
   flow.y -= 6;
-  flow.paragraph('Engineering estimates from published formulas or summaries of laboratory measurements. The certifying body and accredited laboratories decide; follow the applicable regulations and local codes. See section 12.', 'small');
+  flow.paragraph(
+    'Engineering estimates from published formulas or summaries of laboratory measurements. The certifying body and accredited laboratories decide; follow the applicable regulations and local codes. See section 12.',
+    'small',
+  );
 }
 
 const contentsLineHeight = (level: 1 | 2) => (level === 1 ? SIZE.body * 1.9 : SIZE.small * 1.6);

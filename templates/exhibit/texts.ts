@@ -33,13 +33,15 @@ export const INTRO = {
   screening:
     'For every transmitter, use position and market: the rule that applies, the compared power at the band’s most restrictive frequency, the threshold, the result and the margin (10·log10 of threshold over evaluated value, in dB; negative means over the threshold). The reference in the last column points to the derivation in Appendix A.',
   marginChart: 'Smallest margin of each transmitter over all use positions, per market (dB). Bars left of zero are over the threshold.',
-  depthChart:
-    'SAR against depth in layered tissue for the combination with the smallest margin: a screening estimate from a plane-wave model that explains the margin; it is not a measured SAR.',
+  depthChart: 'SAR against depth in layered tissue for the combination with the smallest margin: a screening estimate from a plane-wave model that explains the margin; it is not a measured SAR.',
   lab: 'Every SAR scan the lab reported, scaled to the maximum tune-up power (never scaled down): reported SAR = scaling × measured SAR, at 1 g and 10 g. The reference in the last column points to the derivation in Appendix A.',
-  labUnits: 'SAR in W/kg; separation as tested; scaling = reported over measured SAR. A dash means the lab gave no value for that averaging mass. The exposure condition of each use position is in the coverage table below.',
+  labUnits:
+    'SAR in W/kg; separation as tested; scaling = reported over measured SAR. A dash means the lab gave no value for that averaging mass. The exposure condition of each use position is in the coverage table below.',
   coverage: 'Every transmitter and use position the screening sends to SAR evaluation, and the scans that cover it.',
-  coTransmission: 'For each group of transmitters on together, in every use position and market: the sum of each one’s highest reported SAR (or its estimate where it is exempt from testing) against the limit; in the far field, the sum of each one’s share of its exposure limit.',
-  checks: 'The lab’s liquid, system and calibration checks and the checks of each scan, each with the tolerance it is held to and the source of that tolerance (numbered at the end of this section). Coverage and simultaneous transmission are checked in sections 6 and 7.',
+  coTransmission:
+    'For each group of transmitters on together, in every use position and market: the sum of each one’s highest reported SAR (or its estimate where it is exempt from testing) against the limit; in the far field, the sum of each one’s share of its exposure limit.',
+  checks:
+    'The lab’s liquid, system and calibration checks and the checks of each scan, each with the tolerance it is held to and the source of that tolerance (numbered at the end of this section). Coverage and simultaneous transmission are checked in sections 6 and 7.',
   scanChecks: '✓ within tolerance, ! to look at, × outside tolerance, – not checked. Every mark other than ✓ is explained in the table below.',
   readinessDraft: 'This version is not signed: the checklist as it stands now.',
   labMissing: 'No lab measurements are recorded for this version. Where the screening asks for a SAR or MPE evaluation, the accredited lab’s results belong here.',

@@ -14,8 +14,7 @@ export interface InvitationMailData {
   existingAccount?: boolean;
 }
 
-const escapeHtml = (s: string) =>
-  s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 
 export function renderInvitationMail(d: InvitationMailData) {
   const expires = d.expiresAt.toISOString().slice(0, 16).replace('T', ' ') + ' UTC';
@@ -25,10 +24,7 @@ export function renderInvitationMail(d: InvitationMailData) {
     '',
     `${d.inviterName} added you to ${d.organisationName} on Fieldfile as: ${d.roles.join(', ')}.`,
     '',
-    (d.existingAccount ? 'Accept with your existing Fieldfile password here' : 'Choose your password here') +
-      ' (the link works once and expires ' +
-      expires +
-      '):',
+    (d.existingAccount ? 'Accept with your existing Fieldfile password here' : 'Choose your password here') + ' (the link works once and expires ' + expires + '):',
     d.link,
     '',
     'If you did not expect this, ignore this message.',

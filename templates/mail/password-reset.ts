@@ -6,8 +6,7 @@
  * Data: the link and when it expires; for the notice, how it changed and when.
  */
 
-const escapeHtml = (s: string) =>
-  s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 
 const utc = (d: Date) => d.toISOString().slice(0, 16).replace('T', ' ') + ' UTC';
 
@@ -25,9 +24,7 @@ export function renderPasswordResetMail(d: PasswordResetMailData) {
   const text = [
     'Hello,',
     '',
-    'Someone asked to choose a new password for the Fieldfile account of this address. If it was you, open this link (it works once and expires ' +
-      utc(d.expiresAt) +
-      '):',
+    'Someone asked to choose a new password for the Fieldfile account of this address. If it was you, open this link (it works once and expires ' + utc(d.expiresAt) + '):',
     d.link,
     '',
     'Choosing a new password signs the account out everywhere else.',

@@ -24,8 +24,7 @@ export interface SignedMailData extends ReviewMailBase {
   contentSha256: string;
 }
 
-const escapeHtml = (s: string) =>
-  s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 
 const shell = (inner: string) => `<!doctype html><html><body style="font-family:sans-serif;color:#1c2b36;line-height:1.45">
 ${inner}
@@ -70,10 +69,7 @@ export function renderReturnedMail(d: ReturnedMailData) {
     '— Fieldfile',
   ].join('\n');
   const threadHtml = d.threads
-    .map(
-      (t) =>
-        `<li><strong>${escapeHtml(t.where)}</strong><ul>${t.comments.map((c) => `<li>${escapeHtml(c.author)}: ${escapeHtml(c.body)}</li>`).join('')}</ul></li>`,
-    )
+    .map((t) => `<li><strong>${escapeHtml(t.where)}</strong><ul>${t.comments.map((c) => `<li>${escapeHtml(c.author)}: ${escapeHtml(c.body)}</li>`).join('')}</ul></li>`)
     .join('');
   const html = shell(`<p>Hello ${escapeHtml(d.recipientName)},</p>
 <p>${escapeHtml(d.actorName)} returned <strong>${escapeHtml(filingName(d))}</strong> for changes.</p>

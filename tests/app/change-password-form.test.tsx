@@ -36,9 +36,7 @@ describe('ChangePasswordForm', () => {
     let attempt = 0;
     installFetchMock({
       'POST /api/auth/change-password': () =>
-        ++attempt === 1
-          ? apiError(422, 'invalid_input', 'That is not your current password.', { currentPassword: 'That is not your current password.' })
-          : { status: 200, body: { sessionsEnded: 2 } },
+        ++attempt === 1 ? apiError(422, 'invalid_input', 'That is not your current password.', { currentPassword: 'That is not your current password.' }) : { status: 200, body: { sessionsEnded: 2 } },
     });
     renderWithClient(<ChangePasswordForm email="mira@fieldfile.test" name="Mira Okafor" />);
 

@@ -42,7 +42,16 @@ const FILING = {
 } as FilingDetail;
 
 const output = screenParsed(screeningInput.parse({ markets, antennas, transmitters, usePositions }));
-const SCREENING = { ...output, filingId: 7, version: 1, engineVersion: 'test-engine', ruleSetVersion: 'test-rules', computedAt: '2026-03-01T10:00:00.000Z', complete: true, cautions: SCREENING_CAUTIONS };
+const SCREENING = {
+  ...output,
+  filingId: 7,
+  version: 1,
+  engineVersion: 'test-engine',
+  ruleSetVersion: 'test-rules',
+  computedAt: '2026-03-01T10:00:00.000Z',
+  complete: true,
+  cautions: SCREENING_CAUTIONS,
+};
 
 // The first render of a cold run loads most of the app; small CI machines need the headroom.
 jest.setTimeout(30_000);

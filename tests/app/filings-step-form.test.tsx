@@ -76,7 +76,11 @@ describe('RadiosStep', () => {
     const { calls } = installFetchMock({
       'PUT /api/filings/7/steps/radios': () => {
         puts += 1;
-        if (puts === 1) return { status: 409, body: { error: { code: 'stale_step', message: 'Someone saved this step after you opened it.' }, current: { data: theirs, revision: 'r-radios-2', updatedAt: '2026-03-01T11:00:00.000Z' } } };
+        if (puts === 1)
+          return {
+            status: 409,
+            body: { error: { code: 'stale_step', message: 'Someone saved this step after you opened it.' }, current: { data: theirs, revision: 'r-radios-2', updatedAt: '2026-03-01T11:00:00.000Z' } },
+          };
         return { status: 200, body: { saved: true, filing: { ...FILING, revisions: { ...FILING.revisions, radios: 'r-radios-3' } } } };
       },
       'GET /api/filings/7': { status: 200, body: { filing: FILING } },
@@ -108,7 +112,10 @@ describe('RadiosStep', () => {
   it('loads the other person’s version when asked', async () => {
     const theirs = { antennas: FILING.data.radios.antennas, transmitters: [{ ...FILING.data.radios.transmitters[0], band: 'Their band' }] };
     installFetchMock({
-      'PUT /api/filings/7/steps/radios': { status: 409, body: { error: { code: 'stale_step', message: 'Stale.' }, current: { data: theirs, revision: 'r-radios-2', updatedAt: '2026-03-01T11:00:00.000Z' } } },
+      'PUT /api/filings/7/steps/radios': {
+        status: 409,
+        body: { error: { code: 'stale_step', message: 'Stale.' }, current: { data: theirs, revision: 'r-radios-2', updatedAt: '2026-03-01T11:00:00.000Z' } },
+      },
       'GET /api/filings/7': { status: 200, body: { filing: FILING } },
     });
     renderWithClient(<RadiosStep filing={FILING} />);

@@ -42,9 +42,7 @@ describe('InviteUserForm', () => {
     fireEvent.press(screen.getByTestId('invite-submit'));
 
     expect(await screen.findByTestId('invite-sent')).toHaveTextContent(/Rosa Reviewer \(rosa@example\.com\) has a link/);
-    expect(calls).toEqual([
-      expect.objectContaining({ method: 'POST', path: '/api/users', body: { name: 'Rosa Reviewer', email: 'rosa@example.com', roles: ['engineer', 'approver'] } }),
-    ]);
+    expect(calls).toEqual([expect.objectContaining({ method: 'POST', path: '/api/users', body: { name: 'Rosa Reviewer', email: 'rosa@example.com', roles: ['engineer', 'approver'] } })]);
     // The form is cleared for the next person.
     expect(screen.getByTestId('invite-name').props.value).toBe('');
   });

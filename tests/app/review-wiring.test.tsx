@@ -37,7 +37,9 @@ const DATA: FilingDetail['data'] = {
 const FILING = { id: 3, data: DATA } as FilingDetail;
 
 const can = (allowed: string[]): ReviewDto['can'] =>
-  Object.fromEntries(['request-review', 'return', 'sign', 'start-next-version', 'comment', 'reply', 'resolve'].map((a) => [a, { allowed: allowed.includes(a), reason: allowed.includes(a) ? undefined : 'not you' }])) as ReviewDto['can'];
+  Object.fromEntries(
+    ['request-review', 'return', 'sign', 'start-next-version', 'comment', 'reply', 'resolve'].map((a) => [a, { allowed: allowed.includes(a), reason: allowed.includes(a) ? undefined : 'not you' }]),
+  ) as ReviewDto['can'];
 
 const thread = (id: number, step: string, rowRef: string | null, body: string, state: 'open' | 'resolved' = 'open'): ReviewThreadDto => ({
   id,
@@ -160,7 +162,9 @@ describe('asking for review', () => {
 
   it('asks again once nothing blocks, and says which comments are still open', async () => {
     const { calls } = installFetchMock({ 'POST /api/filings/3/review/request': { status: 200, body: { review: review('in-review', []) } } });
-    renderWithClient(<RequestReviewAction filingId={3} review={review('returned', ['request-review', 'reply', 'resolve'], [thread(1, 'radios', 'BT-LE', 'Check the power.')])} readiness={readiness([])} />);
+    renderWithClient(
+      <RequestReviewAction filingId={3} review={review('returned', ['request-review', 'reply', 'resolve'], [thread(1, 'radios', 'BT-LE', 'Check the power.')])} readiness={readiness([])} />,
+    );
     expect(screen.getByTestId('request-review-open-threads')).toHaveTextContent(/1 comment is still open/);
     expect(screen.getByTestId('request-review')).toHaveTextContent('Ask for review again');
     fireEvent.press(screen.getByTestId('request-review'));
@@ -175,7 +179,11 @@ describe('asking for review', () => {
 });
 
 describe('comments on a step', () => {
-  const threads = [thread(1, 'radios', 'BT-LE', 'Is 4 dBm the tune-up maximum?'), thread(2, 'use-positions', 'lanyard', 'Closest with the clip open?'), thread(3, 'radios', null, 'Gain source?', 'resolved')];
+  const threads = [
+    thread(1, 'radios', 'BT-LE', 'Is 4 dBm the tune-up maximum?'),
+    thread(2, 'use-positions', 'lanyard', 'Closest with the clip open?'),
+    thread(3, 'radios', null, 'Gain source?', 'resolved'),
+  ];
 
   it('show only that step’s threads, open first, and a new comment is about that step and a row', async () => {
     const { calls } = installFetchMock({ 'POST /api/filings/3/review/threads': { status: 201, body: { thread: thread(4, 'radios', 'ANT-BT', 'Where is the gain from?') } } });

@@ -15,12 +15,24 @@ jest.mock('../../components/charts/depth-profile-chart', () => ({ DepthProfileCh
 jest.setTimeout(60_000);
 
 const antennas = [{ id: 'A1', gainDbi: 0, location: '' }];
-const transmitters = Array.from({ length: 12 }, (_, i) => ({ id: `T${i + 1}`, technology: 'LTE', band: `B${i + 1}`, frequencyMinHz: 700e6 + i * 400e6, frequencyMaxHz: 740e6 + i * 400e6, maxTuneUpPowerDbm: 2 + 2 * i, dutyCycle: 1, antennaId: 'A1' }));
+const transmitters = Array.from({ length: 12 }, (_, i) => ({
+  id: `T${i + 1}`,
+  technology: 'LTE',
+  band: `B${i + 1}`,
+  frequencyMinHz: 700e6 + i * 400e6,
+  frequencyMaxHz: 740e6 + i * 400e6,
+  maxTuneUpPowerDbm: 2 + 2 * i,
+  dutyCycle: 1,
+  antennaId: 'A1',
+}));
 const usePositions = [
   { id: 'belt', kind: 'body-worn' as const, separations: [{ antennaId: 'A1', separationM: 0.01 }] },
   { id: 'desk', kind: 'far-field' as const, separations: [{ antennaId: 'A1', separationM: 0.3 }] },
 ];
-const markets = [{ regime: 'fcc' as const, tier: 'general' as const }, { regime: 'eu' as const, tier: 'general' as const }];
+const markets = [
+  { regime: 'fcc' as const, tier: 'general' as const },
+  { regime: 'eu' as const, tier: 'general' as const },
+];
 const output = screenParsed(screeningInput.parse({ markets, antennas, transmitters, usePositions }));
 const SCREENING = { ...output, filingId: 9, version: 1, engineVersion: 'e', ruleSetVersion: 'r', computedAt: '2026-03-01T10:00:00.000Z', complete: true, cautions: SCREENING_CAUTIONS };
 const FILING = {

@@ -55,7 +55,15 @@ describe('UsePositionsStep: reduced powers', () => {
     await screen.findByText(/Saved/, {}, { timeout: 4000 });
     const put = calls.filter((c) => c.method === 'PUT');
     expect(put.at(-1)!.body).toEqual({
-      usePositions: [{ rowId: 3, id: 'hotspot-back', kind: 'hotspot', separations: [{ antennaId: 'ANT-1', separationM: 0.01 }], powerModes: [{ transmitterId: 'LTE-B4', reducedTuneUpPowerDbm: 18.5, trigger: 'hotspot-back-off' }] }],
+      usePositions: [
+        {
+          rowId: 3,
+          id: 'hotspot-back',
+          kind: 'hotspot',
+          separations: [{ antennaId: 'ANT-1', separationM: 0.01 }],
+          powerModes: [{ transmitterId: 'LTE-B4', reducedTuneUpPowerDbm: 18.5, trigger: 'hotspot-back-off' }],
+        },
+      ],
     });
     // One transmitter, already reduced here: nothing more to add.
     expect(screen.queryByTestId('pos-0-add-mode')).toBeNull();
@@ -64,7 +72,9 @@ describe('UsePositionsStep: reduced powers', () => {
   it('says at the field when the reduced power is not below the maximum, and shows the server’s message there', async () => {
     const message = 'A reduced power must be below LTE-B4’s maximum tune-up power (24 dBm).';
     installFetchMock({
-      'PUT /api/filings/9/steps/use-positions': apiError(422, 'invalid_input', 'Some fields need fixing; your input is kept as a draft until they do.', { 'usePositions.0.powerModes.0.reducedTuneUpPowerDbm': message }),
+      'PUT /api/filings/9/steps/use-positions': apiError(422, 'invalid_input', 'Some fields need fixing; your input is kept as a draft until they do.', {
+        'usePositions.0.powerModes.0.reducedTuneUpPowerDbm': message,
+      }),
       'GET /api/filings/9': { status: 200, body: { filing: FILING } },
     });
     renderWithClient(<UsePositionsStep filing={FILING} />);

@@ -74,7 +74,5 @@ const elapsedMs = now() - t0;
 latenciesMs.sort((a, b) => a - b);
 const pct = (p) => latenciesMs[Math.min(latenciesMs.length - 1, Math.max(0, Math.ceil((p / 100) * latenciesMs.length) - 1))] ?? NaN;
 const errors = latenciesMs.length - (statuses[200] ?? 0);
-console.log(
-  JSON.stringify({ requests: latenciesMs.length, errors, perSecond: (latenciesMs.length * 1000) / elapsedMs, p50Ms: pct(50), p95Ms: pct(95), p99Ms: pct(99), statuses }),
-);
+console.log(JSON.stringify({ requests: latenciesMs.length, errors, perSecond: (latenciesMs.length * 1000) / elapsedMs, p50Ms: pct(50), p95Ms: pct(95), p99Ms: pct(99), statuses }));
 agent.destroy();

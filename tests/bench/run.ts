@@ -12,8 +12,10 @@ const filter = process.argv[2];
 const cases = filter ? benchCases.filter((c) => c.name.includes(filter)) : benchCases;
 
 console.log(
-  `Node ${process.version}, ${os.cpus().length} × ${os.cpus()[0]?.model ?? 'cpu'}, load average ${os.loadavg().map((l) => l.toFixed(2)).join(' ')} ` +
-    '(figures are only comparable on an otherwise idle machine)',
+  `Node ${process.version}, ${os.cpus().length} × ${os.cpus()[0]?.model ?? 'cpu'}, load average ${os
+    .loadavg()
+    .map((l) => l.toFixed(2))
+    .join(' ')} ` + '(figures are only comparable on an otherwise idle machine)',
 );
 async function main() {
   for (const c of cases) {

@@ -8,15 +8,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import {
-  computeIsedRfExemption,
-  computeIsedSarExemption,
-  isedRfBreakpointsHz,
-  isedRfExemptionEirpW,
-  isedSarExemptionMw,
-  isedSarTableFrequenciesHz,
-  mostRestrictiveInBand,
-} from '../../calc/limits';
+import { computeIsedRfExemption, computeIsedSarExemption, isedRfBreakpointsHz, isedRfExemptionEirpW, isedSarExemptionMw, isedSarTableFrequenciesHz, mostRestrictiveInBand } from '../../calc/limits';
 import { CalcRangeError } from '../../calc/types';
 
 describe('ised-sar-exemption — RSS-102 Issue 5 §2.5.1 Table 1', () => {

@@ -7,14 +7,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import {
-  computeKdbSarTestExclusion,
-  kdbCriticalFrequenciesHz,
-  kdbEstimatedSarWPerKg,
-  kdbExclusionThreshold,
-  kdbExclusionThresholdMw,
-  kdbTestRatio,
-} from '../../calc/limits';
+import { computeKdbSarTestExclusion, kdbCriticalFrequenciesHz, kdbEstimatedSarWPerKg, kdbExclusionThreshold, kdbExclusionThresholdMw, kdbTestRatio } from '../../calc/limits';
 import { CalcRangeError } from '../../calc/types';
 
 describe('kdb-sar-test-exclusion — KDB 447498 D01 v06 §4.3.1', () => {
@@ -66,7 +59,7 @@ describe('kdb-sar-test-exclusion — KDB 447498 D01 v06 §4.3.1', () => {
   });
   it('kdbCriticalFrequenciesHz adds the interior minimum of b) 1): 60 mm, 1-g → f = (3.75·3/10)^(2/3) GHz', () => {
     const crit = kdbCriticalFrequenciesHz(0.06);
-    const fMin = (3.75 * 3 / 10) ** (2 / 3) * 1e9;
+    const fMin = ((3.75 * 3) / 10) ** (2 / 3) * 1e9;
     expect(crit).toEqual([100e6, fMin, 1.5e9]);
     const t = (f: number) => kdbExclusionThresholdMw(f, 0.06);
     expect(t(fMin)).toBeLessThan(t(fMin * 0.95));
@@ -74,16 +67,10 @@ describe('kdb-sar-test-exclusion — KDB 447498 D01 v06 §4.3.1', () => {
   });
   it('property: the threshold rises with separation (all branches, 1-g and 10-g)', () => {
     fc.assert(
-      fc.property(
-        fc.double({ min: 100e3, max: 6e9, noNaN: true }),
-        fc.integer({ min: 0, max: 199 }),
-        fc.integer({ min: 0, max: 199 }),
-        fc.boolean(),
-        (f, a, b, extremity) => {
-          const [lo, hi] = a <= b ? [a, b] : [b, a];
-          expect(kdbExclusionThresholdMw(f, lo / 1000, extremity)).toBeLessThanOrEqual(kdbExclusionThresholdMw(f, hi / 1000, extremity) * (1 + 1e-12));
-        },
-      ),
+      fc.property(fc.double({ min: 100e3, max: 6e9, noNaN: true }), fc.integer({ min: 0, max: 199 }), fc.integer({ min: 0, max: 199 }), fc.boolean(), (f, a, b, extremity) => {
+        const [lo, hi] = a <= b ? [a, b] : [b, a];
+        expect(kdbExclusionThresholdMw(f, lo / 1000, extremity)).toBeLessThanOrEqual(kdbExclusionThresholdMw(f, hi / 1000, extremity) * (1 + 1e-12));
+      }),
     );
   });
 });

@@ -15,7 +15,13 @@ import { describe, expect, it } from 'vitest';
 import { computeLabResults, labChecks, labResultsInput, type LabResultsInputRaw } from '../../calc/lab/lab-results';
 import { runCalculation } from '../../calc/registry';
 
-const screeningRow = (transmitterId: string, usePositionId: string, regime: 'fcc' | 'eu', result: 'exempt' | 'evaluate-sar', extra: Partial<{ frequencyHz: number; separationM: number; timeAveragedPowerMw: number }> = {}) => ({
+const screeningRow = (
+  transmitterId: string,
+  usePositionId: string,
+  regime: 'fcc' | 'eu',
+  result: 'exempt' | 'evaluate-sar',
+  extra: Partial<{ frequencyHz: number; separationM: number; timeAveragedPowerMw: number }> = {},
+) => ({
   transmitterId,
   usePositionId,
   regime,
@@ -40,8 +46,22 @@ function filing(): LabResultsInputRaw {
       { id: 'WLAN', frequencyMinHz: 2.412e9, frequencyMaxHz: 2.462e9, maxTuneUpPowerDbm: 18, dutyCycle: 1, antennaId: 'A2' },
     ],
     usePositions: [
-      { id: 'P-HEAD', kind: 'head', separations: [{ antennaId: 'A1', separationM: 0 }, { antennaId: 'A2', separationM: 0 }] },
-      { id: 'P-HS', kind: 'hotspot', separations: [{ antennaId: 'A1', separationM: 0.01 }, { antennaId: 'A2', separationM: 0.01 }] },
+      {
+        id: 'P-HEAD',
+        kind: 'head',
+        separations: [
+          { antennaId: 'A1', separationM: 0 },
+          { antennaId: 'A2', separationM: 0 },
+        ],
+      },
+      {
+        id: 'P-HS',
+        kind: 'hotspot',
+        separations: [
+          { antennaId: 'A1', separationM: 0.01 },
+          { antennaId: 'A2', separationM: 0.01 },
+        ],
+      },
     ],
     simultaneous: [['WWAN', 'WLAN']],
     screening: [
@@ -57,11 +77,65 @@ function filing(): LabResultsInputRaw {
     ],
     measurements: [
       // 24 − 23.2 = 0.8 dB → ×1.202264; 0.92 → 1.106083 W/kg (1 g), 0.55 → 0.661245 W/kg (10 g).
-      { id: 'M1', transmitterId: 'WWAN', usePositionId: 'P-HEAD', testPosition: 'left cheek', channel: '9400', frequencyHz: 1.88e9, testSeparationM: 0, measuredPowerDbm: 23.2, sar1gWPerKg: 0.92, sar10gWPerKg: 0.55, repeatSarWPerKg: [0.9], driftDb: -0.05, testDate: '2026-10-12', peakXMm: 10, peakYMm: 20, liquidCheckId: 'L1', systemCheckId: 'S1' },
+      {
+        id: 'M1',
+        transmitterId: 'WWAN',
+        usePositionId: 'P-HEAD',
+        testPosition: 'left cheek',
+        channel: '9400',
+        frequencyHz: 1.88e9,
+        testSeparationM: 0,
+        measuredPowerDbm: 23.2,
+        sar1gWPerKg: 0.92,
+        sar10gWPerKg: 0.55,
+        repeatSarWPerKg: [0.9],
+        driftDb: -0.05,
+        testDate: '2026-10-12',
+        peakXMm: 10,
+        peakYMm: 20,
+        liquidCheckId: 'L1',
+        systemCheckId: 'S1',
+      },
       // 0.5 dB → ×1.122018, duty 1/0.98 → ×1.020408: ×1.144917; 0.40 → 0.457967, 0.20 → 0.228983.
-      { id: 'M2', transmitterId: 'WLAN', usePositionId: 'P-HEAD', testPosition: 'left cheek', channel: '6', frequencyHz: 2.437e9, testSeparationM: 0, measuredPowerDbm: 17.5, tuneUpPowerDbm: 18, testDutyCycle: 0.98, sar1gWPerKg: 0.4, sar10gWPerKg: 0.2, driftDb: 0.1, testDate: '2026-10-12', peakXMm: 40, peakYMm: 20, liquidCheckId: 'L2', systemCheckId: 'S1' },
+      {
+        id: 'M2',
+        transmitterId: 'WLAN',
+        usePositionId: 'P-HEAD',
+        testPosition: 'left cheek',
+        channel: '6',
+        frequencyHz: 2.437e9,
+        testSeparationM: 0,
+        measuredPowerDbm: 17.5,
+        tuneUpPowerDbm: 18,
+        testDutyCycle: 0.98,
+        sar1gWPerKg: 0.4,
+        sar10gWPerKg: 0.2,
+        driftDb: 0.1,
+        testDate: '2026-10-12',
+        peakXMm: 40,
+        peakYMm: 20,
+        liquidCheckId: 'L2',
+        systemCheckId: 'S1',
+      },
       // Measured 24.5 dBm above the 24 dBm tune-up: blocking, scale 1. Drift 0.3 dB = +7.15 % > 5 %.
-      { id: 'M3', transmitterId: 'WWAN', usePositionId: 'P-HS', testPosition: 'back, 10 mm', channel: '9400', frequencyHz: 1.88e9, testSeparationM: 0.01, measuredPowerDbm: 24.5, sar1gWPerKg: 1.2, sar10gWPerKg: 0.7, driftDb: 0.3, testDate: '2026-10-13', peakXMm: 10, peakYMm: 20, liquidCheckId: 'L1', systemCheckId: 'S1' },
+      {
+        id: 'M3',
+        transmitterId: 'WWAN',
+        usePositionId: 'P-HS',
+        testPosition: 'back, 10 mm',
+        channel: '9400',
+        frequencyHz: 1.88e9,
+        testSeparationM: 0.01,
+        measuredPowerDbm: 24.5,
+        sar1gWPerKg: 1.2,
+        sar10gWPerKg: 0.7,
+        driftDb: 0.3,
+        testDate: '2026-10-13',
+        peakXMm: 10,
+        peakYMm: 20,
+        liquidCheckId: 'L1',
+        systemCheckId: 'S1',
+      },
     ],
     liquidChecks: [
       { id: 'L1', date: '2026-10-12', frequencyHz: 1.88e9, relativePermittivity: 41.0, conductivitySPerM: 1.45, temperatureC: 21.5 },
@@ -221,7 +295,19 @@ describe('lab-results: co-transmission (KDB 447498 D01 v06 §4.3.2, from memory)
 
   it('hotspot with both measured: 1.2 + 0.6 = 1.8 > 1.6; SPLSR 1.8^1.5/70 mm = 0.0345 → 0.03 ≤ 0.04', () => {
     const raw = filing();
-    raw.measurements.push({ id: 'M4', transmitterId: 'WLAN', usePositionId: 'P-HS', frequencyHz: 2.437e9, testSeparationM: 0.01, measuredPowerDbm: 18, sar1gWPerKg: 0.6, driftDb: 0, testDate: '2026-10-13', peakXMm: 80, peakYMm: 20 });
+    raw.measurements.push({
+      id: 'M4',
+      transmitterId: 'WLAN',
+      usePositionId: 'P-HS',
+      frequencyHz: 2.437e9,
+      testSeparationM: 0.01,
+      measuredPowerDbm: 18,
+      sar1gWPerKg: 0.6,
+      driftDb: 0,
+      testDate: '2026-10-13',
+      peakXMm: 80,
+      peakYMm: 20,
+    });
     const c = run(raw).coTransmission.find((x) => x.usePositionId === 'P-HS' && x.regime === 'fcc')!;
     expect(c.sum).toBeCloseTo(1.8, 9);
     expect(c.pairs[0].distanceMm).toBeCloseTo(70, 9);

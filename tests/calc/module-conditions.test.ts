@@ -8,14 +8,31 @@ import { moduleConditionWarnings, screenDevice } from '../../calc/screening';
 
 const input = {
   markets: [{ regime: 'fcc' as const, tier: 'general' as const }],
-  antennas: [{ id: 'A', gainDbi: 0 }, { id: 'B', gainDbi: 0 }],
+  antennas: [
+    { id: 'A', gainDbi: 0 },
+    { id: 'B', gainDbi: 0 },
+  ],
   transmitters: [
     { id: 'MOD-LTE', frequencyMinHz: 1850e6, frequencyMaxHz: 1910e6, maxTuneUpPowerDbm: 23, dutyCycle: 1, antennaId: 'A', moduleId: 'M1' },
     { id: 'HOST-BT', frequencyMinHz: 2402e6, frequencyMaxHz: 2480e6, maxTuneUpPowerDbm: 4, dutyCycle: 1, antennaId: 'B' },
   ],
   usePositions: [
-    { id: 'body', kind: 'body-worn' as const, separations: [{ antennaId: 'A', separationM: 0.01 }, { antennaId: 'B', separationM: 0 }] },
-    { id: 'desk', kind: 'body-worn' as const, separations: [{ antennaId: 'A', separationM: 0.015 }, { antennaId: 'B', separationM: 0 }] },
+    {
+      id: 'body',
+      kind: 'body-worn' as const,
+      separations: [
+        { antennaId: 'A', separationM: 0.01 },
+        { antennaId: 'B', separationM: 0 },
+      ],
+    },
+    {
+      id: 'desk',
+      kind: 'body-worn' as const,
+      separations: [
+        { antennaId: 'A', separationM: 0.015 },
+        { antennaId: 'B', separationM: 0 },
+      ],
+    },
   ],
   modules: [{ id: 'M1', minSeparationM: 0.015 }],
 };

@@ -14,12 +14,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { EPSILON0_F_PER_M, FREE_SPACE_IMPEDANCE_OHM, MU0_H_PER_M } from '../../calc/em/constants';
 import { mediumProperties } from '../../calc/em/medium';
-import {
-  planeWaveLayers,
-  planeWaveLayersCalculation,
-  planeWaveLayersInput,
-  type PlaneWaveLayersInput,
-} from '../../calc/em/plane-wave-layers';
+import { planeWaveLayers, planeWaveLayersCalculation, planeWaveLayersInput, type PlaneWaveLayersInput } from '../../calc/em/plane-wave-layers';
 import { TISSUE_IDS, tissueDielectric } from '../../calc/em/tissue-properties';
 import { CalcRangeError } from '../../calc/types';
 
@@ -73,11 +68,25 @@ function solveByBoundaryConditions(f: number, slabs: Slab[]) {
   const eta0: C = [FREE_SPACE_IMPEDANCE_OHM, 0];
   // left side of interface k (k = 0: incident free space; else back face of layer k−1)
   const leftE = (k: number): Side =>
-    k === 0 ? { coef: new Map([[0, [1, 0]]]), k: [1, 0] } : { coef: new Map([[aIdx(k - 1), p[k - 1]], [bIdx(k - 1), [1, 0]]]), k: [0, 0] };
+    k === 0
+      ? { coef: new Map([[0, [1, 0]]]), k: [1, 0] }
+      : {
+          coef: new Map([
+            [aIdx(k - 1), p[k - 1]],
+            [bIdx(k - 1), [1, 0]],
+          ]),
+          k: [0, 0],
+        };
   const leftH = (k: number): Side =>
     k === 0
       ? { coef: new Map([[0, cmul([-1, 0], inv(eta0))]]), k: inv(eta0) }
-      : { coef: new Map([[aIdx(k - 1), cmul(p[k - 1], inv(eta[k - 1]))], [bIdx(k - 1), cmul([-1, 0], inv(eta[k - 1]))]]), k: [0, 0] };
+      : {
+          coef: new Map([
+            [aIdx(k - 1), cmul(p[k - 1], inv(eta[k - 1]))],
+            [bIdx(k - 1), cmul([-1, 0], inv(eta[k - 1]))],
+          ]),
+          k: [0, 0],
+        };
   for (let k = 0; k <= slabs.length; k++) {
     if (k === slabs.length) {
       if (semi) break;
@@ -87,8 +96,20 @@ function solveByBoundaryConditions(f: number, slabs: Slab[]) {
       eq(leftE(k), { coef: new Map([[tIdx, [1, 0]]]), k: [0, 0] });
       eq(leftH(k), { coef: new Map([[tIdx, inv(eta[k])]]), k: [0, 0] });
     } else {
-      eq(leftE(k), { coef: new Map([[aIdx(k), [1, 0]], [bIdx(k), p[k]]]), k: [0, 0] });
-      eq(leftH(k), { coef: new Map([[aIdx(k), inv(eta[k])], [bIdx(k), cmul([-1, 0], cmul(p[k], inv(eta[k])))]]), k: [0, 0] });
+      eq(leftE(k), {
+        coef: new Map([
+          [aIdx(k), [1, 0]],
+          [bIdx(k), p[k]],
+        ]),
+        k: [0, 0],
+      });
+      eq(leftH(k), {
+        coef: new Map([
+          [aIdx(k), inv(eta[k])],
+          [bIdx(k), cmul([-1, 0], cmul(p[k], inv(eta[k])))],
+        ]),
+        k: [0, 0],
+      });
     }
   }
   const x = gaussianSolve(rows, rhs);
@@ -160,9 +181,7 @@ const tissueLayer = fc.record({
 const anyLayer = fc.oneof(materialLayer, tissueLayer);
 const stack = fc
   .tuple(fc.array(anyLayer, { minLength: 1, maxLength: 4 }), fc.boolean())
-  .map(([layers, semiInfinite]) =>
-    semiInfinite ? layers.map((l, i) => (i === layers.length - 1 ? { ...l, thicknessM: null } : l)) : layers,
-  );
+  .map(([layers, semiInfinite]) => (semiInfinite ? layers.map((l, i) => (i === layers.length - 1 ? { ...l, thicknessM: null } : l)) : layers));
 const scenario = fc.record({ frequencyHz: frequency, incidentPowerDensityWPerM2: fc.double({ min: 0.1, max: 100, noNaN: true }), layers: stack });
 
 type Layer = PlaneWaveLayersInput['layers'][number];
@@ -231,7 +250,10 @@ describe('plane-wave-layers: surface-faced cube averages', () => {
       { tissue: 'muscle' as const, thicknessM: null },
     ];
     const r = planeWaveLayers({ frequencyHz: 1.8e9, incidentPowerDensityWPerM2: 10, layers });
-    for (const [key, massKg] of [['1g', 1e-3], ['10g', 1e-2]] as const) {
+    for (const [key, massKg] of [
+      ['1g', 1e-3],
+      ['10g', 1e-2],
+    ] as const) {
       const s = r.cubes[key].sideM;
       const column = 1109 * Math.min(s, 0.0015) + 911 * Math.max(0, Math.min(s, 0.0055) - 0.0015) + 1090 * Math.max(0, s - 0.0055);
       expect((s * s * column) / massKg).toBeCloseTo(1, 12);
@@ -250,7 +272,10 @@ describe('plane-wave-layers: surface-faced cube averages', () => {
       ],
     };
     const r = planeWaveLayers(input);
-    const ref = solveByBoundaryConditions(input.frequencyHz, input.layers.map((l) => slabOf(l, input.frequencyHz)));
+    const ref = solveByBoundaryConditions(
+      input.frequencyHz,
+      input.layers.map((l) => slabOf(l, input.frequencyHz)),
+    );
     const s = r.cubes['10g'].sideM;
     let absorbed = 0;
     let column = 0;
@@ -265,9 +290,7 @@ describe('plane-wave-layers: surface-faced cube averages', () => {
   });
 
   it('a cube larger than a finite stack is flagged and noted (free space behind has no mass; our own convention)', () => {
-    const out = planeWaveLayersCalculation.compute(
-      planeWaveLayersInput.parse({ frequencyHz: 9e8, incidentPowerDensityWPerM2: 10, layers: [{ tissue: 'muscle', thicknessM: 0.005 }] }),
-    );
+    const out = planeWaveLayersCalculation.compute(planeWaveLayersInput.parse({ frequencyHz: 9e8, incidentPowerDensityWPerM2: 10, layers: [{ tissue: 'muscle', thicknessM: 0.005 }] }));
     expect(out.cubes['10g'].extendsBeyondStack).toBe(true);
     expect(out.cubes['10g'].sideM ** 2 * 1090 * 0.005).toBeCloseTo(0.01, 12);
     expect(out.derivation.notes.join(' ')).toMatch(/10g cube .* reaches past the finite stack/);
@@ -289,7 +312,10 @@ describe('plane-wave-layers: profile and report (issue 3 output contract)', () =
     const r = planeWaveLayers(input);
     expect(r.sarProfile.length).toBeGreaterThanOrEqual(200);
     for (let i = 1; i < r.sarProfile.length; i++) expect(r.sarProfile[i].depthM).toBeGreaterThanOrEqual(r.sarProfile[i - 1].depthM);
-    for (const [i, z] of [[1, 0.001], [2, 0.011]] as const) {
+    for (const [i, z] of [
+      [1, 0.001],
+      [2, 0.011],
+    ] as const) {
       expect(r.sarProfile.some((p) => p.layerIndex === i - 1 && p.depthM === z)).toBe(true);
       expect(r.sarProfile.some((p) => p.layerIndex === i && p.depthM === z)).toBe(true);
     }
@@ -342,7 +368,10 @@ describe('plane-wave-layers: bad input names what to fix (issue 3 error contract
     const bad = planeWaveLayersInput.safeParse({
       frequencyHz: 9e8,
       incidentPowerDensityWPerM2: 1,
-      layers: [{ tissue: 'fat', thicknessM: null }, { tissue: 'muscle', thicknessM: null }],
+      layers: [
+        { tissue: 'fat', thicknessM: null },
+        { tissue: 'muscle', thicknessM: null },
+      ],
     });
     expect(bad.success).toBe(false);
     expect(bad.error!.issues.map((i) => i.path)).toEqual([['layers', 0, 'thicknessM']]);
@@ -379,7 +408,10 @@ describe('plane-wave-layers: invariants (fast-check)', () => {
     fc.assert(
       fc.property(scenario, (input) => {
         const r = planeWaveLayers(input);
-        const ref = solveByBoundaryConditions(input.frequencyHz, input.layers.map((l) => slabOf(l, input.frequencyHz)));
+        const ref = solveByBoundaryConditions(
+          input.frequencyHz,
+          input.layers.map((l) => slabOf(l, input.frequencyHz)),
+        );
         expect(Math.abs(r.reflectionCoefficient.re - ref.reflection[0])).toBeLessThan(1e-9);
         expect(Math.abs(r.reflectionCoefficient.im - ref.reflection[1])).toBeLessThan(1e-9);
         const losslessHalfSpace = input.layers.at(-1)!.thicknessM === null && r.layers.at(-1)!.attenuationNpPerM === 0;
@@ -417,19 +449,13 @@ describe('plane-wave-layers: invariants (fast-check)', () => {
 
   it('a perfect conductor (σ = 1e14 S/m) reflects everything, alone or behind a lossless layer (Pozar §1.7 — from memory)', () => {
     fc.assert(
-      fc.property(
-        frequency,
-        fc.boolean(),
-        fc.double({ min: 1, max: 10, noNaN: true }),
-        fc.double({ min: 1e-4, max: 0.03, noNaN: true }),
-        (f, withCoat, er, d) => {
-          const conductor = { thicknessM: null, relativePermittivity: 1, conductivitySPerM: 1e14, densityKgPerM3: 8960 };
-          const coat = { thicknessM: d, relativePermittivity: er, conductivitySPerM: 0, densityKgPerM3: 1000 };
-          const r = planeWaveLayers({ frequencyHz: f, incidentPowerDensityWPerM2: 1, layers: withCoat ? [coat, conductor] : [conductor] });
-          expect(r.reflectedFraction).toBeGreaterThan(1 - 1e-5);
-          expect(r.transmittedFraction).toBe(0);
-        },
-      ),
+      fc.property(frequency, fc.boolean(), fc.double({ min: 1, max: 10, noNaN: true }), fc.double({ min: 1e-4, max: 0.03, noNaN: true }), (f, withCoat, er, d) => {
+        const conductor = { thicknessM: null, relativePermittivity: 1, conductivitySPerM: 1e14, densityKgPerM3: 8960 };
+        const coat = { thicknessM: d, relativePermittivity: er, conductivitySPerM: 0, densityKgPerM3: 1000 };
+        const r = planeWaveLayers({ frequencyHz: f, incidentPowerDensityWPerM2: 1, layers: withCoat ? [coat, conductor] : [conductor] });
+        expect(r.reflectedFraction).toBeGreaterThan(1 - 1e-5);
+        expect(r.transmittedFraction).toBe(0);
+      }),
     );
   });
 

@@ -28,8 +28,22 @@ function passing(): ReadinessInput {
     uncertainty: { required: true, given: true },
   };
   const positions = [
-    { id: 'body', kind: 'body-worn' as const, separations: [{ antennaId: 'A1', separationM: 0.01 }, { antennaId: 'A2', separationM: 0.01 }] },
-    { id: 'hotspot-top', kind: 'hotspot' as const, separations: [{ antennaId: 'A1', separationM: 0.01 }, { antennaId: 'A2', separationM: 0.03 }] },
+    {
+      id: 'body',
+      kind: 'body-worn' as const,
+      separations: [
+        { antennaId: 'A1', separationM: 0.01 },
+        { antennaId: 'A2', separationM: 0.01 },
+      ],
+    },
+    {
+      id: 'hotspot-top',
+      kind: 'hotspot' as const,
+      separations: [
+        { antennaId: 'A1', separationM: 0.01 },
+        { antennaId: 'A2', separationM: 0.03 },
+      ],
+    },
   ];
   const rows = positions.flatMap((p) =>
     (['fcc', 'eu'] as const).flatMap((regime) => [
@@ -257,7 +271,8 @@ const cases: { id: string; why: string; breaks: (f: ReadinessInput) => void; fin
   {
     id: 'report-agrees',
     why: 'common practice: the report read back states the filing’s reported SAR',
-    breaks: (f) => void f.reportFindings!.push({ kind: 'reported-sar', text: '“SAR report”: Report page 9 says 1.12 W/kg for body-worn; the filing’s highest reported is 1.19 W/kg.', explained: false }),
+    breaks: (f) =>
+      void f.reportFindings!.push({ kind: 'reported-sar', text: '“SAR report”: Report page 9 says 1.12 W/kg for body-worn; the filing’s highest reported is 1.19 W/kg.', explained: false }),
     finding: /page 9 says 1\.12 W\/kg/,
     blocks: true,
   },
@@ -358,7 +373,20 @@ describe('rules that do not apply', () => {
     const list = evaluateReadiness(f);
     const na = list.items.filter((i) => i.status === 'not-applicable').map((i) => i.id);
     expect(na).toEqual(
-      expect.arrayContaining(['sar-measured', 'co-transmission-evaluated', 'evidence-present', 'manual-separation', 'hotspot-edges', 'hotspot-edge-distances', 'uncertainty-given', 'tune-up-consistent', 'report-agrees', 'lab-records-complete', 'measurements-match-device', 'tested-at-use-separation']),
+      expect.arrayContaining([
+        'sar-measured',
+        'co-transmission-evaluated',
+        'evidence-present',
+        'manual-separation',
+        'hotspot-edges',
+        'hotspot-edge-distances',
+        'uncertainty-given',
+        'tune-up-consistent',
+        'report-agrees',
+        'lab-records-complete',
+        'measurements-match-device',
+        'tested-at-use-separation',
+      ]),
     );
     // Nothing is passed silently: the body-worn position's manual separation is asked for (a warning).
     expect(list.items.find((i) => i.id === 'manual-separation-stated')!.status).toBe('fail');

@@ -56,15 +56,10 @@ describe('reported-sar', () => {
 
   it('property: reported SAR ≥ measured whenever tune-up ≥ measured power (issue 3 invariant)', () => {
     fc.assert(
-      fc.property(
-        fc.double({ min: 0.001, max: 20, noNaN: true }),
-        fc.double({ min: -10, max: 40, noNaN: true }),
-        fc.double({ min: 0, max: 10, noNaN: true }),
-        (sar, measuredDbm, headroomDb) => {
-          const r = reportedSar({ measuredSarWPerKg: sar, measuredPowerDbm: measuredDbm, tuneUpPowerDbm: measuredDbm + headroomDb });
-          return r.reportedSarWPerKg >= sar && r.scalingFactor >= 1;
-        },
-      ),
+      fc.property(fc.double({ min: 0.001, max: 20, noNaN: true }), fc.double({ min: -10, max: 40, noNaN: true }), fc.double({ min: 0, max: 10, noNaN: true }), (sar, measuredDbm, headroomDb) => {
+        const r = reportedSar({ measuredSarWPerKg: sar, measuredPowerDbm: measuredDbm, tuneUpPowerDbm: measuredDbm + headroomDb });
+        return r.reportedSarWPerKg >= sar && r.scalingFactor >= 1;
+      }),
     );
   });
 

@@ -21,10 +21,22 @@ const pTh = (dCm: number) => {
 
 const device = (antennaUse: 'mimo' | 'switched', seps: [number, number]) => ({
   markets: [{ regime: 'fcc' as const, tier: 'general' as const }],
-  antennas: [{ id: 'A', gainDbi: 0 }, { id: 'B', gainDbi: 0 }],
+  antennas: [
+    { id: 'A', gainDbi: 0 },
+    { id: 'B', gainDbi: 0 },
+  ],
   // 10 dBm = 10 mW per stream, one frequency, continuous.
   transmitters: [{ id: 'WLAN', frequencyMinHz: 2.45e9, frequencyMaxHz: 2.45e9, maxTuneUpPowerDbm: 10, dutyCycle: 1, antennaId: 'A', moreAntennaIds: ['B'], antennaUse }],
-  usePositions: [{ id: 'body', kind: 'body-worn' as const, separations: [{ antennaId: 'A', separationM: seps[0] }, { antennaId: 'B', separationM: seps[1] }] }],
+  usePositions: [
+    {
+      id: 'body',
+      kind: 'body-worn' as const,
+      separations: [
+        { antennaId: 'A', separationM: seps[0] },
+        { antennaId: 'B', separationM: seps[1] },
+      ],
+    },
+  ],
 });
 
 describe('several antennas on one transmitter', () => {
@@ -41,7 +53,9 @@ describe('several antennas on one transmitter', () => {
     expect(row.marginDb).toBeCloseTo(10 * Math.log10(pTh(0.5) / 20), 6);
     expect(row.marginDb!).toBeCloseTo(-8.63, 2);
     expect(row.derivation.inputs.mimoStreams.value).toBe(2);
-    expect(row.derivation.notes.join(' ')).toMatch(/MIMO: 2 streams at once, powers added.*least favourable, B.*A at 10 mm: SAR evaluation needed, margin -2\.90 dB; B at 5 mm: SAR evaluation needed, margin -8\.63 dB/);
+    expect(row.derivation.notes.join(' ')).toMatch(
+      /MIMO: 2 streams at once, powers added.*least favourable, B.*A at 10 mm: SAR evaluation needed, margin -2\.90 dB; B at 5 mm: SAR evaluation needed, margin -8\.63 dB/,
+    );
   });
 
   it('switched: one antenna at a time at 10 mW; A at 10 mm would be exempt (+0.11 dB), B at 5 mm is not', () => {

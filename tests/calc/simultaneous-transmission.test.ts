@@ -110,7 +110,13 @@ describe('simultaneous-transmission (KDB 447498 D01 v06 §4.3.2, from memory)', 
 
   it('rejects duplicate ids', () => {
     expect(() =>
-      simultaneousTransmission({ limitWPerKg: 1.6, transmitters: [{ id: 'a', sarWPerKg: 1 }, { id: 'a', sarWPerKg: 1 }] }),
+      simultaneousTransmission({
+        limitWPerKg: 1.6,
+        transmitters: [
+          { id: 'a', sarWPerKg: 1 },
+          { id: 'a', sarWPerKg: 1 },
+        ],
+      }),
     ).toThrow(/unique/);
   });
 });

@@ -8,13 +8,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { CalcRangeError } from '../../calc/types';
-import {
-  TISSUE_IDS,
-  tissueDielectric,
-  tissueProperties,
-  tissuePropertiesInput,
-  type TissueId,
-} from '../../calc/em/tissue-properties';
+import { TISSUE_IDS, tissueDielectric, tissueProperties, tissuePropertiesInput, type TissueId } from '../../calc/em/tissue-properties';
 
 // Gabriel 1996 Cole-Cole model, computed: [εr, σ] at 900 / 1800 / 2450 MHz
 const TABLE: Record<TissueId, [number, number, number, number, number, number]> = {
@@ -49,9 +43,7 @@ const DENSITY: Record<TissueId, number> = {
 const run = (raw: unknown) => tissueProperties.compute(tissuePropertiesInput.parse(raw));
 
 describe('tissue-properties: Gabriel 1996 values (Gabriel 1996 Cole-Cole model, computed)', () => {
-  const cases = TISSUE_IDS.flatMap((tissue) =>
-    [900e6, 1800e6, 2450e6].map((f, k) => ({ tissue, mhz: f / 1e6, f, er: TABLE[tissue][2 * k], s: TABLE[tissue][2 * k + 1] })),
-  );
+  const cases = TISSUE_IDS.flatMap((tissue) => [900e6, 1800e6, 2450e6].map((f, k) => ({ tissue, mhz: f / 1e6, f, er: TABLE[tissue][2 * k], s: TABLE[tissue][2 * k + 1] })));
   it.each(cases)('$tissue at $mhz MHz: εr $er, σ $s S/m', ({ tissue, f, er, s }) => {
     const r = run({ tissue, frequencyHz: f });
     expect(r.relativePermittivity).toBeCloseTo(er, 4);
@@ -101,21 +93,16 @@ describe('tissue-properties: physical invariants (fast-check)', () => {
   // (textbook dielectric relaxation; holds for these parameter sets, common practice).
   it('εr decreases and σ increases with frequency, and both stay positive', () => {
     fc.assert(
-      fc.property(
-        fc.constantFrom(...TISSUE_IDS),
-        fc.double({ min: 1, max: 11, noNaN: true }),
-        fc.double({ min: 0.01, max: 1, noNaN: true }),
-        (tissue, logF, step) => {
-          const f1 = Math.min(10 ** logF, 100e9 / 1.03);
-          const f2 = Math.min(f1 * 10 ** step, 100e9);
-          const a = tissueDielectric(tissue, f1);
-          const b = tissueDielectric(tissue, f2);
-          expect(a.relativePermittivity).toBeGreaterThan(0);
-          expect(a.conductivitySPerM).toBeGreaterThan(0);
-          expect(b.relativePermittivity).toBeLessThanOrEqual(a.relativePermittivity * (1 + 1e-12));
-          expect(b.conductivitySPerM).toBeGreaterThanOrEqual(a.conductivitySPerM * (1 - 1e-12));
-        },
-      ),
+      fc.property(fc.constantFrom(...TISSUE_IDS), fc.double({ min: 1, max: 11, noNaN: true }), fc.double({ min: 0.01, max: 1, noNaN: true }), (tissue, logF, step) => {
+        const f1 = Math.min(10 ** logF, 100e9 / 1.03);
+        const f2 = Math.min(f1 * 10 ** step, 100e9);
+        const a = tissueDielectric(tissue, f1);
+        const b = tissueDielectric(tissue, f2);
+        expect(a.relativePermittivity).toBeGreaterThan(0);
+        expect(a.conductivitySPerM).toBeGreaterThan(0);
+        expect(b.relativePermittivity).toBeLessThanOrEqual(a.relativePermittivity * (1 + 1e-12));
+        expect(b.conductivitySPerM).toBeGreaterThanOrEqual(a.conductivitySPerM * (1 - 1e-12));
+      }),
     );
   });
 

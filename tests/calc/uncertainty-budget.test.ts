@@ -47,13 +47,7 @@ describe('uncertainty-budget', () => {
         { name: 'repeatability', valuePct: 3.0, distribution: 'normal', sensitivity: 1, degreesOfFreedom: 9 },
       ],
     });
-    expect(r.components.map((c) => c.standardUncertaintyPct)).toEqual([
-      6,
-      expect.closeTo(2.713546, 6),
-      expect.closeTo(1.414214, 6),
-      expect.closeTo(2.886751, 6),
-      3,
-    ]);
+    expect(r.components.map((c) => c.standardUncertaintyPct)).toEqual([6, expect.closeTo(2.713546, 6), expect.closeTo(1.414214, 6), expect.closeTo(2.886751, 6), 3]);
     expect(r.combinedStandardPct).toBeCloseTo(7.3549, 4);
     expect(r.expandedPct).toBeCloseTo(14.71, 2);
     expect(r.effectiveDegreesOfFreedom).toBeCloseTo(325.14, 2);

@@ -7,21 +7,7 @@
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import {
-  dbiToLinear,
-  dbmToMw,
-  dbmToW,
-  eirpDbmToErpDbm,
-  eirpToErpW,
-  erpDbmToEirpDbm,
-  erpToEirpW,
-  linearToDbi,
-  mwToDbm,
-  timeAveragedPowerW,
-  units,
-  unitsInput,
-  wToDbm,
-} from '../../calc/em/units';
+import { dbiToLinear, dbmToMw, dbmToW, eirpDbmToErpDbm, eirpToErpW, erpDbmToEirpDbm, erpToEirpW, linearToDbi, mwToDbm, timeAveragedPowerW, units, unitsInput, wToDbm } from '../../calc/em/units';
 
 const run = (raw: unknown) => units.compute(unitsInput.parse(raw));
 

@@ -23,8 +23,7 @@ interface StoredDevice {
   filing: { data: { device: { hvin?: string | null; pmn?: string | null } } };
 }
 
-const storedDevice = async (page: Page) =>
-  (await page.evaluate(async () => (await (await fetch('/api/filings/1')).json()) as StoredDevice)).filing.data.device;
+const storedDevice = async (page: Page) => (await page.evaluate(async () => (await (await fetch('/api/filings/1')).json()) as StoredDevice)).filing.data.device;
 
 async function openDeviceStep(s: Session) {
   // One after the other: the sign-in guard checks one password per address at a time.

@@ -71,7 +71,15 @@ async function renameAndRemove(s: Session, size: 'phone' | 'desktop') {
     const res = await fetch('/api/filings/import', { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(file) });
     return { status: res.status, simultaneous: file.simultaneous, antennas: file.antennas.map((a) => a.id), lteB2More: file.transmitters[2].moreAntennaIds };
   }, id);
-  expect(roundTrip).toEqual({ status: 201, simultaneous: [['LTE-B2', 'WIFI-2G4'], ['LTE-B12', 'WLAN-5G', 'BT-LE']], antennas: ['ANT-TOP', 'ANT-DIV', 'ANT-WLAN'], lteB2More: ['ANT-TOP'] });
+  expect(roundTrip).toEqual({
+    status: 201,
+    simultaneous: [
+      ['LTE-B2', 'WIFI-2G4'],
+      ['LTE-B12', 'WLAN-5G', 'BT-LE'],
+    ],
+    antennas: ['ANT-TOP', 'ANT-DIV', 'ANT-WLAN'],
+    lteB2More: ['ANT-TOP'],
+  });
 
   // Removing a transmitter asks first and names the combination that goes with it.
   await page.goto(`${server.baseUrl}/filings/${id}/radios`);
@@ -165,14 +173,10 @@ async function identity(s: Session, size: 'phone' | 'desktop') {
   await page.getByTestId('tx-5-duty-preset').selectOption('ptt-50');
   expect(await page.getByTestId('tx-5-duty-source').textContent()).toMatch(/Common practice/);
   expect(await page.getByTestId('tx-5-duty').inputValue()).toBe('50');
-  await untilStored(
-    page,
-    id,
-    (f) => {
-      const t = f.data.radios.transmitters;
-      return t[0].maxTuneUpPowerDbm === 24.5 && t[0].tuneUpToleranceDb === 1.5 && t[0].moduleId === 'MOD-1' && t[5].dutyCyclePreset === 'ptt-50' && t[5].dutyCycle === 0.5;
-    },
-  );
+  await untilStored(page, id, (f) => {
+    const t = f.data.radios.transmitters;
+    return t[0].maxTuneUpPowerDbm === 24.5 && t[0].tuneUpToleranceDb === 1.5 && t[0].moduleId === 'MOD-1' && t[5].dutyCyclePreset === 'ptt-50' && t[5].dutyCycle === 0.5;
+  });
   await page.getByTestId('transmitters-details-0').scrollIntoViewIfNeeded();
   await screenshot(page, `device-radios-details-${size}`);
 

@@ -61,7 +61,10 @@ async function buildFiling(s: Session, size: 'phone' | 'desktop', deviceName: st
   // A highest frequency below the lowest: not saved, the message on that field, a draft kept.
   await page.getByTestId('tx-0-fmax').fill('2300');
   await page.getByTestId('tx-0-fmax-error').waitFor();
-  await page.getByTestId('save-status').filter({ hasText: /Not saved/ }).waitFor({ timeout: 15_000 });
+  await page
+    .getByTestId('save-status')
+    .filter({ hasText: /Not saved/ })
+    .waitFor({ timeout: 15_000 });
   await expect(page.getByTestId('tx-0-fmax-error').textContent()).resolves.toBe('The highest frequency must not be below the lowest.');
 
   // Reload mid-step: the form comes back from the draft, nothing lost, and says so.
@@ -76,7 +79,10 @@ async function buildFiling(s: Session, size: 'phone' | 'desktop', deviceName: st
   // Fixed: saved, and the stored value is in Hz.
   await page.getByTestId('tx-0-fmax').fill('2480');
   await waitSaved(page);
-  const stored = await page.evaluate(async (url) => (await (await fetch(`/api/filings/${url.split('/').pop()}`)).json()) as { filing: { data: { radios: { transmitters: { frequencyMaxHz: number; dutyCycle: number }[] } } } }, filingUrl);
+  const stored = await page.evaluate(
+    async (url) => (await (await fetch(`/api/filings/${url.split('/').pop()}`)).json()) as { filing: { data: { radios: { transmitters: { frequencyMaxHz: number; dutyCycle: number }[] } } } },
+    filingUrl,
+  );
   expect(stored.filing.data.radios.transmitters[0]).toMatchObject({ frequencyMaxHz: 2480e6, dutyCycle: 0.5 });
 
   // Reload again after a clean save: still there.

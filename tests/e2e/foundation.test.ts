@@ -107,7 +107,12 @@ describe.each(SIZES)('at %s size', (size, viewport) => {
     const heading = page.getByRole('heading', { name: 'Sign in' });
     await expect(heading.evaluate((el) => getComputedStyle(el).fontFamily)).resolves.toMatch(/^"?Atkinson-SemiBold/);
     // The shipped fonts are WOFF2 files from our own origin.
-    const fontFiles = await page.evaluate(() => performance.getEntriesByType('resource').map((e) => e.name).filter((n) => /\.(woff2|ttf|otf)\b/.test(n)));
+    const fontFiles = await page.evaluate(() =>
+      performance
+        .getEntriesByType('resource')
+        .map((e) => e.name)
+        .filter((n) => /\.(woff2|ttf|otf)\b/.test(n)),
+    );
     expect(fontFiles.length).toBeGreaterThan(0);
     for (const f of fontFiles) expect(f).toMatch(/\.woff2\b/);
     const licence = await fetch(`${server.baseUrl}/licences/OFL-AtkinsonHyperlegibleNext.txt`);

@@ -21,7 +21,8 @@ afterAll(async () => {
   await server?.stop();
 });
 
-const HEADER = 'transmitter_id,use_position_id,test_position,channel,frequency_mhz,test_separation_mm,measured_power_dbm,tune_up_power_dbm,test_duty_cycle,sar_1g_w_kg,sar_10g_w_kg,drift_db,test_date,peak_x_mm,peak_y_mm';
+const HEADER =
+  'transmitter_id,use_position_id,test_position,channel,frequency_mhz,test_separation_mm,measured_power_dbm,tune_up_power_dbm,test_duty_cycle,sar_1g_w_kg,sar_10g_w_kg,drift_db,test_date,peak_x_mm,peak_y_mm';
 const rows = (sar: string) => [
   'LTE-B2,belt-clip,"back, 10 mm",18900,1880,10,23.1,,,0.91,0.55,-0.07,2026-11-17,-22,60',
   `LTE-B2,in-hand,"bottom edge, 3 mm",18900,1880,3,23.1,,,,${sar},0.04,2026-11-17,-25,64`,

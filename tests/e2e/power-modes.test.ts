@@ -30,7 +30,6 @@ async function freshTracker(page: Page): Promise<number> {
   });
 }
 
-// eslint-disable-next-line @typescript-eslint/no-explicit-any
 type StoredFiling = any;
 
 /** Polls the filing until `ok` holds for its stored data (autosave is debounced). */
@@ -78,7 +77,9 @@ async function walk(s: Session, size: 'phone' | 'desktop') {
   await problem.waitFor({ state: 'detached' });
   await untilStored(page, id, (f) => {
     const inHand = f.data['use-positions'].usePositions[1];
-    return !f.drafts['use-positions'] && inHand.powerModes?.[0]?.transmitterId === 'LTE-B2' && inHand.powerModes[0].reducedTuneUpPowerDbm === 20.5 && inHand.powerModes[0].trigger === 'time-averaged-sar';
+    return (
+      !f.drafts['use-positions'] && inHand.powerModes?.[0]?.transmitterId === 'LTE-B2' && inHand.powerModes[0].reducedTuneUpPowerDbm === 20.5 && inHand.powerModes[0].trigger === 'time-averaged-sar'
+    );
   });
 
   // Standard positions: a tracker has no usual set; pick the handset's and add it, once.
@@ -92,8 +93,28 @@ async function walk(s: Session, size: 'phone' | 'desktop') {
   await page.getByTestId('standard-positions-all-there').waitFor();
   const stored = await untilStored(page, id, (f) => f.data['use-positions'].usePositions.length === 4 + 11 && !f.drafts['use-positions']);
   const ids = stored.data['use-positions'].usePositions.map((p: { id: string }) => p.id);
-  expect(ids.slice(4)).toEqual(['left-cheek', 'left-tilt', 'right-cheek', 'right-tilt', 'body-worn', 'hotspot-back', 'hotspot-front', 'hotspot-top', 'hotspot-bottom', 'hotspot-left', 'hotspot-right']);
-  expect(stored.data['use-positions'].usePositions[8]).toMatchObject({ id: 'body-worn', kind: 'body-worn', separations: [{ antennaId: 'ANT-MAIN', separationM: 0.015 }, { antennaId: 'ANT-DIV', separationM: 0.015 }, { antennaId: 'ANT-WLAN', separationM: 0.015 }] });
+  expect(ids.slice(4)).toEqual([
+    'left-cheek',
+    'left-tilt',
+    'right-cheek',
+    'right-tilt',
+    'body-worn',
+    'hotspot-back',
+    'hotspot-front',
+    'hotspot-top',
+    'hotspot-bottom',
+    'hotspot-left',
+    'hotspot-right',
+  ]);
+  expect(stored.data['use-positions'].usePositions[8]).toMatchObject({
+    id: 'body-worn',
+    kind: 'body-worn',
+    separations: [
+      { antennaId: 'ANT-MAIN', separationM: 0.015 },
+      { antennaId: 'ANT-DIV', separationM: 0.015 },
+      { antennaId: 'ANT-WLAN', separationM: 0.015 },
+    ],
+  });
 
   // Screening names the power mode of the rows that used one.
   await page.goto(`${server.baseUrl}/filings/${id}/screening`);

@@ -109,9 +109,23 @@ describe('filters', () => {
   });
 
   it('every kind names its actions, and every action the app records has a kind', () => {
-    for (const action of ['auth.sign-in', 'user.invite', 'filing.step-save', 'lab.measurements.import', 'evidence.upload', 'version.review-requested', 'review.comment', 'version.signed', 'version.sign-refused', 'version.verified', 'package.build'])
+    for (const action of [
+      'auth.sign-in',
+      'user.invite',
+      'filing.step-save',
+      'lab.measurements.import',
+      'evidence.upload',
+      'version.review-requested',
+      'review.comment',
+      'version.signed',
+      'version.sign-refused',
+      'version.verified',
+      'package.build',
+    ])
       expect(auditKindOf(action), action).not.toBeNull();
-    expect(new Set(['auth.sign-in', 'user.invite', 'filing.create', 'lab.x', 'evidence.x', 'version.returned', 'review.reply', 'version.signed', 'version.verified', 'package.download'].map(auditKindOf))).toEqual(new Set(AUDIT_KINDS));
+    expect(
+      new Set(['auth.sign-in', 'user.invite', 'filing.create', 'lab.x', 'evidence.x', 'version.returned', 'review.reply', 'version.signed', 'version.verified', 'package.download'].map(auditKindOf)),
+    ).toEqual(new Set(AUDIT_KINDS));
     // A prefix is a whole word: "users.x" is not a people entry.
     expect(auditKindOf('users.x')).toBeNull();
   });

@@ -55,9 +55,13 @@ describe('POST /api/auth/login', () => {
     const extra = await request(t.app).post('/api/auth/login').send({ email: 'a@b.test', password: 'x', admin: true });
     expect(extra.status).toBe(422);
     expect(extra.body.error.fields.admin).toMatch(/Unknown field/);
-    const types = await request(t.app).post('/api/auth/login').send({ email: 42, password: ['x'] });
+    const types = await request(t.app)
+      .post('/api/auth/login')
+      .send({ email: 42, password: ['x'] });
     expect(types.status).toBe(422);
-    const long = await request(t.app).post('/api/auth/login').send({ email: `${'a'.repeat(300)}@b.test`, password: 'x' });
+    const long = await request(t.app)
+      .post('/api/auth/login')
+      .send({ email: `${'a'.repeat(300)}@b.test`, password: 'x' });
     expect(long.status).toBe(422);
     expect(long.body.error.fields.email).toMatch(/at most 254/);
   });

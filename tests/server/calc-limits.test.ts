@@ -41,7 +41,15 @@ describe('calculation limits', () => {
   });
 
   it('a 300 KB bad input reports at most the capped number of problems and counts the rest', async () => {
-    const measurements = Array.from({ length: MAX_MEASUREMENTS }, (_, i) => ({ id: `M${i}`, transmitterId: 'T', usePositionId: 'P', frequencyHz: -1, testSeparationM: 0, measuredPowerDbm: 1, testDate: 'yesterday' }));
+    const measurements = Array.from({ length: MAX_MEASUREMENTS }, (_, i) => ({
+      id: `M${i}`,
+      transmitterId: 'T',
+      usePositionId: 'P',
+      frequencyHz: -1,
+      testSeparationM: 0,
+      measuredPowerDbm: 1,
+      testDate: 'yesterday',
+    }));
     const body = { markets: [], transmitters: [], usePositions: [], measurements };
     expect(JSON.stringify(body).length).toBeGreaterThan(300_000);
     const res = await engineer.post('/api/calc/lab-results').send(body);
@@ -55,7 +63,16 @@ describe('calculation limits', () => {
   it('a wizard step with hundreds of bad fields names the first 200 and says there are more', async () => {
     const specialist = await signIn(t, 'specialist@fieldfile.test');
     const { id } = (await specialist.post('/api/filings').send({ device: { name: 'Limits probe', model: 'LP-1', applicant: 'Halden Ridge Instruments', productType: 'iot-module' } })).body.filing;
-    const transmitters = Array.from({ length: 64 }, (_, i) => ({ id: `T${i}`, technology: 1, band: 2, frequencyMinHz: 'a', frequencyMaxHz: 'b', maxTuneUpPowerDbm: 'c', dutyCycle: 'd', antennaId: 3 }));
+    const transmitters = Array.from({ length: 64 }, (_, i) => ({
+      id: `T${i}`,
+      technology: 1,
+      band: 2,
+      frequencyMinHz: 'a',
+      frequencyMaxHz: 'b',
+      maxTuneUpPowerDbm: 'c',
+      dutyCycle: 'd',
+      antennaId: 3,
+    }));
     const res = await specialist.put(`/api/filings/${id}/steps/radios`).send({ antennas: [], transmitters });
     expect(res.status).toBe(422);
     const names = Object.keys(res.body.error.fields);

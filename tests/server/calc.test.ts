@@ -25,7 +25,19 @@ describe('/api/calc', () => {
   it('lists every calculation with its input JSON Schema', async () => {
     const res = await engineer.get('/api/calc');
     const names = res.body.calculations.map((c: { name: string }) => c.name);
-    for (const name of ['medium', 'tissue-properties', 'plane-wave-layers', 'exposure-limit', 'sar-limit', 'fcc-sar-exemption', 'kdb-sar-test-exclusion', 'reported-sar', 'simultaneous-transmission', 'uncertainty-budget', 'screening']) {
+    for (const name of [
+      'medium',
+      'tissue-properties',
+      'plane-wave-layers',
+      'exposure-limit',
+      'sar-limit',
+      'fcc-sar-exemption',
+      'kdb-sar-test-exclusion',
+      'reported-sar',
+      'simultaneous-transmission',
+      'uncertainty-budget',
+      'screening',
+    ]) {
       expect(names).toContain(name);
     }
     expect(res.body.calculations.every((c: { inputSchema: object; sources: string[] }) => c.inputSchema && c.sources.length > 0)).toBe(true);

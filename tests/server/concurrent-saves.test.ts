@@ -52,17 +52,26 @@ describe('step saves with If-Match', () => {
 
   it('a save based on the current revision lands and moves the revision on', async () => {
     const before = await revisionOf('radios');
-    const res = await specialist.put(`/api/filings/${id}/steps/radios`).set('If-Match', `"${before}"`).send({ ...radios, antennas: [{ ...radios.antennas[0], location: 'bottom edge' }] });
+    const res = await specialist
+      .put(`/api/filings/${id}/steps/radios`)
+      .set('If-Match', `"${before}"`)
+      .send({ ...radios, antennas: [{ ...radios.antennas[0], location: 'bottom edge' }] });
     expect(res.status).toBe(200);
     expect(res.body.filing.revisions.radios).not.toBe(before);
     // Other steps keep their revisions: a radios save does not make a device save stale.
-    const device = await specialist.put(`/api/filings/${id}/steps/device`).set('If-Match', `"${res.body.filing.revisions.device}"`).send({ ...res.body.filing.data.device, model: 'KW2-B' });
+    const device = await specialist
+      .put(`/api/filings/${id}/steps/device`)
+      .set('If-Match', `"${res.body.filing.revisions.device}"`)
+      .send({ ...res.body.filing.data.device, model: 'KW2-B' });
     expect(device.status).toBe(200);
   });
 
   it('a stale draft (invalid input) is refused too, and the stored data and drafts stay as they were', async () => {
     const before = (await specialist.get(`/api/filings/${id}`)).body.filing;
-    const res = await specialist.put(`/api/filings/${id}/steps/radios`).set('If-Match', '"0123456789abcdef01234567"').send({ antennas: [{ id: '', gainDbi: 'x' }], transmitters: [] });
+    const res = await specialist
+      .put(`/api/filings/${id}/steps/radios`)
+      .set('If-Match', '"0123456789abcdef01234567"')
+      .send({ antennas: [{ id: '', gainDbi: 'x' }], transmitters: [] });
     expect(res.status).toBe(409);
     const after = (await specialist.get(`/api/filings/${id}`)).body.filing;
     expect(after.data.radios).toEqual(before.data.radios);
@@ -75,7 +84,10 @@ describe('step saves with If-Match', () => {
     expect(same.status).toBe(200);
     const rev = filing.revisions.radios;
     for (const header of [`W/"${rev}"`, `"nope", "${rev}"`, '*']) {
-      const res = await specialist.put(`/api/filings/${id}/steps/radios`).set('If-Match', header).send({ ...filing.data.radios, antennas: [{ ...filing.data.radios.antennas[0], location: header }] });
+      const res = await specialist
+        .put(`/api/filings/${id}/steps/radios`)
+        .set('If-Match', header)
+        .send({ ...filing.data.radios, antennas: [{ ...filing.data.radios.antennas[0], location: header }] });
       expect(res.status, header).toBe(200);
       // Put it back so the next header matches again.
       await specialist.put(`/api/filings/${id}/steps/radios`).send(filing.data.radios);

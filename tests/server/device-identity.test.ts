@@ -38,7 +38,16 @@ const hostFile = () => {
   file.device.name = 'Trailhound TH-4 with module';
   file.device.integration = 'host-with-module';
   file.device.modules = [
-    { id: 'LTE-MOD', name: 'Kestrel KM-7 LTE module', fccGranteeCode: 'XKM', fccProductCode: 'KM7-LTE', isedCompanyNumber: '30912K', isedUpn: 'KM7LTE', minSeparationM: 0.02, conditions: 'Antenna gain at most 3 dBi.' },
+    {
+      id: 'LTE-MOD',
+      name: 'Kestrel KM-7 LTE module',
+      fccGranteeCode: 'XKM',
+      fccProductCode: 'KM7-LTE',
+      isedCompanyNumber: '30912K',
+      isedUpn: 'KM7LTE',
+      minSeparationM: 0.02,
+      conditions: 'Antenna gain at most 3 dBi.',
+    },
   ];
   file.transmitters[0].moduleId = 'LTE-MOD';
   return file;
@@ -52,7 +61,16 @@ describe('device identity on the Device step', () => {
 
   it('the demo device carries its FCC ID, ISED number, HVIN, PMN, FVIN and model variants', async () => {
     const device = (await specialist.get(`/api/filings/${id}`)).body.filing.data.device;
-    expect(device).toMatchObject({ fccGranteeCode: '2BHRW', fccProductCode: 'TH4LW2', isedCompanyNumber: '27861H', isedUpn: 'TH4LW2', hvin: 'TH4-LW2-C', pmn: 'Trailhound TH-4', fvin: '2.4', integration: 'host' });
+    expect(device).toMatchObject({
+      fccGranteeCode: '2BHRW',
+      fccProductCode: 'TH4LW2',
+      isedCompanyNumber: '27861H',
+      isedUpn: 'TH4LW2',
+      hvin: 'TH4-LW2-C',
+      pmn: 'Trailhound TH-4',
+      fvin: '2.4',
+      integration: 'host',
+    });
     expect(device.modelVariants.map((v: { model: string }) => v.model)).toEqual(['TH4-LW2-K', 'TH4-LW2-F']);
   });
 
@@ -86,8 +104,18 @@ describe('a host with a certified module inside', () => {
   it('screening warns where a use position is closer than the module grant’s minimum separation', async () => {
     const res = await specialist.get(`/api/filings/${id}/screening`);
     // LTE-B12 (module) on ANT-MAIN: belt-clip 10 mm, in-hand 0 mm and wrist-strap 4 mm are under 20 mm; vehicle-dock 200 mm is not.
-    expect(res.body.conditions.map((c: { usePositionId: string; antennaId: string }) => `${c.usePositionId}/${c.antennaId}`)).toEqual(['belt-clip/ANT-MAIN', 'in-hand/ANT-MAIN', 'wrist-strap/ANT-MAIN']);
-    expect(res.body.conditions[0]).toMatchObject({ moduleId: 'LTE-MOD', transmitterId: 'LTE-B12', separationM: 0.01, minSeparationM: 0.02, message: expect.stringMatching(/10 mm, closer than the 20 mm module LTE-MOD/) });
+    expect(res.body.conditions.map((c: { usePositionId: string; antennaId: string }) => `${c.usePositionId}/${c.antennaId}`)).toEqual([
+      'belt-clip/ANT-MAIN',
+      'in-hand/ANT-MAIN',
+      'wrist-strap/ANT-MAIN',
+    ]);
+    expect(res.body.conditions[0]).toMatchObject({
+      moduleId: 'LTE-MOD',
+      transmitterId: 'LTE-B12',
+      separationM: 0.01,
+      minSeparationM: 0.02,
+      message: expect.stringMatching(/10 mm, closer than the 20 mm module LTE-MOD/),
+    });
     const row = res.body.rows.find((r: { transmitterId: string; usePositionId: string }) => r.transmitterId === 'LTE-B12' && r.usePositionId === 'belt-clip');
     expect(row.derivation.notes.join(' ')).toMatch(/Module grant condition/);
   });
@@ -100,7 +128,9 @@ describe('a host with a certified module inside', () => {
     expect(renamed.body.filing.data.radios.transmitters[0].moduleId).toBe('KM7');
     // A transmitter naming a module the device does not have is answered at its field.
     const radios = renamed.body.filing.data.radios;
-    const bad = await specialist.put(`/api/filings/${id}/steps/radios`).send({ ...radios, transmitters: radios.transmitters.map((t: object, i: number) => (i === 1 ? { ...t, moduleId: 'GHOST' } : t)) });
+    const bad = await specialist
+      .put(`/api/filings/${id}/steps/radios`)
+      .send({ ...radios, transmitters: radios.transmitters.map((t: object, i: number) => (i === 1 ? { ...t, moduleId: 'GHOST' } : t)) });
     expect(bad.body.error.fields).toEqual({ 'transmitters.1.moduleId': 'No module “GHOST” under Device.' });
     const removed = await specialist.put(`/api/filings/${id}/steps/device`).send({ ...renamed.body.filing.data.device, integration: 'host', modules: [] });
     expect(removed.body.saved).toBe(true);
@@ -176,7 +206,7 @@ describe('versions', () => {
     // Version 1 is signed: its device's module grants refuse any change in SQLite itself.
     const sqlite = t.handle.sqlite;
     const deviceId = (sqlite.prepare('select device_id from filing_versions where id = ?').get(v1.version.id) as { device_id: number }).device_id;
-    expect(() => sqlite.prepare("update device_modules set min_separation_m = 0 where device_id = ?").run(deviceId)).toThrow(/signed version is frozen/);
+    expect(() => sqlite.prepare('update device_modules set min_separation_m = 0 where device_id = ?').run(deviceId)).toThrow(/signed version is frozen/);
     expect(() => sqlite.prepare("insert into device_modules (device_id, key, sort_order) values (?, 'X', 9)").run(deviceId)).toThrow(/signed version is frozen/);
     expect(() => sqlite.prepare('delete from device_modules where device_id = ?').run(deviceId)).toThrow(/signed version is frozen/);
   });
@@ -200,15 +230,27 @@ function oldFormatSha256(sqlite: ReturnType<typeof openDatabase>['sqlite'], v: n
     ['step_drafts', `version_id = ${v}`],
     ['screening_results', `version_id = ${v}`],
     ['simultaneous_group_members', `group_id in (select id from simultaneous_groups where version_id = ${v})`],
-    ...['lab_measurements', 'lab_liquid_checks', 'lab_system_checks', 'lab_instruments', 'lab_uncertainty_components', 'evidence_files', 'evidence_explanations'].map((n): [string, string] => [n, `version_id = ${v}`]),
+    ...['lab_measurements', 'lab_liquid_checks', 'lab_system_checks', 'lab_instruments', 'lab_uncertainty_components', 'evidence_files', 'evidence_explanations'].map((n): [string, string] => [
+      n,
+      `version_id = ${v}`,
+    ]),
   ];
   const parts = tables.map(([table, where]) => {
     const rows = (sqlite.prepare(`select * from "${table}" where ${where}`).all() as Record<string, unknown>[]).map((r) =>
-      JSON.stringify(Object.fromEntries(Object.keys(r).filter((k) => !(table === 'filing_versions' && k === 'state')).sort().map((k) => [k, r[k]]))),
+      JSON.stringify(
+        Object.fromEntries(
+          Object.keys(r)
+            .filter((k) => !(table === 'filing_versions' && k === 'state'))
+            .sort()
+            .map((k) => [k, r[k]]),
+        ),
+      ),
     );
     return `{"table":${JSON.stringify(table)},"rows":[${rows.sort().join(',')}]}`;
   });
-  return createHash('sha256').update(`{"format":"fieldfile.version-content/1","tables":[${parts.join(',')}]}`, 'utf8').digest('hex');
+  return createHash('sha256')
+    .update(`{"format":"fieldfile.version-content/1","tables":[${parts.join(',')}]}`, 'utf8')
+    .digest('hex');
 }
 
 describe('signatures made before the identity fields existed', () => {
@@ -230,7 +272,9 @@ describe('signatures made before the identity fields existed', () => {
       run('insert into filings (id, organisation_id, device_id, owner_user_id) values (1, 1, 1, 1)');
       run('insert into filing_versions (id, filing_id, number, device_id) values (1, 1, 1, 1)');
       run("insert into antennas (id, version_id, key, gain_dbi, sort_order) values (1, 1, 'A', 0, 0)");
-      run("insert into transmitters (id, version_id, key, technology, band, frequency_min_hz, frequency_max_hz, max_tune_up_power_dbm, duty_cycle, antenna_id, sort_order) values (1, 1, 'T', 'LTE', 'B2', 1.85e9, 1.91e9, 23, 1, 1, 0)");
+      run(
+        "insert into transmitters (id, version_id, key, technology, band, frequency_min_hz, frequency_max_hz, max_tune_up_power_dbm, duty_cycle, antenna_id, sort_order) values (1, 1, 'T', 'LTE', 'B2', 1.85e9, 1.91e9, 23, 1, 1, 0)",
+      );
       // The hash as the code of that time computed it: every row of its tables, columns sorted.
       const before = oldFormatSha256(handle.sqlite, 1);
       migrate(handle.db, { migrationsFolder: MIGRATIONS_DIR });

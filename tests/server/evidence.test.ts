@@ -84,21 +84,36 @@ describe('uploading', () => {
     const res = await send(engineer, { mime: 'application/pdf', fileName: 'KH2 SAR report.pdf', bytes: pdf }, 'test-report', { title: 'SAR report part 1 of 2', note: 'Issued by the lab' });
     expect(res.status).toBe(201);
     const r = res.body.record;
-    expect(r).toMatchObject({ category: 'test-report', title: 'SAR report part 1 of 2', note: 'Issued by the lab', fileName: 'KH2 SAR report.pdf', sizeBytes: pdf.length, mediaType: 'application/pdf', uploadedBy: { name: expect.any(String) } });
+    expect(r).toMatchObject({
+      category: 'test-report',
+      title: 'SAR report part 1 of 2',
+      note: 'Issued by the lab',
+      fileName: 'KH2 SAR report.pdf',
+      sizeBytes: pdf.length,
+      mediaType: 'application/pdf',
+      uploadedBy: { name: expect.any(String) },
+    });
     expect(r.sha256).toMatch(/^[0-9a-f]{64}$/);
     expect(fs.existsSync(path.join(t.config.uploadsDir, r.sha256.slice(0, 2), r.sha256.slice(2, 4), r.sha256))).toBe(true);
 
-    const file = await approver.get(`/api/filings/${filingId}/evidence/${r.id}/file`).buffer(true).parse((res2, cb) => {
-      const parts: Buffer[] = [];
-      res2.on('data', (c: Buffer) => parts.push(c));
-      res2.on('end', () => cb(null, Buffer.concat(parts)));
-    });
+    const file = await approver
+      .get(`/api/filings/${filingId}/evidence/${r.id}/file`)
+      .buffer(true)
+      .parse((res2, cb) => {
+        const parts: Buffer[] = [];
+        res2.on('data', (c: Buffer) => parts.push(c));
+        res2.on('end', () => cb(null, Buffer.concat(parts)));
+      });
     expect(file.status).toBe(200);
     expect(Buffer.compare(file.body as Buffer, pdf)).toBe(0);
     expect(file.headers['content-type']).toBe('application/pdf');
     expect(file.headers['content-disposition']).toMatch(/^attachment; filename="KH2 SAR report.pdf"/);
     expect(file.headers['x-content-type-options']).toBe('nosniff');
-    const actions = t.handle.db.select().from(auditLog).all().map((a) => `${a.action}:${a.targetId}`);
+    const actions = t.handle.db
+      .select()
+      .from(auditLog)
+      .all()
+      .map((a) => `${a.action}:${a.targetId}`);
     expect(actions).toEqual(expect.arrayContaining([`evidence.upload:${r.id}`, `evidence.download:${r.id}`]));
   });
 
@@ -218,7 +233,7 @@ describe('roles', () => {
 
 describe('limits and interruptions', () => {
   it('answers 413 over the per-file and per-filing limits and keeps nothing', async () => {
-    const small = await createTestApp({ env: { FIELDFILE_EVIDENCE_MAX_FILE_BYTES: '4000', FIELDFILE_EVIDENCE_MAX_FILING_BYTES: '6000'  } });
+    const small = await createTestApp({ env: { FIELDFILE_EVIDENCE_MAX_FILE_BYTES: '4000', FIELDFILE_EVIDENCE_MAX_FILING_BYTES: '6000' } });
     try {
       await seedUsers(small);
       const spec = await signIn(small, 'specialist@fieldfile.test');
@@ -254,9 +269,16 @@ describe('limits and interruptions', () => {
       });
       expect(login || cookie).toBeTruthy();
       const boundary = 'fieldfile-abort';
-      const req = http.request({ port, method: 'POST', path: `/api/filings/${filingId}/evidence`, headers: { cookie: login, 'content-type': `multipart/form-data; boundary=${boundary}`, 'content-length': '10000000' } });
+      const req = http.request({
+        port,
+        method: 'POST',
+        path: `/api/filings/${filingId}/evidence`,
+        headers: { cookie: login, 'content-type': `multipart/form-data; boundary=${boundary}`, 'content-length': '10000000' },
+      });
       req.on('error', () => {});
-      req.write(`--${boundary}\r\nContent-Disposition: form-data; name="category"\r\n\r\nother\r\n--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="half.txt"\r\nContent-Type: text/plain\r\n\r\n`);
+      req.write(
+        `--${boundary}\r\nContent-Disposition: form-data; name="category"\r\n\r\nother\r\n--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="half.txt"\r\nContent-Type: text/plain\r\n\r\n`,
+      );
       req.write(Buffer.alloc(256 * 1024, 'h'));
       // Wait until the server has started writing the temporary file, then drop the connection.
       const tmp = path.join(t.config.uploadsDir, '.tmp');

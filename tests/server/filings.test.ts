@@ -19,11 +19,7 @@ let approver: Awaited<ReturnType<typeof signIn>>;
 beforeAll(async () => {
   t = await createTestApp();
   await seedUsers(t);
-  [specialist, engineer, approver] = await Promise.all([
-    signIn(t, 'specialist@fieldfile.test'),
-    signIn(t, 'engineer@fieldfile.test'),
-    signIn(t, 'approver@fieldfile.test'),
-  ]);
+  [specialist, engineer, approver] = await Promise.all([signIn(t, 'specialist@fieldfile.test'), signIn(t, 'engineer@fieldfile.test'), signIn(t, 'approver@fieldfile.test')]);
 });
 afterAll(() => t.close());
 
@@ -111,13 +107,20 @@ describe('creating and editing a filing', () => {
     });
     expect(reversed.body.error.fields['transmitters.0.frequencyMaxHz']).toMatch(/not be below/);
     const positions = await specialist.put(`/api/filings/${id}/steps/use-positions`).send({
-      usePositions: [{ id: 'head', kind: 'head', separations: [{ antennaId: 'A1', separationM: -0.001 }, { antennaId: 'ZZ', separationM: 0.01 }] }],
+      usePositions: [
+        {
+          id: 'head',
+          kind: 'head',
+          separations: [
+            { antennaId: 'A1', separationM: -0.001 },
+            { antennaId: 'ZZ', separationM: 0.01 },
+          ],
+        },
+      ],
     });
     expect(positions.status).toBe(422);
     expect(positions.body.error.fields['usePositions.0.separations.0.separationM']).toMatch(/negative/);
-    expect((await specialist.get(`/api/filings/${id}`)).body.filing.steps.find((s: { step: string }) => s.step === 'radios').problems).toContain(
-      'Some changes have errors and are not saved yet.',
-    );
+    expect((await specialist.get(`/api/filings/${id}`)).body.filing.steps.find((s: { step: string }) => s.step === 'radios').problems).toContain('Some changes have errors and are not saved yet.');
     // Fixing the input clears the draft.
     await specialist.put(`/api/filings/${id}/steps/radios`).send({
       antennas: [{ id: 'A1', gainDbi: 0, location: 'top' }],
@@ -133,7 +136,12 @@ describe('creating and editing a filing', () => {
       ],
     });
     expect(pos.status).toBe(200);
-    const markets = await specialist.put(`/api/filings/${id}/steps/markets`).send({ markets: [{ regime: 'fcc', tier: 'general' }, { regime: 'ised', tier: 'general' }] });
+    const markets = await specialist.put(`/api/filings/${id}/steps/markets`).send({
+      markets: [
+        { regime: 'fcc', tier: 'general' },
+        { regime: 'ised', tier: 'general' },
+      ],
+    });
     expect(markets.status).toBe(200);
     // Every device-data step and screening are complete; the lab steps wait for measurements, Evidence for its files.
     expect(markets.body.filing.steps.filter((s: { step: string }) => !['measurements', 'co-transmission', 'evidence'].includes(s.step)).every((s: { complete: boolean }) => s.complete)).toBe(true);
@@ -226,12 +234,14 @@ describe('screening of the demo tracker', () => {
     const filing = (await specialist.post('/api/filings/import').send(DEMO_TRACKER)).body.filing;
     const res = await specialist.get(`/api/filings/${filing.id}/screening`);
     const engine = screenDevice(DEMO_TRACKER as never);
-    expect(res.body.rows.map((r: { transmitterId: string; usePositionId: string; regime: string; result: string; marginDb: number }) => [r.transmitterId, r.usePositionId, r.regime, r.result, r.marginDb])).toEqual(
-      engine.rows.map((r) => [r.transmitterId, r.usePositionId, r.regime, r.result, r.marginDb]),
-    );
-    expect(res.body.gaps.map((g: { transmitterId: string; usePositionId: string }) => `${g.transmitterId}@${g.usePositionId}`).sort()).toEqual(
-      ['BT-LE@wrist-strap', 'WLAN-2G4@wrist-strap', 'WLAN-5G@wrist-strap'],
-    );
+    expect(
+      res.body.rows.map((r: { transmitterId: string; usePositionId: string; regime: string; result: string; marginDb: number }) => [r.transmitterId, r.usePositionId, r.regime, r.result, r.marginDb]),
+    ).toEqual(engine.rows.map((r) => [r.transmitterId, r.usePositionId, r.regime, r.result, r.marginDb]));
+    expect(res.body.gaps.map((g: { transmitterId: string; usePositionId: string }) => `${g.transmitterId}@${g.usePositionId}`).sort()).toEqual([
+      'BT-LE@wrist-strap',
+      'WLAN-2G4@wrist-strap',
+      'WLAN-5G@wrist-strap',
+    ]);
     expect(res.body.complete).toBe(false);
     // Compressed for clients that accept gzip (supertest does), the same JSON for those that do not.
     expect(res.headers['content-encoding']).toBe('gzip');
@@ -303,7 +313,12 @@ describe('renames carry through; removals take their dependents', () => {
     expect(filing.data.radios.antennas.find((a) => a.id === 'ANT-TOP')!.rowId).toBe(main.rowId);
     const seps = filing.data['use-positions'].usePositions.map((p) => [p.id, p.separations!.find((s) => s.antennaId === 'ANT-TOP')?.separationM]);
     // The demo's ANT-MAIN separations: belt-clip 10 mm, in-hand 0, wrist-strap 4 mm, vehicle-dock 200 mm.
-    expect(seps).toEqual([['belt-clip', 0.01], ['in-hand', 0], ['wrist-strap', 0.004], ['vehicle-dock', 0.2]]);
+    expect(seps).toEqual([
+      ['belt-clip', 0.01],
+      ['in-hand', 0],
+      ['wrist-strap', 0.004],
+      ['vehicle-dock', 0.2],
+    ]);
     expect(filing.data.radios.transmitters.filter((t) => t.antennaId === 'ANT-TOP').map((t) => t.id)).toEqual(['LTE-B12', 'LTE-B11']);
     // LTE-B2 switches to it as its further antenna, by row.
     expect(filing.data.radios.transmitters.find((t) => t.id === 'LTE-B2')!.moreAntennaIds).toEqual(['ANT-TOP']);
@@ -320,7 +335,10 @@ describe('renames carry through; removals take their dependents', () => {
     }
     expect((await specialist.put(`/api/filings/${id}/steps/radios`).send(radios)).status).toBe(200);
     await reload();
-    expect(filing.data.radios.antennas.slice(0, 2).map((x) => [x.id, x.rowId])).toEqual([[a.id, a.rowId], [b.id, b.rowId]]);
+    expect(filing.data.radios.antennas.slice(0, 2).map((x) => [x.id, x.rowId])).toEqual([
+      [a.id, a.rowId],
+      [b.id, b.rowId],
+    ]);
     // Swap back for the next cases.
     [a.id, b.id] = [b.id, a.id];
     for (const t of radios.transmitters) {

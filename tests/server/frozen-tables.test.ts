@@ -18,8 +18,7 @@ const tables = () =>
   (t.handle.sqlite.prepare("select name from sqlite_master where type = 'table' and name not like 'sqlite_%' and name not like '__drizzle%'").all() as { name: string }[]).map((r) => r.name);
 const columns = (table: string) => (t.handle.sqlite.prepare(`select name from pragma_table_info(?)`).all(table) as { name: string }[]).map((c) => c.name);
 const foreignTables = (table: string) => (t.handle.sqlite.prepare(`select "table" from pragma_foreign_key_list(?)`).all(table) as { table: string }[]).map((f) => f.table);
-const triggers = (table: string) =>
-  (t.handle.sqlite.prepare("select name, sql from sqlite_master where type = 'trigger' and tbl_name = ?").all(table) as { name: string; sql: string }[]);
+const triggers = (table: string) => t.handle.sqlite.prepare("select name, sql from sqlite_master where type = 'trigger' and tbl_name = ?").all(table) as { name: string; sql: string }[];
 
 /**
  * Tables whose rows belong to a version: a version_id column, or a foreign key to such a table or
@@ -44,7 +43,10 @@ describe('signed versions are frozen in every table that belongs to a version', 
   it.each(versionTables())('%s refuses INSERT, UPDATE and DELETE on a signed version', (table) => {
     const t2 = triggers(table).filter((x) => /signed version is frozen/.test(x.sql));
     for (const op of ['INSERT', 'UPDATE', 'DELETE']) {
-      expect(t2.some((x) => x.sql.includes(`BEFORE ${op}`)), `${table}: no frozen-version trigger BEFORE ${op}`).toBe(true);
+      expect(
+        t2.some((x) => x.sql.includes(`BEFORE ${op}`)),
+        `${table}: no frozen-version trigger BEFORE ${op}`,
+      ).toBe(true);
     }
   });
 
@@ -55,7 +57,9 @@ describe('signed versions are frozen in every table that belongs to a version', 
 
   it('the version itself, its device and its signature cannot change once signed', () => {
     for (const table of ['filing_versions', 'devices', 'version_signatures']) {
-      const sqls = triggers(table).map((x) => x.sql).join('\n');
+      const sqls = triggers(table)
+        .map((x) => x.sql)
+        .join('\n');
       expect(sqls).toMatch(/BEFORE UPDATE/);
       expect(sqls).toMatch(/BEFORE DELETE/);
     }

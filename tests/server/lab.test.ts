@@ -38,13 +38,28 @@ const deviceFile = {
     { id: 'WLAN', technology: 'Wi-Fi', band: '2.4 GHz', frequencyMinHz: 2.412e9, frequencyMaxHz: 2.462e9, maxTuneUpPowerDbm: 18, dutyCycle: 1, antennaId: 'A2' },
   ],
   usePositions: [
-    { id: 'P-HEAD', kind: 'head', separations: [{ antennaId: 'A1', separationM: 0 }, { antennaId: 'A2', separationM: 0 }] },
-    { id: 'P-HS', kind: 'hotspot', separations: [{ antennaId: 'A1', separationM: 0.01 }, { antennaId: 'A2', separationM: 0.01 }] },
+    {
+      id: 'P-HEAD',
+      kind: 'head',
+      separations: [
+        { antennaId: 'A1', separationM: 0 },
+        { antennaId: 'A2', separationM: 0 },
+      ],
+    },
+    {
+      id: 'P-HS',
+      kind: 'hotspot',
+      separations: [
+        { antennaId: 'A1', separationM: 0.01 },
+        { antennaId: 'A2', separationM: 0.01 },
+      ],
+    },
   ],
   simultaneous: [['WWAN', 'WLAN']],
 };
 
-const HEADER = 'transmitter_id,use_position_id,test_position,channel,frequency_mhz,test_separation_mm,measured_power_dbm,tune_up_power_dbm,test_duty_cycle,sar_1g_w_kg,sar_10g_w_kg,drift_db,test_date,peak_x_mm,peak_y_mm';
+const HEADER =
+  'transmitter_id,use_position_id,test_position,channel,frequency_mhz,test_separation_mm,measured_power_dbm,tune_up_power_dbm,test_duty_cycle,sar_1g_w_kg,sar_10g_w_kg,drift_db,test_date,peak_x_mm,peak_y_mm';
 const GOOD_ROWS = ['WWAN,P-HEAD,left cheek,9400,1880,0,23.2,,,0.92,0.55,-0.05,2026-10-12,10,20', 'WLAN,P-HEAD,left cheek,6,2437,0,17.5,18,0.98,0.40,0.20,0.1,2026-10-12,40,20'];
 const csv = (...rows: string[]) => Buffer.from([HEADER, ...rows].join('\n') + '\n');
 
@@ -87,7 +102,9 @@ describe('replacing data sets', () => {
     });
     expect(liquid.status).toBe(200);
     expect(liquid.body.liquidChecks).toHaveLength(2);
-    const sys = await engineer.put(`/api/filings/${id}/system-checks`).send({ systemChecks: [{ id: 'S1', date: '2026-10-12', frequencyHz: 1.9e9, dipoleSerial: 'D1900-118', measuredSarWPerKgPerW: 40.2, targetSarWPerKgPerW: 39.6 }] });
+    const sys = await engineer
+      .put(`/api/filings/${id}/system-checks`)
+      .send({ systemChecks: [{ id: 'S1', date: '2026-10-12', frequencyHz: 1.9e9, dipoleSerial: 'D1900-118', measuredSarWPerKgPerW: 40.2, targetSarWPerKgPerW: 39.6 }] });
     expect(sys.status).toBe(200);
     const budget = await engineer.put(`/api/filings/${id}/uncertainty-budget`).send({ components: [{ name: 'probe calibration', valuePct: 6, distribution: 'normal', sensitivity: 1 }] });
     expect(budget.status).toBe(200);
@@ -95,7 +112,9 @@ describe('replacing data sets', () => {
   });
 
   it('refuses measurements naming unknown ids, field by field, and keeps what was stored', async () => {
-    const ok = await engineer.put(`/api/filings/${id}/measurements`).send({ measurements: [{ id: 'X1', transmitterId: 'WWAN', usePositionId: 'P-HEAD', frequencyHz: 1.88e9, testSeparationM: 0, measuredPowerDbm: 23, sar1gWPerKg: 0.5, testDate: '2026-10-12' }] });
+    const ok = await engineer
+      .put(`/api/filings/${id}/measurements`)
+      .send({ measurements: [{ id: 'X1', transmitterId: 'WWAN', usePositionId: 'P-HEAD', frequencyHz: 1.88e9, testSeparationM: 0, measuredPowerDbm: 23, sar1gWPerKg: 0.5, testDate: '2026-10-12' }] });
     expect(ok.status).toBe(200);
     const bad = await engineer.put(`/api/filings/${id}/measurements`).send({
       measurements: [
@@ -106,7 +125,11 @@ describe('replacing data sets', () => {
     expect(bad.status).toBe(422);
     expect(bad.body.error.fields['measurements.1.sar1gWPerKg']).toMatch(/at most 100 W\/kg/);
     expect(bad.body.error.fields['measurements.1.testDate']).toMatch(/date/);
-    const refs = await engineer.put(`/api/filings/${id}/measurements`).send({ measurements: [{ id: 'X1', transmitterId: 'BT', usePositionId: 'P-LAP', frequencyHz: 1.88e9, testSeparationM: 0, measuredPowerDbm: 23, sar1gWPerKg: 0.5, testDate: '2026-10-12', liquidCheckId: 'L9' }] });
+    const refs = await engineer.put(`/api/filings/${id}/measurements`).send({
+      measurements: [
+        { id: 'X1', transmitterId: 'BT', usePositionId: 'P-LAP', frequencyHz: 1.88e9, testSeparationM: 0, measuredPowerDbm: 23, sar1gWPerKg: 0.5, testDate: '2026-10-12', liquidCheckId: 'L9' },
+      ],
+    });
     expect(refs.status).toBe(422);
     expect(refs.body.error.fields['measurements.0.transmitterId']).toMatch(/Unknown transmitter “BT”; this filing has WWAN, WLAN/);
     expect(refs.body.error.fields['measurements.0.usePositionId']).toMatch(/P-LAP/);
@@ -198,7 +221,7 @@ describe('import', () => {
   });
 
   it('over the size limit is 413 and stores nothing', { timeout: 60_000 }, async () => {
-    const small = await createTestApp({ env: { FIELDFILE_IMPORT_MAX_BYTES: '2048'  } });
+    const small = await createTestApp({ env: { FIELDFILE_IMPORT_MAX_BYTES: '2048' } });
     try {
       await seedUsers(small);
       const sp = await signIn(small, 'specialist@fieldfile.test');

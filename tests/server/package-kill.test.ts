@@ -18,7 +18,12 @@ import { createStorages } from '../../server/storage';
 
 /** Every stored object (not temporary files) under a storage area's root. */
 const objects = (root: string): string[] =>
-  fs.existsSync(root) ? fs.readdirSync(root, { recursive: true, withFileTypes: true }).filter((d) => d.isFile() && !d.parentPath.includes('.tmp')).map((d) => d.name) : [];
+  fs.existsSync(root)
+    ? fs
+        .readdirSync(root, { recursive: true, withFileTypes: true })
+        .filter((d) => d.isFile() && !d.parentPath.includes('.tmp'))
+        .map((d) => d.name)
+    : [];
 
 const ROOT = path.resolve(__dirname, '../..');
 
@@ -42,7 +47,10 @@ describe('a build killed mid-way', () => {
     }
     // The child is the node process itself (tsx as a loader, no wrapper), so this kills the build.
     // Its exhibit renderers (child processes of its own, if still running) go with it.
-    const renderers = execFileSync('ps', ['-o', 'pid=', '--ppid', String(child.pid)], { encoding: 'utf8' }).split('\n').filter(Boolean).map(Number);
+    const renderers = execFileSync('ps', ['-o', 'pid=', '--ppid', String(child.pid)], { encoding: 'utf8' })
+      .split('\n')
+      .filter(Boolean)
+      .map(Number);
     child.kill('SIGKILL');
     await exited;
     const alive = (pid: number) => {

@@ -50,11 +50,14 @@ async function pdfText(bytes: Uint8Array): Promise<string[]> {
 async function buildAndWait(agent: Agent, filingId: number, n: number) {
   const start = await agent.post(`/api/filings/${filingId}/versions/${n}/package`);
   expect(start.status).toBe(202);
-  const events = await agent.get(`/api/jobs/${start.body.job.id}/events`).buffer(true).parse((res, cb) => {
-    let text = '';
-    res.on('data', (c: Buffer) => (text += c.toString()));
-    res.on('end', () => cb(null, text));
-  });
+  const events = await agent
+    .get(`/api/jobs/${start.body.job.id}/events`)
+    .buffer(true)
+    .parse((res, cb) => {
+      let text = '';
+      res.on('data', (c: Buffer) => (text += c.toString()));
+      res.on('end', () => cb(null, text));
+    });
   expect(events.headers['content-type']).toMatch(/text\/event-stream/);
   const statuses = String(events.body)
     .split('\n\n')
@@ -123,7 +126,13 @@ describe('a DRAFT preview of the demo filing', () => {
 
   it('holds the manifest, the exhibit, the results, and every file matches its manifest hash', async () => {
     const { manifest, zip } = await checkAgainstManifest(zipBytes);
-    expect(manifest).toMatchObject({ format: 'fieldfile.package/1', status: 'draft-preview', filing: { id: 1, version: 1 }, signature: null, engine: { version: expect.any(String), ruleSetVersion: expect.any(String) } });
+    expect(manifest).toMatchObject({
+      format: 'fieldfile.package/1',
+      status: 'draft-preview',
+      filing: { id: 1, version: 1 },
+      signature: null,
+      engine: { version: expect.any(String), ruleSetVersion: expect.any(String) },
+    });
     expect(manifest.files.map((f: { path: string }) => f.path)).toEqual([
       'exhibit/trailhound-th-4-rugged-tracker-v1-rf-exposure-exhibit.pdf',
       'exhibit/trailhound-th-4-rugged-tracker-v1-rf-exposure-exhibit.docx',
@@ -132,7 +141,9 @@ describe('a DRAFT preview of the demo filing', () => {
     ]);
     const csv = await zip.file('results/screening.csv')!.async('string');
     const lines = csv.trim().split('\r\n');
-    expect(lines[0]).toBe('transmitter_id,use_position_id,use_position_kind,market,exposure_tier,rule,frequency_Hz,separation_m,power_mode,evaluated_power_W,evaluated_quantity,threshold,threshold_unit,result,margin_dB,estimated_sar_W_per_kg,appendix_ref');
+    expect(lines[0]).toBe(
+      'transmitter_id,use_position_id,use_position_kind,market,exposure_tier,rule,frequency_Hz,separation_m,power_mode,evaluated_power_W,evaluated_quantity,threshold,threshold_unit,result,margin_dB,estimated_sar_W_per_kg,appendix_ref',
+    );
     for (const id of transmitterIds) expect(csv).toContain(`\r\n${id},`);
   });
 
@@ -230,7 +241,14 @@ describe('a signed package', () => {
   it('states the signature and the checklist as stored at signing in its manifest', async () => {
     const { manifest } = await checkAgainstManifest(zipBytes);
     expect(manifest.status).toBe('signed');
-    expect(manifest.signature).toEqual({ signerName: 'Jonas Weber', signerRole: 'Approver', signedAt: signature.signedAt, statement: signature.statement, contentSha256: signature.contentSha256, contentFormat: expect.any(String) });
+    expect(manifest.signature).toEqual({
+      signerName: 'Jonas Weber',
+      signerRole: 'Approver',
+      signedAt: signature.signedAt,
+      statement: signature.statement,
+      contentSha256: signature.contentSha256,
+      contentFormat: expect.any(String),
+    });
     const stored = JSON.parse((t.handle.sqlite.prepare('select checklist from version_signatures').get() as { checklist: string }).checklist);
     expect(manifest.readiness).toMatchObject({ basis: 'at-signing', asOf: signature.signedAt, ready: true, counts: stored.counts });
     expect(manifest.readiness.items).toEqual(stored.items.map((i: { id: string; status: string }) => ({ id: i.id, status: i.status })));
@@ -290,7 +308,10 @@ describe('a signed package', () => {
     expect(all).toContain('As it stood at signing');
     const { PDFDocument, PDFDict, PDFName } = await import('pdf-lib');
     const parsed = await PDFDocument.load(pdf, { updateMetadata: false });
-    const dicts = parsed.context.enumerateIndirectObjects().map(([, o]) => o).filter((o) => o instanceof PDFDict);
+    const dicts = parsed.context
+      .enumerateIndirectObjects()
+      .map(([, o]) => o)
+      .filter((o) => o instanceof PDFDict);
     const fonts = dicts.filter((d) => d.get(PDFName.of('Type')) === PDFName.of('Font'));
     const descriptors = dicts.filter((d) => d.get(PDFName.of('Type')) === PDFName.of('FontDescriptor'));
     expect(descriptors.length).toBeGreaterThanOrEqual(3);

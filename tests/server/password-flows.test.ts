@@ -30,7 +30,12 @@ afterEach(() => vi.restoreAllMocks());
 
 const forgot = (email: string, from = '198.51.100.77') => request(t.app).post('/api/auth/forgot-password').set('X-Forwarded-For', from).send({ email });
 const login = (email: string, password: string, from = '198.51.100.78') => request(t.app).post('/api/auth/login').set('X-Forwarded-For', from).send({ email, password });
-const mailsTo = (email: string) => t.handle.db.select().from(mailMessages).where(like(mailMessages.toAddress, `%${email}%`)).all();
+const mailsTo = (email: string) =>
+  t.handle.db
+    .select()
+    .from(mailMessages)
+    .where(like(mailMessages.toAddress, `%${email}%`))
+    .all();
 const auditOf = (action: string) => listOrganisationAudit(t.handle.db, organisationId, 10_000).filter((e) => e.action === action);
 const tokenFrom = (text: string) => decodeURIComponent(text.match(/reset-password\?token=([^\s"<]+)/)![1]);
 
@@ -220,7 +225,14 @@ describe('changing the password in the profile', () => {
     const me = await signIn(t, email, 'lantern quarry bicycle 5');
     const from = '203.0.113.98';
     for (let i = 0; i < SIGN_IN_LIMITS.accountFromAddress.points; i++) {
-      expect((await me.post('/api/auth/change-password').set('X-Forwarded-For', from).send({ currentPassword: `guess-${i}`, newPassword: 'lantern quarry bicycle 6' })).status).toBe(422);
+      expect(
+        (
+          await me
+            .post('/api/auth/change-password')
+            .set('X-Forwarded-For', from)
+            .send({ currentPassword: `guess-${i}`, newPassword: 'lantern quarry bicycle 6' })
+        ).status,
+      ).toBe(422);
     }
     const blocked = await me.post('/api/auth/change-password').set('X-Forwarded-For', from).send({ currentPassword: 'lantern quarry bicycle 5', newPassword: 'lantern quarry bicycle 6' });
     expect(blocked.status).toBe(429);

@@ -55,9 +55,7 @@ describe('saving reduced powers in the use-positions step', () => {
   });
 
   it('saves and reads a hotspot back-off beside the proximity-sensor reduction', async () => {
-    const positions = (await positionsOf(id)).map((p) =>
-      p.id === 'in-hand' ? { ...p, powerModes: [{ transmitterId: 'LTE-B2', reducedTuneUpPowerDbm: 19.5, trigger: 'hotspot-back-off' }] } : p,
-    );
+    const positions = (await positionsOf(id)).map((p) => (p.id === 'in-hand' ? { ...p, powerModes: [{ transmitterId: 'LTE-B2', reducedTuneUpPowerDbm: 19.5, trigger: 'hotspot-back-off' }] } : p));
     const res = await specialist.put(`/api/filings/${id}/steps/use-positions`).send({ usePositions: positions });
     expect(res.status).toBe(200);
     const inHand = (res.body.filing.data['use-positions'].usePositions as Position[]).find((p) => p.id === 'in-hand')!;
@@ -171,6 +169,10 @@ describe('the device file and versions carry power modes', () => {
     const tx = (sqlite.prepare("select id from transmitters where version_id = ? and key = 'LTE-B2'").get(v1.version.id) as { id: number }).id;
     expect(() => sqlite.prepare('update use_position_power_modes set reduced_tune_up_power_dbm = 10 where use_position_id = ?').run(position)).toThrow(/signed version is frozen/);
     expect(() => sqlite.prepare('delete from use_position_power_modes where use_position_id = ?').run(position)).toThrow(/signed version is frozen/);
-    expect(() => sqlite.prepare("insert into use_position_power_modes (use_position_id, transmitter_id, reduced_tune_up_power_dbm, trigger, sort_order) values (?, ?, 10, 'proximity-sensor', 1)").run(position, tx)).toThrow(/signed version is frozen/);
+    expect(() =>
+      sqlite
+        .prepare("insert into use_position_power_modes (use_position_id, transmitter_id, reduced_tune_up_power_dbm, trigger, sort_order) values (?, ?, 10, 'proximity-sensor', 1)")
+        .run(position, tx),
+    ).toThrow(/signed version is frozen/);
   });
 });

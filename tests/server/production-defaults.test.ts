@@ -97,8 +97,7 @@ describe('ids in paths', () => {
 });
 
 describe('request bodies', () => {
-  const save = (body: string, type = 'application/json') =>
-    specialist.put(`/api/filings/${filingId}/steps/device`).set('Content-Type', type).send(body);
+  const save = (body: string, type = 'application/json') => specialist.put(`/api/filings/${filingId}/steps/device`).set('Content-Type', type).send(body);
 
   it('that are not JSON get 415 and store nothing', async () => {
     const before = (await specialist.get(`/api/filings/${filingId}`)).body.filing;

@@ -112,11 +112,17 @@ describe('read-back through the evidence API', () => {
     const approver = await signIn(t, 'approver@fieldfile.test');
     expect((await approver.post(`/api/filings/${id}/evidence/${bad}/findings/explain`).send({ key: finding.key, reason: 'Lab used the old table' })).status).toBe(403);
     expect((await engineer.post(`/api/filings/${id}/evidence/${bad}/findings/explain`).send({ key: finding.key, reason: '' })).status).toBe(422);
-    const res = await engineer.post(`/api/filings/${id}/evidence/${bad}/findings/explain`).send({ key: finding.key, reason: 'The report quotes the conducted target; the tune-up limit with tolerance is 24 dBm.' });
+    const res = await engineer
+      .post(`/api/filings/${id}/evidence/${bad}/findings/explain`)
+      .send({ key: finding.key, reason: 'The report quotes the conducted target; the tune-up limit with tolerance is 24 dBm.' });
     expect(res.status).toBe(200);
     list = res.body;
     expect(list.findings.find((f) => f.key === finding.key)?.explanation).toMatchObject({ reason: expect.stringMatching(/tolerance/), by: expect.any(String) });
-    const audit = t.handle.db.select().from(auditLog).all().filter((a) => a.action === 'evidence.finding-explain');
+    const audit = t.handle.db
+      .select()
+      .from(auditLog)
+      .all()
+      .filter((a) => a.action === 'evidence.finding-explain');
     expect(audit).toHaveLength(1);
     // Three uploads, each read back by pdfjs: allow for a busy shared machine (speed is a bench matter).
   }, 120_000);

@@ -46,11 +46,12 @@ async function newExemptFiling(by: Agent = specialist, name = exemptDevice.devic
 }
 
 const mailsTo = async (email: string, subject: RegExp) =>
-  ((await admin.get('/api/outbox')).body.messages as { to: string; subject: string; text: string; html: string }[]).filter((m) => m.to.replace(/^.*</, '').replace(/>.*$/, '') === email && subject.test(m.subject));
+  ((await admin.get('/api/outbox')).body.messages as { to: string; subject: string; text: string; html: string }[]).filter(
+    (m) => m.to.replace(/^.*</, '').replace(/>.*$/, '') === email && subject.test(m.subject),
+  );
 
 const sql = () => t.handle.sqlite;
-const versionId = (filingId: number, number = 1) =>
-  (sql().prepare('select id from filing_versions where filing_id = ? and number = ?').get(filingId, number) as { id: number }).id;
+const versionId = (filingId: number, number = 1) => (sql().prepare('select id from filing_versions where filing_id = ? and number = ?').get(filingId, number) as { id: number }).id;
 
 beforeAll(async () => {
   t = await createTestApp();
@@ -216,7 +217,12 @@ describe('the review flow, role by role', () => {
 
   it('the database itself refuses UPDATE, DELETE and INSERT on the signed version’s rows (raw SQL)', () => {
     const v = versionId(id);
-    const refused = (statement: string, ...params: unknown[]) => expect(() => sql().prepare(statement).run(...params)).toThrow(/signed version is frozen/);
+    const refused = (statement: string, ...params: unknown[]) =>
+      expect(() =>
+        sql()
+          .prepare(statement)
+          .run(...params),
+      ).toThrow(/signed version is frozen/);
     refused('update transmitters set max_tune_up_power_dbm = 10 where version_id = ?', v);
     refused('delete from transmitters where version_id = ?', v);
     refused('update antennas set gain_dbi = 9 where version_id = ?', v);
@@ -266,7 +272,12 @@ describe('the review flow, role by role', () => {
     expect(same.fields).toEqual([]);
     expect(same.impact).toEqual({ screening: [], checklist: [], markets: [], lab: [] });
     // The copy: same data as version 1.
-    const usePositions = { usePositions: [{ id: 'lanyard', kind: 'body-worn', separations: [{ antennaId: 'ANT-BT', separationM: 0.005 }] }, { id: 'wrist', kind: 'extremity', separations: [{ antennaId: 'ANT-BT', separationM: 0 }] }] };
+    const usePositions = {
+      usePositions: [
+        { id: 'lanyard', kind: 'body-worn', separations: [{ antennaId: 'ANT-BT', separationM: 0.005 }] },
+        { id: 'wrist', kind: 'extremity', separations: [{ antennaId: 'ANT-BT', separationM: 0 }] },
+      ],
+    };
     const radios = { antennas: exemptDevice.antennas, transmitters: [{ ...exemptDevice.transmitters[0], maxTuneUpPowerDbm: 20, dutyCycle: 1 }] };
     expect((await specialist.put(`/api/filings/${id}/steps/radios`).send(radios)).status).toBe(200);
     expect((await specialist.put(`/api/filings/${id}/steps/use-positions`).send(usePositions)).status).toBe(200);
@@ -297,7 +308,17 @@ describe('the review flow, role by role', () => {
 
   it('the timeline lists every state change, comment, signature and verification', async () => {
     const actions = (await engineer.get(`/api/filings/${id}/timeline`)).body.entries.map((e: { action: string }) => e.action);
-    for (const a of ['version.review-requested', 'review.comment', 'version.returned', 'review.reply', 'review.resolve', 'version.sign-refused', 'version.signed', 'version.verified', 'version.started']) {
+    for (const a of [
+      'version.review-requested',
+      'review.comment',
+      'version.returned',
+      'review.reply',
+      'review.resolve',
+      'version.sign-refused',
+      'version.signed',
+      'version.verified',
+      'version.started',
+    ]) {
       expect(actions).toContain(a);
     }
   });

@@ -207,23 +207,33 @@ describe('role matrix', () => {
   it('has exactly one row for every API route', async () => {
     const routes = apiRouteTable(t.app);
     const rows = Object.keys(MATRIX).sort();
-    expect(routes.filter((r) => !rows.includes(r)), 'routes without a row in the role matrix').toEqual([]);
-    expect(rows.filter((r) => !routes.includes(r)), 'rows for routes that do not exist').toEqual([]);
+    expect(
+      routes.filter((r) => !rows.includes(r)),
+      'routes without a row in the role matrix',
+    ).toEqual([]);
+    expect(
+      rows.filter((r) => !routes.includes(r)),
+      'rows for routes that do not exist',
+    ).toEqual([]);
   });
 
-  it.each(Object.entries(MATRIX))('%s', async (key, row) => {
-    const [method, pattern] = key.split(' ');
-    const params = { ...paramsFor(fx), ...row.params?.(fx) };
-    const url = pattern.replace(/:(\w+)/g, (_m, name: string) => encodeURIComponent(String(params[name])));
-    const actual: Partial<Expected> = {};
-    for (const caller of CALLERS) {
-      const agent = row.freshSession && caller !== 'anon' ? await signIn(t, EMAILS[caller]) : agents.get(caller)!;
-      let req = agent[method.toLowerCase() as 'get' | 'post' | 'put' | 'patch' | 'delete'](url);
-      if (row.query) req = req.query(typeof row.query === 'function' ? row.query(fx) : row.query);
-      if (method !== 'GET') req = req.send((row.body ?? {}) as object);
-      const res = await req;
-      actual[caller] = res.status;
-    }
-    expect(actual).toEqual(row.expect);
-  }, 60_000);
+  it.each(Object.entries(MATRIX))(
+    '%s',
+    async (key, row) => {
+      const [method, pattern] = key.split(' ');
+      const params = { ...paramsFor(fx), ...row.params?.(fx) };
+      const url = pattern.replace(/:(\w+)/g, (_m, name: string) => encodeURIComponent(String(params[name])));
+      const actual: Partial<Expected> = {};
+      for (const caller of CALLERS) {
+        const agent = row.freshSession && caller !== 'anon' ? await signIn(t, EMAILS[caller]) : agents.get(caller)!;
+        let req = agent[method.toLowerCase() as 'get' | 'post' | 'put' | 'patch' | 'delete'](url);
+        if (row.query) req = req.query(typeof row.query === 'function' ? row.query(fx) : row.query);
+        if (method !== 'GET') req = req.send((row.body ?? {}) as object);
+        const res = await req;
+        actual[caller] = res.status;
+      }
+      expect(actual).toEqual(row.expect);
+    },
+    60_000,
+  );
 });

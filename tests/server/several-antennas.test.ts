@@ -58,10 +58,14 @@ describe('a transmitter that switches between two antennas', () => {
     // The separations of the renamed antenna stayed (by row).
     expect(res.body.filing.data['use-positions'].usePositions[2].separations).toContainEqual({ antennaId: 'ANT-TOP', separationM: 0.004 });
 
-    const bad = await specialist.put(`/api/filings/${id}/steps/radios`).send({ ...renamed, transmitters: renamed.transmitters.map((x: object, i: number) => (i === 2 ? { ...x, moreAntennaIds: ['ANT-GONE'] } : x)) });
+    const bad = await specialist
+      .put(`/api/filings/${id}/steps/radios`)
+      .send({ ...renamed, transmitters: renamed.transmitters.map((x: object, i: number) => (i === 2 ? { ...x, moreAntennaIds: ['ANT-GONE'] } : x)) });
     expect(bad.status).toBe(422);
     expect(bad.body.error.fields['transmitters.2.moreAntennaIds.0']).toMatch(/no antenna "ANT-GONE"/);
-    const twice = await specialist.put(`/api/filings/${id}/steps/radios`).send({ ...renamed, transmitters: renamed.transmitters.map((x: object, i: number) => (i === 2 ? { ...x, moreAntennaIds: ['ANT-DIV'] } : x)) });
+    const twice = await specialist
+      .put(`/api/filings/${id}/steps/radios`)
+      .send({ ...renamed, transmitters: renamed.transmitters.map((x: object, i: number) => (i === 2 ? { ...x, moreAntennaIds: ['ANT-DIV'] } : x)) });
     expect(twice.body.error.fields['transmitters.2.moreAntennaIds.0']).toMatch(/already one of this transmitter’s antennas/);
   });
 
@@ -74,7 +78,12 @@ describe('a transmitter that switches between two antennas', () => {
     const step = res.body.filing.steps.find((s: { step: string }) => s.step === 'use-positions');
     expect(step.problems.join(' ')).toMatch(/belt-clip.*ANT-TOP/);
     const gaps = (await specialist.get(`/api/filings/${id}/screening`)).body.gaps as { transmitterId: string; usePositionId: string; message: string }[];
-    expect(gaps.filter((g) => g.usePositionId === 'belt-clip').map((g) => g.transmitterId).sort()).toEqual(['LTE-B11', 'LTE-B12', 'LTE-B2']);
+    expect(
+      gaps
+        .filter((g) => g.usePositionId === 'belt-clip')
+        .map((g) => g.transmitterId)
+        .sort(),
+    ).toEqual(['LTE-B11', 'LTE-B12', 'LTE-B2']);
   });
 });
 

@@ -18,12 +18,7 @@ describe('users', () => {
   it('lists the organisation with roles', async () => {
     const res = await admin.get('/api/users');
     expect(res.status).toBe(200);
-    expect(res.body.users.map((u: { email: string }) => u.email).sort()).toEqual([
-      'admin@fieldfile.test',
-      'approver@fieldfile.test',
-      'engineer@fieldfile.test',
-      'specialist@fieldfile.test',
-    ]);
+    expect(res.body.users.map((u: { email: string }) => u.email).sort()).toEqual(['admin@fieldfile.test', 'approver@fieldfile.test', 'engineer@fieldfile.test', 'specialist@fieldfile.test']);
   });
 
   it('invites a user: the mail reaches the outbox, the link sets a password, the user signs in', async () => {

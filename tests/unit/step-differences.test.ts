@@ -8,13 +8,19 @@ describe('stepDifferences', () => {
   });
 
   it('matches rows by stored row number, then by label, and names the fields that differ', () => {
-    const mine = { transmitters: [{ rowId: 1, id: 'LTE-B2', maxTuneUpPowerDbm: 23, gainDbi: 1 }, { id: 'WLAN-5G', band: 'U-NII-1' }] };
-    const theirs = { transmitters: [{ rowId: 1, id: 'LTE-B2', maxTuneUpPowerDbm: 24, gainDbi: 1 }, { rowId: 7, id: 'BT', band: '2.4 GHz' }] };
-    expect(stepDifferences(mine, theirs)).toEqual([
-      'Transmitter “LTE-B2”: maximum tune-up power',
-      'Transmitter “WLAN-5G”: only in yours',
-      'Transmitter “BT”: only in theirs',
-    ]);
+    const mine = {
+      transmitters: [
+        { rowId: 1, id: 'LTE-B2', maxTuneUpPowerDbm: 23, gainDbi: 1 },
+        { id: 'WLAN-5G', band: 'U-NII-1' },
+      ],
+    };
+    const theirs = {
+      transmitters: [
+        { rowId: 1, id: 'LTE-B2', maxTuneUpPowerDbm: 24, gainDbi: 1 },
+        { rowId: 7, id: 'BT', band: '2.4 GHz' },
+      ],
+    };
+    expect(stepDifferences(mine, theirs)).toEqual(['Transmitter “LTE-B2”: maximum tune-up power', 'Transmitter “WLAN-5G”: only in yours', 'Transmitter “BT”: only in theirs']);
   });
 
   it('says nothing when the two hold the same values, and falls back to plain words for an unknown field', () => {

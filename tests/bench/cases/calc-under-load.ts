@@ -95,7 +95,9 @@ export const readsUnderCalcCase: BenchCase = {
     load = keepCalculating(server);
     await new Promise((r) => setTimeout(r, 1500));
     const loadedMean = await meanMs(read, 200);
-    readNotes.push(`under load: mean ${loadedMean.toFixed(2)} ms per read (${(1000 / loadedMean).toFixed(0)} reads/s) = ${((100 * idleMean) / loadedMean).toFixed(0)} % of idle throughput (target ≥ 80 %)`);
+    readNotes.push(
+      `under load: mean ${loadedMean.toFixed(2)} ms per read (${(1000 / loadedMean).toFixed(0)} reads/s) = ${((100 * idleMean) / loadedMean).toFixed(0)} % of idle throughput (target ≥ 80 %)`,
+    );
     return read;
   },
   async teardown() {

@@ -23,12 +23,23 @@ let run = 0;
 function upload(port: number, cookie: string, filingId: number, tag: string): Promise<number> {
   return new Promise((resolve, reject) => {
     const boundary = 'fieldfile-bench';
-    const head = Buffer.from(`--${boundary}\r\nContent-Disposition: form-data; name="category"\r\n\r\nother\r\n--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="big-${tag}.csv"\r\nContent-Type: text/csv\r\n\r\n`);
+    const head = Buffer.from(
+      `--${boundary}\r\nContent-Disposition: form-data; name="category"\r\n\r\nother\r\n--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="big-${tag}.csv"\r\nContent-Type: text/csv\r\n\r\n`,
+    );
     const tail = Buffer.from(`\r\n--${boundary}--\r\n`);
-    const req = http.request({ port, host: '127.0.0.1', method: 'POST', path: `/api/filings/${filingId}/evidence`, headers: { cookie, 'content-type': `multipart/form-data; boundary=${boundary}`, 'content-length': head.length + UPLOAD_BYTES + tail.length } }, (res) => {
-      res.resume();
-      res.on('end', () => resolve(res.statusCode ?? 0));
-    });
+    const req = http.request(
+      {
+        port,
+        host: '127.0.0.1',
+        method: 'POST',
+        path: `/api/filings/${filingId}/evidence`,
+        headers: { cookie, 'content-type': `multipart/form-data; boundary=${boundary}`, 'content-length': head.length + UPLOAD_BYTES + tail.length },
+      },
+      (res) => {
+        res.resume();
+        res.on('end', () => resolve(res.statusCode ?? 0));
+      },
+    );
     req.on('error', reject);
     const chunk = Buffer.alloc(CHUNK, `${tag},1.19,W/kg\n`);
     let sent = 0;
@@ -90,7 +101,13 @@ export const readBackCase: BenchCase = {
   async prepare() {
     const pages = Array.from({ length: 100 }, (_, p) => [
       `SAR test report, model KH2-LTE, page ${p + 1} of 100`,
-      ...Array.from({ length: 44 }, (_, l) => (l % 11 === 0 ? `LTE Band ${(l % 40) + 1} maximum tune-up power: ${(20 + (l % 5)).toFixed(1)} dBm` : l % 7 === 0 ? `Reported SAR body-worn, channel ${l * 10}: 0.${l} W/kg` : `Measurement row ${l}: probe 4471, liquid 41.5 / 0.90 S/m, drift -0.0${l % 9} dB`)),
+      ...Array.from({ length: 44 }, (_, l) =>
+        l % 11 === 0
+          ? `LTE Band ${(l % 40) + 1} maximum tune-up power: ${(20 + (l % 5)).toFixed(1)} dBm`
+          : l % 7 === 0
+            ? `Reported SAR body-worn, channel ${l * 10}: 0.${l} W/kg`
+            : `Measurement row ${l}: probe 4471, liquid 41.5 / 0.90 S/m, drift -0.0${l % 9} dB`,
+      ),
     ]);
     const pdf = await makePdf(pages);
     const numbers: FilingNumbers = {

@@ -12,10 +12,7 @@ import type { BenchCase } from '../harness';
 type Regime = 'fcc' | 'ised' | 'icnirp-1998' | 'icnirp-2020';
 const REGIMES: Regime[] = ['fcc', 'ised', 'icnirp-1998', 'icnirp-2020'];
 
-const FREQUENCIES_HZ = [
-  0.45e9, 0.6e9, 0.7e9, 0.835e9, 0.9e9, 1.0e9, 1.5e9, 1.75e9, 1.9e9, 2.1e9, 2.3e9, 2.45e9, 2.6e9, 3.5e9, 3.7e9,
-  4.9e9, 5.2e9, 5.5e9, 5.8e9, 5.9e9,
-];
+const FREQUENCIES_HZ = [0.45e9, 0.6e9, 0.7e9, 0.835e9, 0.9e9, 1.0e9, 1.5e9, 1.75e9, 1.9e9, 2.1e9, 2.3e9, 2.45e9, 2.6e9, 3.5e9, 3.7e9, 4.9e9, 5.2e9, 5.5e9, 5.8e9, 5.9e9];
 
 const transmitters = FREQUENCIES_HZ.map((frequencyHz, i) => ({
   id: `tx${i + 1}`,
@@ -92,9 +89,7 @@ function buildJobs(): Job[] {
           input: {
             limitWPerKg: pos.extremity ? 4 : 1.6,
             sarAveraging: pos.extremity ? '10g' : '1g',
-            transmitters: transmitters
-              .slice(g, g + SIMULTANEOUS_GROUP_SIZE)
-              .map((t) => ({ id: t.id, sarWPerKg: t.measuredSarWPerKg * 1.5, peakLocationM: t.peakLocationM })),
+            transmitters: transmitters.slice(g, g + SIMULTANEOUS_GROUP_SIZE).map((t) => ({ id: t.id, sarWPerKg: t.measuredSarWPerKg * 1.5, peakLocationM: t.peakLocationM })),
           },
         });
       }

@@ -13,4 +13,23 @@ import { healthUnderCalcCase, readsUnderCalcCase } from './calc-under-load';
 import { signInFloodCase } from './sign-in-flood';
 import { authenticatedReadsCase } from './authenticated-reads';
 
-export const benchCases: BenchCase[] = [filingEvaluationCase, planeWaveProfileCase, screeningCase, screeningApiCase, screeningPageCase, labRecomputeCase, labImportCase, evidenceUploadCase, readBackCase, readinessCase, compareCachedCase, compareColdCase, exhibitPdfCase, packageBuildCase, healthUnderCalcCase, readsUnderCalcCase, signInFloodCase, authenticatedReadsCase];
+export const benchCases: BenchCase[] = [
+  filingEvaluationCase,
+  planeWaveProfileCase,
+  screeningCase,
+  screeningApiCase,
+  screeningPageCase,
+  labRecomputeCase,
+  labImportCase,
+  evidenceUploadCase,
+  readBackCase,
+  readinessCase,
+  compareCachedCase,
+  compareColdCase,
+  exhibitPdfCase,
+  packageBuildCase,
+  healthUnderCalcCase,
+  readsUnderCalcCase,
+  signInFloodCase,
+  authenticatedReadsCase,
+];

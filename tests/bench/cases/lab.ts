@@ -104,11 +104,18 @@ export const labImportCase: BenchCase = {
     const engineer = await server.login('engineer@fieldfile.test');
     const imported = await fetch(`${base}/filings/import`, { method: 'POST', headers: { 'content-type': 'application/json', cookie: specialist }, body: JSON.stringify(largeDeviceFile()) });
     const { filing } = (await imported.json()) as { filing: { id: number } };
-    const header = 'transmitter_id,use_position_id,test_position,channel,frequency_mhz,test_separation_mm,measured_power_dbm,tune_up_power_dbm,test_duty_cycle,sar_1g_w_kg,sar_10g_w_kg,drift_db,test_date,peak_x_mm,peak_y_mm';
+    const header =
+      'transmitter_id,use_position_id,test_position,channel,frequency_mhz,test_separation_mm,measured_power_dbm,tune_up_power_dbm,test_duty_cycle,sar_1g_w_kg,sar_10g_w_kg,drift_db,test_date,peak_x_mm,peak_y_mm';
     const rows = measurementRows(5000);
     // Each run's file differs (the run number is in the test position), so every run stores and recomputes.
     let run = 0;
-    const csvFor = (r: number) => [header, ...rows.map((m, i) => `${m.tx},${m.pos},back ${r},${i},${m.mhz},${m.sepMm},${m.power.toFixed(2)},,,${m.sar1g.toFixed(3)},${m.sar10g.toFixed(3)},${m.drift},${m.date},${m.peak[0]},${m.peak[1]}`)].join('\n');
+    const csvFor = (r: number) =>
+      [
+        header,
+        ...rows.map(
+          (m, i) => `${m.tx},${m.pos},back ${r},${i},${m.mhz},${m.sepMm},${m.power.toFixed(2)},,,${m.sar1g.toFixed(3)},${m.sar10g.toFixed(3)},${m.drift},${m.date},${m.peak[0]},${m.peak[1]}`,
+        ),
+      ].join('\n');
     const rssStart = process.memoryUsage().rss;
     let rssMax = rssStart;
     cleanup = () => server.close();

@@ -46,7 +46,9 @@ function generateEvidence(root: string, totalBytes: number) {
     let left = text ? textEach : binaryEach;
     let row = 0;
     while (left > 0) {
-      const chunk = text ? Buffer.from(Array.from({ length: 2000 }, () => `${row++},${(Math.sin(row) * 1.6).toFixed(6)},${(row * 0.001).toFixed(4)}\n`).join('')) : randomBytes(Math.min(left, 4 << 20));
+      const chunk = text
+        ? Buffer.from(Array.from({ length: 2000 }, () => `${row++},${(Math.sin(row) * 1.6).toFixed(6)},${(row * 0.001).toFixed(4)}\n`).join(''))
+        : randomBytes(Math.min(left, 4 << 20));
       const part = chunk.subarray(0, Math.min(left, chunk.length));
       fs.writeSync(fd, part);
       hash.update(part);
@@ -79,7 +81,11 @@ export const packageBuildCase: BenchCase = {
     handle.sqlite.close();
     return () => {
       // Page cache warm for both: read once before timing either.
-      spawnSync('cat', list.map((e) => e.path), { stdio: ['ignore', 'ignore', 'ignore'] });
+      spawnSync(
+        'cat',
+        list.map((e) => e.path),
+        { stdio: ['ignore', 'ignore', 'ignore'] },
+      );
       const out = path.join(dir, 'out');
       fs.mkdirSync(out, { recursive: true });
       // Started the way the server runs (tsx as the loader), so its RSS is comparable.

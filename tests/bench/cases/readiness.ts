@@ -116,8 +116,18 @@ interface CompareFixture {
 
 function actorFor(handle: DbHandle, email: string): FilingActor {
   const db = handle.db;
-  const m = db.select({ id: users.id, organisationId: memberships.organisationId, membershipId: memberships.id }).from(users).innerJoin(memberships, eq(memberships.userId, users.id)).where(eq(users.email, email)).get()!;
-  const roles = db.select({ role: membershipRoles.role }).from(membershipRoles).where(eq(membershipRoles.membershipId, m.membershipId)).all().map((r) => r.role as Role);
+  const m = db
+    .select({ id: users.id, organisationId: memberships.organisationId, membershipId: memberships.id })
+    .from(users)
+    .innerJoin(memberships, eq(memberships.userId, users.id))
+    .where(eq(users.email, email))
+    .get()!;
+  const roles = db
+    .select({ role: membershipRoles.role })
+    .from(membershipRoles)
+    .where(eq(membershipRoles.membershipId, m.membershipId))
+    .all()
+    .map((r) => r.role as Role);
   return { id: m.id, organisationId: m.organisationId, roles };
 }
 

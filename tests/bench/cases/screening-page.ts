@@ -27,7 +27,16 @@ export function fortyBandDeviceFile() {
   const antennas = Array.from({ length: 8 }, (_, i) => ({ id: `A${i + 1}`, gainDbi: -2 + i * 0.5, location: '' }));
   const transmitters = Array.from({ length: 40 }, (_, i) => {
     const minHz = 700e6 + i * 130e6;
-    return { id: `T${String(i + 1).padStart(2, '0')}`, technology: i % 3 ? 'LTE' : 'NR', band: `B${i + 1}`, frequencyMinHz: minHz, frequencyMaxHz: minHz + 40e6, maxTuneUpPowerDbm: 8 + (i % 16), dutyCycle: 1, antennaId: `A${(i % 8) + 1}` };
+    return {
+      id: `T${String(i + 1).padStart(2, '0')}`,
+      technology: i % 3 ? 'LTE' : 'NR',
+      band: `B${i + 1}`,
+      frequencyMinHz: minHz,
+      frequencyMaxHz: minHz + 40e6,
+      maxTuneUpPowerDbm: 8 + (i % 16),
+      dutyCycle: 1,
+      antennaId: `A${(i % 8) + 1}`,
+    };
   });
   const kinds = [...USE_POSITION_KINDS, 'body-worn', 'hotspot', 'head'] as const;
   const usePositions = kinds.map((kind, i) => ({
@@ -113,8 +122,5 @@ export const screeningPageCase: BenchCase = {
     };
   },
   teardown: () => cleanup?.(),
-  describe: () => [
-    `${rows} combinations; rows are drawn a page at a time`,
-    `long tasks over 100 ms while scrolling to the end: ${longTasks.length ? longTasks.join(', ') + ' ms' : 'none'}`,
-  ],
+  describe: () => [`${rows} combinations; rows are drawn a page at a time`, `long tasks over 100 ms while scrolling to the end: ${longTasks.length ? longTasks.join(', ') + ' ms' : 'none'}`],
 };

@@ -58,20 +58,33 @@ export const GOLDEN_SCREENING: Record<string, ScreeningInputRaw> = {
   // Several antennas on one transmitter: 2×2 MIMO Wi-Fi (powers add) and switched LTE, each at
   // every antenna; the row names the least favourable one.
   'several-antennas': {
-    markets: [{ regime: 'fcc', tier: 'general' }, { regime: 'eu', tier: 'general' }],
+    markets: [
+      { regime: 'fcc', tier: 'general' },
+      { regime: 'eu', tier: 'general' },
+    ],
     antennas,
     transmitters: [
       { id: 'wifi-mimo', frequencyMinHz: 5180e6, frequencyMaxHz: 5825e6, maxTuneUpPowerDbm: 12, dutyCycle: 0.95, antennaId: 'ant-a', moreAntennaIds: ['ant-b'], antennaUse: 'mimo' },
       { id: 'lte-switched', frequencyMinHz: 1850e6, frequencyMaxHz: 1910e6, maxTuneUpPowerDbm: 23, dutyCycle: 1, antennaId: 'ant-a', moreAntennaIds: ['ant-b'], antennaUse: 'switched' },
     ],
     usePositions: [
-      { id: 'near-b', kind: 'body-worn', separations: [{ antennaId: 'ant-a', separationM: 0.02 }, { antennaId: 'ant-b', separationM: 0.005 }] },
+      {
+        id: 'near-b',
+        kind: 'body-worn',
+        separations: [
+          { antennaId: 'ant-a', separationM: 0.02 },
+          { antennaId: 'ant-b', separationM: 0.005 },
+        ],
+      },
       { id: 'no-b', kind: 'body-worn', separations: [{ antennaId: 'ant-a', separationM: 0.01 }] },
     ],
   },
   // Power modes: a hotspot back-off and a proximity-sensor reduction in two positions, full power in the third.
   'power-modes': {
-    markets: [{ regime: 'fcc', tier: 'general' }, { regime: 'eu', tier: 'general' }],
+    markets: [
+      { regime: 'fcc', tier: 'general' },
+      { regime: 'eu', tier: 'general' },
+    ],
     antennas,
     transmitters: [{ id: 'lte', frequencyMinHz: 1850e6, frequencyMaxHz: 1910e6, maxTuneUpPowerDbm: 23, dutyCycle: 1, antennaId: 'ant-a' }],
     usePositions: [

@@ -10,16 +10,7 @@ import { chromium, type BrowserContext, type Page } from 'playwright-core';
 export const CHROMIUM_PATH = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
 export const SCREENSHOT_DIR = path.resolve(__dirname, '../../../test-output/screenshots');
 
-const ARGS = [
-  '--headless',
-  '--no-sandbox',
-  '--disable-gpu',
-  '--disable-quic',
-  '--no-first-run',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-];
+const ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'];
 
 export const PHONE = { width: 390, height: 844 } as const;
 export const DESKTOP = { width: 1440, height: 900 } as const;
@@ -83,5 +74,8 @@ export async function signInAt(page: Page, baseUrl: string, email: string, passw
 
 /** Autosave is debounced: wait until the indicator says the last change is stored. */
 export async function waitSaved(page: Page) {
-  await page.getByTestId('save-status').filter({ hasText: /^Saved \d\d:\d\d$/ }).waitFor({ timeout: 15_000 });
+  await page
+    .getByTestId('save-status')
+    .filter({ hasText: /^Saved \d\d:\d\d$/ })
+    .waitFor({ timeout: 15_000 });
 }

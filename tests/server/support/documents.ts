@@ -14,7 +14,10 @@ const PNG_1PX = 'iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mNkYPh
 
 export async function samples(): Promise<Sample[]> {
   const wb = new ExcelJS.Workbook();
-  wb.addWorksheet('Tune-up').addRows([['Band', 'Tune-up dBm'], ['Band 12', 24]]);
+  wb.addWorksheet('Tune-up').addRows([
+    ['Band', 'Tune-up dBm'],
+    ['Band 12', 24],
+  ]);
   const docx = await Packer.toBuffer(new Document({ sections: [{ children: [new Paragraph('Keep the device 10 mm from the body.')] }] }));
   return [
     { mime: MEDIA.pdf, fileName: 'sample.pdf', bytes: await makePdf([['A sample document']]) },

@@ -28,7 +28,20 @@ async function main() {
     db: handle.db,
     queue: createInProcessQueue(handle.db),
     storage: createLocalDiskStorage(path.join(dataDir, 'packages')),
-    sources: { evidence: () => [{ categoryId: 'test-report', category: 'RF-exposure test report', title: 'Endless', fileName: 'endless.bin', sizeBytes: 64 << 20, sha256: '0'.repeat(64), uploadedAt: '2026-11-30T14:05:00.000Z', open: endless }] },
+    sources: {
+      evidence: () => [
+        {
+          categoryId: 'test-report',
+          category: 'RF-exposure test report',
+          title: 'Endless',
+          fileName: 'endless.bin',
+          sizeBytes: 64 << 20,
+          sha256: '0'.repeat(64),
+          uploadedAt: '2026-11-30T14:05:00.000Z',
+          open: endless,
+        },
+      ],
+    },
     producer: 'Fieldfile test',
   };
   registerPackageJobs(deps);
