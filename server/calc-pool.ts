@@ -15,7 +15,9 @@ export type PoolOutcome =
   | { ok: true; body: Buffer; encoding: 'gzip' | 'identity' }
   | { ok: false; error: { message: string; issues: CalcIssue[]; problemCount?: number } }
   | { ok: false; tooLarge: number }
-  | { ok: false; timedOut: true; limitMs: number };
+  | { ok: false; timedOut: true; limitMs: number }
+  /** The server is stopping: calculations still in flight are ended, not reported as crashes. */
+  | { ok: false; shuttingDown: true };
 
 export interface CalcPool {
   /** `gzip`: the caller accepts a gzip-encoded body (compressed in the worker). */
@@ -32,8 +34,10 @@ export function createCalcPool({ timeLimitMs, maxThreads = Math.max(1, Math.min(
     // A runaway input cannot take the process's memory with it.
     resourceLimits: { maxOldGenerationSizeMb: 512 },
   });
+  let closing = false;
   return {
     async run(name, input, { gzip = false } = {}) {
+      if (closing) return { ok: false, shuttingDown: true };
       try {
         const outcome = (await pool.run({ name, input, maxResultBytes: MAX_CALC_RESULT_BYTES, gzip }, { signal: AbortSignal.timeout(timeLimitMs) })) as PoolOutcome;
         // A Buffer arrives from the worker as a plain Uint8Array; Express wants a Buffer.
@@ -42,9 +46,13 @@ export function createCalcPool({ timeLimitMs, maxThreads = Math.max(1, Math.min(
       } catch (err) {
         const e = err as { name?: string; cause?: { name?: string } };
         if (e?.name === 'AbortError' || e?.cause?.name === 'TimeoutError') return { ok: false, timedOut: true, limitMs: timeLimitMs };
+        if (closing) return { ok: false, shuttingDown: true };
         throw err;
       }
     },
-    close: () => pool.destroy(),
+    close: () => {
+      closing = true;
+      return pool.destroy();
+    },
   };
 }

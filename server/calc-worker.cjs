@@ -4,8 +4,19 @@
  * the bytes that would be sent.
  */
 require('tsx/cjs/api').register();
+const os = require('node:os');
 const zlib = require('node:zlib');
 const { runCalculation } = require('../calc/registry.ts');
+
+// The lowest scheduling priority for this thread only (Linux keeps a nice value per thread): on a
+// small machine the kernel then gives the event loop's reads and saves the CPU first, and a heavy
+// calculation uses what is left. Raising niceness needs no privilege; where it is refused, the
+// calculation still runs, at normal priority.
+try {
+  os.setPriority(os.constants.priority.PRIORITY_LOW);
+} catch {
+  /* not permitted here: run at normal priority */
+}
 
 module.exports = function runInWorker({ name, input, maxResultBytes, gzip }) {
   const outcome = runCalculation(name, input);

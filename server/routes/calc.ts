@@ -35,6 +35,10 @@ export function calcRoutes({ calcPool }: AppContext): Router {
         `The calculation ran longer than ${outcome.limitMs / 1000} s and was stopped. Split the input into smaller parts, or try again when the server is less busy.`,
       );
     }
+    if ('shuttingDown' in outcome) {
+      res.set('Retry-After', '5');
+      throw new HttpError(503, 'shutting_down', 'The server is restarting. Send the calculation again in a few seconds.');
+    }
     if ('tooLarge' in outcome) {
       throw new HttpError(413, 'result_too_large', `The result would be ${mb(outcome.tooLarge)}, more than the ${mb(MAX_CALC_RESULT_BYTES)} an answer may carry. Split the input into smaller parts.`);
     }
