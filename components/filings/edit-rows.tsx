@@ -197,10 +197,7 @@ function ConfirmRemoval({ title, effects, onCancel, onConfirm, testID }: { title
   );
 }
 
-/** The first free "<prefix>-<n>" id. */
-export function nextId(prefix: string, taken: readonly string[]): string {
-  for (let n = 1; ; n++) if (!taken.includes(`${prefix}-${n}`)) return `${prefix}-${n}`;
-}
+export { nextId } from './next-id';
 
 const styles = StyleSheet.create({
   wrap: { gap: space.md },
