@@ -24,10 +24,14 @@ interface Common<T extends FieldValues> {
 
 export interface FieldNote {
   message: string;
+  /** In a table cell (label hidden): a word or two, the row says the rest. */
+  short?: string;
   /** What was pasted, shown as it was while it is no value (a number field then holds null). */
   text?: string;
   onEdit: () => void;
 }
+
+const noteText = (note: FieldNote | undefined, inTable: boolean | undefined) => (note ? (inTable && note.short) || note.message : undefined);
 
 /** `onValueChange` hears each change with the value before it (e.g. to carry a rename to what refers to it). */
 type Changed = { onValueChange?: (next: string, previous: string) => void };
@@ -54,7 +58,7 @@ export function FormText<T extends FieldValues>({ control, name, editable, onVal
               onValueChange?.(next, previous);
             }}
             onBlur={field.onBlur}
-            error={note?.message ?? fieldState.error?.message}
+            error={noteText(note, rest.hideLabel) ?? fieldState.error?.message}
           />
         ) : (
           <ReadValue label={rest.label} hideLabel={rest.hideLabel} value={field.value ?? ''} testID={rest.testID} />
@@ -102,7 +106,7 @@ export function FormNumber<T extends FieldValues>({
               onValueChange?.(v);
             }}
             onBlur={field.onBlur}
-            error={note?.message ?? fieldState.error?.message}
+            error={noteText(note, rest.hideLabel) ?? fieldState.error?.message}
           />
         )
       }
@@ -130,7 +134,7 @@ export function FormSelect<T extends FieldValues>({ control, name, editable, opt
               note?.onEdit();
               onValueChange?.(next, previous);
             }}
-            error={note?.message ?? fieldState.error?.message}
+            error={noteText(note, rest.hideLabel) ?? fieldState.error?.message}
           />
         )
       }

@@ -233,6 +233,26 @@ export interface PastedTransmitter {
   antennaUse: 'mimo' | 'switched';
 }
 
+/** A new transmitter row as "Add transmitter" makes it; pasted cells fill it. */
+export function blankTransmitter(id: string, antennaId: string): PastedTransmitter {
+  return {
+    id,
+    technology: '',
+    band: '',
+    frequencyMinHz: null,
+    frequencyMaxHz: null,
+    maxTuneUpPowerDbm: null,
+    mode: '',
+    modulation: '',
+    bandwidth: '',
+    dutyCycle: 1,
+    dutyCyclePreset: '',
+    antennaId,
+    moreAntennaIds: [],
+    antennaUse: 'mimo',
+  };
+}
+
 export interface PasteNote {
   /** Index among the pasted rows. */
   row: number;
@@ -331,22 +351,7 @@ export function readTransmitterBlock(text: string, ctx: PasteContext): PasteResu
   const shape = zRadiosTransmitter.shape as unknown as Record<string, { safeParse: (v: unknown) => { success: boolean; error?: { issues: { message: string }[] } } }>;
 
   const rows = taken.map((l, row): PastedTransmitter => {
-    const values: Fields = {
-      id: '',
-      technology: '',
-      band: '',
-      frequencyMinHz: null,
-      frequencyMaxHz: null,
-      maxTuneUpPowerDbm: null,
-      mode: '',
-      modulation: '',
-      bandwidth: '',
-      dutyCycle: 1,
-      dutyCyclePreset: '',
-      antennaId: ctx.antennas[0] ?? '',
-      moreAntennaIds: [],
-      antennaUse: 'mimo',
-    };
+    const values: Fields = { ...blankTransmitter('', ctx.antennas[0] ?? '') };
     const texts = new Map<string, string>();
     layout.forEach((slot, i) => {
       // A line shorter than the others leaves its last columns out: they keep the defaults of "Add transmitter".

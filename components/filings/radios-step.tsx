@@ -24,7 +24,7 @@ import { SelectField } from '../ui/select-field';
 import { Text } from '../ui/text';
 import { EditRows, nextId, type EditColumn } from './edit-rows';
 import { FormNumber, FormSelect, FormText, type FieldNote } from './form-fields';
-import { isBlock, readTransmitterBlock, type PasteNote, type PasteResult } from './paste-rows';
+import { blankTransmitter, isBlock, readTransmitterBlock, type PasteNote, type PasteResult } from './paste-rows';
 import { StepFrame } from './step-frame';
 import { arrayOf, isObject, useAdoptRowIds, useStepForm } from './use-step-form';
 
@@ -98,7 +98,7 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
         next.delete(key);
         return next;
       });
-    return { message: n.message, text: n.text, onEdit };
+    return { message: n.message, short: 'Fix', text: n.text, onEdit };
   };
   /** A removed row takes its notes with it; the rows after it move up one. */
   const dropNotesOf = (removed: number) =>
@@ -544,25 +544,15 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
             keyOf={(i) => transmitters.fields[i].key}
             titleOf={(i) => transmitterValues[i]?.id ?? ''}
             onAdd={() =>
-              transmitters.append({
-                id: nextId(
-                  'TX',
-                  transmitterValues.map((t) => t?.id),
+              transmitters.append(
+                blankTransmitter(
+                  nextId(
+                    'TX',
+                    transmitterValues.map((t) => t?.id),
+                  ),
+                  antennaValues[0]?.id ?? '',
                 ),
-                technology: '',
-                band: '',
-                frequencyMinHz: null,
-                frequencyMaxHz: null,
-                maxTuneUpPowerDbm: null,
-                mode: '',
-                modulation: '',
-                bandwidth: '',
-                dutyCycle: 1,
-                dutyCyclePreset: '',
-                antennaId: antennaValues[0]?.id ?? '',
-                moreAntennaIds: [],
-                antennaUse: 'mimo',
-              })
+              )
             }
             onRemove={(i) => {
               transmitters.remove(i);
@@ -570,6 +560,7 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
             }}
             removalEffects={transmitterEffects}
             details={txDetails}
+            rowNotes={(i) => [...notes.entries()].filter(([key]) => key.startsWith(`${i}.`)).map(([, n]) => n.message)}
             editable={editable}
             testID="transmitters"
             empty="No transmitters yet. Add one per band the device transmits in."

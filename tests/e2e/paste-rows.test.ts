@@ -8,7 +8,7 @@
  */
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DESKTOP, openBrowser, PHONE, screenshot, signInAt, waitSaved } from './support/browser';
+import { DESKTOP, freshDemoTracker, openBrowser, PHONE, screenshot, signInAt, waitSaved } from './support/browser';
 import { startServer, type RunningServer } from './support/server';
 
 let server: RunningServer;
@@ -20,16 +20,6 @@ beforeAll(async () => {
 afterAll(async () => {
   await server?.stop();
 });
-
-/** A fresh copy of the demo tracker (its own export, imported). */
-async function freshTracker(page: Page): Promise<number> {
-  return page.evaluate(async () => {
-    const list = (await (await fetch('/api/filings?q=TH4-LW2')).json()) as { filings: { id: number }[] };
-    const file = await (await fetch(`/api/filings/${list.filings[list.filings.length - 1].id}/device.json`)).json();
-    const res = await fetch('/api/filings/import', { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(file) });
-    return ((await res.json()) as { filing: { id: number } }).filing.id;
-  });
-}
 
 interface StoredTx {
   id: string;
@@ -68,7 +58,7 @@ describe('paste rows from a spreadsheet into the transmitter table', () => {
     try {
       const { page } = s;
       await signInAt(page, server.baseUrl, 'specialist@fieldfile.test');
-      const id = await freshTracker(page);
+      const id = await freshDemoTracker(page);
       await page.goto(`${server.baseUrl}/filings/${id}/radios`);
       await page.getByTestId('tx-5-id').waitFor();
       expect(await page.getByTestId('transmitters-paste-hint').textContent()).toContain('added after the last transmitter; nothing already here is overwritten');
@@ -84,11 +74,13 @@ describe('paste rows from a spreadsheet into the transmitter table', () => {
       expect(await page.getByTestId('tx-8-power').inputValue()).toBe('23.5');
       expect(await page.getByTestId('tx-8-antenna').inputValue()).toBe('ANT-DIV');
 
-      // The bad cell keeps what was pasted and says, in its row, what to fix.
+      // The bad cell keeps what was pasted and is marked (icon and word); its row says what to fix.
       expect(await page.getByTestId('tx-7-power').inputValue()).toBe('abc');
       const error = page.getByTestId('tx-7-power-error');
       await error.waitFor();
-      expect(await error.textContent()).toBe('line 3, Max tune-up power: ‘abc’ is not a number in dBm');
+      expect(await error.textContent()).toBe('Fix');
+      expect(await page.getByTestId('transmitters-notes-7').textContent()).toBe('line 3, Max tune-up power: ‘abc’ is not a number in dBm');
+      expect(await page.getByTestId('transmitters-notes-6').count()).toBe(0);
       expect(await page.getByTestId('tx-7-power').getAttribute('aria-invalid')).toBe('true');
       const summary = page.getByTestId('transmitters-paste-summary');
       expect(await summary.textContent()).toContain('Added 3 transmitters from lines 2–4 of the pasted rows · 1 cell to fix');
@@ -103,10 +95,13 @@ describe('paste rows from a spreadsheet into the transmitter table', () => {
       expect(before.drafts.radios).toBeTruthy();
       await error.evaluate((el) => el.scrollIntoView({ block: 'center' }));
       await screenshot(page, 'paste-rows-errors-desktop');
+      await summary.evaluate((el) => el.scrollIntoView({ block: 'end' }));
+      await screenshot(page, 'paste-rows-summary-desktop');
 
       // Fixed: the note goes, the step saves, the summary says every cell is read.
       await page.getByTestId('tx-7-power').fill('23');
       await error.waitFor({ state: 'detached' });
+      expect(await page.getByTestId('transmitters-notes-7').count()).toBe(0);
       await waitSaved(page);
       expect(await summary.textContent()).toContain('every cell read');
       const after = await stored(page, id);
@@ -134,7 +129,7 @@ describe('paste rows from a spreadsheet into the transmitter table', () => {
     try {
       const { page } = s;
       await signInAt(page, server.baseUrl, 'specialist@fieldfile.test');
-      const id = await freshTracker(page);
+      const id = await freshDemoTracker(page);
       await page.goto(`${server.baseUrl}/filings/${id}/radios`);
       await page.getByTestId('tx-5-id').waitFor();
       expect(await page.getByTestId('transmitters-paste').count()).toBe(0);
@@ -143,7 +138,7 @@ describe('paste rows from a spreadsheet into the transmitter table', () => {
       expect(await page.getByTestId('transmitters-row-0').textContent()).toContain('transmitter 1 · LTE-B12');
       // No horizontal scrolling on the phone.
       expect(await page.evaluate(() => document.documentElement.scrollWidth <= window.innerWidth)).toBe(true);
-      await page.getByTestId('transmitters').scrollIntoViewIfNeeded();
+      await page.getByText('Pasting rows from a spreadsheet works on a wide screen.').evaluate((el) => el.scrollIntoView({ block: 'end' }));
       await screenshot(page, 'paste-rows-phone');
       expect(s.pageErrors).toEqual([]);
     } finally {
