@@ -6,6 +6,7 @@
  * reload shows the rows. On a phone (390×844) the table is cards and the hint says pasting
  * works on a wide screen. Screenshots go to test-output/screenshots/.
  */
+import { AxeBuilder } from '@axe-core/playwright';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DESKTOP, freshDemoTracker, openBrowser, PHONE, screenshot, signInAt, waitSaved } from './support/browser';
@@ -97,6 +98,9 @@ describe('paste rows from a spreadsheet into the transmitter table', () => {
       await screenshot(page, 'paste-rows-errors-desktop');
       await summary.evaluate((el) => el.scrollIntoView({ block: 'end' }));
       await screenshot(page, 'paste-rows-summary-desktop');
+      // The marked cells and the summary pass axe (no serious or critical finding).
+      const axe = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa']).analyze();
+      expect(axe.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`)).toEqual([]);
 
       // Fixed: the note goes, the step saves, the summary says every cell is read.
       await page.getByTestId('tx-7-power').fill('23');
