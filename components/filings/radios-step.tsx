@@ -24,7 +24,7 @@ import { SelectField } from '../ui/select-field';
 import { Text } from '../ui/text';
 import { EditRows, nextId, type EditColumn } from './edit-rows';
 import { FormNumber, FormSelect, FormText, type FieldNote } from './form-fields';
-import { blankTransmitter, isBlock, readTransmitterBlock, type PasteNote, type PasteResult } from './paste-rows';
+import { blankTransmitter, isBlock, readTransmitterBlock, type PastedTransmitter, type PasteNote, type PasteResult } from './paste-rows';
 import { StepFrame } from './step-frame';
 import { arrayOf, isObject, useAdoptRowIds, useStepForm } from './use-step-form';
 
@@ -34,24 +34,11 @@ interface AntennaRow {
   gainDbi: number | null;
   location: string;
 }
-interface TransmitterRow {
+/** The form's row: a new row's fields (as "Add transmitter" and a paste make it) and what a saved one adds. */
+interface TransmitterRow extends Omit<PastedTransmitter, 'tuneUpTargetDbm' | 'tuneUpToleranceDb'> {
   rowId?: number;
-  id: string;
-  technology: string;
-  band: string;
-  frequencyMinHz: number | null;
-  frequencyMaxHz: number | null;
-  maxTuneUpPowerDbm: number | null;
   tuneUpTargetDbm?: number | null;
   tuneUpToleranceDb?: number | null;
-  mode: string;
-  modulation: string;
-  bandwidth: string;
-  dutyCycle: number | null;
-  dutyCyclePreset: string;
-  antennaId: string;
-  moreAntennaIds: string[];
-  antennaUse: 'mimo' | 'switched';
   moduleId?: string;
 }
 export interface RadiosValues {
@@ -181,7 +168,7 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
     });
     const start = existing.length;
     if (result.rows.length) {
-      transmitters.append(result.rows as TransmitterRow[], { shouldFocus: false });
+      transmitters.append(result.rows, { shouldFocus: false });
       setNotes((m) => {
         const next = new Map(m);
         for (const n of result.notes) next.set(`${start + n.row}.${n.field}`, n);

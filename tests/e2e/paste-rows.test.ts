@@ -53,15 +53,21 @@ async function pasteInto(page: Page, testId: string, text: string) {
   }, text);
 }
 
+/** The specialist on the Radios step of a fresh copy of the demo tracker (six transmitters). */
+async function openDemoRadios(page: Page): Promise<number> {
+  await signInAt(page, server.baseUrl, 'specialist@fieldfile.test');
+  const id = await freshDemoTracker(page);
+  await page.goto(`${server.baseUrl}/filings/${id}/radios`);
+  await page.getByTestId('tx-5-id').waitFor();
+  return id;
+}
+
 describe('paste rows from a spreadsheet into the transmitter table', () => {
   it('on a wide screen (1440×900): adds the rows, marks the bad cell, saves once it is fixed', async () => {
     const s = await openBrowser(DESKTOP);
     try {
       const { page } = s;
-      await signInAt(page, server.baseUrl, 'specialist@fieldfile.test');
-      const id = await freshDemoTracker(page);
-      await page.goto(`${server.baseUrl}/filings/${id}/radios`);
-      await page.getByTestId('tx-5-id').waitFor();
+      const id = await openDemoRadios(page);
       expect(await page.getByTestId('transmitters-paste-hint').textContent()).toContain('added after the last transmitter; nothing already here is overwritten');
 
       // Pasted into a cell of the table: the block becomes rows, the cell keeps its own value.
@@ -132,10 +138,7 @@ describe('paste rows from a spreadsheet into the transmitter table', () => {
     const s = await openBrowser(PHONE);
     try {
       const { page } = s;
-      await signInAt(page, server.baseUrl, 'specialist@fieldfile.test');
-      const id = await freshDemoTracker(page);
-      await page.goto(`${server.baseUrl}/filings/${id}/radios`);
-      await page.getByTestId('tx-5-id').waitFor();
+      await openDemoRadios(page);
       expect(await page.getByTestId('transmitters-paste').count()).toBe(0);
       expect(await page.getByText('Pasting rows from a spreadsheet works on a wide screen.').count()).toBe(1);
       // Cards: each field keeps its visible label.
