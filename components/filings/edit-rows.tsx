@@ -9,6 +9,7 @@ import { layout, palette, radii, space } from '../../constants/theme';
 import { useIsWide } from '../../hooks/use-is-wide';
 import { Icon } from '../icons';
 import { Button } from '../ui/button';
+import { FieldError } from '../ui/field-error';
 import { Sheet } from '../ui/sheet';
 import { Text } from '../ui/text';
 
@@ -35,6 +36,7 @@ export function EditRows({
   empty,
   removalEffects,
   details,
+  rowNotes,
 }: {
   noun: string;
   columns: EditColumn[];
@@ -50,6 +52,8 @@ export function EditRows({
   removalEffects?: (i: number) => string[];
   /** More fields of a row, behind a "more" toggle under it; `summary` says what they hold. */
   details?: { label: string; render: (i: number) => React.ReactNode; summary?: (i: number) => string };
+  /** Wide table: notes on row i in full under it (its cells, too narrow for them, are marked short). */
+  rowNotes?: (i: number) => string[];
 }) {
   const wide = useIsWide();
   const [asking, setAsking] = useState<number | null>(null);
@@ -133,6 +137,15 @@ export function EditRows({
                   </View>
                 ) : null}
               </View>
+              <MoreRow>
+                {rowNotes?.(i).length ? (
+                  <View style={styles.rowNotes} testID={`${testID}-notes-${i}`}>
+                    {rowNotes(i).map((n) => (
+                      <FieldError key={n} message={n} />
+                    ))}
+                  </View>
+                ) : null}
+              </MoreRow>
               <MoreRow>{more(i)}</MoreRow>
             </View>
           ))}
@@ -197,10 +210,7 @@ function ConfirmRemoval({ title, effects, onCancel, onConfirm, testID }: { title
   );
 }
 
-/** The first free "<prefix>-<n>" id. */
-export function nextId(prefix: string, taken: readonly string[]): string {
-  for (let n = 1; ; n++) if (!taken.includes(`${prefix}-${n}`)) return `${prefix}-${n}`;
-}
+export { nextId } from './next-id';
 
 const styles = StyleSheet.create({
   wrap: { gap: space.md },
@@ -218,6 +228,7 @@ const styles = StyleSheet.create({
   half: { flexBasis: '45%', flexGrow: 1 },
   add: { alignSelf: 'flex-start' },
   effects: { gap: space.xs },
+  rowNotes: { gap: space.xxs, paddingHorizontal: space.sm, paddingBottom: space.xs },
   rowGroup: { borderBottomWidth: 1, borderBottomColor: palette.paperDeep },
   trGrouped: { borderBottomWidth: 0 },
   details: { gap: space.sm },

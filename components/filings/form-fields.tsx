@@ -18,13 +18,26 @@ interface Common<T extends FieldValues> {
   placeholder?: string;
   /** Shown under the field when it has no error. */
   hint?: string;
+  /** Stands in for the field's error until the field is edited (a pasted cell to fix). */
+  note?: FieldNote;
 }
+
+export interface FieldNote {
+  message: string;
+  /** In a table cell (label hidden): a word or two, the row says the rest. */
+  short?: string;
+  /** What was pasted, shown as it was while it is no value (a number field then holds null). */
+  text?: string;
+  onEdit: () => void;
+}
+
+const noteText = (note: FieldNote | undefined, inTable: boolean | undefined) => (note ? (inTable && note.short) || note.message : undefined);
 
 /** `onValueChange` hears each change with the value before it (e.g. to carry a rename to what refers to it). */
 type Changed = { onValueChange?: (next: string, previous: string) => void };
 
 /** `capitals`: the field takes codes (grant identifiers); the keyboard offers capitals. */
-export function FormText<T extends FieldValues>({ control, name, editable, onValueChange, capitals, ...rest }: Common<T> & Changed & { capitals?: boolean }) {
+export function FormText<T extends FieldValues>({ control, name, editable, onValueChange, capitals, note, ...rest }: Common<T> & Changed & { capitals?: boolean }) {
   return (
     <Controller
       control={control}
@@ -41,10 +54,11 @@ export function FormText<T extends FieldValues>({ control, name, editable, onVal
             onChangeText={(next) => {
               const previous = field.value ?? '';
               field.onChange(next);
+              note?.onEdit();
               onValueChange?.(next, previous);
             }}
             onBlur={field.onBlur}
-            error={fieldState.error?.message}
+            error={noteText(note, rest.hideLabel) ?? fieldState.error?.message}
           />
         ) : (
           <ReadValue label={rest.label} hideLabel={rest.hideLabel} value={field.value ?? ''} testID={rest.testID} />
@@ -66,6 +80,7 @@ export function FormNumber<T extends FieldValues>({
   scale = 1,
   optional,
   onValueChange,
+  note,
   ...rest
 }: Common<T> & { unit: string; scale?: number; optional?: boolean; onValueChange?: (next: number | null) => void }) {
   return (
@@ -83,13 +98,15 @@ export function FormNumber<T extends FieldValues>({
             scale={scale}
             editable={editable}
             value={field.value}
+            initialText={note?.text}
             onChange={(raw) => {
               const v = raw as number | null;
               field.onChange(optional && v === null ? undefined : v);
+              note?.onEdit();
               onValueChange?.(v);
             }}
             onBlur={field.onBlur}
-            error={fieldState.error?.message}
+            error={noteText(note, rest.hideLabel) ?? fieldState.error?.message}
           />
         )
       }
@@ -97,7 +114,7 @@ export function FormNumber<T extends FieldValues>({
   );
 }
 
-export function FormSelect<T extends FieldValues>({ control, name, editable, options, onValueChange, ...rest }: Common<T> & Changed & { options: readonly { value: string; label: string }[] }) {
+export function FormSelect<T extends FieldValues>({ control, name, editable, options, onValueChange, note, ...rest }: Common<T> & Changed & { options: readonly { value: string; label: string }[] }) {
   return (
     <Controller
       control={control}
@@ -114,9 +131,10 @@ export function FormSelect<T extends FieldValues>({ control, name, editable, opt
             onChange={(next) => {
               const previous = field.value ?? '';
               field.onChange(next);
+              note?.onEdit();
               onValueChange?.(next, previous);
             }}
-            error={fieldState.error?.message}
+            error={noteText(note, rest.hideLabel) ?? fieldState.error?.message}
           />
         )
       }

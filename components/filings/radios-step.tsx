@@ -4,20 +4,27 @@
  * transmitter's details: tune-up target ± tolerance (their sum is the maximum screening uses),
  * mode, modulation and bandwidth, a duty-factor preset with its source, and its certified module.
  */
-import { useRef } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { Controller, useFieldArray, useWatch } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 import { DUTY_FACTOR_PRESETS, findDutyFactorPreset } from '../../constants/duty-factors';
+import { MAX_TRANSMITTERS } from '../../constants/schemas/device-file';
 import type { FilingDetail } from '../../constants/schemas/filings';
 import { space } from '../../constants/theme';
+import { useIsWide } from '../../hooks/use-is-wide';
+import { usePasteListener } from '../../hooks/use-paste-listener';
+import { Button } from '../ui/button';
 import { Card } from '../ui/card';
 import { Checkbox } from '../ui/checkbox';
 import { ChoiceChips } from '../ui/choice-chips';
+import { InputBox } from '../ui/input-box';
+import { Notice } from '../ui/notice';
 import { ReadValue } from '../ui/read-value';
 import { SelectField } from '../ui/select-field';
 import { Text } from '../ui/text';
 import { EditRows, nextId, type EditColumn } from './edit-rows';
-import { FormNumber, FormSelect, FormText } from './form-fields';
+import { FormNumber, FormSelect, FormText, type FieldNote } from './form-fields';
+import { blankTransmitter, isBlock, readTransmitterBlock, type PastedTransmitter, type PasteNote, type PasteResult } from './paste-rows';
 import { StepFrame } from './step-frame';
 import { arrayOf, isObject, useAdoptRowIds, useStepForm } from './use-step-form';
 
@@ -27,24 +34,11 @@ interface AntennaRow {
   gainDbi: number | null;
   location: string;
 }
-interface TransmitterRow {
+/** The form's row: a new row's fields (as "Add transmitter" and a paste make it) and what a saved one adds. */
+interface TransmitterRow extends Omit<PastedTransmitter, 'tuneUpTargetDbm' | 'tuneUpToleranceDb'> {
   rowId?: number;
-  id: string;
-  technology: string;
-  band: string;
-  frequencyMinHz: number | null;
-  frequencyMaxHz: number | null;
-  maxTuneUpPowerDbm: number | null;
   tuneUpTargetDbm?: number | null;
   tuneUpToleranceDb?: number | null;
-  mode: string;
-  modulation: string;
-  bandwidth: string;
-  dutyCycle: number | null;
-  dutyCyclePreset: string;
-  antennaId: string;
-  moreAntennaIds: string[];
-  antennaUse: 'mimo' | 'switched';
   moduleId?: string;
 }
 export interface RadiosValues {
@@ -73,6 +67,36 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
   const transmitterValues = useWatch({ control, name: 'transmitters' }) ?? [];
   const antennaOptions = antennaValues.filter((a) => a?.id).map((a) => ({ value: a.id, label: a.id }));
   const common = { control, editable };
+  const wide = useIsWide();
+
+  // Rows pasted from a spreadsheet: a note per cell to fix, by "<row>.<field>", until that cell is edited.
+  const [notes, setNotes] = useState<ReadonlyMap<string, PasteNote>>(new Map());
+  const [pasteReport, setPasteReport] = useState<(PasteResult & { start: number }) | null>(null);
+  const [pasteText, setPasteText] = useState('');
+  const pasteArea = useRef<View>(null);
+  const noteFor = (i: number, field: string): FieldNote | undefined => {
+    const key = `${i}.${field}`;
+    const n = notes.get(key);
+    if (!n) return undefined;
+    const onEdit = () =>
+      setNotes((m) => {
+        if (!m.has(key)) return m;
+        const next = new Map(m);
+        next.delete(key);
+        return next;
+      });
+    return { message: n.message, short: 'Fix', text: n.text, onEdit };
+  };
+  /** A removed row takes its notes with it; the rows after it move up one. */
+  const dropNotesOf = (removed: number) =>
+    setNotes((m) => {
+      const next = new Map<string, PasteNote>();
+      for (const [key, n] of m) {
+        const [row, field] = [Number(key.slice(0, key.indexOf('.'))), key.slice(key.indexOf('.') + 1)];
+        if (row !== removed) next.set(`${row > removed ? row - 1 : row}.${field}`, n);
+      }
+      return next;
+    });
 
   // Which antenna row each transmitter row follows (by the form's stable row keys), so that
   // renaming an antenna relabels exactly its transmitters even while the new label is being typed.
@@ -135,6 +159,46 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
     if (txKey && k >= 0) follows.current.set(txKey, antennas.fields[k].key);
   };
 
+  const pasteRows = (text: string) => {
+    const existing = form.getValues('transmitters') ?? [];
+    const result = readTransmitterBlock(text, {
+      visibleOrder: txColumns.map((c) => c.key),
+      antennas: (form.getValues('antennas') ?? []).map((a) => a?.id).filter(Boolean),
+      transmitters: existing,
+    });
+    const start = existing.length;
+    if (result.rows.length) {
+      transmitters.append(result.rows, { shouldFocus: false });
+      setNotes((m) => {
+        const next = new Map(m);
+        for (const n of result.notes) next.set(`${start + n.row}.${n.field}`, n);
+        return next;
+      });
+      void form.trigger('transmitters');
+    }
+    setPasteReport({ ...result, start });
+  };
+  usePasteListener(
+    pasteArea,
+    editable && wide
+      ? (e) => {
+          const text = e.clipboardData?.getData('text/plain') ?? '';
+          const target = e.target as { getAttribute?: (name: string) => string | null } | null;
+          const inBox = target?.getAttribute?.('data-testid') === 'transmitters-paste';
+          // One value pasted into one field is the browser's to paste.
+          if (!text.trim() || (!inBox && !isBlock(text))) return;
+          e.preventDefault();
+          setPasteText('');
+          pasteRows(text);
+        }
+      : null,
+  );
+  // After a paste, the first cell to fix takes the focus.
+  useEffect(() => {
+    const first = pasteReport?.notes[0];
+    if (first && pasteReport) form.setFocus(`transmitters.${pasteReport.start + first.row}.${first.field}` as never);
+  }, [pasteReport, form]);
+
   useAdoptRowIds(form, 'antennas', filing.data.radios.antennas);
   useAdoptRowIds(form, 'transmitters', filing.data.radios.transmitters);
 
@@ -179,53 +243,69 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
     },
   ];
   const txColumns: EditColumn[] = [
-    { key: 'id', label: 'Id', flex: 1.1, render: (i, h) => <FormText {...common} name={`transmitters.${i}.id`} label="Transmitter id" hideLabel={h} testID={`tx-${i}-id`} /> },
+    { key: 'id', label: 'Id', flex: 1.1, render: (i, h) => <FormText {...common} note={noteFor(i, 'id')} name={`transmitters.${i}.id`} label="Transmitter id" hideLabel={h} testID={`tx-${i}-id`} /> },
     {
       key: 'technology',
       label: 'Technology',
       flex: 1.5,
       half: true,
-      render: (i, h) => <FormText {...common} name={`transmitters.${i}.technology`} label="Technology" placeholder="e.g. LTE" hideLabel={h} testID={`tx-${i}-technology`} />,
+      render: (i, h) => (
+        <FormText {...common} note={noteFor(i, 'technology')} name={`transmitters.${i}.technology`} label="Technology" placeholder="e.g. LTE" hideLabel={h} testID={`tx-${i}-technology`} />
+      ),
     },
     {
       key: 'band',
       label: 'Band',
       flex: 1.4,
       half: true,
-      render: (i, h) => <FormText {...common} name={`transmitters.${i}.band`} label="Band" placeholder="e.g. Band 12" hideLabel={h} testID={`tx-${i}-band`} />,
+      render: (i, h) => <FormText {...common} note={noteFor(i, 'band')} name={`transmitters.${i}.band`} label="Band" placeholder="e.g. Band 12" hideLabel={h} testID={`tx-${i}-band`} />,
     },
     {
-      key: 'fmin',
+      key: 'frequencyMinHz',
       label: 'Lowest (MHz)',
       flex: 1.1,
       half: true,
-      render: (i, h) => <FormNumber {...common} name={`transmitters.${i}.frequencyMinHz`} label="Lowest frequency" unit="MHz" scale={1e6} hideLabel={h} testID={`tx-${i}-fmin`} />,
+      render: (i, h) => (
+        <FormNumber {...common} note={noteFor(i, 'frequencyMinHz')} name={`transmitters.${i}.frequencyMinHz`} label="Lowest frequency" unit="MHz" scale={1e6} hideLabel={h} testID={`tx-${i}-fmin`} />
+      ),
     },
     {
-      key: 'fmax',
+      key: 'frequencyMaxHz',
       label: 'Highest (MHz)',
       flex: 1.1,
       half: true,
-      render: (i, h) => <FormNumber {...common} name={`transmitters.${i}.frequencyMaxHz`} label="Highest frequency" unit="MHz" scale={1e6} hideLabel={h} testID={`tx-${i}-fmax`} />,
+      render: (i, h) => (
+        <FormNumber {...common} note={noteFor(i, 'frequencyMaxHz')} name={`transmitters.${i}.frequencyMaxHz`} label="Highest frequency" unit="MHz" scale={1e6} hideLabel={h} testID={`tx-${i}-fmax`} />
+      ),
     },
     {
-      key: 'power',
+      key: 'maxTuneUpPowerDbm',
       label: 'Max tune-up (dBm)',
       flex: 0.9,
       half: true,
       // With a target and tolerance the maximum is their sum, shown and kept in step with them.
       render: (i, h) => (
-        <FormNumber {...common} editable={editable && !derivedMax(i)} name={`transmitters.${i}.maxTuneUpPowerDbm`} label="Max tune-up power" unit="dBm" hideLabel={h} testID={`tx-${i}-power`} />
+        <FormNumber
+          {...common}
+          note={noteFor(i, 'maxTuneUpPowerDbm')}
+          editable={editable && !derivedMax(i)}
+          name={`transmitters.${i}.maxTuneUpPowerDbm`}
+          label="Max tune-up power"
+          unit="dBm"
+          hideLabel={h}
+          testID={`tx-${i}-power`}
+        />
       ),
     },
     {
-      key: 'duty',
+      key: 'dutyCycle',
       label: 'Duty (%)',
       flex: 0.8,
       half: true,
       render: (i, h) => (
         <FormNumber
           {...common}
+          note={noteFor(i, 'dutyCycle')}
           name={`transmitters.${i}.dutyCycle`}
           label="Duty cycle"
           unit="%"
@@ -240,12 +320,13 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
       ),
     },
     {
-      key: 'antenna',
+      key: 'antennaId',
       label: 'Antenna',
       flex: 1.1,
       render: (i, h) => (
         <FormSelect
           {...common}
+          note={noteFor(i, 'antennaId')}
           name={`transmitters.${i}.antennaId`}
           label="Antenna"
           options={antennaOptions}
@@ -331,10 +412,28 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
             ) : null}
           </View>
           <View style={styles.detailCell}>
-            <FormNumber {...common} optional name={`transmitters.${i}.tuneUpTargetDbm`} label="Tune-up target" unit="dBm" testID={`tx-${i}-target`} onValueChange={() => setMaxFromTarget(i)} />
+            <FormNumber
+              {...common}
+              optional
+              note={noteFor(i, 'tuneUpTargetDbm')}
+              name={`transmitters.${i}.tuneUpTargetDbm`}
+              label="Tune-up target"
+              unit="dBm"
+              testID={`tx-${i}-target`}
+              onValueChange={() => setMaxFromTarget(i)}
+            />
           </View>
           <View style={styles.detailCell}>
-            <FormNumber {...common} optional name={`transmitters.${i}.tuneUpToleranceDb`} label="Tolerance ±" unit="dB" testID={`tx-${i}-tolerance`} onValueChange={() => setMaxFromTarget(i)} />
+            <FormNumber
+              {...common}
+              optional
+              note={noteFor(i, 'tuneUpToleranceDb')}
+              name={`transmitters.${i}.tuneUpToleranceDb`}
+              label="Tolerance ±"
+              unit="dB"
+              testID={`tx-${i}-tolerance`}
+              onValueChange={() => setMaxFromTarget(i)}
+            />
           </View>
           <View style={[styles.detailCell, styles.detailNote]}>
             <Text variant="small" tone="muted" testID={`tx-${i}-upper`}>
@@ -344,13 +443,13 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
             </Text>
           </View>
           <View style={styles.detailCell}>
-            <FormText {...common} name={`transmitters.${i}.mode`} label="Mode (optional)" placeholder="e.g. QPSK, 1 RB" testID={`tx-${i}-mode`} />
+            <FormText {...common} note={noteFor(i, 'mode')} name={`transmitters.${i}.mode`} label="Mode (optional)" placeholder="e.g. QPSK, 1 RB" testID={`tx-${i}-mode`} />
           </View>
           <View style={styles.detailCell}>
-            <FormText {...common} name={`transmitters.${i}.modulation`} label="Modulation (optional)" placeholder="e.g. QPSK" testID={`tx-${i}-modulation`} />
+            <FormText {...common} note={noteFor(i, 'modulation')} name={`transmitters.${i}.modulation`} label="Modulation (optional)" placeholder="e.g. QPSK" testID={`tx-${i}-modulation`} />
           </View>
           <View style={styles.detailCell}>
-            <FormText {...common} name={`transmitters.${i}.bandwidth`} label="Bandwidth (optional)" placeholder="e.g. 10 MHz" testID={`tx-${i}-bandwidth`} />
+            <FormText {...common} note={noteFor(i, 'bandwidth')} name={`transmitters.${i}.bandwidth`} label="Bandwidth (optional)" placeholder="e.g. 10 MHz" testID={`tx-${i}-bandwidth`} />
           </View>
           <View style={styles.detailWide}>
             <FormSelect
@@ -424,40 +523,73 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
         />
       </Card>
       <Card title="Transmitters">
-        <EditRows
-          noun="transmitter"
-          columns={txColumns}
-          count={transmitters.fields.length}
-          keyOf={(i) => transmitters.fields[i].key}
-          titleOf={(i) => transmitterValues[i]?.id ?? ''}
-          onAdd={() =>
-            transmitters.append({
-              id: nextId(
-                'TX',
-                transmitterValues.map((t) => t?.id),
-              ),
-              technology: '',
-              band: '',
-              frequencyMinHz: null,
-              frequencyMaxHz: null,
-              maxTuneUpPowerDbm: null,
-              mode: '',
-              modulation: '',
-              bandwidth: '',
-              dutyCycle: 1,
-              dutyCyclePreset: '',
-              antennaId: antennaValues[0]?.id ?? '',
-              moreAntennaIds: [],
-              antennaUse: 'mimo',
-            })
-          }
-          onRemove={(i) => transmitters.remove(i)}
-          removalEffects={transmitterEffects}
-          details={txDetails}
-          editable={editable}
-          testID="transmitters"
-          empty="No transmitters yet. Add one per band the device transmits in."
-        />
+        <View ref={pasteArea} style={styles.pasteArea}>
+          <EditRows
+            noun="transmitter"
+            columns={txColumns}
+            count={transmitters.fields.length}
+            keyOf={(i) => transmitters.fields[i].key}
+            titleOf={(i) => transmitterValues[i]?.id ?? ''}
+            onAdd={() =>
+              transmitters.append(
+                blankTransmitter(
+                  nextId(
+                    'TX',
+                    transmitterValues.map((t) => t?.id),
+                  ),
+                  antennaValues[0]?.id ?? '',
+                ),
+              )
+            }
+            onRemove={(i) => {
+              transmitters.remove(i);
+              dropNotesOf(i);
+            }}
+            removalEffects={transmitterEffects}
+            details={txDetails}
+            rowNotes={(i) => [...notes.entries()].filter(([key]) => key.startsWith(`${i}.`)).map(([, n]) => n.message)}
+            editable={editable}
+            testID="transmitters"
+            empty="No transmitters yet. Add one per band the device transmits in."
+          />
+          {editable && wide ? (
+            <View style={styles.paste}>
+              <Text variant="small" tone="muted" testID="transmitters-paste-hint">
+                {`Paste from a spreadsheet: copy rows — with their header row, or with the columns in this table’s order (${txColumns.map((c) => c.label).join(', ')}) — and paste them into any cell of the table or into this box. They are added after the last transmitter; nothing already here is overwritten. Tabs, commas or semicolons; decimal commas are read.`}
+              </Text>
+              <View style={styles.pasteRow}>
+                <View style={styles.pasteBox}>
+                  <InputBox
+                    label="Paste rows from a spreadsheet"
+                    hideLabel
+                    placeholder="Click here and paste the rows (Ctrl+V, ⌘V)"
+                    value={pasteText}
+                    onChangeText={setPasteText}
+                    testID="transmitters-paste"
+                  />
+                </View>
+                {pasteText.trim() ? (
+                  <Button
+                    label="Add these rows"
+                    icon="plus"
+                    variant="secondary"
+                    onPress={() => {
+                      pasteRows(pasteText);
+                      setPasteText('');
+                    }}
+                    testID="transmitters-paste-add"
+                  />
+                ) : null}
+              </View>
+            </View>
+          ) : null}
+          {pasteReport ? <PasteSummary report={pasteReport} remaining={[...notes.values()]} onDone={() => setPasteReport(null)} /> : null}
+        </View>
+        {editable && !wide ? (
+          <Text variant="small" tone="muted" style={styles.note}>
+            Pasting rows from a spreadsheet works on a wide screen.
+          </Text>
+        ) : null}
         <View style={styles.note}>
           <Text variant="small" tone="muted">
             Duty cycle is the largest share of time the transmitter can be on (100 % = continuous). Screening evaluates each band at both edges and wherever a rule changes inside it.
@@ -468,8 +600,48 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
   );
 }
 
+/** What a paste added, what it left out, and the cells still to fix (each also marked in its row). */
+function PasteSummary({ report, remaining, onDone }: { report: PasteResult & { start: number }; remaining: PasteNote[]; onDone: () => void }) {
+  const n = report.rows.length;
+  const lines = report.lines.length ? (report.lines.length === 1 ? `line ${report.lines[0]}` : `lines ${report.lines[0]}–${report.lines[report.lines.length - 1]}`) : '';
+  const toFix = remaining.filter((x) => report.notes.includes(x)).sort((a, b) => a.line - b.line);
+  const title = !n
+    ? 'Nothing added: the pasted text has no rows to add.'
+    : `Added ${n} transmitter${n === 1 ? '' : 's'} from ${lines} of the pasted rows${toFix.length ? ` · ${toFix.length} cell${toFix.length === 1 ? '' : 's'} to fix` : ' · every cell read'}`;
+  return (
+    <Notice tone={!n || toFix.length ? 'caution' : 'success'} title={title} testID="transmitters-paste-summary">
+      <View style={styles.summary}>
+        {n ? (
+          <Text variant="small">
+            {report.headerFound ? `Header row recognised: ${report.columns.join(', ')}.` : `No header row: columns taken in the table’s order (${report.columns.join(', ')}).`}
+          </Text>
+        ) : null}
+        {report.ignored.length ? <Text variant="small">{`Left out: ${report.ignored.join('; ')}.`}</Text> : null}
+        {report.leftOut.length ? (
+          <Text variant="small">{`Line${report.leftOut.length === 1 ? '' : 's'} ${report.leftOut.join(', ')} not added: a filing has at most ${MAX_TRANSMITTERS} transmitters.`}</Text>
+        ) : null}
+        {toFix.length ? (
+          <View testID="transmitters-paste-problems">
+            <Text variant="smallStrong">Fix in the table (each cell is marked):</Text>
+            {toFix.map((x) => (
+              <Text key={`${x.row}.${x.field}`} variant="small">{`• ${x.message}`}</Text>
+            ))}
+          </View>
+        ) : null}
+        <Button label="Done" variant="secondary" onPress={onDone} testID="transmitters-paste-done" style={styles.done} />
+      </View>
+    </Notice>
+  );
+}
+
 const styles = StyleSheet.create({
   note: { paddingTop: space.xs },
+  pasteArea: { gap: space.md },
+  paste: { gap: space.xs },
+  pasteRow: { flexDirection: 'row', alignItems: 'center', gap: space.sm },
+  pasteBox: { flex: 1, maxWidth: 560 },
+  summary: { gap: space.xs },
+  done: { alignSelf: 'flex-start' },
   detailGrid: { flexDirection: 'row', flexWrap: 'wrap', gap: space.md },
   detailCell: { flexBasis: 180, flexGrow: 1, minWidth: 0 },
   detailNote: { flexBasis: 260, justifyContent: 'center' },

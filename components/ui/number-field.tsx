@@ -24,9 +24,16 @@ export function NumberField({
   value,
   onChange,
   scale = 1,
+  initialText,
   ...box
-}: Omit<InputBoxProps, 'value' | 'onChangeText' | 'numeric'> & { value: number | null | undefined; onChange: (value: number | null) => void; scale?: number }) {
-  const [text, setText] = useState(() => toDisplay(value, scale));
+}: Omit<InputBoxProps, 'value' | 'onChangeText' | 'numeric'> & {
+  value: number | null | undefined;
+  onChange: (value: number | null) => void;
+  scale?: number;
+  /** Text to show at first instead of the value (e.g. a pasted cell that is no number, so the person sees what to fix). */
+  initialText?: string;
+}) {
+  const [text, setText] = useState(() => initialText ?? toDisplay(value, scale));
   const lastEmitted = useRef<number | null | undefined>(value);
   // A value set from outside (a draft, a reset) replaces the text; our own echo does not.
   useEffect(() => {

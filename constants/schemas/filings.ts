@@ -33,7 +33,12 @@ export const STEP_LABELS: Record<WizardStep, string> = {
   evidence: 'Evidence',
 };
 
-const duplicateIdIssues = (items: { id: string }[], path: string, ctx: z.RefinementCtx) => {
+/** Where a cross-row rule reports: a zod refinement context, or a plain collector (the paste reader). */
+export interface IssueSink {
+  addIssue: (issue: { code: 'custom'; path: (string | number)[]; message: string }) => void;
+}
+
+const duplicateIdIssues = (items: { id: string }[], path: string, ctx: IssueSink) => {
   const seen = new Set<string>();
   items.forEach((item, i) => {
     if (seen.has(item.id)) ctx.addIssue({ code: 'custom', path: [path, i, 'id'], message: `Duplicate id "${item.id}".` });
@@ -54,23 +59,33 @@ export const zDeviceStep = deviceInfoSchema(zModuleGrant.safeExtend(withRowId));
 export type DeviceStep = z.output<typeof zDeviceStep>;
 export type DeviceStepInput = z.input<typeof zDeviceStep>;
 
+/** One transmitter row of the Radios step (the form's row, and what a pasted row is checked with). */
+export const zRadiosTransmitter = zTransmitter.safeExtend(withRowId);
+
+/**
+ * The Radios step's rules across rows: ids are unique, and every antenna a transmitter names is
+ * listed. Also run on their own by the paste reader, since a refinement does not run while a
+ * row has errors of its own.
+ */
+export function radiosCrossIssues(v: { antennas: { id: string }[]; transmitters: { id: string; antennaId: string; moreAntennaIds: string[] }[] }, ctx: IssueSink) {
+  duplicateIdIssues(v.antennas, 'antennas', ctx);
+  duplicateIdIssues(v.transmitters, 'transmitters', ctx);
+  const antennaIds = new Set(v.antennas.map((a) => a.id));
+  v.transmitters.forEach((t, i) => {
+    if (!antennaIds.has(t.antennaId)) ctx.addIssue({ code: 'custom', path: ['transmitters', i, 'antennaId'], message: `Pick one of the antennas above (no antenna "${t.antennaId}").` });
+    t.moreAntennaIds.forEach((a, j) => {
+      if (!antennaIds.has(a)) ctx.addIssue({ code: 'custom', path: ['transmitters', i, 'moreAntennaIds', j], message: `Pick among the antennas above (no antenna "${a}").` });
+    });
+  });
+}
+
 /** Antennas and transmitters are saved together: a transmitter names its antenna. */
 export const zRadiosStep = z
   .strictObject({
     antennas: z.array(zAntenna.extend(withRowId)).max(MAX_ANTENNAS),
-    transmitters: z.array(zTransmitter.safeExtend(withRowId)).max(MAX_TRANSMITTERS),
+    transmitters: z.array(zRadiosTransmitter).max(MAX_TRANSMITTERS),
   })
-  .superRefine((v, ctx) => {
-    duplicateIdIssues(v.antennas, 'antennas', ctx);
-    duplicateIdIssues(v.transmitters, 'transmitters', ctx);
-    const antennaIds = new Set(v.antennas.map((a) => a.id));
-    v.transmitters.forEach((t, i) => {
-      if (!antennaIds.has(t.antennaId)) ctx.addIssue({ code: 'custom', path: ['transmitters', i, 'antennaId'], message: `Pick one of the antennas above (no antenna "${t.antennaId}").` });
-      t.moreAntennaIds.forEach((a, j) => {
-        if (!antennaIds.has(a)) ctx.addIssue({ code: 'custom', path: ['transmitters', i, 'moreAntennaIds', j], message: `Pick among the antennas above (no antenna "${a}").` });
-      });
-    });
-  });
+  .superRefine((v, ctx) => radiosCrossIssues(v, ctx));
 export type RadiosStep = z.output<typeof zRadiosStep>;
 export type RadiosStepInput = z.input<typeof zRadiosStep>;
 

@@ -9,7 +9,7 @@ import type { Db } from '../../db/client';
 import { ENGINE_VERSION, RULE_SET_DOCUMENTS, RULE_SET_VERSION } from '../../calc/versions';
 import { screeningInput, type ScreeningInput } from '../../calc/screening/input';
 import { SCREENING_CAUTIONS, screenParsed, type ScreeningOutput, type ScreeningRow } from '../../calc/screening/screen';
-import { REGIME_LABELS, USE_POSITION_LABELS, type MarketRegime, type UsePositionKind } from '../../constants/schemas/device-file';
+import { POWER_MODE_TRIGGER_LABELS, REGIME_LABELS, USE_POSITION_LABELS, type MarketRegime, type PowerModeTrigger, type UsePositionKind } from '../../constants/schemas/device-file';
 import type { ExhibitDepthProfile, ExhibitModel, ExhibitScreeningRow } from '../../templates/exhibit/model';
 import { CAUTIONS, REGIME_SHORT } from '../../templates/exhibit/texts';
 import * as filingsRepo from '../repos/filings-repo';
@@ -174,7 +174,13 @@ export function assembleExhibit(db: Db, organisationId: number, filingId: number
     },
     antennas: radios.antennas.map((a) => ({ id: a.id, gainDbi: a.gainDbi, location: a.location ?? '' })),
     transmitters: radios.transmitters.map((t) => ({ ...t })),
-    usePositions: positions.usePositions.map((p) => ({ id: p.id, kind: p.kind, kindLabel: USE_POSITION_LABELS[p.kind as UsePositionKind] ?? p.kind, separations: p.separations })),
+    usePositions: positions.usePositions.map((p) => ({
+      id: p.id,
+      kind: p.kind,
+      kindLabel: USE_POSITION_LABELS[p.kind as UsePositionKind] ?? p.kind,
+      separations: p.separations,
+      powerModes: (p.powerModes ?? []).map((x) => ({ ...x, triggerLabel: POWER_MODE_TRIGGER_LABELS[x.trigger as PowerModeTrigger] ?? x.trigger })),
+    })),
     markets: markets.markets.map((m) => ({ regime: m.regime, label: REGIME_LABELS[m.regime as MarketRegime] ?? m.regime, tier: m.tier, fccSarScreening: m.fccSarScreening ?? null })),
     simultaneousGroups: filingsRepo.readSimultaneous(db, versionId),
     screening: { engineVersion: ENGINE_VERSION, ruleSetVersion: RULE_SET_VERSION, ruleSetDocuments: [...RULE_SET_DOCUMENTS], rows, gaps: screening.gaps },

@@ -5,7 +5,7 @@
  */
 import type { Derivation, Quantity } from '../../calc/types';
 import type { ExhibitAppendixEntry, ExhibitDepthProfile, ExhibitModel } from './model';
-import { CAUTIONS, CHECK_KIND_LABELS, CHECK_STATUS_WORDS, INTRO, READINESS_STATUS_WORDS, REGIME_SHORT, RESULT_MARKS, RESULT_WORDS, SECTION, formatDateTime } from './texts';
+import { CAUTIONS, CHECK_KIND_LABELS, CHECK_STATUS_WORDS, INTRO, READINESS_STATUS_WORDS, REGIME_SHORT, RESULT_MARKS, RESULT_WORDS, SECTION, formatDateTime, powerModeWords } from './texts';
 
 export interface Column {
   title: string;
@@ -203,15 +203,21 @@ function radioBlocks(m: ExhibitModel): Block[] {
         { title: 'Transmitter', width: 0.14 },
         { title: 'Technology', width: 0.17 },
         { title: 'Band', width: 0.17 },
-        { title: 'Frequency range', width: 0.2 },
-        { title: 'Max tune-up power', width: 0.12, align: 'right' },
+        { title: 'Frequency range', width: 0.18 },
+        { title: 'Max tune-up power (target ± tolerance)', width: 0.14, align: 'right' },
         { title: 'Duty cycle', width: 0.08, align: 'right' },
         { title: 'Antenna', width: 0.12 },
       ],
-      rows: m.transmitters.map((t) => [t.id, t.technology, t.band, `${hz(t.frequencyMinHz)} – ${hz(t.frequencyMaxHz)}`, `${num(t.maxTuneUpPowerDbm)} dBm`, num(t.dutyCycle, 3), t.antennaId]),
+      rows: m.transmitters.map((t) => [t.id, t.technology, t.band, `${hz(t.frequencyMinHz)} – ${hz(t.frequencyMaxHz)}`, tuneUpText(t), num(t.dutyCycle, 3), t.antennaId]),
     },
   ];
 }
+
+/** "24 dBm (23 ± 1 dB)": the upper bound screening uses, and the target and tolerance it comes from. */
+const tuneUpText = (t: ExhibitModel['transmitters'][number]) =>
+  t.tuneUpTargetDbm !== undefined && t.tuneUpToleranceDb !== undefined
+    ? `${num(t.maxTuneUpPowerDbm)} dBm (${num(t.tuneUpTargetDbm)} ± ${num(t.tuneUpToleranceDb)} dB)`
+    : `${num(t.maxTuneUpPowerDbm)} dBm`;
 
 function positionBlocks(m: ExhibitModel): Block[] {
   const antennaIds = m.antennas.map((a) => a.id);
@@ -230,6 +236,41 @@ function positionBlocks(m: ExhibitModel): Block[] {
           return s ? mm(s.separationM) : '—';
         }),
       ]),
+    },
+    ...powerModeBlocks(m),
+  ];
+}
+
+/** Section 4's table of reduced tune-up powers: per use position, each transmitter that backs off, and why. */
+function powerModeBlocks(m: ExhibitModel): Block[] {
+  const rows = m.usePositions.flatMap((p) =>
+    p.powerModes.map((x) => {
+      const max = m.transmitters.find((t) => t.id === x.transmitterId)?.maxTuneUpPowerDbm;
+      return [
+        p.id,
+        x.transmitterId,
+        max === undefined ? '—' : `${num(max)} dBm`,
+        `${num(x.reducedTuneUpPowerDbm)} dBm`,
+        max === undefined ? '—' : `${fixed(x.reducedTuneUpPowerDbm - max, 1)} dB`,
+        x.triggerLabel,
+      ];
+    }),
+  );
+  if (!rows.length) return [{ kind: 'paragraph', text: INTRO.powerModesNone }];
+  return [
+    { kind: 'heading', level: 2, text: 'Reduced tune-up power per use position' },
+    { kind: 'paragraph', text: INTRO.powerModes },
+    {
+      kind: 'table',
+      columns: [
+        { title: 'Use position', width: 0.17 },
+        { title: 'Transmitter', width: 0.15 },
+        { title: 'Max tune-up power', width: 0.15, align: 'right' },
+        { title: 'Reduced tune-up power', width: 0.17, align: 'right' },
+        { title: 'Reduction', width: 0.12, align: 'right' },
+        { title: 'Trigger', width: 0.24 },
+      ],
+      rows,
     },
   ];
 }
@@ -259,21 +300,23 @@ function screeningBlocks(m: ExhibitModel): Block[] {
       {
         kind: 'table',
         columns: [
-          { title: 'Transmitter', width: 0.1 },
-          { title: 'Position', width: 0.1 },
-          { title: 'Rule', width: 0.2 },
-          { title: 'At', width: 0.085, align: 'right' },
-          { title: 'Sep.', width: 0.065, align: 'right' },
-          { title: 'Evaluated', width: 0.105, align: 'right' },
-          { title: 'Threshold', width: 0.1, align: 'right' },
-          { title: 'Result', width: 0.115 },
-          { title: 'Margin', width: 0.075, align: 'right' },
-          { title: 'Ref.', width: 0.055, align: 'right' },
+          { title: 'Transmitter', width: 0.095 },
+          { title: 'Position', width: 0.09 },
+          { title: 'Rule', width: 0.165 },
+          { title: 'Power', width: 0.09 },
+          { title: 'At', width: 0.08, align: 'right' },
+          { title: 'Sep.', width: 0.06, align: 'right' },
+          { title: 'Evaluated', width: 0.1, align: 'right' },
+          { title: 'Threshold', width: 0.095, align: 'right' },
+          { title: 'Result', width: 0.11 },
+          { title: 'Margin', width: 0.065, align: 'right' },
+          { title: 'Ref.', width: 0.05, align: 'right' },
         ],
         rows: rows.map((r) => [
           r.transmitterId,
           r.usePositionId,
           r.methodLabel,
+          powerModeWords(r.powerMode),
           hz(r.frequencyHz),
           mm(r.separationM),
           r.thresholdUnit === 'mW' || r.thresholdUnit === null ? `${num(r.evaluatedPowerMw)} mW` : `${num(r.evaluatedPowerMw)} mW (${r.evaluatedQuantity})`,

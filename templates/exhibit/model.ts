@@ -13,8 +13,21 @@ export interface ExhibitTransmitter {
   frequencyMinHz: number;
   frequencyMaxHz: number;
   maxTuneUpPowerDbm: number;
+  /** Target ± tolerance, when the tune-up procedure states them (their sum is the maximum). */
+  tuneUpTargetDbm?: number;
+  tuneUpToleranceDb?: number;
   dutyCycle: number;
   antennaId: string;
+}
+
+/** A transmitter's reduced tune-up power in one use position, and what triggers it. */
+export interface ExhibitPowerMode {
+  transmitterId: string;
+  /** Tolerance included, like the maximum tune-up power; screening uses it in this position. */
+  reducedTuneUpPowerDbm: number;
+  /** The trigger's key ("proximity-sensor") and its words ("Proximity sensor"). */
+  trigger: string;
+  triggerLabel: string;
 }
 
 export interface ExhibitScreeningRow {
@@ -242,7 +255,7 @@ export interface ExhibitModel {
   };
   antennas: { id: string; gainDbi: number; location: string }[];
   transmitters: ExhibitTransmitter[];
-  usePositions: { id: string; kind: string; kindLabel: string; separations: { antennaId: string; separationM: number }[] }[];
+  usePositions: { id: string; kind: string; kindLabel: string; separations: { antennaId: string; separationM: number }[]; powerModes: ExhibitPowerMode[] }[];
   markets: { regime: string; label: string; tier: string; fccSarScreening: string | null }[];
   simultaneousGroups: string[][];
   screening: {

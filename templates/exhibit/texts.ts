@@ -3,6 +3,7 @@
  * layouts (pdf.ts, docx.ts) take every string from here, so wording is changed in one place and
  * both documents say the same thing.
  */
+import { POWER_MODE_TRIGGER_LABELS, type PowerModeTrigger } from '../../constants/schemas/device-file';
 import type { ExhibitModel } from './model';
 
 export const EXHIBIT_TITLE = 'RF-exposure exhibit';
@@ -30,8 +31,11 @@ export const INTRO = {
   device: 'The device as declared by the applicant for this filing version.',
   radios: 'Every antenna and transmitter with its declared maximum tune-up power; the screening uses these values.',
   positions: 'The positions in which the device is used, and the separation between each antenna and the body in each of them.',
+  powerModes:
+    'Transmitters that hold their power below the maximum in a use position: the reduced tune-up power (tolerance included), what triggers the reduction, and the reduction from the maximum. Screening uses the reduced power in that position and the maximum everywhere else.',
+  powerModesNone: 'No transmitter reduces its power in any use position: screening uses each transmitter’s maximum tune-up power everywhere.',
   screening:
-    'For every transmitter, use position and market: the rule that applies, the compared power at the band’s most restrictive frequency, the threshold, the result and the margin (10·log10 of threshold over evaluated value, in dB; negative means over the threshold). The reference in the last column points to the derivation in Appendix A.',
+    'For every transmitter, use position and market: the rule that applies, the power screened (the maximum tune-up power, or the reduced power that applies in that position, with its trigger; see section 4), the compared power at the band’s most restrictive frequency, the threshold, the result and the margin (10·log10 of threshold over evaluated value, in dB; negative means over the threshold). The reference in the last column points to the derivation in Appendix A.',
   marginChart: 'Smallest margin of each transmitter over all use positions, per market (dB). Bars left of zero are over the threshold.',
   depthChart: 'SAR against depth in layered tissue for the combination with the smallest margin: a screening estimate from a plane-wave model that explains the margin; it is not a measured SAR.',
   lab: 'Every SAR scan the lab reported, scaled to the maximum tune-up power (never scaled down): reported SAR = scaling × measured SAR, at 1 g and 10 g. The reference in the last column points to the derivation in Appendix A.',
@@ -63,6 +67,11 @@ export const CAUTIONS = [
   'The certifying body decides on every filing.',
   'Follow the applicable regulations and local codes; where this exhibit and a regulation differ, the regulation governs.',
 ] as const;
+
+/** The power a screening row used: the maximum, or a reduced power and its trigger. */
+export function powerModeWords(powerMode: string): string {
+  return powerMode === 'full' ? 'Maximum' : `Reduced: ${POWER_MODE_TRIGGER_LABELS[powerMode as PowerModeTrigger] ?? powerMode}`;
+}
 
 export const RESULT_WORDS: Record<string, string> = {
   exempt: 'Exempt',

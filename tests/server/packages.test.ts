@@ -165,6 +165,28 @@ describe('a DRAFT preview of the demo filing', () => {
     expect(all).toContain('This version is not signed: the checklist as it stands now.');
   });
 
+  it('shows the demo’s reduced power in the PDF and the DOCX: LTE-B12 at 20 dBm instead of 24 dBm in the belt-clip position, by its proximity sensor', async () => {
+    // Demo (seeds/demo-filing.ts): LTE-B12 tuned to 23 ± 1 dB (maximum 24 dBm), backed off to 20 dBm on the belt clip.
+    const zip = await JSZip.loadAsync(zipBytes);
+    const pdf = (await pdfText(await zip.file(/^exhibit\/.*\.pdf$/)[0].async('uint8array'))).join('\n').replace(/\s+/g, ' ');
+    expect(pdf).toContain('Reduced tune-up power per use position');
+    expect(pdf).toContain('belt-clip LTE-B12 24 dBm 20 dBm -4.0 dB Proximity sensor');
+    expect(pdf).toContain('24 dBm (23 ± 1 dB)');
+    // The screening rows say which power they used: reduced on the belt clip, the maximum elsewhere.
+    expect(pdf).toMatch(/LTE-B12 belt-clip [^|]{0,120}?Reduced: Proximity sensor/);
+    expect(pdf).toMatch(/LTE-B12 in-hand [^|]{0,120}?Maximum/);
+    expect(pdf).not.toMatch(/LTE-B11 belt-clip [^|]{0,120}?Reduced/);
+
+    const docx = await JSZip.loadAsync(await zip.file(/^exhibit\/.*\.docx$/)[0].async('nodebuffer'));
+    const xml = await docx.file('word/document.xml')!.async('string');
+    const cells = [...xml.matchAll(/<w:t(?: [^>]*)?>([^<]*)<\/w:t>/g)].map((x) => x[1]).join('|');
+    expect(cells).toContain('Reduced tune-up power per use position');
+    expect(cells).toContain('belt-clip|LTE-B12|24 dBm|20 dBm|-4.0 dB|Proximity sensor');
+    expect(cells).toContain('24 dBm (23 ± 1 dB)');
+    expect(cells).toMatch(/LTE-B12\|belt-clip\|[^|]+\|Reduced: Proximity sensor\|/);
+    expect(cells).toMatch(/LTE-B12\|in-hand\|[^|]+\|Maximum\|/);
+  });
+
   it('is refused to an admin, who has no role in filings', async () => {
     expect((await admin.get('/api/filings/1/versions/1/package')).status).toBe(403);
     expect((await admin.post('/api/filings/1/versions/1/package')).status).toBe(403);

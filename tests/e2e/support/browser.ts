@@ -79,3 +79,13 @@ export async function waitSaved(page: Page) {
     .filter({ hasText: /^Saved \d\d:\d\d$/ })
     .waitFor({ timeout: 15_000 });
 }
+
+/** A fresh copy of the demo tracker (its own export, imported), so a walk starts from the demo as seeded. */
+export async function freshDemoTracker(page: Page): Promise<number> {
+  return page.evaluate(async () => {
+    const list = (await (await fetch('/api/filings?q=TH4-LW2')).json()) as { filings: { id: number }[] };
+    const file = await (await fetch(`/api/filings/${list.filings[list.filings.length - 1].id}/device.json`)).json();
+    const res = await fetch('/api/filings/import', { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(file) });
+    return ((await res.json()) as { filing: { id: number } }).filing.id;
+  });
+}
