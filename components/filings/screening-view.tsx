@@ -204,7 +204,7 @@ function Summary({ s, onPick, active }: { s: FilingScreening; onPick: (regime: s
       {entries.map(([regime, c]) => (
         <View
           key={regime}
-          style={styles.summaryCard}
+          style={[styles.summaryCard, wide && styles.summaryCardWide]}
           testID={`summary-${regime}`}
           accessibilityLabel={`${REGIME_LABELS[regime]}: ${c.combinations} combinations, ${c.exempt} exempt, ${c.evaluateSar} need SAR, ${c.evaluateMpe} need MPE`}
         >
@@ -457,7 +457,9 @@ const styles = StyleSheet.create({
   wrap: { gap: space.lg },
   summary: { gap: space.md },
   summaryWide: { flexDirection: 'row', flexWrap: 'wrap' },
-  summaryCard: { flexGrow: 1, flexBasis: 300, minWidth: 0, backgroundColor: palette.surface, borderWidth: 1, borderColor: palette.line, borderRadius: radii.lg, padding: space.lg, gap: space.xs },
+  // A basis only side by side: in the phone's column it would set the card's height.
+  summaryCardWide: { flexGrow: 1, flexBasis: 300 },
+  summaryCard: { minWidth: 0, backgroundColor: palette.surface, borderWidth: 1, borderColor: palette.line, borderRadius: radii.lg, padding: space.lg, gap: space.xs },
   counts: { flexDirection: 'row', flexWrap: 'wrap', gap: space.xs, paddingTop: space.xs },
   count: {
     gap: 0,
