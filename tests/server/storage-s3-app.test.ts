@@ -133,3 +133,20 @@ describe('the app on an S3-compatible bucket', () => {
     expect((await bucketKeys()).filter((k) => k.startsWith('ff/uploads/'))).toEqual([]);
   });
 });
+
+describe('choosing the storage from the environment', () => {
+  it('is local disk by default, and S3 needs a bucket', async () => {
+    const { loadConfig } = await import('../../server/env');
+    expect(loadConfig({ NODE_ENV: 'test' }).storage).toEqual({ kind: 'local' });
+    expect(() => loadConfig({ NODE_ENV: 'test', FIELDFILE_STORAGE: 's3' })).toThrow(/FIELDFILE_S3_BUCKET/);
+    expect(loadConfig({ NODE_ENV: 'test', FIELDFILE_STORAGE: 's3', FIELDFILE_S3_BUCKET: 'b', FIELDFILE_S3_PREFIX: 'team' }).storage).toEqual({
+      kind: 's3',
+      bucket: 'b',
+      prefix: 'team/',
+      region: 'us-east-1',
+      endpoint: undefined,
+      forcePathStyle: false,
+    });
+    expect(() => loadConfig({ NODE_ENV: 'test', FIELDFILE_STORAGE: 'ftp' })).toThrow(/FIELDFILE_STORAGE/);
+  });
+});
