@@ -48,6 +48,20 @@ const zEnv = z.object({
   FIELDFILE_EVIDENCE_MAX_FILE_BYTES: z.coerce.number().int().positive().default(DEFAULT_MAX_FILE_BYTES),
   /** Most evidence one filing version may hold, bytes (default 2 GB). */
   FIELDFILE_EVIDENCE_MAX_FILING_BYTES: z.coerce.number().int().positive().default(DEFAULT_MAX_FILING_BYTES),
+  /**
+   * Where uploaded evidence and built packages live: "local" (default) under FIELDFILE_DATA_DIR,
+   * or "s3" in the bucket FIELDFILE_S3_BUCKET of an S3-compatible service (credentials from the
+   * AWS SDK's usual sources: AWS_ACCESS_KEY_ID / AWS_SECRET_ACCESS_KEY, a profile, a role).
+   */
+  FIELDFILE_STORAGE: z.enum(['local', 's3']).default('local'),
+  FIELDFILE_S3_BUCKET: z.string().min(1).optional(),
+  /** Key prefix inside the bucket (e.g. "fieldfile/"); the areas go below it as uploads/ and packages/. */
+  FIELDFILE_S3_PREFIX: z.string().default(''),
+  FIELDFILE_S3_REGION: z.string().default('us-east-1'),
+  /** The service's URL when it is not AWS itself (MinIO, Ceph, a cloud's S3 API). */
+  FIELDFILE_S3_ENDPOINT: z.string().url().optional(),
+  /** Bucket in the path (http://host/bucket/key), as most S3-compatible services want; on by default with an endpoint. */
+  FIELDFILE_S3_FORCE_PATH_STYLE: z.enum(['true', 'false', '1', '0']).optional(),
   SMTP_HOST: z.string().optional(),
   SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(587),
   SMTP_SECURE: zBool,
@@ -85,6 +99,8 @@ export interface Config {
   importMaxBytes: number;
   calcTimeLimitMs: number;
   evidence: { maxFileBytes: number; maxFilingBytes: number };
+  /** Where bytes live (server/storage): local disk (uploadsDir, packagesDir) or an S3-compatible bucket. */
+  storage: { kind: 'local' } | { kind: 's3'; bucket: string; prefix: string; region: string; endpoint?: string; forcePathStyle: boolean };
   mail: {
     from: string;
     catcherPort: number;
@@ -119,11 +135,27 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
     importMaxBytes: e.FIELDFILE_IMPORT_MAX_BYTES,
     calcTimeLimitMs: e.FIELDFILE_CALC_TIME_LIMIT_MS,
     evidence: { maxFileBytes: e.FIELDFILE_EVIDENCE_MAX_FILE_BYTES, maxFilingBytes: e.FIELDFILE_EVIDENCE_MAX_FILING_BYTES },
+    storage: storageChoice(e),
     mail: {
       from: e.MAIL_FROM,
       catcherPort: e.FIELDFILE_MAIL_CATCHER_PORT,
       smtp: e.SMTP_HOST ? { host: e.SMTP_HOST, port: e.SMTP_PORT, secure: e.SMTP_SECURE, user: e.SMTP_USER, pass: e.SMTP_PASS } : undefined,
     },
+  };
+}
+
+function storageChoice(e: Env): Config['storage'] {
+  if (e.FIELDFILE_STORAGE === 'local') return { kind: 'local' };
+  if (!e.FIELDFILE_S3_BUCKET) throw new Error('Invalid environment:\n  FIELDFILE_S3_BUCKET: FIELDFILE_STORAGE=s3 needs the bucket name.');
+  const prefix = e.FIELDFILE_S3_PREFIX && !e.FIELDFILE_S3_PREFIX.endsWith('/') ? `${e.FIELDFILE_S3_PREFIX}/` : e.FIELDFILE_S3_PREFIX;
+  const pathStyle = e.FIELDFILE_S3_FORCE_PATH_STYLE;
+  return {
+    kind: 's3',
+    bucket: e.FIELDFILE_S3_BUCKET,
+    prefix,
+    region: e.FIELDFILE_S3_REGION,
+    endpoint: e.FIELDFILE_S3_ENDPOINT,
+    forcePathStyle: pathStyle === undefined ? !!e.FIELDFILE_S3_ENDPOINT : pathStyle === 'true' || pathStyle === '1',
   };
 }
 

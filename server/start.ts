@@ -24,7 +24,8 @@ async function main() {
   const dev = process.argv.includes('--dev');
   const config = loadConfig();
   setPasswordHashCost(config.scryptLog2N);
-  for (const dir of [config.dataDir, config.uploadsDir, config.packagesDir]) fs.mkdirSync(dir, { recursive: true });
+  // The database's folder; each byte storage makes (or finds) its own place on first use.
+  fs.mkdirSync(config.dataDir, { recursive: true });
 
   if (!dev && webBuildIsStale(config.distDir)) buildWeb(config.distDir);
 

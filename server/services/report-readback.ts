@@ -6,68 +6,12 @@
  * names a band and says "tune-up" with a dBm figure, say), so a table laid out in an unusual way
  * may be missed. It flags; it never decides.
  */
-import path from 'node:path';
 import type { FindingKind } from '../../constants/schemas/evidence';
 import { USE_POSITION_LABELS, type UsePositionKind } from '../../constants/schemas/device-file';
 
-export type PdfText = { status: 'read'; pages: string[] } | { status: 'unreadable'; reason: string; pages: string[] };
-
-const STANDARD_FONTS = `${path.join(path.dirname(require.resolve('pdfjs-dist/package.json')), 'standard_fonts')}/`;
-
-interface TextItemLike {
-  str: string;
-  hasEOL?: boolean;
-  transform: number[];
-}
-
-/** Joins a page's text items into lines (items on the same baseline, left to right). */
-function pageLines(items: TextItemLike[]): string {
-  const rows = new Map<number, { x: number; s: string }[]>();
-  for (const it of items) {
-    if (!it.str) continue;
-    const y = Math.round(it.transform[5]);
-    const row = rows.get(y) ?? [];
-    row.push({ x: it.transform[4], s: it.str });
-    rows.set(y, row);
-  }
-  return [...rows.entries()]
-    .sort((a, b) => b[0] - a[0])
-    .map(([, row]) =>
-      row
-        .sort((a, b) => a.x - b.x)
-        .map((r) => r.s)
-        .join(' ')
-        .replace(/\s+/g, ' ')
-        .trim(),
-    )
-    .filter(Boolean)
-    .join('\n');
-}
-
-/** Reads every page's text. An encrypted or damaged PDF is reported as unreadable, with why. */
-export async function extractPdfText(data: Uint8Array): Promise<PdfText> {
-  const pdfjs = await import('pdfjs-dist/legacy/build/pdf.mjs');
-  let doc: Awaited<ReturnType<typeof pdfjs.getDocument>['promise']> | undefined;
-  try {
-    // pdfjs refuses a Node Buffer and detaches the memory it is given: hand it a copy.
-    const bytes = new Uint8Array(data);
-    doc = await pdfjs.getDocument({ data: bytes, isEvalSupported: false, disableFontFace: true, standardFontDataUrl: STANDARD_FONTS, verbosity: 0 }).promise;
-    const pages: string[] = [];
-    for (let n = 1; n <= doc.numPages; n++) {
-      const page = await doc.getPage(n);
-      const content = await page.getTextContent();
-      pages.push(pageLines(content.items as TextItemLike[]));
-      page.cleanup();
-    }
-    return { status: 'read', pages };
-  } catch (err) {
-    const e = err as { name?: string; message?: string };
-    const reason = e.name === 'PasswordException' ? 'The PDF is encrypted with a password, so its text could not be read.' : `The PDF could not be read (${e.message ?? 'damaged file'}).`;
-    return { status: 'unreadable', reason, pages: [] };
-  } finally {
-    await doc?.destroy();
-  }
-}
+// The text itself is read in a worker thread (pdf-text-pool.ts runs pdf-text.ts).
+export type { PdfText } from './pdf-text';
+export { extractPdfText } from './pdf-text-pool';
 
 export interface FilingNumbers {
   model: string;
@@ -96,8 +40,13 @@ const CONDITION_PATTERNS: [UsePositionKind, RegExp][] = [
   ['extremity', /\b(extremity|limb)\b/i],
 ];
 
+/** A figure followed by its unit, built once per unit (not once per line). */
+const figureRe = (unit: string) => new RegExp(`(\\d+(?:[.,]\\d+)?)\\s*(?:${unit})`, 'gi');
+const DBM = figureRe('dBm');
+const W_PER_KG = figureRe('W\\/kg');
+const MM = figureRe('mm\\b');
 const numbersWithUnit = (line: string, unit: RegExp) =>
-  [...line.matchAll(new RegExp(`(\\d+(?:[.,]\\d+)?)\\s*(?:${unit.source})`, 'gi'))].map((m) => ({
+  [...line.matchAll(unit)].map((m) => ({
     value: Number(m[1].replace(',', '.')),
     index: m.index ?? 0,
   }));
@@ -120,7 +69,7 @@ export function compareReport(pages: string[], f: FilingNumbers): ReadBackDraft[
     if (!tuneUp) continue;
     const tx = bands.find((t) => t.bandRe.test(line) || t.idRe.test(line));
     if (!tx) continue;
-    const values = numbersWithUnit(line, /dBm/);
+    const values = numbersWithUnit(line, DBM);
     const stated = values.find((v) => v.index > tuneUp.index) ?? values[values.length - 1];
     if (!stated || Math.abs(stated.value - tx.tuneUpPowerDbm) < 0.005) continue;
     drafts.push({
@@ -139,7 +88,7 @@ export function compareReport(pages: string[], f: FilingNumbers): ReadBackDraft[
   for (const { page, line } of lines) {
     if (!/reported/i.test(line) || !/\bSAR\b/i.test(line)) continue;
     const kind = CONDITION_PATTERNS.find(([, re]) => re.test(line))?.[0];
-    const values = numbersWithUnit(line, /W\/kg/);
+    const values = numbersWithUnit(line, W_PER_KG);
     if (!kind || !values.length) continue;
     const value = Math.max(...values.map((v) => v.value));
     if (value > (highest.get(kind)?.value ?? -1)) highest.set(kind, { value, page });
@@ -164,7 +113,7 @@ export function compareReport(pages: string[], f: FilingNumbers): ReadBackDraft[
     if (!kind) continue;
     const filed = f.separations.filter((s) => s.kind === kind).map((s) => s.separationMm);
     if (!filed.length) continue;
-    for (const v of numbersWithUnit(line, /mm\b/)) {
+    for (const v of numbersWithUnit(line, MM)) {
       if (filed.some((mm) => Math.abs(mm - v.value) < 0.05)) continue;
       const list = [...new Set(filed.map((mm) => `${fmt(mm, 1)} mm`))].join(', ');
       drafts.push({

@@ -7,37 +7,13 @@
 import fs from 'node:fs';
 import fsp from 'node:fs/promises';
 import path from 'node:path';
-import { createHash, randomBytes } from 'node:crypto';
-import { Transform, type Readable, type TransformCallback } from 'node:stream';
+import { randomBytes } from 'node:crypto';
+import type { Readable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
-import { HEAD_BYTES, ObjectNotFoundError, ObjectTooLargeError, isSha256, type ByteStorage, type PutOptions, type StoredObject, type SweepReport } from './byte-storage';
+import { Meter } from './meter';
+import { ObjectNotFoundError, isSha256, type ByteStorage, type PutOptions, type StoredObject, type SweepReport } from './byte-storage';
 
 const TMP = '.tmp';
-
-/** Hashes, counts and keeps the head of what passes through; errors past maxBytes. */
-class Meter extends Transform {
-  readonly hash = createHash('sha256');
-  sizeBytes = 0;
-  private headParts: Buffer[] = [];
-  private headLength = 0;
-  constructor(private readonly maxBytes: number) {
-    super();
-  }
-  override _transform(chunk: Buffer, _enc: BufferEncoding, done: TransformCallback) {
-    this.sizeBytes += chunk.length;
-    if (this.sizeBytes > this.maxBytes) return done(new ObjectTooLargeError(this.maxBytes));
-    this.hash.update(chunk);
-    if (this.headLength < HEAD_BYTES) {
-      const part = chunk.subarray(0, HEAD_BYTES - this.headLength);
-      this.headParts.push(Buffer.from(part));
-      this.headLength += part.length;
-    }
-    done(null, chunk);
-  }
-  head() {
-    return Buffer.concat(this.headParts);
-  }
-}
 
 export function createLocalDiskStorage(root: string): ByteStorage {
   const tmpDir = path.join(root, TMP);

@@ -46,6 +46,16 @@ describe('PDF text', () => {
     expect(text.pages[1].split('\n')).toEqual(['Conducted power', 'LTE Band 12 maximum tune-up power: 24.0 dBm']);
   });
 
+  it('is read in a worker thread, so pdfjs leaves the server’s globals alone', async () => {
+    const push = Array.prototype.push;
+    const text = await extractPdfText(await makePdf(agreeing));
+    expect(text.pages).toHaveLength(4);
+    // The legacy pdfjs build installs core-js polyfills and globals wherever it is loaded.
+    expect(Array.prototype.push).toBe(push);
+    expect('pdfjsLib' in globalThis).toBe(false);
+    expect('pdfjsWorker' in globalThis).toBe(false);
+  });
+
   it('of a damaged file is unreadable, with why', async () => {
     const text = await extractPdfText(new Uint8Array(Buffer.from('%PDF-1.7\n1 0 obj << /Type /Catalog >>\ngarbage without xref')));
     expect(text).toMatchObject({ status: 'unreadable', reason: expect.stringMatching(/could not be read/) });

@@ -1,43 +1,131 @@
 /**
- * The local-disk ByteStorage: content addressing by SHA-256 (FIPS 180-4 test vector for "abc"),
- * atomic puts that leave nothing behind when refused, too large or aborted, and the orphan sweep.
+ * The ByteStorage contract, run against both implementations: local disk, and an S3-compatible
+ * bucket (a real S3 API served by s3rver on loopback, spoken to by @aws-sdk/client-s3). Content
+ * addressing by SHA-256 (FIPS 180-4 test vector for "abc"), atomic puts that leave nothing behind
+ * when refused, too large or aborted, and the orphan sweep.
  */
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { createHash } from 'node:crypto';
 import { PassThrough, Readable } from 'node:stream';
-import { text } from 'node:stream/consumers';
-import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import { createLocalDiskStorage, ObjectNotFoundError, ObjectTooLargeError, type ByteStorage } from '../../server/storage';
+import { buffer, text } from 'node:stream/consumers';
+import { ListObjectsV2Command, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
+import S3rver from 's3rver';
+import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { createLocalDiskStorage, createS3Storage, ObjectNotFoundError, ObjectTooLargeError, type ByteStorage } from '../../server/storage';
 import { sweepOrphans } from '../../server/storage/sweep';
 
 // FIPS 180-4 / NIST example: SHA-256("abc").
 const ABC_SHA256 = 'ba7816bf8f01cfea414140de5dae2223b00361a396177a9cb410ff61f20015ad';
 
-let root: string;
-let storage: ByteStorage;
+/** One storage area of a backend, with a look behind the interface at what it keeps. */
+interface Area {
+  storage: ByteStorage;
+  /** Every object and temporary object the area holds, as "aa/bb/<sha256>" or ".tmp/<name>", sorted. */
+  keys(): Promise<string[]>;
+  /** Leaves a temporary object behind, as a crashed put would. */
+  leaveTemporary(name: string, content: string): Promise<void>;
+}
 
-/** Every file under root, relative, sorted. */
+interface Backend {
+  name: string;
+  setUp(): Promise<void>;
+  tearDown(): Promise<void>;
+  area(): Promise<Area>;
+  cleanUp(): void;
+}
+
+/** Every file under dir, relative with "/" separators, sorted. */
 function filesUnder(dir: string): string[] {
+  if (!fs.existsSync(dir)) return [];
   return (fs.readdirSync(dir, { recursive: true, withFileTypes: true }) as fs.Dirent[])
     .filter((d) => d.isFile())
-    .map((d) => path.relative(dir, path.join(d.parentPath, d.name)))
+    .map((d) => path.relative(dir, path.join(d.parentPath, d.name)).split(path.sep).join('/'))
     .sort();
 }
 
-beforeEach(() => {
-  root = fs.mkdtempSync(path.join(os.tmpdir(), 'fieldfile-storage-'));
-  storage = createLocalDiskStorage(root);
-});
-afterEach(() => fs.rmSync(root, { recursive: true, force: true }));
+function localDisk(): Backend {
+  let roots: string[] = [];
+  return {
+    name: 'local disk',
+    setUp: async () => {},
+    tearDown: async () => {},
+    async area() {
+      const root = fs.mkdtempSync(path.join(os.tmpdir(), 'fieldfile-storage-'));
+      roots.push(root);
+      return {
+        storage: createLocalDiskStorage(root),
+        keys: async () => filesUnder(root),
+        async leaveTemporary(name, content) {
+          fs.mkdirSync(path.join(root, '.tmp'), { recursive: true });
+          fs.writeFileSync(path.join(root, '.tmp', name), content);
+        },
+      };
+    },
+    cleanUp() {
+      for (const r of roots) fs.rmSync(r, { recursive: true, force: true });
+      roots = [];
+    },
+  };
+}
 
-describe('local-disk byte storage', () => {
+function s3Bucket(): Backend {
+  const bucket = 'fieldfile-test';
+  let server: S3rver | undefined;
+  let directory = '';
+  let client: S3Client | undefined;
+  let n = 0;
+  return {
+    name: 'S3-compatible bucket',
+    async setUp() {
+      directory = fs.mkdtempSync(path.join(os.tmpdir(), 'fieldfile-s3rver-'));
+      server = new S3rver({ address: '127.0.0.1', port: 0, silent: true, directory, configureBuckets: [{ name: bucket, configs: [] }] });
+      const { port } = await server.run();
+      client = new S3Client({ endpoint: `http://127.0.0.1:${port}`, region: 'us-east-1', forcePathStyle: true, credentials: { accessKeyId: 'S3RVER', secretAccessKey: 'S3RVER' } });
+    },
+    async tearDown() {
+      client?.destroy();
+      await server?.close();
+      fs.rmSync(directory, { recursive: true, force: true });
+    },
+    async area() {
+      // Each area its own prefix in the one bucket, as uploads and packages are.
+      const prefix = `run-${process.pid}/area-${n++}/`;
+      const c = client!;
+      return {
+        storage: createS3Storage({ client: c, bucket, prefix }),
+        async keys() {
+          const out = await c.send(new ListObjectsV2Command({ Bucket: bucket, Prefix: prefix }));
+          return (out.Contents ?? []).map((o) => o.Key!.slice(prefix.length)).sort();
+        },
+        async leaveTemporary(name, content) {
+          await c.send(new PutObjectCommand({ Bucket: bucket, Key: `${prefix}.tmp/${name}`, Body: content }));
+        },
+      };
+    },
+    cleanUp() {},
+  };
+}
+
+const keyOf = (sha256: string) => `${sha256.slice(0, 2)}/${sha256.slice(2, 4)}/${sha256}`;
+
+describe.each([localDisk(), s3Bucket()])('byte storage: $name', (backend) => {
+  let area: Area;
+  let storage: ByteStorage;
+  beforeAll(() => backend.setUp(), 30_000);
+  afterAll(() => backend.tearDown());
+  beforeEach(async () => {
+    area = await backend.area();
+    storage = area.storage;
+  });
+  afterEach(() => backend.cleanUp());
+
   it('stores a stream under its SHA-256 and gives the same bytes back', async () => {
     const stored = await storage.put(Readable.from([Buffer.from('a'), Buffer.from('bc')]));
     expect(stored).toMatchObject({ sha256: ABC_SHA256, sizeBytes: 3, alreadyStored: false });
     expect(stored.head.toString()).toBe('abc');
-    expect(filesUnder(root)).toEqual([path.join('ba', '78', ABC_SHA256)]);
+    expect(await area.keys()).toEqual([keyOf(ABC_SHA256)]);
     expect(await text(await storage.get(ABC_SHA256))).toBe('abc');
     expect(await storage.exists(ABC_SHA256)).toBe(true);
     expect(await storage.size(ABC_SHA256)).toBe(3);
@@ -47,7 +135,7 @@ describe('local-disk byte storage', () => {
     await storage.put(Readable.from([Buffer.from('abc')]));
     const again = await storage.put(Readable.from([Buffer.from('abc')]));
     expect(again.alreadyStored).toBe(true);
-    expect(filesUnder(root)).toHaveLength(1);
+    expect(await area.keys()).toHaveLength(1);
   });
 
   it('hashes a multi-megabyte stream like a one-shot hash does, keeping only the head', async () => {
@@ -60,9 +148,18 @@ describe('local-disk byte storage', () => {
     expect(stored.head).toHaveLength(4100);
   });
 
+  it('writes every byte in order when it gathers small pieces into larger writes', async () => {
+    // Odd sizes, so pieces straddle the 1 MB write size and a remainder is left at the end.
+    const chunks = Array.from({ length: 70 }, (_, i) => Buffer.alloc(33_333 + i * 517, i));
+    const stored = await storage.put(Readable.from(chunks));
+    const got = await buffer(await storage.get(stored.sha256));
+    expect(got.equals(Buffer.concat(chunks))).toBe(true);
+    expect(stored.sha256).toBe(createHash('sha256').update(got).digest('hex'));
+  });
+
   it('keeps nothing when the stream is longer than maxBytes', async () => {
     await expect(storage.put(Readable.from([Buffer.alloc(600), Buffer.alloc(600)]), { maxBytes: 1000 })).rejects.toBeInstanceOf(ObjectTooLargeError);
-    expect(filesUnder(root)).toEqual([]);
+    expect(await area.keys()).toEqual([]);
   });
 
   it('keeps nothing when accept() refuses the content', async () => {
@@ -74,7 +171,7 @@ describe('local-disk byte storage', () => {
         },
       }),
     ).rejects.toThrow('refused');
-    expect(filesUnder(root)).toEqual([]);
+    expect(await area.keys()).toEqual([]);
     expect(await storage.exists(createHash('sha256').update('MZ not a pdf').digest('hex'))).toBe(false);
   });
 
@@ -84,7 +181,7 @@ describe('local-disk byte storage', () => {
     source.write(Buffer.alloc(64 * 1024, 1));
     setTimeout(() => source.destroy(new Error('connection reset')), 20);
     await expect(put).rejects.toThrow();
-    expect(filesUnder(root)).toEqual([]);
+    expect(await area.keys()).toEqual([]);
   });
 
   it('keeps nothing when the source closes without ending', async () => {
@@ -93,7 +190,7 @@ describe('local-disk byte storage', () => {
     source.write(Buffer.alloc(1024, 1));
     setTimeout(() => source.destroy(), 20);
     await expect(put).rejects.toThrow();
-    expect(filesUnder(root)).toEqual([]);
+    expect(await area.keys()).toEqual([]);
   });
 
   it('says not found for an unknown or malformed hash, and delete is idempotent', async () => {
@@ -109,32 +206,27 @@ describe('local-disk byte storage', () => {
   it('sweeps unreferenced objects and stale temporary files, and keeps referenced ones', async () => {
     const kept = await storage.put(Readable.from([Buffer.from('kept')]));
     const orphan = await storage.put(Readable.from([Buffer.from('orphan')]));
-    fs.mkdirSync(path.join(root, '.tmp'), { recursive: true });
-    fs.writeFileSync(path.join(root, '.tmp', 'left-over'), 'half a file');
+    await area.leaveTemporary('left-over', 'half a file');
     const report = await storage.sweepOrphans((h) => h === kept.sha256);
     expect(report).toEqual({ removedObjects: [orphan.sha256], removedTemporaryFiles: 1 });
-    expect(filesUnder(root)).toEqual([path.join(kept.sha256.slice(0, 2), kept.sha256.slice(2, 4), kept.sha256)]);
+    expect(await area.keys()).toEqual([keyOf(kept.sha256)]);
   });
 
   it('leaves young files alone when asked for a minimum age', async () => {
     await storage.put(Readable.from([Buffer.from('just uploaded')]));
     const report = await storage.sweepOrphans(() => false, { minAgeMs: 60_000 });
     expect(report.removedObjects).toEqual([]);
-    expect(filesUnder(root)).toHaveLength(1);
+    expect(await area.keys()).toHaveLength(1);
   });
 
   it('sweeps only the areas that registered their references', async () => {
-    const packagesRoot = fs.mkdtempSync(path.join(os.tmpdir(), 'fieldfile-packages-'));
-    try {
-      const packages = createLocalDiskStorage(packagesRoot);
-      await packages.put(Readable.from([Buffer.from('a package')]));
-      const orphan = await storage.put(Readable.from([Buffer.from('orphan upload')]));
-      const reports = await sweepOrphans({ uploads: storage, packages }, {} as never, [{ area: 'uploads', referenced: () => [] }]);
-      expect(reports.uploads?.removedObjects).toEqual([orphan.sha256]);
-      expect(reports.packages).toBeUndefined();
-      expect(filesUnder(packagesRoot)).toHaveLength(1);
-    } finally {
-      fs.rmSync(packagesRoot, { recursive: true, force: true });
-    }
+    const other = await backend.area();
+    const packages = other.storage;
+    await packages.put(Readable.from([Buffer.from('a package')]));
+    const orphan = await storage.put(Readable.from([Buffer.from('orphan upload')]));
+    const reports = await sweepOrphans({ uploads: storage, packages }, {} as never, [{ area: 'uploads', referenced: () => [] }]);
+    expect(reports.uploads?.removedObjects).toEqual([orphan.sha256]);
+    expect(reports.packages).toBeUndefined();
+    expect(await other.keys()).toHaveLength(1);
   });
 });
