@@ -35,6 +35,8 @@ export function EditRows({
   empty,
   removalEffects,
   details,
+  indices,
+  addLabel,
 }: {
   noun: string;
   columns: EditColumn[];
@@ -50,6 +52,10 @@ export function EditRows({
   removalEffects?: (i: number) => string[];
   /** More fields of a row, behind a "more" toggle under it; `summary` says what they hold. */
   details?: { label: string; render: (i: number) => React.ReactNode; summary?: (i: number) => string };
+  /** The rows to show (a page of a long table, or one section's rows); all rows when left out. */
+  indices?: readonly number[];
+  /** The add button's words, when "Add <noun>" is not enough. */
+  addLabel?: string;
 }) {
   const wide = useIsWide();
   const [asking, setAsking] = useState<number | null>(null);
@@ -90,7 +96,7 @@ export function EditRows({
       </View>
     );
   };
-  const rows = Array.from({ length: count }, (_, i) => i);
+  const rows = indices ?? Array.from({ length: count }, (_, i) => i);
   const remove = (i: number) =>
     editable ? (
       <Pressable
@@ -105,7 +111,7 @@ export function EditRows({
     ) : null;
   return (
     <View style={styles.wrap} testID={testID}>
-      {count === 0 ? (
+      {rows.length === 0 ? (
         <Text tone="muted" style={styles.empty}>
           {empty}
         </Text>
@@ -157,7 +163,7 @@ export function EditRows({
           </View>
         ))
       )}
-      {editable ? <Button label={`Add ${noun}`} icon="plus" variant="secondary" onPress={onAdd} testID={`${testID}-add`} style={styles.add} /> : null}
+      {editable ? <Button label={addLabel ?? `Add ${noun}`} icon="plus" variant="secondary" onPress={onAdd} testID={`${testID}-add`} style={styles.add} /> : null}
       {asking !== null && asking < count ? (
         <ConfirmRemoval
           title={`Remove ${noun} ${titleOf(asking) || asking + 1}?`}
