@@ -118,6 +118,21 @@ function SaveBar({ form, saving, set }: { form: UseFormReturn<FieldValues>; savi
   return <TableSaveBar status={saving.status} dirty={dirty} onSave={() => void saving.save()} onResolve={saving.resolveConflict} noun={NOUNS[set].many} testID={`lab-${set}`} />;
 }
 
+/**
+ * The next id in the lab's own pattern: after M11, M12 (the largest number with the most common
+ * prefix, plus one); "<prefix>-<n>" when no id ends in a number.
+ */
+export function nextLabId(prefix: string, taken: readonly string[]): string {
+  const counts = new Map<string, number[]>();
+  for (const id of taken) {
+    const m = /^(.*?)(\d+)$/.exec(id);
+    if (m) counts.set(m[1], [...(counts.get(m[1]) ?? []), Number(m[2])]);
+  }
+  const best = [...counts.entries()].sort((a, b) => b[1].length - a[1].length)[0];
+  if (!best) return nextId(prefix, taken);
+  for (let n = Math.max(...best[1]) + 1; ; n++) if (!taken.includes(`${best[0]}${n}`)) return `${best[0]}${n}`;
+}
+
 const ids = (rows: unknown) => ((rows as { id?: string }[] | undefined) ?? []).map((r) => r?.id ?? '');
 
 // --- measurements ------------------------------------------------------------------------------
@@ -195,23 +210,21 @@ function MeasurementsTable({ filing, editable, rows, revision }: TableProps<'mea
       half: true,
       render: (i, h) => <FormNumber {...common} name={`measurements.${i}.sar10gWPerKg`} label="Measured 10 g SAR" unit="W/kg" hideLabel={h} testID={`m-${i}-sar10g`} />,
     },
-    {
-      key: 'date',
-      label: 'Test date',
-      flex: 1,
-      half: true,
-      render: (i, h) => <FormText {...common} name={`measurements.${i}.testDate`} label="Test date" placeholder="YYYY-MM-DD" hideLabel={h} testID={`m-${i}-date`} />,
-    },
   ];
   const details = {
-    label: 'Tune-up, duty cycle, drift, peak, repeats, checks',
+    label: 'Date, tune-up, duty cycle, drift, peak, repeats, checks',
     summary: (i: number) => {
       const m = form.getValues(`measurements.${i}`) as Record<string, unknown> | undefined;
       if (!m) return '';
-      return [m.testPosition, m.channel ? `ch ${m.channel}` : '', m.liquidCheckId ? `liquid ${m.liquidCheckId}` : '', m.systemCheckId ? `system ${m.systemCheckId}` : ''].filter(Boolean).join(' · ');
+      return [m.testDate, m.testPosition, m.channel ? `ch ${m.channel}` : '', m.liquidCheckId ? `liquid ${m.liquidCheckId}` : '', m.systemCheckId ? `system ${m.systemCheckId}` : '']
+        .filter(Boolean)
+        .join(' · ');
     },
     render: (i: number) => (
       <View style={styles.detailGrid}>
+        <View style={styles.detailCell}>
+          <FormText {...common} name={`measurements.${i}.testDate`} label="Test date" placeholder="YYYY-MM-DD" testID={`m-${i}-date`} />
+        </View>
         <View style={styles.detailCell}>
           <FormText {...common} name={`measurements.${i}.testPosition`} label="Test position" placeholder="e.g. left cheek" testID={`m-${i}-testpos`} />
         </View>
@@ -249,7 +262,7 @@ function MeasurementsTable({ filing, editable, rows, revision }: TableProps<'mea
   const add = () => {
     const last = values[values.length - 1];
     list.append({
-      id: nextId('M', ids(values)),
+      id: nextLabId('M', ids(values)),
       transmitterId: last?.transmitterId ?? transmitters[0]?.value ?? '',
       usePositionId: last?.usePositionId ?? positions[0]?.value ?? '',
       testPosition: '',
@@ -442,7 +455,7 @@ function LiquidChecksTable({ filing, editable, rows, revision }: TableProps<'liq
         count={list.fields.length}
         keyOf={(i) => list.fields[i].key}
         titleOf={(i) => values?.[i]?.id ?? ''}
-        onAdd={() => list.append({ id: nextId('L', ids(values)), date: today(), liquid: 'head', frequencyHz: null, relativePermittivity: null, conductivitySPerM: null, temperatureC: null })}
+        onAdd={() => list.append({ id: nextLabId('L', ids(values)), date: today(), liquid: 'head', frequencyHz: null, relativePermittivity: null, conductivitySPerM: null, temperatureC: null })}
         onRemove={(i) => list.remove(i)}
         removalEffects={(i) => namedBy(values?.[i]?.id)}
         editable={editable}
@@ -515,7 +528,7 @@ function SystemChecksTable({ filing, editable, rows, revision }: TableProps<'sys
         count={list.fields.length}
         keyOf={(i) => list.fields[i].key}
         titleOf={(i) => values?.[i]?.id ?? ''}
-        onAdd={() => list.append({ id: nextId('S', ids(values)), date: today(), frequencyHz: null, dipoleSerial: '', averagingMass: '1g', measuredSarWPerKgPerW: null, targetSarWPerKgPerW: null })}
+        onAdd={() => list.append({ id: nextLabId('S', ids(values)), date: today(), frequencyHz: null, dipoleSerial: '', averagingMass: '1g', measuredSarWPerKgPerW: null, targetSarWPerKgPerW: null })}
         onRemove={(i) => list.remove(i)}
         removalEffects={(i) => namedBy(values?.[i]?.id)}
         editable={editable}
@@ -564,7 +577,7 @@ function InstrumentsTable({ filing, editable, rows, revision }: TableProps<'inst
         count={list.fields.length}
         keyOf={(i) => list.fields[i].key}
         titleOf={(i) => values?.[i]?.id ?? ''}
-        onAdd={() => list.append({ id: nextId('I', ids(values)), kind: 'probe', model: '', serial: '', calibrationDate: today(), dueDate: '' })}
+        onAdd={() => list.append({ id: nextLabId('I', ids(values)), kind: 'probe', model: '', serial: '', calibrationDate: today(), dueDate: '' })}
         onRemove={(i) => list.remove(i)}
         editable={editable}
         testID="lab-i"

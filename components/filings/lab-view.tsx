@@ -77,6 +77,8 @@ const KIND_TITLES: { kinds: CheckKind[]; title: string }[] = [
 ];
 
 const sar = (x: number | null) => (x === null ? '—' : `${sig(x, 3)} W/kg`);
+/** In the wide table the unit is under the heading. */
+const sarFigure = (x: number | null) => (x === null ? '—' : sig(x, 3));
 const CONDITION_LABEL = (k: string) => USE_POSITION_LABELS[k as keyof typeof USE_POSITION_LABELS] ?? k;
 
 type Opened = { kind: 'row'; row: LabRow } | { kind: 'check'; check: LabCheck } | null;
@@ -334,89 +336,94 @@ function FlagBadge({ flags }: { flags: LabCheck[] }) {
 
 const COLS: { label: string; flex: number; sort: LabSortKey; numeric?: boolean }[] = [
   { label: 'ID', flex: 0.6, sort: 'id' },
-  { label: 'Transmitter', flex: 0.9, sort: 'transmitter' },
+  { label: 'Transmitter', flex: 1, sort: 'transmitter' },
   { label: 'Position', flex: 1.2, sort: 'position' },
   { label: 'Frequency', flex: 0.9, sort: 'frequency', numeric: true },
-  { label: 'Measured / tune-up', flex: 1.2, sort: 'scale', numeric: true },
-  { label: 'Reported 1 g', flex: 0.9, sort: 'sar1g', numeric: true },
-  { label: 'Reported 10 g', flex: 0.9, sort: 'sar10g', numeric: true },
+  { label: 'Power / scale', flex: 1.2, sort: 'scale', numeric: true },
+  { label: '1 g SAR', flex: 0.8, sort: 'sar1g', numeric: true },
+  { label: '10 g SAR', flex: 0.8, sort: 'sar10g', numeric: true },
   { label: 'Margin', flex: 0.7, sort: 'margin', numeric: true },
   { label: 'Flags and how to fix', flex: 2, sort: 'flags' },
 ];
 
 function MeasurementTable({ rows, onOpen, sort, onSort, regime }: { rows: LabRow[]; onOpen: (row: LabRow) => void; sort: LabSort; onSort: (s: LabSort) => void; regime: string }) {
   return (
-    <View role="table" style={[styles.table, styles.tableSticky]} testID="lab-table">
-      <View role="row" style={[styles.tr, styles.th, styles.sticky]} testID="lab-table-head">
-        {COLS.map((c) => {
-          const active = sort.key === c.sort;
+    <View style={{ gap: space.xs }}>
+      <Text variant="small" tone="muted">
+        Reported SAR in W/kg, scaled to the tune-up limit; margin in dB to the limit.
+      </Text>
+      <View role="table" style={[styles.table, styles.tableSticky]} testID="lab-table">
+        <View role="row" style={[styles.tr, styles.th, styles.sticky]} testID="lab-table-head">
+          {COLS.map((c) => {
+            const active = sort.key === c.sort;
+            return (
+              <Pressable
+                key={c.label}
+                role="columnheader"
+                aria-sort={active ? (sort.descending ? 'descending' : 'ascending') : 'none'}
+                accessibilityRole="button"
+                accessibilityLabel={`Sort by ${c.label}${active ? (sort.descending ? ', sorted high to low' : ', sorted low to high') : ''}`}
+                onPress={() => onSort({ key: c.sort, descending: active ? !sort.descending : c.numeric === true && c.sort !== 'frequency' && c.sort !== 'margin' })}
+                style={({ pressed }) => [styles.td, styles.sortHead, { flex: c.flex }, c.numeric && styles.sortHeadRight, pressed && styles.pressed]}
+                testID={`lab-sort-${c.sort}`}
+              >
+                <Text variant="smallStrong" tone={active ? 'accent' : 'soft'} style={c.numeric ? styles.right : undefined}>
+                  {c.label === 'Margin' && regime !== ALL ? `Margin ${regimeShort(regime)}` : c.label}
+                  {active ? (sort.descending ? ' ↓' : ' ↑') : ''}
+                </Text>
+              </Pressable>
+            );
+          })}
+        </View>
+        {rows.map((x, i) => {
+          const flags = flagsFor(x, regime);
+          const w = worst(flags);
           return (
             <Pressable
-              key={c.label}
-              role="columnheader"
-              aria-sort={active ? (sort.descending ? 'descending' : 'ascending') : 'none'}
-              accessibilityRole="button"
-              accessibilityLabel={`Sort by ${c.label}${active ? (sort.descending ? ', sorted high to low' : ', sorted low to high') : ''}`}
-              onPress={() => onSort({ key: c.sort, descending: active ? !sort.descending : c.numeric === true && c.sort !== 'frequency' && c.sort !== 'margin' })}
-              style={({ pressed }) => [styles.td, styles.sortHead, { flex: c.flex }, c.numeric && styles.sortHeadRight, pressed && styles.pressed]}
-              testID={`lab-sort-${c.sort}`}
+              key={x.measurementId}
+              role="row"
+              onPress={() => onOpen(x)}
+              style={({ pressed }) => [styles.tr, i % 2 === 1 && styles.zebra, pressed && styles.pressed]}
+              accessibilityLabel={`${x.measurementId}: how computed`}
+              testID={`lab-row-${x.measurementId}`}
             >
-              <Text variant="smallStrong" tone={active ? 'accent' : 'soft'} style={c.numeric ? styles.right : undefined}>
-                {c.label === 'Margin' && regime !== ALL ? `Margin ${regimeShort(regime)}` : c.label}
-                {active ? (sort.descending ? ' ↓' : ' ↑') : ''}
+              <Text role="cell" variant="smallStrong" style={[styles.td, { flex: 0.6 }]}>
+                {x.measurementId}
               </Text>
+              <Text role="cell" variant="small" style={[styles.td, { flex: 1 }]}>
+                {x.transmitterId}
+              </Text>
+              <Text role="cell" variant="small" style={[styles.td, { flex: 1.2 }]}>
+                {x.usePositionId}
+                {x.testPosition ? `\n${x.testPosition}` : ''}
+              </Text>
+              <Text role="cell" variant="figure" style={[styles.td, styles.right, styles.num, { flex: 0.9 }]}>
+                {formatMhz(x.frequencyHz)}
+              </Text>
+              <Text role="cell" variant="figure" style={[styles.td, styles.right, styles.num, { flex: 1.2 }]}>
+                {sig(x.measuredPowerDbm, 4)} / {sig(x.tuneUpPowerDbm, 4)} dBm{`\n`}×{x.scalingFactor.toFixed(3)}
+              </Text>
+              <Text role="cell" variant="figure" style={[styles.td, styles.right, styles.num, { flex: 0.8 }]} testID={`lab-row-${x.measurementId}-sar1g`}>
+                {sarFigure(x.reportedSar1gWPerKg)}
+              </Text>
+              <Text role="cell" variant="figure" style={[styles.td, styles.right, styles.num, { flex: 0.8 }]}>
+                {sarFigure(x.reportedSar10gWPerKg)}
+              </Text>
+              <Text role="cell" variant="figure" style={[styles.td, styles.right, styles.num, { flex: 0.7 }]}>
+                {formatDb(marginFor(x, regime))}
+              </Text>
+              <View role="cell" style={[styles.td, { flex: 2, gap: 2 }]}>
+                <FlagBadge flags={flags} />
+                {w?.howToFix ? (
+                  <Text variant="small" tone="soft" numberOfLines={2}>
+                    {w.howToFix}
+                  </Text>
+                ) : null}
+              </View>
             </Pressable>
           );
         })}
       </View>
-      {rows.map((x, i) => {
-        const flags = flagsFor(x, regime);
-        const w = worst(flags);
-        return (
-          <Pressable
-            key={x.measurementId}
-            role="row"
-            onPress={() => onOpen(x)}
-            style={({ pressed }) => [styles.tr, i % 2 === 1 && styles.zebra, pressed && styles.pressed]}
-            accessibilityLabel={`${x.measurementId}: how computed`}
-            testID={`lab-row-${x.measurementId}`}
-          >
-            <Text role="cell" variant="smallStrong" style={[styles.td, { flex: 0.6 }]}>
-              {x.measurementId}
-            </Text>
-            <Text role="cell" variant="small" style={[styles.td, { flex: 0.9 }]}>
-              {x.transmitterId}
-            </Text>
-            <Text role="cell" variant="small" style={[styles.td, { flex: 1.2 }]}>
-              {x.usePositionId}
-              {x.testPosition ? `\n${x.testPosition}` : ''}
-            </Text>
-            <Text role="cell" variant="figure" style={[styles.td, styles.right, styles.num, { flex: 0.9 }]}>
-              {formatMhz(x.frequencyHz)}
-            </Text>
-            <Text role="cell" variant="figure" style={[styles.td, styles.right, styles.num, { flex: 1.2 }]}>
-              {sig(x.measuredPowerDbm, 4)} / {sig(x.tuneUpPowerDbm, 4)} dBm{`\n`}×{x.scalingFactor.toFixed(3)}
-            </Text>
-            <Text role="cell" variant="figure" style={[styles.td, styles.right, styles.num, { flex: 0.9 }]} testID={`lab-row-${x.measurementId}-sar1g`}>
-              {sar(x.reportedSar1gWPerKg)}
-            </Text>
-            <Text role="cell" variant="figure" style={[styles.td, styles.right, styles.num, { flex: 0.9 }]}>
-              {sar(x.reportedSar10gWPerKg)}
-            </Text>
-            <Text role="cell" variant="figure" style={[styles.td, styles.right, styles.num, { flex: 0.7 }]}>
-              {formatDb(marginFor(x, regime))}
-            </Text>
-            <View role="cell" style={[styles.td, { flex: 2, gap: 2 }]}>
-              <FlagBadge flags={flags} />
-              {w?.howToFix ? (
-                <Text variant="small" tone="soft" numberOfLines={2}>
-                  {w.howToFix}
-                </Text>
-              ) : null}
-            </View>
-          </Pressable>
-        );
-      })}
     </View>
   );
 }

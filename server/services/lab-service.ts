@@ -168,12 +168,12 @@ export function labInputFor(db: Db, detail: ReturnType<typeof getFiling>, lab: L
 export function storedLabResults(db: Db, versionId: number, input: LabResultsInput): { output: string; computedAt: string } {
   const inputJson = JSON.stringify(input);
   const inputSha256 = createHash('sha256').update(inputJson).digest('hex');
-  let stored = repo.findLabResult(db, versionId, inputSha256, ENGINE_VERSION, RULE_SET_VERSION);
-  if (!stored) {
-    const { derivation: _d, ...output } = computeLabResults(input);
-    stored = repo.insertLabResult(db, { versionId, engineVersion: ENGINE_VERSION, ruleSetVersion: RULE_SET_VERSION, inputSha256, input: inputJson, output: JSON.stringify(output) });
-  }
-  return stored;
+  const stored = repo.findLabResult(db, versionId, inputSha256, ENGINE_VERSION, RULE_SET_VERSION);
+  if (stored) return stored;
+  const { derivation: _d, ...result } = computeLabResults(input);
+  const output = JSON.stringify(result);
+  const { computedAt } = repo.insertLabResult(db, { versionId, engineVersion: ENGINE_VERSION, ruleSetVersion: RULE_SET_VERSION, inputSha256, input: inputJson, output });
+  return { output, computedAt };
 }
 
 /** The lab results of a filing's current data as a JSON body; an unchanged filing is answered from the store. */

@@ -44,8 +44,31 @@ function pageLines(items: TextItemLike[]): string {
     .join('\n');
 }
 
+/**
+ * pdfjs-dist's legacy build bundles core-js, which on import (and again when it loads its worker
+ * code) replaces JSON.parse, JSON.stringify and Array.prototype.push with JavaScript versions for
+ * the whole process (to add JSON.rawJSON, which Node 20 lacks). They are many times slower and
+ * allocate heavily: after the first PDF was read, every JSON answer of the server paid for it (a
+ * 5 000-row lab results answer took seconds and hundreds of MB). V8's own are put back after each
+ * read; pdfjs works with them (it only reads text here).
+ */
+const NATIVE_BUILTINS = { parse: JSON.parse, stringify: JSON.stringify, push: Array.prototype.push };
+export function restoreNativeBuiltins(): void {
+  if (JSON.parse !== NATIVE_BUILTINS.parse) JSON.parse = NATIVE_BUILTINS.parse;
+  if (JSON.stringify !== NATIVE_BUILTINS.stringify) JSON.stringify = NATIVE_BUILTINS.stringify;
+  if (Array.prototype.push !== NATIVE_BUILTINS.push) Object.defineProperty(Array.prototype, 'push', { value: NATIVE_BUILTINS.push, writable: true, configurable: true, enumerable: false });
+}
+
 /** Reads every page's text. An encrypted or damaged PDF is reported as unreadable, with why. */
 export async function extractPdfText(data: Uint8Array): Promise<PdfText> {
+  try {
+    return await readPdfText(data);
+  } finally {
+    restoreNativeBuiltins();
+  }
+}
+
+async function readPdfText(data: Uint8Array): Promise<PdfText> {
   const pdfjs = await import('pdfjs-dist/legacy/build/pdf.mjs');
   let doc: Awaited<ReturnType<typeof pdfjs.getDocument>['promise']> | undefined;
   try {

@@ -85,7 +85,7 @@ async function engineerAddsMeasurement(s: Session, size: 'phone' | 'desktop') {
   const row = page.getByTestId(`lab-row-${newId}`);
   await row.waitFor();
   await row.scrollIntoViewIfNeeded();
-  expect(await row.textContent()).toContain(`${Number(results!.reportedSar1gWPerKg.toPrecision(3))} W/kg`);
+  expect(await page.getByTestId(size === 'phone' ? `lab-row-${newId}` : `lab-row-${newId}-sar1g`).textContent()).toContain(String(Number(results!.reportedSar1gWPerKg.toPrecision(3))));
   await screenshot(page, `lab-edit-saved-${size}`);
 
   // Wide screen: sort by reported 1 g SAR (highest first) and filter by flag.

@@ -12,6 +12,9 @@ import { compareReport, extractPdfText, type FilingNumbers } from '../../server/
 import { EVIDENCE_DEVICE } from './support/evidence-filing';
 import { createTestApp, seedUsers, signIn, type TestApp } from './support/test-app';
 
+// V8's own, taken before any PDF is read in this file.
+const NATIVE = { parse: JSON.parse, stringify: JSON.stringify, push: Array.prototype.push };
+
 // The numbers of EVIDENCE_DEVICE: Band 12 tune-up 24 dBm; hotspot 10 mm, body-worn 5 mm.
 const NUMBERS: FilingNumbers = {
   model: 'KH2-LTE',
@@ -44,6 +47,15 @@ describe('PDF text', () => {
     expect(text.status).toBe('read');
     expect(text.pages).toHaveLength(4);
     expect(text.pages[1].split('\n')).toEqual(['Conducted power', 'LTE Band 12 maximum tune-up power: 24.0 dBm']);
+  });
+
+  it('leaves V8’s own JSON and Array.prototype.push in place (pdfjs’s bundled core-js replaces them with slow copies)', async () => {
+    const text = await extractPdfText(await makePdf(agreeing));
+    expect(text.status).toBe('read');
+    expect(JSON.parse).toBe(NATIVE.parse);
+    expect(JSON.stringify).toBe(NATIVE.stringify);
+    expect(Array.prototype.push).toBe(NATIVE.push);
+    expect(Object.prototype.propertyIsEnumerable.call(Array.prototype, 'push')).toBe(false);
   });
 
   it('of a damaged file is unreadable, with why', async () => {
