@@ -56,6 +56,8 @@ const NATIVE_BUILTINS = { parse: JSON.parse, stringify: JSON.stringify, push: Ar
 export function restoreNativeBuiltins(): void {
   if (JSON.parse !== NATIVE_BUILTINS.parse) JSON.parse = NATIVE_BUILTINS.parse;
   if (JSON.stringify !== NATIVE_BUILTINS.stringify) JSON.stringify = NATIVE_BUILTINS.stringify;
+  // Putting V8's own method back, not extending the prototype.
+  // eslint-disable-next-line no-extend-native
   if (Array.prototype.push !== NATIVE_BUILTINS.push) Object.defineProperty(Array.prototype, 'push', { value: NATIVE_BUILTINS.push, writable: true, configurable: true, enumerable: false });
 }
 

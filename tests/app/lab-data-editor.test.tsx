@@ -113,7 +113,9 @@ describe('LabDataEditor: measurements by hand', () => {
   });
 
   it('shows the server’s 422 message at the field it names, and a 409 offers the other person’s rows', async () => {
-    let reply = apiError(422, 'invalid_input', '1 id(s) do not match this filing; nothing was saved.', { 'measurements.0.usePositionId': 'Unknown use position “head”; this filing has hotspot-back.' });
+    let reply = apiError(422, 'invalid_input', '1 id(s) do not match this filing; nothing was saved.', {
+      'measurements.0.usePositionId': 'Unknown use position “head”; this filing has hotspot-back.',
+    });
     installFetchMock({
       ...emptySets,
       'GET /api/filings/7/measurements': { status: 200, body: { version: 1, measurements: [M1], revision: 'm0' } },
@@ -126,7 +128,10 @@ describe('LabDataEditor: measurements by hand', () => {
     expect(await screen.findByTestId('m-0-pos-error')).toHaveTextContent(/Unknown use position “head”/);
     expect(screen.getByTestId('lab-measurements-status')).toHaveTextContent(/do not match this filing/);
 
-    reply = { status: 409, body: { error: { code: 'stale_lab_set', message: 'Someone saved this table after you opened it.' }, current: { version: 1, measurements: [{ ...M1, measuredPowerDbm: 22 }], revision: 'm9' } } };
+    reply = {
+      status: 409,
+      body: { error: { code: 'stale_lab_set', message: 'Someone saved this table after you opened it.' }, current: { version: 1, measurements: [{ ...M1, measuredPowerDbm: 22 }], revision: 'm9' } },
+    };
     fireEvent.press(screen.getByTestId('lab-measurements-save'));
     await screen.findByTestId('lab-measurements-theirs');
     expect(screen.getByTestId('lab-measurements-status')).toHaveTextContent(/someone else saved the measurements/);
