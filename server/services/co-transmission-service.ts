@@ -11,19 +11,13 @@ import { zodFieldErrors } from '../middleware/validate';
 import * as repo from '../repos/filings-repo';
 import { addVersionEditor } from '../repos/review-repo';
 import { recordAudit } from './audit';
-import { canEdit, loadFiling, requireEditable, stepRevision, type FilingActor } from './filings-service';
+import { canEdit, loadFiling, matchesRevision, requireEditable, stepRevision, type FilingActor } from './filings-service';
 
 export function readCoTransmission(db: Db, actor: FilingActor, filingId: number): CoTransmissionDto {
   const row = loadFiling(db, actor, filingId);
   const groups = repo.readCoTransmissionGroups(db, row.version.id);
   return { version: row.version.number, groups, revision: stepRevision(groups) };
 }
-
-const matches = (ifMatch: string, revision: string) =>
-  ifMatch.split(',').some((tag) => {
-    const t = tag.trim().replace(/^W\//, '').replace(/^"|"$/g, '');
-    return t === '*' || t === revision;
-  });
 
 /** Replaces every group of the current version; ids must name its transmitters and use positions. */
 export type ReplaceResult = { stale: false; saved: CoTransmissionDto } | { stale: true; current: { groups: CoTransmissionGroup[]; revision: string } };
@@ -41,7 +35,7 @@ export function replaceCoTransmission(db: Db, actor: FilingActor, filingId: numb
   const current = repo.readCoTransmissionGroups(db, versionId);
   const revision = stepRevision(current);
   // Synchronous from here to the write (better-sqlite3): no other save can land in between.
-  if (ifMatch && !matches(ifMatch, revision) && stepRevision(parsed.data.groups) !== revision) {
+  if (ifMatch && !matchesRevision(ifMatch, revision) && stepRevision(parsed.data.groups) !== revision) {
     return { stale: true, current: { groups: current, revision } };
   }
   const transmitters = new Set(repo.readRadios(db, versionId).transmitters.map((t) => t.id));

@@ -14,7 +14,7 @@ import { zodFieldErrors } from '../middleware/validate';
 import * as repo from '../repos/lab-repo';
 import * as filingsRepo from '../repos/filings-repo';
 import { recordAudit } from './audit';
-import { getFiling, loadFiling, requireEditable, stepRevision, type FilingActor } from './filings-service';
+import { getFiling, loadFiling, matchesRevision, requireEditable, stepRevision, type FilingActor } from './filings-service';
 import { screeningInputFor } from './screening-service';
 
 export const LAB_CAUTIONS = [
@@ -49,12 +49,6 @@ export function readLabSet(db: Db, actor: FilingActor, filingId: number, set: La
   const rows = READERS[set](db, row.version.id);
   return { version: row.version.number, [LAB_SETS[set].key]: rows, revision: stepRevision(rows) };
 }
-
-const matchesRevision = (ifMatch: string, revision: string) =>
-  ifMatch.split(',').some((tag) => {
-    const t = tag.trim().replace(/^W\//, '').replace(/^"|"$/g, '');
-    return t === '*' || t === revision;
-  });
 
 /** Thrown when a save names a revision that is no longer the stored one: nothing was written. */
 export class StaleLabSet extends Error {
