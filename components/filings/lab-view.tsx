@@ -433,7 +433,8 @@ function MeasurementCards({ rows, onOpen, regime }: { rows: LabRow[]; onOpen: (r
     <View role="list" style={styles.cards} testID="lab-cards">
       {rows.map((x) => {
         const flags = flagsFor(x, regime);
-        const flagged = flags.filter((f) => f.status !== 'pass');
+        // Out of tolerance first, so the worst flag and how to fix it are always shown.
+        const flagged = flags.filter((f) => f.status === 'fail').concat(flags.filter((f) => f.status === 'warning'));
         return (
           <View key={x.measurementId} role="listitem" style={styles.card} testID={`lab-row-${x.measurementId}`}>
             <View style={styles.cardHead}>
