@@ -77,7 +77,10 @@ export function labRoutes({ db, config }: AppContext): Router {
   }
 
   router.get('/:id/lab-results', readers, (req, res) => {
-    res.type('application/json').send(labService.labResultsForFiling(db, actorOf(req.user!), parseWith(zId, req.params.id)));
+    const [head, rest] = labService.labResultsForFiling(db, actorOf(req.user!), parseWith(zId, req.params.id));
+    res.type('application/json');
+    res.write(head);
+    res.end(rest);
   });
 
   return router;

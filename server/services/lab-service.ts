@@ -170,8 +170,12 @@ export function storedLabResults(db: Db, versionId: number, input: LabResultsInp
   return { output, computedAt };
 }
 
-/** The lab results of a filing's current data as a JSON body; an unchanged filing is answered from the store. */
-export function labResultsForFiling(db: Db, actor: FilingActor, filingId: number): string {
+/**
+ * The lab results of a filing's current data as a JSON body in two pieces (the versions, then the
+ * stored output), sent one after the other: joining them would copy an answer of tens of MB once
+ * more. An unchanged filing is answered from the store.
+ */
+export function labResultsForFiling(db: Db, actor: FilingActor, filingId: number): [string, string] {
   const detail = getFiling(db, actor, filingId);
   const stored = storedLabResults(db, detail.version.id, labInputFor(db, detail));
   const meta = {
@@ -182,5 +186,5 @@ export function labResultsForFiling(db: Db, actor: FilingActor, filingId: number
     computedAt: stored.computedAt,
     cautions: LAB_CAUTIONS,
   };
-  return `${JSON.stringify(meta).slice(0, -1)},${stored.output.slice(1)}`;
+  return [`${JSON.stringify(meta).slice(0, -1)},`, stored.output.slice(1)];
 }
