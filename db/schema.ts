@@ -364,11 +364,16 @@ export const marketSelections = sqliteTable(
   (t) => [primaryKey({ columns: [t.versionId, t.regime] })],
 );
 
-/** Transmitter combinations that can be on together; members are in simultaneous_group_members. */
+/**
+ * Transmitter combinations that can be on together; members are in simultaneous_group_members.
+ * A combination holds in one use position, or in every one when `use_position_id` is null (the
+ * device file's list). Removing the position removes its combinations.
+ */
 export const simultaneousGroups = sqliteTable('simultaneous_groups', {
   id: integer('id').primaryKey({ autoIncrement: true }),
   versionId: versionRef(),
   sortOrder: integer('sort_order').notNull(),
+  usePositionId: integer('use_position_id').references(() => usePositions.id, { onDelete: 'cascade' }),
 });
 
 /** A combination's transmitters, by row: renaming a transmitter changes nothing here. */

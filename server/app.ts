@@ -30,6 +30,7 @@ import { calcRoutes } from './routes/calc';
 import { createCalcPool } from './calc-pool';
 import { filingRoutes, schemaRoutes } from './routes/filings';
 import { labRoutes } from './routes/lab';
+import { coTransmissionRoutes } from './routes/co-transmission';
 import { evidenceRoutes } from './routes/evidence';
 import { refuseChangesToArchivedFilings } from './middleware/archived-guard';
 import { reviewRoutes } from './routes/review';
@@ -182,6 +183,7 @@ export function createApp({ handle, config, mailer, serveWeb = true, storage = c
   api.use('/filings/:id/evidence', evidenceRoutes(ctx));
   api.use('/filings', filingRoutes(ctx));
   api.use('/filings', labRoutes(ctx));
+  api.use('/filings', coTransmissionRoutes(ctx));
   api.use('/filings', reviewRoutes(ctx));
   api.use('/schema', schemaRoutes());
   api.use(packageRoutes(packages));

@@ -92,6 +92,11 @@ export const labResultsInput = z.object({
   usePositions: z.array(z.object({ id, kind: z.enum(USE_POSITION_KINDS), separations: z.array(z.object({ antennaId: id, separationM: num })).max(MAX_ANTENNAS) })).max(MAX_USE_POSITIONS),
   /** Transmitter combinations that can be on together. */
   simultaneous: z.array(z.array(id).max(MAX_COMBINATION_MEMBERS)).max(MAX_COMBINATIONS).default([]),
+  /** Combinations that can be on together in one use position only (evaluated there alone). */
+  simultaneousAt: z
+    .array(z.object({ usePositionId: id, transmitterIds: z.array(id).max(MAX_COMBINATION_MEMBERS) }))
+    .max(MAX_COMBINATIONS)
+    .default([]),
   /** The screening rows of the same data (only the fields used here). */
   screening: z
     .array(
@@ -942,8 +947,14 @@ function coTransmission(input: In, rows: LabRow[], posById: Context['posById']):
   }
   const measurementById = new Map<string, MeasurementIn>();
   for (const m of input.measurements) if (!measurementById.has(m.id)) measurementById.set(m.id, m);
-  input.simultaneous.forEach((group, gi) => {
+  // Groups for every position first, then those of one position, numbered on (G1, G2, …).
+  const groups = [
+    ...input.simultaneous.map((transmitterIds) => ({ transmitterIds, usePositionId: null as string | null })),
+    ...input.simultaneousAt.map((g) => ({ transmitterIds: g.transmitterIds, usePositionId: g.usePositionId as string | null })),
+  ];
+  groups.forEach(({ transmitterIds: group, usePositionId }, gi) => {
     for (const pos of input.usePositions) {
+      if (usePositionId !== null && pos.id !== usePositionId) continue;
       for (const mk of input.markets) {
         const base = { id: `G${gi + 1}@${pos.id}@${mk.regime}`, transmitterIds: group, usePositionId: pos.id, usePositionKind: pos.kind, regime: mk.regime };
         if (pos.kind === 'far-field') {

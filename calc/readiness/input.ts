@@ -153,6 +153,8 @@ export interface ReadinessInput {
   regimes: ScreeningRegime[];
   /** Transmitter combinations that can be on together. */
   simultaneous: string[][];
+  /** Combinations that can be on together in one use position only. */
+  simultaneousAt?: { usePositionId: string; transmitterIds: string[] }[];
   screening: { rows: ReadinessScreeningRow[]; gaps: { transmitterId: string; usePositionId: string }[] } | null;
   lab: ReadinessLab | null;
   evidence: ReadinessEvidence | null;

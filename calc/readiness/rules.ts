@@ -219,16 +219,20 @@ export const READINESS_RULES: readonly ReadinessRule[] = [
     step: 'co-transmission',
     source: 'FCC KDB 447498 D01 v06 §4.3.2; IEC/IEEE 62209-1528:2020 (simultaneous transmission)',
     check: (input) => {
-      const groups = input.simultaneous.filter((g) => g.length > 1);
+      // A group of every position, or of one position only (checked there alone).
+      const groups = [
+        ...input.simultaneous.map((g) => ({ ids: g, positionId: null as string | null })),
+        ...(input.simultaneousAt ?? []).map((g) => ({ ids: g.transmitterIds, positionId: g.usePositionId as string | null })),
+      ].filter((g) => g.ids.length > 1);
       if (!groups.length || !input.usePositions.length || !input.regimes.length) return null;
       const byKey = new Map((input.lab?.coTransmission ?? []).map((c) => [key([...c.transmitterIds].sort().join('+'), c.usePositionId, c.regime), c]));
       const out: ReadinessFinding[] = [];
-      for (const g of groups) {
-        const gk = [...g].sort().join('+');
-        for (const p of input.usePositions)
+      for (const { ids, positionId } of groups) {
+        const gk = [...ids].sort().join('+');
+        for (const p of input.usePositions.filter((x) => positionId === null || x.id === positionId))
           for (const r of input.regimes) {
             const c = byKey.get(key(gk, p.id, r));
-            const name = `${g.join(' + ')} at “${p.id}”, ${regimeWord(r)}`;
+            const name = `${ids.join(' + ')} at “${p.id}”, ${regimeWord(r)}`;
             if (!c) out.push({ text: `${name} is not evaluated.` });
             else if (c.status === 'over-limit') out.push({ text: `${name}: the sum is over the limit.` });
             else if (c.status === 'needs-simultaneous-measurement') out.push({ text: `${name} needs a simultaneous measurement.` });

@@ -2,7 +2,8 @@
  * Step 7, Co-transmission: for each combination of transmitters that can be on together, in each
  * use position and market, the sum of the highest reported SAR (or the estimated SAR of a
  * transmitter exempt from testing) against the limit; when over, the SPLSR of each pair or
- * "needs simultaneous measurement"; for far-field positions the MPE sum of ratios.
+ * "needs simultaneous measurement"; for far-field positions the MPE sum of ratios. Above them, the
+ * specialist's editor of which transmitters can be on together in each use position.
  */
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
@@ -22,6 +23,7 @@ import type { IconName } from '../icons';
 import { sig } from './format';
 import { DerivationBlock } from './how-computed';
 import { regimeShort } from './labels';
+import { CoTransmissionEditor } from './co-transmission-editor';
 
 const OUTCOME: Record<CoTransmissionResult['outcome'], { tone: BadgeTone; icon: IconName; label: string }> = {
   'sum-within-limit': { tone: 'pass', icon: 'check', label: 'Sum within limit' },
@@ -41,22 +43,18 @@ export function CoTransmissionView({ filing }: { filing: FilingDetail }) {
   const all = lab.data.coTransmission;
   const markets = [...new Set(all.map((c) => c.regime))];
   const shown = market === 'all' ? all : all.filter((c) => c.regime === market);
-  const groups = [...new Set(all.map((c) => c.transmitterIds.join(' + ')))];
   return (
     <View style={styles.wrap} testID="co-transmission">
-      <Card title="Transmitters on together">
-        {groups.length ? (
-          groups.map((g) => (
-            <Text key={g} variant="bodyStrong">
-              {g}
-            </Text>
-          ))
-        ) : (
-          <Text tone="muted">No combinations yet. They come from the device file’s “simultaneous” list.</Text>
-        )}
-        <Text variant="small" tone="muted">
-          Each combination is evaluated in every use position and market.
-        </Text>
+      <Card
+        title="Transmitters on together"
+        aside={
+          <Text variant="small" tone="muted">
+            Per use position: tick the transmitters that can transmit at the same time.
+          </Text>
+        }
+        testID="cotx-groups"
+      >
+        <CoTransmissionEditor filing={filing} />
       </Card>
       {all.length ? (
         <Card title="Sums per use position and market">

@@ -37,6 +37,8 @@ export function EditRows({
   removalEffects,
   details,
   rowNotes,
+  indices,
+  addLabel,
 }: {
   noun: string;
   columns: EditColumn[];
@@ -54,6 +56,10 @@ export function EditRows({
   details?: { label: string; render: (i: number) => React.ReactNode; summary?: (i: number) => string };
   /** Wide table: notes on row i in full under it (its cells, too narrow for them, are marked short). */
   rowNotes?: (i: number) => string[];
+  /** The rows to show (a page of a long table, or one section's rows); all rows when left out. */
+  indices?: readonly number[];
+  /** The add button's words, when "Add <noun>" is not enough. */
+  addLabel?: string;
 }) {
   const wide = useIsWide();
   const [asking, setAsking] = useState<number | null>(null);
@@ -94,7 +100,7 @@ export function EditRows({
       </View>
     );
   };
-  const rows = Array.from({ length: count }, (_, i) => i);
+  const rows = indices ?? Array.from({ length: count }, (_, i) => i);
   const remove = (i: number) =>
     editable ? (
       <Pressable
@@ -109,7 +115,7 @@ export function EditRows({
     ) : null;
   return (
     <View style={styles.wrap} testID={testID}>
-      {count === 0 ? (
+      {rows.length === 0 ? (
         <Text tone="muted" style={styles.empty}>
           {empty}
         </Text>
@@ -170,7 +176,7 @@ export function EditRows({
           </View>
         ))
       )}
-      {editable ? <Button label={`Add ${noun}`} icon="plus" variant="secondary" onPress={onAdd} testID={`${testID}-add`} style={styles.add} /> : null}
+      {editable ? <Button label={addLabel ?? `Add ${noun}`} icon="plus" variant="secondary" onPress={onAdd} testID={`${testID}-add`} style={styles.add} /> : null}
       {asking !== null && asking < count ? (
         <ConfirmRemoval
           title={`Remove ${noun} ${titleOf(asking) || asking + 1}?`}

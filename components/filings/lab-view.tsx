@@ -28,6 +28,23 @@ import { formatDb, formatMhz, sig } from './format';
 import { DerivationBlock } from './how-computed';
 import { regimeShort } from './labels';
 import { MeasurementImport } from './measurement-import';
+import { LabDataEditor } from './lab-data-editor';
+import {
+  ALL,
+  DEFAULT_LAB_SORT,
+  FLAGGED,
+  NO_FLAGS,
+  NO_LAB_FILTER,
+  filterLabRows,
+  flagsFor,
+  flaggedKinds,
+  isLabFiltered,
+  marginFor,
+  sortLabRows,
+  type LabFilter,
+  type LabSort,
+  type LabSortKey,
+} from './lab-filter';
 
 export const CHECK_LOOK: Record<LabCheck['status'], { icon: IconName; tone: BadgeTone; label: string }> = {
   pass: { icon: 'check', tone: 'pass', label: 'In tolerance' },
@@ -60,6 +77,8 @@ const KIND_TITLES: { kinds: CheckKind[]; title: string }[] = [
 ];
 
 const sar = (x: number | null) => (x === null ? '—' : `${sig(x, 3)} W/kg`);
+/** In the wide table the unit is under the heading. */
+const sarFigure = (x: number | null) => (x === null ? '—' : sig(x, 3));
 const CONDITION_LABEL = (k: string) => USE_POSITION_LABELS[k as keyof typeof USE_POSITION_LABELS] ?? k;
 
 type Opened = { kind: 'row'; row: LabRow } | { kind: 'check'; check: LabCheck } | null;
@@ -69,7 +88,7 @@ export function LabView({ filing }: { filing: FilingDetail }) {
   const user = useCurrentUser();
   const [opened, setOpened] = useState<Opened>(null);
   // `filing.editable` is the specialist's right; lab data is the engineer's, in an editable version.
-  const canImport = hasRole(user, 'engineer') && EDITABLE_STATES.includes(filing.version.state);
+  const canImport = hasRole(user, 'engineer') && EDITABLE_STATES.includes(filing.version.state) && !filing.archivedAt;
   if (lab.isPending) return <Loading label="Scaling every measurement…" />;
   if (lab.isError) return <LoadFailed what="the lab results" error={lab.error} onRetry={() => void lab.refetch()} />;
   const r = lab.data;
@@ -81,6 +100,17 @@ export function LabView({ filing }: { filing: FilingDetail }) {
           <MeasurementImport filingId={filing.id} />
         </Card>
       ) : null}
+      <Card
+        title={canImport ? 'Enter or edit by hand' : 'The lab’s data'}
+        aside={
+          <Text variant="small" tone="muted">
+            {canImport ? 'Each table saves whole; the results recompute.' : 'Read only: the test engineer enters the lab’s data.'}
+          </Text>
+        }
+        testID="lab-data-card"
+      >
+        <LabDataEditor filing={filing} editable={canImport} />
+      </Card>
       <Measurements r={r} onOpen={(row) => setOpened({ kind: 'row', row })} />
       <Checks r={r} onOpen={(check) => setOpened({ kind: 'check', check })} />
       <Notice tone="caution" title="What these results are" testID="lab-cautions">
@@ -206,52 +236,91 @@ function HighestTable({ r, onOpen }: { r: FilingLabResults; onOpen: (row: LabRow
 
 const worst = (flags: LabCheck[]) => flags.find((f) => f.status === 'fail') ?? flags.find((f) => f.status === 'warning') ?? null;
 
+const KIND_WORD: Partial<Record<CheckKind, string>> = { ...FAIL_WORD, liquid: 'Liquid', 'liquid-temperature': 'Liquid temperature', 'system-check': 'System check', drift: 'Drift', mass: 'Mass' };
+
 function Measurements({ r, onOpen }: { r: FilingLabResults; onOpen: (row: LabRow) => void }) {
   const wide = useIsWide();
-  const [position, setPosition] = useState('all');
-  const [flagFilter, setFlagFilter] = useState<'all' | 'flagged'>('all');
+  const [filter, setFilter] = useState<LabFilter>(NO_LAB_FILTER);
+  const [sort, setSort] = useState<LabSort>(DEFAULT_LAB_SORT);
   const positions = [...new Set(r.rows.map((x) => x.usePositionId))];
-  const rows = r.rows.filter((x) => (position === 'all' || x.usePositionId === position) && (flagFilter === 'all' || x.flags.some((f) => f.status !== 'pass')));
+  const markets = [...new Set(r.rows.flatMap((x) => x.margins.map((m) => m.regime)))];
+  const kinds = flaggedKinds(r.rows);
+  const rows = sortLabRows(filterLabRows(r.rows, filter), sort, filter.regime);
+  const refine = (part: Partial<LabFilter>) => setFilter((f) => ({ ...f, ...part }));
   return (
     <Card
       title={`Measurements (${r.rows.length})`}
       aside={
         <Text variant="small" tone="muted">
-          Tap a row to see how it was scaled.
+          {wide ? 'Sort by a column heading; open a row to see how it was scaled.' : 'Tap “How computed” to see how a row was scaled.'}
         </Text>
       }
       testID="lab-measurements"
     >
       {r.rows.length === 0 ? (
-        <Text tone="muted">No measurements yet. The test engineer imports the lab’s spreadsheet above.</Text>
+        <Text tone="muted">No measurements yet. The test engineer imports the lab’s spreadsheet or enters them by hand.</Text>
       ) : (
         <>
-          <View style={styles.filters}>
+          <View style={styles.filters} testID="lab-filters">
             {positions.length > 1 ? (
               <ChoiceChips
                 label="Use position"
-                hideLabel
-                choices={[{ value: 'all', label: 'All positions' }, ...positions.map((p) => ({ value: p, label: p }))]}
-                value={position}
-                onChange={setPosition}
+                choices={[{ value: ALL, label: 'All positions' }, ...positions.map((p) => ({ value: p, label: p }))]}
+                value={filter.usePositionId}
+                onChange={(v) => refine({ usePositionId: v })}
                 testID="lab-filter-position"
+              />
+            ) : null}
+            {markets.length > 1 ? (
+              <ChoiceChips
+                label="Market (margin and limit flags)"
+                choices={[{ value: ALL, label: 'All markets' }, ...markets.map((m) => ({ value: m, label: regimeShort(m) }))]}
+                value={filter.regime}
+                onChange={(v) => refine({ regime: v })}
+                testID="lab-filter-market"
               />
             ) : null}
             <ChoiceChips
               label="Flags"
-              hideLabel
-              choices={
-                [
-                  { value: 'all', label: 'All rows' },
-                  { value: 'flagged', label: 'With flags' },
-                ] as const
-              }
-              value={flagFilter}
-              onChange={setFlagFilter}
+              choices={[
+                { value: ALL, label: 'All rows' },
+                { value: FLAGGED, label: 'With flags' },
+                { value: NO_FLAGS, label: 'No flags' },
+                ...kinds.map((k) => ({ value: k, label: KIND_WORD[k] ?? k })),
+              ]}
+              value={filter.flag}
+              onChange={(v) => refine({ flag: v })}
               testID="lab-filter-flags"
             />
+            {!wide ? (
+              <ChoiceChips
+                label="Sort by"
+                choices={[
+                  { value: 'id', label: 'Lab order' },
+                  { value: 'sar1g', label: 'Highest 1 g' },
+                  { value: 'sar10g', label: 'Highest 10 g' },
+                  { value: 'margin', label: 'Least margin' },
+                  { value: 'flags', label: 'Worst flags' },
+                ]}
+                value={sort.key}
+                onChange={(key) => setSort({ key: key as LabSortKey, descending: key === 'sar1g' || key === 'sar10g' || key === 'flags' })}
+                testID="lab-sort"
+              />
+            ) : null}
+            <View style={styles.filterFoot}>
+              <Text variant="small" tone="soft" testID="lab-shown">
+                {rows.length === r.rows.length ? `All ${r.rows.length} rows` : `${rows.length} of ${r.rows.length} rows`}
+              </Text>
+              {isLabFiltered(filter) ? <Button label="Clear filters" variant="quiet" compact onPress={() => setFilter(NO_LAB_FILTER)} testID="lab-clear-filters" /> : null}
+            </View>
           </View>
-          {wide ? <MeasurementTable rows={rows} onOpen={onOpen} /> : <MeasurementCards rows={rows} onOpen={onOpen} />}
+          {rows.length === 0 ? (
+            <Text tone="muted">No rows match these filters.</Text>
+          ) : wide ? (
+            <MeasurementTable rows={rows} onOpen={onOpen} sort={sort} onSort={setSort} regime={filter.regime} />
+          ) : (
+            <MeasurementCards rows={rows} onOpen={onOpen} regime={filter.regime} />
+          )}
         </>
       )}
     </Card>
@@ -265,76 +334,107 @@ function FlagBadge({ flags }: { flags: LabCheck[] }) {
   return <StatusBadge tone={CHECK_LOOK[w.status].tone} icon={CHECK_LOOK[w.status].icon} label={`${checkLabel(w)}${n > 1 ? ` +${n - 1}` : ''}`} />;
 }
 
-const COLS = [
-  ['ID', 0.6],
-  ['Transmitter', 1],
-  ['Position', 1.3],
-  ['Frequency', 1],
-  ['Measured / tune-up', 1.3],
-  ['Scale', 0.8],
-  ['Reported 1 g', 0.9],
-  ['Reported 10 g', 0.9],
-  ['Flags', 1.5],
-] as const;
+const COLS: { label: string; flex: number; sort: LabSortKey; numeric?: boolean }[] = [
+  { label: 'ID', flex: 0.6, sort: 'id' },
+  { label: 'Transmitter', flex: 1, sort: 'transmitter' },
+  { label: 'Position', flex: 1.2, sort: 'position' },
+  { label: 'Frequency', flex: 0.9, sort: 'frequency', numeric: true },
+  { label: 'Power / scale', flex: 1.2, sort: 'scale', numeric: true },
+  { label: '1 g SAR', flex: 0.8, sort: 'sar1g', numeric: true },
+  { label: '10 g SAR', flex: 0.8, sort: 'sar10g', numeric: true },
+  { label: 'Margin', flex: 0.7, sort: 'margin', numeric: true },
+  { label: 'Flags and how to fix', flex: 2, sort: 'flags' },
+];
 
-function MeasurementTable({ rows, onOpen }: { rows: LabRow[]; onOpen: (row: LabRow) => void }) {
+function MeasurementTable({ rows, onOpen, sort, onSort, regime }: { rows: LabRow[]; onOpen: (row: LabRow) => void; sort: LabSort; onSort: (s: LabSort) => void; regime: string }) {
   return (
-    <View role="table" style={styles.table} testID="lab-table">
-      <View role="row" style={[styles.tr, styles.th, styles.sticky]}>
-        {COLS.map(([h, flex], i) => (
-          <Text key={h} variant="smallStrong" tone="soft" role="columnheader" style={[styles.td, { flex }, i >= 3 && i <= 7 && styles.right]}>
-            {h}
-          </Text>
-        ))}
+    <View style={{ gap: space.xs }}>
+      <Text variant="small" tone="muted">
+        Reported SAR in W/kg, scaled to the tune-up limit; margin in dB to the limit.
+      </Text>
+      <View role="table" style={[styles.table, styles.tableSticky]} testID="lab-table">
+        <View role="row" style={[styles.tr, styles.th, styles.sticky]} testID="lab-table-head">
+          {COLS.map((c) => {
+            const active = sort.key === c.sort;
+            return (
+              <Pressable
+                key={c.label}
+                role="columnheader"
+                aria-sort={active ? (sort.descending ? 'descending' : 'ascending') : 'none'}
+                accessibilityRole="button"
+                accessibilityLabel={`Sort by ${c.label}${active ? (sort.descending ? ', sorted high to low' : ', sorted low to high') : ''}`}
+                onPress={() => onSort({ key: c.sort, descending: active ? !sort.descending : c.numeric === true && c.sort !== 'frequency' && c.sort !== 'margin' })}
+                style={({ pressed }) => [styles.td, styles.sortHead, { flex: c.flex }, c.numeric && styles.sortHeadRight, pressed && styles.pressed]}
+                testID={`lab-sort-${c.sort}`}
+              >
+                <Text variant="smallStrong" tone={active ? 'accent' : 'soft'} style={c.numeric ? styles.right : undefined}>
+                  {c.label === 'Margin' && regime !== ALL ? `Margin ${regimeShort(regime)}` : c.label}
+                  {active ? (sort.descending ? ' ↓' : ' ↑') : ''}
+                </Text>
+              </Pressable>
+            );
+          })}
+        </View>
+        {rows.map((x, i) => {
+          const flags = flagsFor(x, regime);
+          const w = worst(flags);
+          return (
+            <Pressable
+              key={x.measurementId}
+              role="row"
+              onPress={() => onOpen(x)}
+              style={({ pressed }) => [styles.tr, i % 2 === 1 && styles.zebra, pressed && styles.pressed]}
+              accessibilityLabel={`${x.measurementId}: how computed`}
+              testID={`lab-row-${x.measurementId}`}
+            >
+              <Text role="cell" variant="smallStrong" style={[styles.td, { flex: 0.6 }]}>
+                {x.measurementId}
+              </Text>
+              <Text role="cell" variant="small" style={[styles.td, { flex: 1 }]}>
+                {x.transmitterId}
+              </Text>
+              <Text role="cell" variant="small" style={[styles.td, { flex: 1.2 }]}>
+                {x.usePositionId}
+                {x.testPosition ? `\n${x.testPosition}` : ''}
+              </Text>
+              <Text role="cell" variant="figure" style={[styles.td, styles.right, styles.num, { flex: 0.9 }]}>
+                {formatMhz(x.frequencyHz)}
+              </Text>
+              <Text role="cell" variant="figure" style={[styles.td, styles.right, styles.num, { flex: 1.2 }]}>
+                {sig(x.measuredPowerDbm, 4)} / {sig(x.tuneUpPowerDbm, 4)} dBm{`\n`}×{x.scalingFactor.toFixed(3)}
+              </Text>
+              <Text role="cell" variant="figure" style={[styles.td, styles.right, styles.num, { flex: 0.8 }]} testID={`lab-row-${x.measurementId}-sar1g`}>
+                {sarFigure(x.reportedSar1gWPerKg)}
+              </Text>
+              <Text role="cell" variant="figure" style={[styles.td, styles.right, styles.num, { flex: 0.8 }]}>
+                {sarFigure(x.reportedSar10gWPerKg)}
+              </Text>
+              <Text role="cell" variant="figure" style={[styles.td, styles.right, styles.num, { flex: 0.7 }]}>
+                {formatDb(marginFor(x, regime))}
+              </Text>
+              <View role="cell" style={[styles.td, { flex: 2, gap: 2 }]}>
+                <FlagBadge flags={flags} />
+                {w?.howToFix ? (
+                  <Text variant="small" tone="soft" numberOfLines={2}>
+                    {w.howToFix}
+                  </Text>
+                ) : null}
+              </View>
+            </Pressable>
+          );
+        })}
       </View>
-      {rows.map((x, i) => (
-        <Pressable
-          key={x.measurementId}
-          role="row"
-          onPress={() => onOpen(x)}
-          style={({ pressed }) => [styles.tr, i % 2 === 1 && styles.zebra, pressed && styles.pressed]}
-          accessibilityLabel={`${x.measurementId}: how computed`}
-          testID={`lab-row-${x.measurementId}`}
-        >
-          <Text role="cell" variant="smallStrong" style={[styles.td, { flex: 0.6 }]}>
-            {x.measurementId}
-          </Text>
-          <Text role="cell" variant="small" style={[styles.td, { flex: 1 }]}>
-            {x.transmitterId}
-          </Text>
-          <Text role="cell" variant="small" style={[styles.td, { flex: 1.3 }]}>
-            {x.usePositionId}
-            {x.testPosition ? `\n${x.testPosition}` : ''}
-          </Text>
-          <Text role="cell" variant="figure" style={[styles.td, styles.right, styles.num, { flex: 1 }]}>
-            {formatMhz(x.frequencyHz)}
-          </Text>
-          <Text role="cell" variant="figure" style={[styles.td, styles.right, styles.num, { flex: 1.3 }]}>
-            {sig(x.measuredPowerDbm, 4)} / {sig(x.tuneUpPowerDbm, 4)} dBm
-          </Text>
-          <Text role="cell" variant="figure" style={[styles.td, styles.right, styles.num, { flex: 0.8 }]}>
-            ×{x.scalingFactor.toFixed(3)}
-          </Text>
-          <Text role="cell" variant="figure" style={[styles.td, styles.right, styles.num, { flex: 0.9 }]}>
-            {sar(x.reportedSar1gWPerKg)}
-          </Text>
-          <Text role="cell" variant="figure" style={[styles.td, styles.right, styles.num, { flex: 0.9 }]}>
-            {sar(x.reportedSar10gWPerKg)}
-          </Text>
-          <View role="cell" style={[styles.td, { flex: 1.5 }]}>
-            <FlagBadge flags={x.flags} />
-          </View>
-        </Pressable>
-      ))}
     </View>
   );
 }
 
-function MeasurementCards({ rows, onOpen }: { rows: LabRow[]; onOpen: (row: LabRow) => void }) {
+function MeasurementCards({ rows, onOpen, regime }: { rows: LabRow[]; onOpen: (row: LabRow) => void; regime: string }) {
   return (
     <View role="list" style={styles.cards} testID="lab-cards">
       {rows.map((x) => {
-        const flagged = x.flags.filter((f) => f.status !== 'pass');
+        const flags = flagsFor(x, regime);
+        // Out of tolerance first, so the worst flag and how to fix it are always shown.
+        const flagged = flags.filter((f) => f.status === 'fail').concat(flags.filter((f) => f.status === 'warning'));
         return (
           <View key={x.measurementId} role="listitem" style={styles.card} testID={`lab-row-${x.measurementId}`}>
             <View style={styles.cardHead}>
@@ -347,7 +447,7 @@ function MeasurementCards({ rows, onOpen }: { rows: LabRow[]; onOpen: (row: LabR
                   {x.testPosition ? ` — ${x.testPosition}` : ''} · {formatMhz(x.frequencyHz)}
                 </Text>
               </View>
-              <FlagBadge flags={x.flags} />
+              <FlagBadge flags={flags} />
             </View>
             <View style={styles.figures}>
               <Figure label="Reported 1 g" value={sar(x.reportedSar1gWPerKg)} />
@@ -534,7 +634,12 @@ const styles = StyleSheet.create({
   table: { borderWidth: 1, borderColor: palette.line, borderRadius: radii.md, overflow: 'hidden' },
   tr: { flexDirection: 'row', alignItems: 'center', gap: space.xs, paddingHorizontal: space.sm, minHeight: layout.touchMinPx, borderBottomWidth: 1, borderBottomColor: palette.paperDeep },
   th: { backgroundColor: palette.paper, minHeight: 36 },
+  // Sticky needs no clipping ancestor between the header and the page's scroller.
   sticky: { position: 'sticky' as 'relative', top: 0, zIndex: 1 },
+  tableSticky: { overflow: 'visible' },
+  sortHead: { minHeight: 36, justifyContent: 'center', borderRadius: radii.sm },
+  sortHeadRight: { alignItems: 'flex-end' },
+  filterFoot: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: space.sm },
   zebra: { backgroundColor: '#FBFAF7' },
   td: { minWidth: 0, paddingVertical: space.xs, paddingHorizontal: 4 },
   right: { textAlign: 'right' },

@@ -6,7 +6,8 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
 import type { LabResults } from '../../calc/lab/lab-results';
-import type { ImportMapping, ImportPreview } from '../../constants/schemas/lab';
+import type { CoTransmissionDto, CoTransmissionGroup } from '../../constants/schemas/co-transmission';
+import { LAB_SETS, type ImportMapping, type ImportPreview, type LabData, type LabSet } from '../../constants/schemas/lab';
 import { ApiProblem, apiOrThrow } from '../api-client';
 import { filingKeys } from './filings';
 
@@ -104,4 +105,75 @@ export function useImportMeasurementsMutation(filingId: number) {
       void queryClient.invalidateQueries({ queryKey: filingKeys.detail(filingId) });
     },
   });
+}
+
+// ---------------------------------------------------------------------------------------------
+// The engineer's tables (entered by hand) and the specialist's co-transmission groups: read with
+// their revision, replaced whole with If-Match (409 with the current rows when someone saved since).
+
+export type LabSetRows = { [S in LabSet]: LabData[(typeof LAB_SETS)[S]['key']] };
+export interface LabSetDto<S extends LabSet> {
+  version: number;
+  rows: LabSetRows[S];
+  revision: string;
+}
+
+export const labSetKey = (id: number, set: LabSet) => [...labKeys.all(id), 'set', set] as const;
+const zSetAnswer = z.looseObject({ version: z.number(), revision: z.string() });
+
+export function useLabSetQuery<S extends LabSet>(id: number, set: S) {
+  return useQuery({
+    queryKey: labSetKey(id, set),
+    queryFn: async ({ signal }): Promise<LabSetDto<S>> => {
+      const body = (await apiOrThrow(`/api/filings/${id}/${set}`, { schema: zSetAnswer, signal })) as Record<string, unknown> & { version: number; revision: string };
+      return { version: body.version, revision: body.revision, rows: body[LAB_SETS[set].key] as LabSetRows[S] };
+    },
+  });
+}
+
+/** Replaces one table; resolves with the stored rows and their new revision. */
+export async function saveLabSet<S extends LabSet>(id: number, set: S, rows: LabSetRows[S], revision: string | undefined): Promise<{ rows: LabSetRows[S]; revision: string }> {
+  const body = (await apiOrThrow(`/api/filings/${id}/${set}`, {
+    method: 'PUT',
+    body: { [LAB_SETS[set].key]: rows },
+    headers: revision ? { 'If-Match': `"${revision}"` } : {},
+    schema: zSetAnswer,
+  })) as Record<string, unknown> & { revision: string };
+  return { rows: body[LAB_SETS[set].key] as LabSetRows[S], revision: body.revision };
+}
+
+/** The rows and revision a 409 carries (someone saved the table since it was opened). */
+export function staleLabSet<S extends LabSet>(set: S, problemBody: unknown): { rows: LabSetRows[S]; revision: string } | null {
+  const current = (problemBody as { current?: Record<string, unknown> } | undefined)?.current;
+  if (!current || typeof current.revision !== 'string' || !Array.isArray(current[LAB_SETS[set].key])) return null;
+  return { rows: current[LAB_SETS[set].key] as LabSetRows[S], revision: current.revision };
+}
+
+export const coTransmissionKey = (id: number) => [...labKeys.all(id), 'co-transmission'] as const;
+const zCoTransmissionAnswer = z.object({
+  version: z.number(),
+  revision: z.string(),
+  groups: z.array(z.object({ usePositionId: z.string().nullable(), transmitterIds: z.array(z.string()) })),
+});
+
+export function useCoTransmissionQuery(id: number) {
+  return useQuery({
+    queryKey: coTransmissionKey(id),
+    queryFn: ({ signal }): Promise<CoTransmissionDto> => apiOrThrow(`/api/filings/${id}/co-transmission`, { schema: zCoTransmissionAnswer, signal }),
+  });
+}
+
+export async function saveCoTransmission(id: number, groups: CoTransmissionGroup[], revision: string | undefined): Promise<{ rows: CoTransmissionGroup[]; revision: string }> {
+  const body = await apiOrThrow(`/api/filings/${id}/co-transmission`, {
+    method: 'PUT',
+    body: { groups },
+    headers: revision ? { 'If-Match': `"${revision}"` } : {},
+    schema: zCoTransmissionAnswer,
+  });
+  return { rows: body.groups, revision: body.revision };
+}
+
+export function staleCoTransmission(problemBody: unknown): { rows: CoTransmissionGroup[]; revision: string } | null {
+  const parsed = z.object({ current: z.object({ groups: zCoTransmissionAnswer.shape.groups, revision: z.string() }) }).safeParse(problemBody);
+  return parsed.success ? { rows: parsed.data.current.groups, revision: parsed.data.current.revision } : null;
 }

@@ -20,6 +20,7 @@ import {
 } from '../../db/schema';
 import type { DataStep, DeviceStep, MarketsStep, RadiosStep, UsePositionsStep } from '../../constants/schemas/filings';
 import type { DeviceInfo, PowerModeTrigger } from '../../constants/schemas/device-file';
+import type { CoTransmissionGroup } from '../../constants/schemas/co-transmission';
 
 const latestVersion = sql<number>`(select max(${filingVersions.number}) from ${filingVersions} where ${filingVersions.filingId} = ${filings.id})`;
 
@@ -430,31 +431,64 @@ export function writeMarkets(db: Db, versionId: number, step: MarketsStep) {
   }
 }
 
-/** Combinations by transmitter label, each in the order it was given. */
-export function readSimultaneous(db: Db, versionId: number): string[][] {
+/** Every combination with the use position it holds in (null: every position), by label, in order. */
+export function readCoTransmissionGroups(db: Db, versionId: number): CoTransmissionGroup[] {
   const rows = db
-    .select({ groupId: simultaneousGroups.id, key: transmitters.key })
+    .select({ groupId: simultaneousGroups.id, key: transmitters.key, positionKey: usePositions.key })
     .from(simultaneousGroups)
     .innerJoin(simultaneousGroupMembers, eq(simultaneousGroupMembers.groupId, simultaneousGroups.id))
     .innerJoin(transmitters, eq(transmitters.id, simultaneousGroupMembers.transmitterId))
+    .leftJoin(usePositions, eq(usePositions.id, simultaneousGroups.usePositionId))
     .where(eq(simultaneousGroups.versionId, versionId))
     .orderBy(asc(simultaneousGroups.sortOrder), asc(simultaneousGroupMembers.sortOrder))
     .all();
-  const groups = new Map<number, string[]>();
-  for (const r of rows) groups.set(r.groupId, [...(groups.get(r.groupId) ?? []), r.key]);
+  const groups = new Map<number, CoTransmissionGroup>();
+  for (const r of rows) {
+    const g = groups.get(r.groupId);
+    if (g) g.transmitterIds.push(r.key);
+    else groups.set(r.groupId, { usePositionId: r.positionKey ?? null, transmitterIds: [r.key] });
+  }
   return [...groups.values()];
 }
 
-/** Replaces a version's combinations; every label must name one of its transmitters (the file schema checks). */
+/** Combinations that hold in every use position (the device file's list), by transmitter label. */
+export function readSimultaneous(db: Db, versionId: number): string[][] {
+  return readCoTransmissionGroups(db, versionId)
+    .filter((g) => g.usePositionId === null)
+    .map((g) => g.transmitterIds);
+}
+
+/** Combinations that hold in one use position only. */
+export function readSimultaneousAt(db: Db, versionId: number): { usePositionId: string; transmitterIds: string[] }[] {
+  return readCoTransmissionGroups(db, versionId).filter((g): g is { usePositionId: string; transmitterIds: string[] } => g.usePositionId !== null);
+}
+
+/** Replaces a version's combinations that hold in every use position (the device file's list). */
 export function writeSimultaneous(db: Db, versionId: number, groups: string[][]) {
+  writeCoTransmissionGroups(
+    db,
+    versionId,
+    groups.map((transmitterIds) => ({ usePositionId: null, transmitterIds })),
+  );
+}
+
+/** Replaces all of a version's combinations; every label must name one of its transmitters and use positions (callers check). */
+export function writeCoTransmissionGroups(db: Db, versionId: number, groups: CoTransmissionGroup[]) {
   db.delete(simultaneousGroups).where(eq(simultaneousGroups.versionId, versionId)).run();
   const txRow = transmitterIdsByKey(db, versionId);
-  groups.forEach((keys, sortOrder) => {
-    const group = db.insert(simultaneousGroups).values({ versionId, sortOrder }).returning().get();
+  const positionRow = usePositionIdsByKey(db, versionId);
+  groups.forEach((g, sortOrder) => {
+    const usePositionId = g.usePositionId === null ? null : positionRow.get(g.usePositionId)!;
+    const group = db.insert(simultaneousGroups).values({ versionId, sortOrder, usePositionId }).returning().get();
     db.insert(simultaneousGroupMembers)
-      .values(keys.map((key, i) => ({ groupId: group.id, transmitterId: txRow.get(key)!, sortOrder: i })))
+      .values(g.transmitterIds.map((key, i) => ({ groupId: group.id, transmitterId: txRow.get(key)!, sortOrder: i })))
       .run();
   });
+}
+
+export function usePositionIdsByKey(db: Db, versionId: number): Map<string, number> {
+  const rows = db.select({ id: usePositions.id, key: usePositions.key }).from(usePositions).where(eq(usePositions.versionId, versionId)).all();
+  return new Map(rows.map((r) => [r.key, r.id]));
 }
 
 export function readDrafts(db: Db, versionId: number) {

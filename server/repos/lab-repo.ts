@@ -138,7 +138,8 @@ export function findLabResult(db: Db, versionId: number, inputSha256: string, en
 }
 
 export function insertLabResult(db: Db, row: { versionId: number; engineVersion: string; ruleSetVersion: string; inputSha256: string; input: string; output: string }) {
-  return db.insert(labResults).values(row).returning({ id: labResults.id, output: labResults.output, computedAt: labResults.computedAt }).get();
+  // Only the id and time come back: the output (megabytes for thousands of rows) is the caller's already.
+  return db.insert(labResults).values(row).returning({ id: labResults.id, computedAt: labResults.computedAt }).get();
 }
 
 export function findImportMapping(db: Db, organisationId: number, headerSha256: string): ImportMapping | undefined {

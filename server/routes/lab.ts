@@ -64,12 +64,23 @@ export function labRoutes({ db, config }: AppContext): Router {
       res.json(labService.readLabSet(db, actorOf(req.user!), parseWith(zId, req.params.id), set as LabSet));
     });
     router.put(`/:id/${set}`, engineerOnly, (req, res) => {
-      res.json(labService.replaceLabSet(db, actorOf(req.user!), parseWith(zId, req.params.id), set as LabSet, req.body));
+      try {
+        res.json(labService.replaceLabSet(db, actorOf(req.user!), parseWith(zId, req.params.id), set as LabSet, req.body, req.get('If-Match')));
+      } catch (err) {
+        if (!(err instanceof labService.StaleLabSet)) throw err;
+        res
+          .status(409)
+          .set('ETag', `"${String(err.current.revision)}"`)
+          .json({ error: { code: 'stale_lab_set', message: 'Someone saved this table after you opened it; nothing of yours was saved. Load theirs or keep yours.' }, current: err.current });
+      }
     });
   }
 
   router.get('/:id/lab-results', readers, (req, res) => {
-    res.type('application/json').send(labService.labResultsForFiling(db, actorOf(req.user!), parseWith(zId, req.params.id)));
+    const [head, rest] = labService.labResultsForFiling(db, actorOf(req.user!), parseWith(zId, req.params.id));
+    res.type('application/json');
+    res.write(head);
+    res.end(rest);
   });
 
   return router;

@@ -92,6 +92,12 @@ function flatten(v: VersionData): Flat {
     v.data.markets.markets.map((m) => ({ ...m, id: m.regime })),
   );
   for (const g of v.simultaneous) out.set(`co-transmission|${[...g].sort().join('+')}`, { step: 'co-transmission', label: `Co-transmission ${g.join(' + ')}`, value: 'on together' });
+  for (const g of v.simultaneousAt ?? [])
+    out.set(`co-transmission|${g.usePositionId}|${[...g.transmitterIds].sort().join('+')}`, {
+      step: 'co-transmission',
+      label: `Co-transmission ${g.transmitterIds.join(' + ')} at ${g.usePositionId}`,
+      value: 'on together',
+    });
   return out;
 }
 

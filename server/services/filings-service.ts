@@ -287,7 +287,7 @@ export type SaveStepResult =
   | { saved: false; stale: true; current: { data: unknown; revision: string; updatedAt: string } };
 
 /** An If-Match value as browsers and tools send it: `"rev"`, `W/"rev"`, a list, or `*`. */
-function matchesRevision(ifMatch: string, revision: string): boolean {
+export function matchesRevision(ifMatch: string, revision: string): boolean {
   return ifMatch.split(',').some((tag) => {
     const t = tag.trim().replace(/^W\//, '').replace(/^"|"$/g, '');
     return t === '*' || t === revision;

@@ -25,6 +25,8 @@ export interface LabDeviceData {
   transmitters: { id: string; frequencyMinHz: number; frequencyMaxHz: number; maxTuneUpPowerDbm: number; dutyCycle?: number; antennaId: string }[];
   usePositions: { id: string; kind: string; separations: { antennaId: string; separationM: number }[] }[];
   simultaneous: string[][];
+  /** Combinations of one use position only. */
+  simultaneousAt?: { usePositionId: string; transmitterIds: string[] }[];
 }
 
 /** A measurement that names a transmitter or use position the device data does not have. */
@@ -80,6 +82,7 @@ export function versionLabResults(
     transmitters: device.transmitters,
     usePositions: device.usePositions as LabResultsInputRaw['usePositions'],
     simultaneous: device.simultaneous.filter((g) => g.every((t) => txIds.has(t))),
+    simultaneousAt: (device.simultaneousAt ?? []).filter((g) => posIds.has(g.usePositionId) && g.transmitterIds.every((t) => txIds.has(t))),
     screening: [],
     measurements,
     liquidChecks: lab.liquidChecks,

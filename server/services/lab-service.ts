@@ -14,7 +14,7 @@ import { zodFieldErrors } from '../middleware/validate';
 import * as repo from '../repos/lab-repo';
 import * as filingsRepo from '../repos/filings-repo';
 import { recordAudit } from './audit';
-import { getFiling, loadFiling, requireEditable, type FilingActor } from './filings-service';
+import { getFiling, loadFiling, matchesRevision, requireEditable, stepRevision, type FilingActor } from './filings-service';
 import { screeningInputFor } from './screening-service';
 
 export const LAB_CAUTIONS = [
@@ -43,9 +43,18 @@ const WRITERS: { [S in LabSet]: (db: Db, versionId: number, rows: SetRows[S]) =>
   'uncertainty-budget': repo.writeBudget,
 };
 
+/** A set's rows with the revision a save names in If-Match (a hash of the stored rows). */
 export function readLabSet(db: Db, actor: FilingActor, filingId: number, set: LabSet) {
   const row = loadFiling(db, actor, filingId);
-  return { version: row.version.number, [LAB_SETS[set].key]: READERS[set](db, row.version.id) };
+  const rows = READERS[set](db, row.version.id);
+  return { version: row.version.number, [LAB_SETS[set].key]: rows, revision: stepRevision(rows) };
+}
+
+/** Thrown when a save names a revision that is no longer the stored one: nothing was written. */
+export class StaleLabSet extends Error {
+  constructor(readonly current: Record<string, unknown>) {
+    super('stale lab set');
+  }
 }
 
 /**
@@ -80,7 +89,7 @@ export function knownIds(db: Db, versionId: number) {
 }
 
 /** Replaces one lab data set of the current version in one transaction (all or nothing). */
-export function replaceLabSet(db: Db, actor: FilingActor, filingId: number, set: LabSet, body: unknown) {
+export function replaceLabSet(db: Db, actor: FilingActor, filingId: number, set: LabSet, body: unknown, ifMatch?: string) {
   requireEngineer(actor);
   const row = loadFiling(db, actor, filingId);
   requireEditable(row);
@@ -90,6 +99,11 @@ export function replaceLabSet(db: Db, actor: FilingActor, filingId: number, set:
     throw unprocessable(`${Object.keys(fields).length} field(s) need fixing; nothing was saved.`, fields);
   }
   const rows = (parsed.data as Record<string, unknown>)[LAB_SETS[set].key] as SetRows[typeof set];
+  if (ifMatch) {
+    // Synchronous from here to the write (better-sqlite3): no other save lands in between.
+    const revision = stepRevision(READERS[set](db, row.version.id));
+    if (!matchesRevision(ifMatch, revision) && stepRevision(rows) !== revision) throw new StaleLabSet(readLabSet(db, actor, filingId, set));
+  }
   if (set === 'measurements') {
     const fields = measurementReferenceProblems(rows as Measurement[], knownIds(db, row.version.id));
     if (Object.keys(fields).length) throw unprocessable(`${Object.keys(fields).length} id(s) do not match this filing; nothing was saved.`, fields);
@@ -123,6 +137,7 @@ export function labInputOf(db: Db, versionId: number, data: LabVersionData, scre
     transmitters: data.transmitters,
     usePositions: data.usePositions,
     simultaneous: filingsRepo.readSimultaneous(db, versionId),
+    simultaneousAt: filingsRepo.readSimultaneousAt(db, versionId),
     screening: labScreeningRows(screeningRows),
     measurements: lab.measurements,
     liquidChecks: lab.liquidChecks,
@@ -147,16 +162,20 @@ export function labInputFor(db: Db, detail: ReturnType<typeof getFiling>, lab: L
 export function storedLabResults(db: Db, versionId: number, input: LabResultsInput): { output: string; computedAt: string } {
   const inputJson = JSON.stringify(input);
   const inputSha256 = createHash('sha256').update(inputJson).digest('hex');
-  let stored = repo.findLabResult(db, versionId, inputSha256, ENGINE_VERSION, RULE_SET_VERSION);
-  if (!stored) {
-    const { derivation: _d, ...output } = computeLabResults(input);
-    stored = repo.insertLabResult(db, { versionId, engineVersion: ENGINE_VERSION, ruleSetVersion: RULE_SET_VERSION, inputSha256, input: inputJson, output: JSON.stringify(output) });
-  }
-  return stored;
+  const stored = repo.findLabResult(db, versionId, inputSha256, ENGINE_VERSION, RULE_SET_VERSION);
+  if (stored) return stored;
+  const { derivation: _d, ...result } = computeLabResults(input);
+  const output = JSON.stringify(result);
+  const { computedAt } = repo.insertLabResult(db, { versionId, engineVersion: ENGINE_VERSION, ruleSetVersion: RULE_SET_VERSION, inputSha256, input: inputJson, output });
+  return { output, computedAt };
 }
 
-/** The lab results of a filing's current data as a JSON body; an unchanged filing is answered from the store. */
-export function labResultsForFiling(db: Db, actor: FilingActor, filingId: number): string {
+/**
+ * The lab results of a filing's current data as a JSON body in two pieces (the versions, then the
+ * stored output), sent one after the other: joining them would copy an answer of tens of MB once
+ * more. An unchanged filing is answered from the store.
+ */
+export function labResultsForFiling(db: Db, actor: FilingActor, filingId: number): [string, string] {
   const detail = getFiling(db, actor, filingId);
   const stored = storedLabResults(db, detail.version.id, labInputFor(db, detail));
   const meta = {
@@ -167,5 +186,5 @@ export function labResultsForFiling(db: Db, actor: FilingActor, filingId: number
     computedAt: stored.computedAt,
     cautions: LAB_CAUTIONS,
   };
-  return `${JSON.stringify(meta).slice(0, -1)},${stored.output.slice(1)}`;
+  return [`${JSON.stringify(meta).slice(0, -1)},`, stored.output.slice(1)];
 }

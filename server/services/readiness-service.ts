@@ -34,6 +34,8 @@ import { filingNumbersOf, versionReadBack, type VersionReadBack } from './versio
 export interface VersionData {
   data: FilingDetail['data'];
   simultaneous: string[][];
+  /** Combinations of one use position only. */
+  simultaneousAt: { usePositionId: string; transmitterIds: string[] }[];
   unsavedSteps: DataStep[];
 }
 
@@ -48,6 +50,7 @@ export function readVersionData(db: Db, version: reviewRepo.VersionRow, fallback
       markets: filingsRepo.readMarkets(db, version.id),
     },
     simultaneous: filingsRepo.readSimultaneous(db, version.id),
+    simultaneousAt: filingsRepo.readSimultaneousAt(db, version.id),
     unsavedSteps: filingsRepo.readDrafts(db, version.id).map((d) => d.step),
   };
 }
@@ -267,6 +270,7 @@ export function labDeviceDataOf(v: VersionData): LabDeviceData {
     transmitters: v.data.radios.transmitters,
     usePositions: v.data['use-positions'].usePositions,
     simultaneous: v.simultaneous,
+    simultaneousAt: v.simultaneousAt,
   };
 }
 
@@ -307,6 +311,7 @@ export function readinessInput(db: Db, versionId: number, v: VersionData, screen
     usePositions: data['use-positions'].usePositions,
     regimes: data.markets.markets.map((m) => m.regime),
     simultaneous: v.simultaneous,
+    simultaneousAt: v.simultaneousAt,
     screening: screening && {
       rows: screening.rows.map((r) => ({ transmitterId: r.transmitterId, usePositionId: r.usePositionId, regime: r.regime, result: r.result, marginDb: r.marginDb })),
       gaps: screening.gaps,

@@ -377,7 +377,7 @@ export function startNextVersion(db: Db, actor: FilingActor, filingId: number) {
     filingsRepo.writeRadios(tx, v.id, filingsRepo.readRadios(tx, version.id));
     filingsRepo.writeUsePositions(tx, v.id, filingsRepo.readUsePositions(tx, version.id), filingsRepo.antennaIdsByKey(tx, v.id));
     filingsRepo.writeMarkets(tx, v.id, filingsRepo.readMarkets(tx, version.id));
-    filingsRepo.writeSimultaneous(tx, v.id, filingsRepo.readSimultaneous(tx, version.id));
+    filingsRepo.writeCoTransmissionGroups(tx, v.id, filingsRepo.readCoTransmissionGroups(tx, version.id));
     for (const copy of versionCopiers) copy(tx, version.id, v.id);
     audit(tx, actor, filingId, 'version.started', { version: v.number, from: version.number });
     return v;

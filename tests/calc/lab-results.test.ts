@@ -293,6 +293,16 @@ describe('lab-results: co-transmission (KDB 447498 D01 v06 §4.3.2, from memory)
     expect(c.outcome).toBe('needs-simultaneous-measurement');
   });
 
+  it('a combination of one use position only is summed there and nowhere else; numbering goes on after the every-position groups', () => {
+    const raw = { ...filing(), simultaneous: [], simultaneousAt: [{ usePositionId: 'P-HEAD', transmitterIds: ['WWAN', 'WLAN'] }] };
+    const r = run(raw);
+    expect(r.coTransmission.map((c) => c.id)).toEqual(['G1@P-HEAD@fcc', 'G1@P-HEAD@eu']);
+    // The same figures as the every-position group in P-HEAD: 1.106083 + 0.457967 = 1.564050 W/kg ≤ 1.6.
+    expect(r.coTransmission[0].sum).toBeCloseTo(1.56405, 5);
+    const both = run({ ...filing(), simultaneousAt: [{ usePositionId: 'P-HS', transmitterIds: ['WWAN', 'WLAN'] }] });
+    expect(both.coTransmission.map((c) => c.id)).toEqual(['G1@P-HEAD@fcc', 'G1@P-HEAD@eu', 'G1@P-HS@fcc', 'G1@P-HS@eu', 'G2@P-HS@fcc', 'G2@P-HS@eu']);
+  });
+
   it('hotspot with both measured: 1.2 + 0.6 = 1.8 > 1.6; SPLSR 1.8^1.5/70 mm = 0.0345 → 0.03 ≤ 0.04', () => {
     const raw = filing();
     raw.measurements.push({

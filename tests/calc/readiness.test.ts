@@ -150,6 +150,13 @@ const cases: { id: string; why: string; breaks: (f: ReadinessInput) => void; fin
     blocks: true,
   },
   {
+    id: 'co-transmission-evaluated',
+    why: 'KDB 447498 §4.3.2: a group of one use position is checked in that position',
+    breaks: (f) => void (f.simultaneousAt = [{ usePositionId: 'body', transmitterIds: ['LTE-B2', 'BT'] }]),
+    finding: /^LTE-B2 \+ BT at “body”, US FCC is not evaluated/,
+    blocks: true,
+  },
+  {
     id: 'tune-up-consistent',
     why: 'common practice: one tune-up figure in every document (measurements)',
     breaks: (f) => void (f.lab!.measurements[0].tuneUpPowerDbm = 24),

@@ -132,6 +132,9 @@ export const MATRIX: Record<string, Row> = {
   ),
   'POST /api/filings/:id/measurements/import': { expect: onlyEngineer(400) },
   'GET /api/filings/:id/lab-results': { expect: ownOrganisation(200) },
+  // Co-transmission groups: every member reads; the specialist (who edits the device data) replaces them.
+  'GET /api/filings/:id/co-transmission': { expect: ownOrganisation(200) },
+  'PUT /api/filings/:id/co-transmission': { expect: onlyRole('specialist', 422, 404) },
   // Review and signing of the demo organisation's charging dock (a draft that is not ready):
   // the role is checked after the filing is found, so the other organisation always gets 404.
   'GET /api/filings/:id/readiness': { expect: ownOrganisation(200) },
