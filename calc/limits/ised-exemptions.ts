@@ -66,28 +66,42 @@ export interface IsedSarThreshold {
  * @param limbWorn limb-worn device: Table 1 × 2.5
  */
 export function isedSarExemption(frequencyHz: number, separationM: number, limbWorn = false): IsedSarThreshold {
-  requireInRange('frequencyHz', frequencyHz, isedSarRangeHz, 'frequency', SAR_SOURCE, 'Table 1 has no row above 5800 MHz: evaluate SAR.');
-  requireInRange('separationM', separationM, isedSarSeparationRangeM, 'distance', SAR_SOURCE, 'Beyond 20 cm use the RF exposure evaluation exemption (ised-rf-exemption).');
-  const fMHz = Math.max(frequencyHz / 1e6, 300);
-  const dMm = Math.min(Math.max(separationM * 1000, 5), 50);
+  const { fMHz, dMm } = tableCoordinates(frequencyHz, separationM);
   const fb = bracket(isedSarTableFrequenciesMHz, fMHz);
   const db = bracket(isedSarTableSeparationsMm, dMm);
-  const at = (fi: number, di: number) => TABLE_MW[fi][di];
-  const row0 = at(fb.i, db.i) + db.t * (at(fb.i, db.i + 1) - at(fb.i, db.i));
-  const row1 = at(fb.i + 1, db.i) + db.t * (at(fb.i + 1, db.i + 1) - at(fb.i + 1, db.i));
-  const base = row0 + fb.t * (row1 - row0);
-  const corners = [fb.i, fb.i + 1].flatMap((fi) => [db.i, db.i + 1].map((di) => ({ frequencyMHz: isedSarTableFrequenciesMHz[fi], separationMm: isedSarTableSeparationsMm[di], limitMw: at(fi, di) })));
+  const corners = [fb.i, fb.i + 1].flatMap((fi) =>
+    [db.i, db.i + 1].map((di) => ({ frequencyMHz: isedSarTableFrequenciesMHz[fi], separationMm: isedSarTableSeparationsMm[di], limitMw: TABLE_MW[fi][di] })),
+  );
   return {
-    thresholdMw: base * (limbWorn ? ISED_LIMB_WORN_FACTOR : 1),
+    thresholdMw: tableLimitMw(fMHz, dMm) * (limbWorn ? ISED_LIMB_WORN_FACTOR : 1),
     tableFrequencyMHz: fMHz,
     tableSeparationMm: dMm,
     corners,
   };
 }
 
-/** Shorthand: the Table 1 exemption limit in mW. */
+/** Frequency (MHz) and separation (mm) as Table 1 is read: range-checked, then its edge rules applied. */
+function tableCoordinates(frequencyHz: number, separationM: number): { fMHz: number; dMm: number } {
+  requireInRange('frequencyHz', frequencyHz, isedSarRangeHz, 'frequency', SAR_SOURCE, 'Table 1 has no row above 5800 MHz: evaluate SAR.');
+  requireInRange('separationM', separationM, isedSarSeparationRangeM, 'distance', SAR_SOURCE, 'Beyond 20 cm use the RF exposure evaluation exemption (ised-rf-exemption).');
+  return { fMHz: Math.max(frequencyHz / 1e6, 300), dMm: Math.min(Math.max(separationM * 1000, 5), 50) };
+}
+
+/** Table 1 bilinear in frequency (MHz) and separation (mm), both already within the table. */
+function tableLimitMw(fMHz: number, dMm: number): number {
+  const fb = bracket(isedSarTableFrequenciesMHz, fMHz);
+  const db = bracket(isedSarTableSeparationsMm, dMm);
+  const lo = TABLE_MW[fb.i];
+  const hi = TABLE_MW[fb.i + 1];
+  const row0 = lo[db.i] + db.t * (lo[db.i + 1] - lo[db.i]);
+  const row1 = hi[db.i] + db.t * (hi[db.i + 1] - hi[db.i]);
+  return row0 + fb.t * (row1 - row0);
+}
+
+/** Shorthand: the Table 1 exemption limit in mW (no corner list: the screening's band search calls it per candidate). */
 export function isedSarExemptionMw(frequencyHz: number, separationM: number, limbWorn = false): number {
-  return isedSarExemption(frequencyHz, separationM, limbWorn).thresholdMw;
+  const { fMHz, dMm } = tableCoordinates(frequencyHz, separationM);
+  return tableLimitMw(fMHz, dMm) * (limbWorn ? ISED_LIMB_WORN_FACTOR : 1);
 }
 
 export const isedSarExemptionInput = z.object({

@@ -339,16 +339,18 @@ function bandDerivation(c: Combination, set: RuleSet, row: ScreeningRow, worst: 
       ? `Single frequency ${formatHz(row.frequencyHz)}.`
       : `Band ${formatHz(c.tx.frequencyMinHz)}–${formatHz(c.tx.frequencyMaxHz)} evaluated at both edges and every breakpoint of the rule inside it; reported: ${formatHz(row.frequencyHz)}, the most restrictive (worst result, then smallest margin).`,
   );
-  const others = new Set(probes.filter((p) => p.result !== worst.result).map((p) => p.result));
-  if (others.size) notes.push(`Other parts of the band give: ${[...others].join(', ')} (see candidates).`);
+  // The other results in the band, each once, in the order first met.
+  const others: ScreeningResult[] = [];
+  for (const p of probes) if (p.result !== worst.result && !others.includes(p.result)) others.push(p.result);
+  if (others.length) notes.push(`Other parts of the band give: ${others.join(', ')} (see candidates).`);
   if (worst.reason) notes.push(`Not exempt: ${worst.reason}.`);
   if (row.provisionalReason) notes.push(row.provisionalReason);
   // Parts of the band under another rule (or none) that did not apply: say why, once per rule.
-  const told = new Set([worst.ruleIndex]);
+  const told = [worst.ruleIndex];
   for (const p of probes) {
-    if (!p.reason || told.has(p.ruleIndex)) continue;
+    if (!p.reason || told.includes(p.ruleIndex)) continue;
     notes.push(`Elsewhere in the band: ${p.reason}.`);
-    told.add(p.ruleIndex);
+    told.push(p.ruleIndex);
   }
   if (row.estimatedSarWPerKg !== null) notes.push(`Estimated SAR for simultaneous-transmission sums (KDB 447498 §4.3.2, from memory M): ${fmt(row.estimatedSarWPerKg)} W/kg.`);
   if (rd) notes.push(...rd.notes);
@@ -365,7 +367,9 @@ function bandDerivation(c: Combination, set: RuleSet, row: ScreeningRow, worst: 
   if (rule) intermediate.evaluatedValue = q(rule.evaluated, unit as string);
   intermediate.mostRestrictiveFrequencyHz = q(row.frequencyHz, 'Hz');
   // Each candidate's threshold, margin and result are in row.candidates.
-  intermediate.candidateFrequenciesHz = q(probes.map((p) => p.frequencyHz).join(', '), 'Hz');
+  let frequencies = `${probes[0].frequencyHz}`;
+  for (let i = 1; i < probes.length; i++) frequencies += `, ${probes[i].frequencyHz}`;
+  intermediate.candidateFrequenciesHz = q(frequencies, 'Hz');
   if (rd) assignAll(intermediate, rd.inputs, rd.intermediate);
   const result = rd ? assignAll({}, rd.result) : {};
   result.result = q(row.result, 'text');

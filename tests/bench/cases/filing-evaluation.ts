@@ -77,7 +77,8 @@ function jobsForCombination(tx: (typeof transmitters)[number], pos: (typeof POSI
   return jobs;
 }
 
-function buildJobs(): Job[] {
+/** Every calculation call of one whole-filing evaluation, in order (exported for output comparisons). */
+export function buildJobs(): Job[] {
   const jobs: Job[] = [];
   for (const pos of POSITIONS) {
     for (const regime of REGIMES) {
