@@ -39,7 +39,12 @@ export interface CalcIssue {
 export class CalcRangeError extends Error {
   readonly issues: CalcIssue[];
   constructor(message: string, issues: CalcIssue[] = []) {
+    // An expected answer, always caught and reported by its message (a whole filing gets dozens):
+    // no stack trace is captured, which costs several times the calculation itself.
+    const stackTraceLimit = Error.stackTraceLimit;
+    Error.stackTraceLimit = 0;
     super(message);
+    Error.stackTraceLimit = stackTraceLimit;
     this.name = 'CalcRangeError';
     this.issues = issues.length ? issues : [{ path: [], message }];
   }

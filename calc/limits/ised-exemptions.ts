@@ -9,7 +9,7 @@
  * for Issue 6 filings.
  */
 import { z } from 'zod';
-import { CalcRangeError, defineCalculation, type Derivation } from '../types';
+import { CalcRangeError, defineCalculation, type Derivation, type Quantity } from '../types';
 import { q } from '../types';
 import { formatM, inInterval, requireInRange, type Interval } from './range';
 import { compareToThreshold, type Verdict } from './verdict';
@@ -69,9 +69,10 @@ export function isedSarExemption(frequencyHz: number, separationM: number, limbW
   const { fMHz, dMm } = tableCoordinates(frequencyHz, separationM);
   const fb = bracket(isedSarTableFrequenciesMHz, fMHz);
   const db = bracket(isedSarTableSeparationsMm, dMm);
-  const corners = [fb.i, fb.i + 1].flatMap((fi) =>
-    [db.i, db.i + 1].map((di) => ({ frequencyMHz: isedSarTableFrequenciesMHz[fi], separationMm: isedSarTableSeparationsMm[di], limitMw: TABLE_MW[fi][di] })),
-  );
+  const corners: IsedSarThreshold['corners'] = [];
+  for (const fi of [fb.i, fb.i + 1]) {
+    for (const di of [db.i, db.i + 1]) corners.push({ frequencyMHz: isedSarTableFrequenciesMHz[fi], separationMm: isedSarTableSeparationsMm[di], limitMw: TABLE_MW[fi][di] });
+  }
   return {
     thresholdMw: tableLimitMw(fMHz, dMm) * (limbWorn ? ISED_LIMB_WORN_FACTOR : 1),
     tableFrequencyMHz: fMHz,
@@ -111,6 +112,13 @@ export const isedSarExemptionInput = z.object({
   powerMw: z.number().nonnegative().optional().describe('Optional: source-based time-averaged output power incl. tune-up, the higher of conducted power and e.i.r.p., mW'),
 });
 
+/** The table point used and the corner entries interpolated, as derivation quantities. */
+function cornerQuantities(t: IsedSarThreshold): Record<string, Quantity> {
+  const out: Record<string, Quantity> = { tableFrequencyMHz: q(t.tableFrequencyMHz, 'MHz'), tableSeparationMm: q(t.tableSeparationMm, 'mm') };
+  for (const c of t.corners) out[`table_${c.frequencyMHz}MHz_${c.separationMm}mm`] = q(c.limitMw, 'mW');
+  return out;
+}
+
 export function computeIsedSarExemption(input: z.output<typeof isedSarExemptionInput>) {
   const { frequencyHz, separationM, limbWorn, powerMw } = input;
   const t = isedSarExemption(frequencyHz, separationM, limbWorn);
@@ -131,11 +139,7 @@ export function computeIsedSarExemption(input: z.output<typeof isedSarExemptionI
       limbWorn: q(limbWorn, '1'),
       ...(powerMw !== undefined ? { powerMw: q(powerMw, 'mW') } : {}),
     },
-    intermediate: {
-      tableFrequencyMHz: q(t.tableFrequencyMHz, 'MHz'),
-      tableSeparationMm: q(t.tableSeparationMm, 'mm'),
-      ...Object.fromEntries(t.corners.map((c) => [`table_${c.frequencyMHz}MHz_${c.separationMm}mm`, q(c.limitMw, 'mW')])),
-    },
+    intermediate: cornerQuantities(t),
     result: {
       thresholdMw: q(t.thresholdMw, 'mW'),
       ...(verdict.exempt !== undefined ? { exempt: q(verdict.exempt, '1'), marginDb: q(verdict.marginDb ?? null, 'dB') } : {}),
