@@ -112,10 +112,15 @@ export const isedSarExemptionInput = z.object({
   powerMw: z.number().nonnegative().optional().describe('Optional: source-based time-averaged output power incl. tune-up, the higher of conducted power and e.i.r.p., mW'),
 });
 
+/** Derivation names of the table entries, `table_<f>MHz_<d>mm`, by row and column (built once). */
+const CORNER_NAMES: readonly (readonly string[])[] = isedSarTableFrequenciesMHz.map((f) => isedSarTableSeparationsMm.map((d) => `table_${f}MHz_${d}mm`));
+
 /** The table point used and the corner entries interpolated, as derivation quantities. */
 function cornerQuantities(t: IsedSarThreshold): Record<string, Quantity> {
   const out: Record<string, Quantity> = { tableFrequencyMHz: q(t.tableFrequencyMHz, 'MHz'), tableSeparationMm: q(t.tableSeparationMm, 'mm') };
-  for (const c of t.corners) out[`table_${c.frequencyMHz}MHz_${c.separationMm}mm`] = q(c.limitMw, 'mW');
+  for (const c of t.corners) {
+    out[CORNER_NAMES[isedSarTableFrequenciesMHz.indexOf(c.frequencyMHz)][isedSarTableSeparationsMm.indexOf(c.separationMm)]] = q(c.limitMw, 'mW');
+  }
   return out;
 }
 

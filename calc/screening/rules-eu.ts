@@ -22,6 +22,10 @@ import { evaluateMpe, isNearBody, type RuleContext, type RuleSet } from './rule-
 
 type EuLikeRegime = Extract<ScreeningRegime, 'eu' | 'icnirp-2020'>;
 
+const BODY_REGION_LIMBS = 'Body region: limbs (extremity position), 4 W/kg general / 20 W/kg occupational over 10 g.';
+const BODY_REGION_HEAD_TRUNK = 'Body region: head and trunk, 2 W/kg general / 10 W/kg occupational over 10 g.';
+const COMPARED_AVAILABLE_POWER = 'Compared: available antenna power = time-averaged conducted power (the antenna gain does not enter EN 62479’s P_max).';
+
 function lowPowerRuleSet(regime: EuLikeRegime, ctx: RuleContext): RuleSet {
   const { tier, kind, powers } = ctx;
   const region = kind === 'extremity' ? 'limbs' : 'head-trunk';
@@ -47,10 +51,7 @@ function lowPowerRuleSet(regime: EuLikeRegime, ctx: RuleContext): RuleSet {
       return computeEuLowPowerExclusion({ frequencyHz: f, regime, tier, region, powerMw }).derivation;
     },
   };
-  const notes = [
-    `Body region: ${region === 'limbs' ? 'limbs (extremity position), 4 W/kg general / 20 W/kg occupational over 10 g' : 'head and trunk, 2 W/kg general / 10 W/kg occupational over 10 g'}.`,
-    'Compared: available antenna power = time-averaged conducted power (the antenna gain does not enter EN 62479’s P_max).',
-  ];
+  const notes = [region === 'limbs' ? BODY_REGION_LIMBS : BODY_REGION_HEAD_TRUNK, COMPARED_AVAILABLE_POWER];
   if (regime === 'icnirp-2020') notes.push('EN 62479 principle applied with the ICNIRP 2020 basic restrictions (Table 2 values from memory, ICNIRP 2020 Table 2, from memory).');
   return {
     rules: [rule],

@@ -76,6 +76,9 @@ const outsideMpeTable: (result: (f: number) => ScreeningResult) => Uncovered = (
   },
 });
 
+const COMPARED_ERP = 'greater of time-averaged power and ERP (ERP)';
+const COMPARED_AVERAGE = 'greater of time-averaged power and ERP (time-averaged power)';
+
 /** (B) SAR-based rule for near-body positions within 0.5–40 cm, (C) elsewhere in frequency or distance. */
 function exemptionRules(ctx: RuleContext): RuleSet {
   const { separationM, powers } = ctx;
@@ -86,14 +89,14 @@ function exemptionRules(ctx: RuleContext): RuleSet {
   if (tooClose || inInterval(separationM, fccSarSeparationRangeM)) {
     // Below 0.5 cm (B) still owns 0.3–6 GHz — there (C) could not apply either (λ/2π ≥ 7.95 mm) —
     // but gives no threshold: the row names (B) and says why it is not exempt.
-    const tooCloseReason = `separation ${formatM(separationM)} is below the 0.5 cm covered by §1.1307(b)(3)(i)(B)`;
+    const tooCloseReason = tooClose ? `separation ${formatM(separationM)} is below the 0.5 cm covered by §1.1307(b)(3)(i)(B)` : '';
     rules.push({
       method: 'fcc-sar-exemption',
       rangeHz: fccSarRangeHz,
       breakpointsHz: fccSarBreakpointsHz,
       kind: 'power-mw',
       evaluated: evaluatedMw,
-      evaluatedLabel: `greater of time-averaged power and ERP (${powers.erpMw > powers.timeAveragedPowerMw ? 'ERP' : 'time-averaged power'})`,
+      evaluatedLabel: powers.erpMw > powers.timeAveragedPowerMw ? COMPARED_ERP : COMPARED_AVERAGE,
       failResult: 'evaluate-sar',
       threshold(f) {
         return tooClose ? { notApplicable: tooCloseReason, result: 'evaluate-sar' } : fccSarThresholdMw(f, separationM);

@@ -22,10 +22,14 @@ import { ISED_RULE_EDITION, RULE_SET_VERSION } from '../versions';
 import { evaluateMpe, sarOrMpe, type RuleContext, type RuleSet } from './rule-set';
 
 const TABLE_1_MAX_SEPARATION_M = 0.2;
+// Texts that do not depend on the combination, built once (a filing has hundreds of ISED rows).
+const RESTS_ON = `Rests on ${ISED_RULE_EDITION}: Issue 6 (15 Dec 2023) superseded it and revised the exemption limits, which are not in this rule set (${RULE_SET_VERSION}).`;
+const COMPARED_EIRP = 'higher of time-averaged conducted power and e.i.r.p. (e.i.r.p.)';
+const COMPARED_CONDUCTED = 'higher of time-averaged conducted power and e.i.r.p. (conducted power)';
 
 export function isedRuleSet(ctx: RuleContext): RuleSet {
   const { separationM, powers, kind, tier } = ctx;
-  const notes: string[] = [`Rests on ${ISED_RULE_EDITION}: Issue 6 (15 Dec 2023) superseded it and revised the exemption limits, which are not in this rule set (${RULE_SET_VERSION}).`];
+  const notes: string[] = [RESTS_ON];
   if (tier === 'occupational') notes.push('The RSS-102 exemption limits are set for the general public; applying them to a controlled environment is conservative.');
   if (separationM <= TABLE_1_MAX_SEPARATION_M) {
     const limbWorn = kind === 'extremity';
@@ -41,7 +45,7 @@ export function isedRuleSet(ctx: RuleContext): RuleSet {
           breakpointsHz: isedSarTableFrequenciesHz,
           kind: 'power-mw',
           evaluated: powerMw,
-          evaluatedLabel: `higher of time-averaged conducted power and e.i.r.p. (${powers.eirpMw > powers.timeAveragedPowerMw ? 'e.i.r.p.' : 'conducted power'})`,
+          evaluatedLabel: powers.eirpMw > powers.timeAveragedPowerMw ? COMPARED_EIRP : COMPARED_CONDUCTED,
           failResult: 'evaluate-sar',
           threshold(f) {
             return isedSarExemptionMw(f, separationM, limbWorn);
