@@ -169,7 +169,11 @@ export function screenBand(minHz: number, maxHz: number, rules: readonly Screeni
       // The piece (a, b) has one owner; its closed edges are evaluated with that owner's formula.
       const ruleIndex = owner(rules, (a + b) / 2);
       addProbe(probes, rules, ruleIndex, a, uncovered);
-      if (ruleIndex >= 0) for (const f of rules[ruleIndex].breakpointsHz) if (f > a && f < b) addProbe(probes, rules, ruleIndex, f, uncovered);
+      if (ruleIndex >= 0) {
+        // Indexed: breakpoint lists come in several array kinds (literal, computed, frozen), and for…of over them allocates iterators.
+        const breakpoints = rules[ruleIndex].breakpointsHz;
+        for (let k = 0; k < breakpoints.length; k++) if (breakpoints[k] > a && breakpoints[k] < b) addProbe(probes, rules, ruleIndex, breakpoints[k], uncovered);
+      }
       addProbe(probes, rules, ruleIndex, b, uncovered);
     }
   }
