@@ -233,12 +233,6 @@ function rowInputs(c: Combination): Record<string, Quantity> {
   return inputs;
 }
 
-/** Copies entries onto target (spreading into a literal that then grows is slow in V8). */
-function assignAll(target: Record<string, Quantity>, ...sources: Record<string, Quantity>[]): Record<string, Quantity> {
-  for (const src of sources) for (const key in src) target[key] = src[key];
-  return target;
-}
-
 type RowVerdict = Pick<ScreeningRow, 'method' | 'methodLabel' | 'frequencyHz' | 'evaluatedPowerMw' | 'evaluatedQuantity' | 'result' | 'marginDb' | 'candidates'>;
 
 /** One literal with every field (a spread-then-extend literal is several times slower in V8, and there are 480 rows per filing). */
@@ -295,7 +289,7 @@ function blanketRow(c: Combination, set: RuleSet): PendingRow {
   row.derivation = {
     formula: `${c.powers.formula}; ${d.formula}`,
     inputs: rowInputs(c),
-    intermediate: assignAll({}, c.powers.intermediate, d.intermediate),
+    intermediate: Object.assign({}, c.powers.intermediate, d.intermediate),
     result: { result: q('exempt', 'text'), thresholdMw: q(b.thresholdMw, 'mW'), marginDb: q(marginDb, 'dB') },
     source: d.source,
     notes: [...c.powers.notes, '§1.1307(b)(3)(i)(A) does not depend on frequency or separation: the band is not searched (frequencyHz reports its lower edge).', ...d.notes],
@@ -403,7 +397,7 @@ function bandDerivation(c: Combination, set: RuleSet, row: ScreeningRow, worst: 
       );
     }
   }
-  const intermediate = assignAll({}, c.powers.intermediate);
+  const intermediate = Object.assign({}, c.powers.intermediate);
   intermediate.evaluatedQuantity = q(row.evaluatedQuantity, 'text');
   if (rule) intermediate.evaluatedValue = q(rule.evaluated, unit as string);
   intermediate.mostRestrictiveFrequencyHz = q(row.frequencyHz, 'Hz');
@@ -411,8 +405,8 @@ function bandDerivation(c: Combination, set: RuleSet, row: ScreeningRow, worst: 
   let frequencies = `${probes[0].frequencyHz}`;
   for (let i = 1; i < probes.length; i++) frequencies += `, ${probes[i].frequencyHz}`;
   intermediate.candidateFrequenciesHz = q(frequencies, 'Hz');
-  if (rd) assignAll(intermediate, rd.inputs, rd.intermediate);
-  const result = rd ? assignAll({}, rd.result) : {};
+  if (rd) Object.assign(intermediate, rd.inputs, rd.intermediate);
+  const result = rd ? Object.assign({}, rd.result) : {};
   result.result = q(row.result, 'text');
   if (worst.threshold !== null && rule) result.threshold = q(worst.threshold, unit as string);
   result.marginDb = q(row.marginDb, 'dB');
