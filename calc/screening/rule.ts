@@ -39,6 +39,11 @@ export interface NotApplicable {
   result: ScreeningResult;
 }
 
+/**
+ * One rule for one combination. Regime modules build hundreds per filing, so they write the
+ * functions as methods (`threshold(f) { … }`), not arrow properties: under tsx (esbuild keepNames)
+ * every named arrow is wrapped in an Object.defineProperty call each time it is created.
+ */
 export interface ScreeningRule {
   method: Exclude<MethodId, 'no-applicable-rule' | 'fcc-1mw'>;
   /** Overrides the method's standard label (e.g. which basic restriction is used). */
