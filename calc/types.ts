@@ -39,7 +39,14 @@ export interface CalcIssue {
 export class CalcRangeError extends Error {
   readonly issues: CalcIssue[];
   constructor(message: string, issues: CalcIssue[] = []) {
+    // An expected answer, always caught and reported by its message (a whole filing gets dozens):
+    // no stack trace is captured, which costs several times the calculation itself. V8's
+    // Error.stackTraceLimit; engines without it (the app's) are left alone.
+    const errorClass = Error as { stackTraceLimit?: unknown };
+    const stackTraceLimit = errorClass.stackTraceLimit;
+    if (typeof stackTraceLimit === 'number') errorClass.stackTraceLimit = 0;
     super(message);
+    if (typeof stackTraceLimit === 'number') errorClass.stackTraceLimit = stackTraceLimit;
     this.name = 'CalcRangeError';
     this.issues = issues.length ? issues : [{ path: [], message }];
   }

@@ -69,6 +69,19 @@ export function euLowPowerExclusion(frequencyHz: number, regime: Input['regime']
   throw new CalcRangeError(message, [{ path: ['frequencyHz'], message }]);
 }
 
+/**
+ * P_max alone, mW: the same rule as euLowPowerExclusion (which it defers to outside the tabulated
+ * cases, for the same error), without the objects that describe it — the screening's band search
+ * asks for it at every candidate frequency.
+ */
+export function euLowPowerPMaxMw(frequencyHz: number, regime: Input['regime'], tier: Input['tier'], region: Input['region']): number {
+  requireInRange('frequencyHz', frequencyHz, en62479RangeHz, 'frequency', 'EN 62479:2010');
+  const sar = sarLimit(regime, tier, region);
+  if (frequencyHz <= sar.frequencyRangeHz.max && frequencyHz >= sar.frequencyRangeHz.min) return sar.limitWPerKg * (sar.averagingMassG as number);
+  if (frequencyHz > sar.frequencyRangeHz.max && (regime === 'eu' || regime === 'icnirp-1998')) return PD_BR_W_PER_M2[tier] * PD_AREA_M2 * 1000;
+  return euLowPowerExclusion(frequencyHz, regime, tier, region).pMaxMw;
+}
+
 export function computeEuLowPowerExclusion(input: Input) {
   const { frequencyHz, regime, tier, region, powerMw } = input;
   const r = euLowPowerExclusion(frequencyHz, regime, tier, region);

@@ -408,11 +408,19 @@ export function exposureLimitRangeHz(regime: ExposureRegime, tier: Tier, exposur
   return { minHz: t[0].interval.min * 1e6, maxHz: t[t.length - 1].interval.max * 1e6 };
 }
 
+/** Breakpoints per table, computed once (the screening asks for them at every far-field combination). */
+const breakpointsByTable = new Map<LimitTable, readonly number[]>();
+
 /** Row edges and averaging-time changes inside the table, Hz (for a band's most restrictive frequency). */
-export function exposureLimitBreakpointsHz(regime: ExposureRegime, tier: Tier, exposure: ExposureKind = 'whole-body'): number[] {
+export function exposureLimitBreakpointsHz(regime: ExposureRegime, tier: Tier, exposure: ExposureKind = 'whole-body'): readonly number[] {
   const table = tableFor(regime, tier, exposure);
-  const edges = [...table.rows.slice(0, -1).map((r) => r.interval.max), ...(table.averagingBreakpointsMHz ?? [])];
-  return [...new Set(edges)].sort((a, b) => a - b).map((f) => f * 1e6);
+  let breakpoints = breakpointsByTable.get(table);
+  if (!breakpoints) {
+    const edges = [...table.rows.slice(0, -1).map((r) => r.interval.max), ...(table.averagingBreakpointsMHz ?? [])];
+    breakpoints = Object.freeze([...new Set(edges)].sort((a, b) => a - b).map((f) => f * 1e6));
+    breakpointsByTable.set(table, breakpoints);
+  }
+  return breakpoints;
 }
 
 export interface ExposureLimit {
@@ -429,7 +437,7 @@ export interface ExposureLimit {
 function lookup(frequencyHz: number, regime: ExposureRegime, tier: Tier, exposure: ExposureKind) {
   const table = tableFor(regime, tier, exposure);
   const fMHz = frequencyHz / 1e6;
-  const row = table.rows.find((r) => inInterval(fMHz, r.interval));
+  const row = rowAt(table, fMHz);
   if (!row) {
     const { minHz, maxHz } = exposureLimitRangeHz(regime, tier, exposure);
     const message = `frequencyHz = ${formatHz(frequencyHz)} is outside ${table.source}: it is tabulated from ${formatHz(minHz)} to ${formatHz(maxHz)}.`;
@@ -438,14 +446,13 @@ function lookup(frequencyHz: number, regime: ExposureRegime, tier: Tier, exposur
   return { table, row, fMHz };
 }
 
-/**
- * Exposure limit (MPE / reference level) at one frequency.
- * @param frequencyHz frequency, Hz
- * @returns power density W/m², E V/m rms, H A/m rms (null where the table has no value), averaging time s
- * @throws CalcRangeError outside the table's frequency range
- */
-export function exposureLimit(frequencyHz: number, regime: ExposureRegime, tier: Tier, exposure: ExposureKind = 'whole-body'): ExposureLimit {
-  const { table, row, fMHz } = lookup(frequencyHz, regime, tier, exposure);
+/** The first row whose interval holds fMHz. */
+function rowAt(table: LimitTable, fMHz: number): Row | undefined {
+  for (const r of table.rows) if (inInterval(fMHz, r.interval)) return r;
+  return undefined;
+}
+
+function limitAt(table: LimitTable, row: Row, fMHz: number): ExposureLimit {
   return {
     powerDensityWPerM2: row.S ? row.S.at(fMHz) : null,
     electricFieldVPerM: row.E ? row.E.at(fMHz) : null,
@@ -457,6 +464,23 @@ export function exposureLimit(frequencyHz: number, regime: ExposureRegime, tier:
   };
 }
 
+/**
+ * Exposure limit (MPE / reference level) at one frequency.
+ * @param frequencyHz frequency, Hz
+ * @returns power density W/m², E V/m rms, H A/m rms (null where the table has no value), averaging time s
+ * @throws CalcRangeError outside the table's frequency range
+ */
+export function exposureLimit(frequencyHz: number, regime: ExposureRegime, tier: Tier, exposure: ExposureKind = 'whole-body'): ExposureLimit {
+  const { table, row, fMHz } = lookup(frequencyHz, regime, tier, exposure);
+  return limitAt(table, row, fMHz);
+}
+
+/** The power-density limit alone, W/m² (null where the row has none): the screening's band search asks for it per candidate. */
+export function exposureLimitPowerDensityWPerM2(frequencyHz: number, regime: ExposureRegime, tier: Tier, exposure: ExposureKind = 'whole-body'): number | null {
+  const { row, fMHz } = lookup(frequencyHz, regime, tier, exposure);
+  return row.S ? row.S.at(fMHz) : null;
+}
+
 export const exposureLimitInput = z.object({
   frequencyHz: z.number().positive().describe('Frequency, Hz'),
   regime: z.enum(exposureRegimes),
@@ -464,26 +488,45 @@ export const exposureLimitInput = z.object({
   exposure: z.enum(exposureKinds).default('whole-body').describe('ICNIRP 2020 only: whole-body (Table 5) or local (Table 6)'),
 });
 
+const cellText = (c: Cell | null) => (c ? c.text : 'no value');
+
+/** The text of a row's derivation that depends on the row alone, built once per row. */
+const rowTextCache = new Map<Row, { formula: string; missingNote: string | null }>();
+function rowText(row: Row) {
+  let text = rowTextCache.get(row);
+  if (!text) {
+    const missing = (['E', 'H', 'S'] as const).filter((key) => row[key] === null);
+    text = {
+      formula: `Row ${row.label}: E = ${cellText(row.E)} V/m; H = ${cellText(row.H)} A/m; S = ${cellText(row.S)}${row.S && !row.S.text.includes('mW') ? ' W/m²' : ''}; averaging ${row.averagingMin.text} min (f in MHz unless marked f_G)`,
+      missingNote: missing.length ? `No value in the table for ${missing.join(', ')} in ${row.label}: returned as null.` : null,
+    };
+    rowTextCache.set(row, text);
+  }
+  return text;
+}
+
 export function computeExposureLimit(input: z.output<typeof exposureLimitInput>): ExposureLimit & { derivation: Derivation } {
   const { frequencyHz, regime, tier, exposure } = input;
   const { table, row, fMHz } = lookup(frequencyHz, regime, tier, exposure);
-  const limit = exposureLimit(frequencyHz, regime, tier, exposure);
-  const missing = (['E', 'H', 'S'] as const).filter((key) => row[key] === null);
-  const notes = [
-    `A row "a–b" is taken as a < f ≤ b (the first row includes a); at a shared edge the lower row applies.`,
-    `Reference status of these values: ${table.status}.`,
-    ...(missing.length ? [`No value in the table for ${missing.join(', ')} in ${row.label}: returned as null.`] : []),
-    ...(row.notes ?? []),
-  ];
+  const limit = limitAt(table, row, fMHz);
+  const text = rowText(row);
+  const notes = [`A row "a–b" is taken as a < f ≤ b (the first row includes a); at a shared edge the lower row applies.`, `Reference status of these values: ${table.status}.`];
+  if (text.missingNote) notes.push(text.missingNote);
+  if (row.notes) for (const n of row.notes) notes.push(n);
   if (limit.powerDensityWPerM2 !== null && limit.electricFieldVPerM === null) {
     notes.push(`Plane-wave equivalent E = √(377·S) = ${Math.sqrt(377 * limit.powerDensityWPerM2).toFixed(1)} V/m (free-space plane-wave conversion, Z0 ≈ 377 Ω; not a tabulated limit).`);
   }
   if (limit.additionalLimits.length) notes.push('additionalLimits lists limits that apply in addition at this frequency.');
-  const cell = (c: Cell | null) => (c ? c.text : 'no value');
   return {
-    ...limit,
+    powerDensityWPerM2: limit.powerDensityWPerM2,
+    electricFieldVPerM: limit.electricFieldVPerM,
+    magneticFieldAPerM: limit.magneticFieldAPerM,
+    averagingTimeS: limit.averagingTimeS,
+    source: limit.source,
+    row: limit.row,
+    additionalLimits: limit.additionalLimits,
     derivation: {
-      formula: `Row ${row.label}: E = ${cell(row.E)} V/m; H = ${cell(row.H)} A/m; S = ${cell(row.S)}${row.S && !row.S.text.includes('mW') ? ' W/m²' : ''}; averaging ${row.averagingMin.text} min (f in MHz unless marked f_G)`,
+      formula: text.formula,
       inputs: {
         frequencyHz: q(frequencyHz, 'Hz'),
         regime: q(regime, '1'),

@@ -9,7 +9,7 @@
  * for Issue 6 filings.
  */
 import { z } from 'zod';
-import { CalcRangeError, defineCalculation, type Derivation } from '../types';
+import { CalcRangeError, defineCalculation, type Derivation, type Quantity } from '../types';
 import { q } from '../types';
 import { formatM, inInterval, requireInRange, type Interval } from './range';
 import { compareToThreshold, type Verdict } from './verdict';
@@ -66,28 +66,43 @@ export interface IsedSarThreshold {
  * @param limbWorn limb-worn device: Table 1 × 2.5
  */
 export function isedSarExemption(frequencyHz: number, separationM: number, limbWorn = false): IsedSarThreshold {
-  requireInRange('frequencyHz', frequencyHz, isedSarRangeHz, 'frequency', SAR_SOURCE, 'Table 1 has no row above 5800 MHz: evaluate SAR.');
-  requireInRange('separationM', separationM, isedSarSeparationRangeM, 'distance', SAR_SOURCE, 'Beyond 20 cm use the RF exposure evaluation exemption (ised-rf-exemption).');
-  const fMHz = Math.max(frequencyHz / 1e6, 300);
-  const dMm = Math.min(Math.max(separationM * 1000, 5), 50);
+  const { fMHz, dMm } = tableCoordinates(frequencyHz, separationM);
   const fb = bracket(isedSarTableFrequenciesMHz, fMHz);
   const db = bracket(isedSarTableSeparationsMm, dMm);
-  const at = (fi: number, di: number) => TABLE_MW[fi][di];
-  const row0 = at(fb.i, db.i) + db.t * (at(fb.i, db.i + 1) - at(fb.i, db.i));
-  const row1 = at(fb.i + 1, db.i) + db.t * (at(fb.i + 1, db.i + 1) - at(fb.i + 1, db.i));
-  const base = row0 + fb.t * (row1 - row0);
-  const corners = [fb.i, fb.i + 1].flatMap((fi) => [db.i, db.i + 1].map((di) => ({ frequencyMHz: isedSarTableFrequenciesMHz[fi], separationMm: isedSarTableSeparationsMm[di], limitMw: at(fi, di) })));
+  const corners: IsedSarThreshold['corners'] = [];
+  for (const fi of [fb.i, fb.i + 1]) {
+    for (const di of [db.i, db.i + 1]) corners.push({ frequencyMHz: isedSarTableFrequenciesMHz[fi], separationMm: isedSarTableSeparationsMm[di], limitMw: TABLE_MW[fi][di] });
+  }
   return {
-    thresholdMw: base * (limbWorn ? ISED_LIMB_WORN_FACTOR : 1),
+    thresholdMw: tableLimitMw(fMHz, dMm) * (limbWorn ? ISED_LIMB_WORN_FACTOR : 1),
     tableFrequencyMHz: fMHz,
     tableSeparationMm: dMm,
     corners,
   };
 }
 
-/** Shorthand: the Table 1 exemption limit in mW. */
+/** Frequency (MHz) and separation (mm) as Table 1 is read: range-checked, then its edge rules applied. */
+function tableCoordinates(frequencyHz: number, separationM: number): { fMHz: number; dMm: number } {
+  requireInRange('frequencyHz', frequencyHz, isedSarRangeHz, 'frequency', SAR_SOURCE, 'Table 1 has no row above 5800 MHz: evaluate SAR.');
+  requireInRange('separationM', separationM, isedSarSeparationRangeM, 'distance', SAR_SOURCE, 'Beyond 20 cm use the RF exposure evaluation exemption (ised-rf-exemption).');
+  return { fMHz: Math.max(frequencyHz / 1e6, 300), dMm: Math.min(Math.max(separationM * 1000, 5), 50) };
+}
+
+/** Table 1 bilinear in frequency (MHz) and separation (mm), both already within the table. */
+function tableLimitMw(fMHz: number, dMm: number): number {
+  const fb = bracket(isedSarTableFrequenciesMHz, fMHz);
+  const db = bracket(isedSarTableSeparationsMm, dMm);
+  const lo = TABLE_MW[fb.i];
+  const hi = TABLE_MW[fb.i + 1];
+  const row0 = lo[db.i] + db.t * (lo[db.i + 1] - lo[db.i]);
+  const row1 = hi[db.i] + db.t * (hi[db.i + 1] - hi[db.i]);
+  return row0 + fb.t * (row1 - row0);
+}
+
+/** Shorthand: the Table 1 exemption limit in mW (no corner list: the screening's band search calls it per candidate). */
 export function isedSarExemptionMw(frequencyHz: number, separationM: number, limbWorn = false): number {
-  return isedSarExemption(frequencyHz, separationM, limbWorn).thresholdMw;
+  const { fMHz, dMm } = tableCoordinates(frequencyHz, separationM);
+  return tableLimitMw(fMHz, dMm) * (limbWorn ? ISED_LIMB_WORN_FACTOR : 1);
 }
 
 export const isedSarExemptionInput = z.object({
@@ -96,6 +111,18 @@ export const isedSarExemptionInput = z.object({
   limbWorn: z.boolean().default(false).describe('Limb-worn device (10-g limit): Table 1 × 2.5'),
   powerMw: z.number().nonnegative().optional().describe('Optional: source-based time-averaged output power incl. tune-up, the higher of conducted power and e.i.r.p., mW'),
 });
+
+/** Derivation names of the table entries, `table_<f>MHz_<d>mm`, by row and column (built once). */
+const CORNER_NAMES: readonly (readonly string[])[] = isedSarTableFrequenciesMHz.map((f) => isedSarTableSeparationsMm.map((d) => `table_${f}MHz_${d}mm`));
+
+/** The table point used and the corner entries interpolated, as derivation quantities. */
+function cornerQuantities(t: IsedSarThreshold): Record<string, Quantity> {
+  const out: Record<string, Quantity> = { tableFrequencyMHz: q(t.tableFrequencyMHz, 'MHz'), tableSeparationMm: q(t.tableSeparationMm, 'mm') };
+  for (const c of t.corners) {
+    out[CORNER_NAMES[isedSarTableFrequenciesMHz.indexOf(c.frequencyMHz)][isedSarTableSeparationsMm.indexOf(c.separationMm)]] = q(c.limitMw, 'mW');
+  }
+  return out;
+}
 
 export function computeIsedSarExemption(input: z.output<typeof isedSarExemptionInput>) {
   const { frequencyHz, separationM, limbWorn, powerMw } = input;
@@ -117,11 +144,7 @@ export function computeIsedSarExemption(input: z.output<typeof isedSarExemptionI
       limbWorn: q(limbWorn, '1'),
       ...(powerMw !== undefined ? { powerMw: q(powerMw, 'mW') } : {}),
     },
-    intermediate: {
-      tableFrequencyMHz: q(t.tableFrequencyMHz, 'MHz'),
-      tableSeparationMm: q(t.tableSeparationMm, 'mm'),
-      ...Object.fromEntries(t.corners.map((c) => [`table_${c.frequencyMHz}MHz_${c.separationMm}mm`, q(c.limitMw, 'mW')])),
-    },
+    intermediate: cornerQuantities(t),
     result: {
       thresholdMw: q(t.thresholdMw, 'mW'),
       ...(verdict.exempt !== undefined ? { exempt: q(verdict.exempt, '1'), marginDb: q(verdict.marginDb ?? null, 'dB') } : {}),

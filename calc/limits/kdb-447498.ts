@@ -14,7 +14,7 @@
 import { z } from 'zod';
 import { CalcRangeError, defineCalculation, type Derivation } from '../types';
 import { q } from '../types';
-import { formatM, requireInRange, type Interval } from './range';
+import { formatM, inInterval, requireInRange, type Interval } from './range';
 
 const SOURCE = 'FCC KDB 447498 D01 v06 §4.3.1';
 const ESTIMATE_SOURCE = 'FCC KDB 447498 D01 v06 §4.3.2';
@@ -41,13 +41,34 @@ export function kdbSeparationMm(separationM: number): number {
   return Math.max(5, Math.round(separationM * 1000));
 }
 
+/** §4.3.1 a)/b) branch for 100 MHz ≤ f ≤ 6 GHz. */
+const branchAB = (dMm: number, fMHz: number): 'a' | 'b1' | 'b2' => (dMm <= 50 ? 'a' : fMHz <= 1500 ? 'b1' : 'b2');
+
 /** §4.3.1 a)/b) threshold for 100 MHz ≤ f ≤ 6 GHz, mW. */
-function thresholdAB(dMm: number, fMHz: number, ratioLimit: number): { thresholdMw: number; branch: 'a' | 'b1' | 'b2' } {
+function thresholdABMw(dMm: number, fMHz: number, ratioLimit: number): number {
   const fGHz = fMHz / 1000;
   const at50 = (ratioLimit * 50) / Math.sqrt(fGHz);
-  if (dMm <= 50) return { thresholdMw: (ratioLimit * dMm) / Math.sqrt(fGHz), branch: 'a' };
-  if (fMHz <= 1500) return { thresholdMw: at50 + (dMm - 50) * (fMHz / 150), branch: 'b1' };
-  return { thresholdMw: at50 + (dMm - 50) * 10, branch: 'b2' };
+  if (dMm <= 50) return (ratioLimit * dMm) / Math.sqrt(fGHz);
+  if (fMHz <= 1500) return at50 + (dMm - 50) * (fMHz / 150);
+  return at50 + (dMm - 50) * 10;
+}
+
+/** Outside §4.3.1 as evaluated here: beyond 200 mm, or at 200 mm below 100 MHz (§4.3.1 c) reaches below 200 mm only). */
+const beyondKdbSeparation = (dMm: number, fMHz: number) => dMm > KDB_MAX_SEPARATION_MM || (fMHz < 100 && dMm >= KDB_MAX_SEPARATION_MM);
+
+/** The §4.3.1 threshold, mW, and its branch, for a frequency and separation already checked. */
+function thresholdMwAt(fMHz: number, dMm: number, ratioLimit: number): number {
+  if (fMHz >= 100) return thresholdABMw(dMm, fMHz, ratioLimit);
+  // §4.3.1 c): the 100 MHz threshold (step b) scaled by [1 + log10(100/f_MHz)]; at d ≤ 50 mm, the
+  // c)1) value at 50 mm halved.
+  const scale = 1 + Math.log10(100 / fMHz);
+  if (dMm > 50) return thresholdABMw(dMm, 100, ratioLimit) * scale;
+  return 0.5 * thresholdABMw(50, 100, ratioLimit) * scale;
+}
+
+function branchAt(fMHz: number, dMm: number): KdbThreshold['branch'] {
+  if (fMHz >= 100) return branchAB(dMm, fMHz);
+  return dMm > 50 ? 'c1' : 'c2';
 }
 
 /**
@@ -61,19 +82,24 @@ export function kdbExclusionThreshold(frequencyHz: number, separationM: number, 
   const dMm = kdbSeparationMm(separationM);
   const ratioLimit = ratioLimitFor(extremity);
   const fMHz = frequencyHz / 1e6;
-  if (dMm > KDB_MAX_SEPARATION_MM || (fMHz < 100 && dMm >= KDB_MAX_SEPARATION_MM)) {
+  if (beyondKdbSeparation(dMm, fMHz)) {
     const message =
       `separationM = ${formatM(separationM)} is beyond the range of ${SOURCE}: evaluated here up to 200 mm ` +
       `(below 100 MHz: below 200 mm, §4.3.1 c)). Beyond that the device is not portable; use the MPE-based rules.`;
     throw new CalcRangeError(message, [{ path: ['separationM'], message }]);
   }
-  const base = { separationUsedMm: dMm, ratioLimit };
-  if (fMHz >= 100) return { ...thresholdAB(dMm, fMHz, ratioLimit), ...base };
-  // §4.3.1 c): the 100 MHz threshold (step b) scaled by [1 + log10(100/f_MHz)]; at d ≤ 50 mm, the
-  // c)1) value at 50 mm halved.
-  const scale = 1 + Math.log10(100 / fMHz);
-  if (dMm > 50) return { thresholdMw: thresholdAB(dMm, 100, ratioLimit).thresholdMw * scale, branch: 'c1', ...base };
-  return { thresholdMw: 0.5 * thresholdAB(50, 100, ratioLimit).thresholdMw * scale, branch: 'c2', ...base };
+  return { thresholdMw: thresholdMwAt(fMHz, dMm, ratioLimit), branch: branchAt(fMHz, dMm), separationUsedMm: dMm, ratioLimit };
+}
+
+/**
+ * Shorthand: the §4.3.1 threshold in mW. Where kdbExclusionThreshold would throw it returns null
+ * (the screening's band search asks at every candidate and says why from kdbExclusionThreshold).
+ */
+export function kdbExclusionThresholdMwOrNull(frequencyHz: number, separationM: number, extremity = false): number | null {
+  const dMm = kdbSeparationMm(separationM);
+  const fMHz = frequencyHz / 1e6;
+  if (!inInterval(frequencyHz, kdbRangeHz) || beyondKdbSeparation(dMm, fMHz)) return null;
+  return thresholdMwAt(fMHz, dMm, ratioLimitFor(extremity));
 }
 
 /** Shorthand: the §4.3.1 threshold in mW. */
@@ -88,12 +114,12 @@ export function kdbExclusionThresholdMw(frequencyHz: number, separationM: number
  */
 export function kdbCriticalFrequenciesHz(separationM: number, extremity = false): number[] {
   const dMm = kdbSeparationMm(separationM);
-  const out = [...kdbBreakpointsHz];
   if (dMm > 50) {
     const fGHz = ((3.75 * ratioLimitFor(extremity)) / (dMm - 50)) ** (2 / 3);
-    if (fGHz > 0.1 && fGHz < 1.5) out.push(fGHz * 1e9);
+    // Strictly between the two branch edges (100 MHz, 1.5 GHz): it goes between them.
+    if (fGHz > 0.1 && fGHz < 1.5) return [kdbBreakpointsHz[0], fGHz * 1e9, kdbBreakpointsHz[1]];
   }
-  return out.sort((a, b) => a - b);
+  return [...kdbBreakpointsHz];
 }
 
 /** §4.3.1 a) test ratio with the rounding rule: P and d rounded to mW and mm, result to 1 decimal. */

@@ -157,16 +157,18 @@ export const sarLimitInput = z.object({
 export function computeSarLimit(input: z.output<typeof sarLimitInput>): SarLimit & { derivation: Derivation } {
   const { regime, tier, region, frequencyHz } = input;
   const limit = sarLimit(regime, tier, region, frequencyHz);
+  const inputs: Derivation['inputs'] = { regime: q(regime, '1'), tier: q(tier, '1'), region: q(region, '1') };
+  if (frequencyHz !== undefined) inputs.frequencyHz = q(frequencyHz, 'Hz');
   return {
-    ...limit,
+    limitWPerKg: limit.limitWPerKg,
+    averagingMassG: limit.averagingMassG,
+    averagingTimeS: limit.averagingTimeS,
+    frequencyRangeHz: limit.frequencyRangeHz,
+    source: limit.source,
+    notes: limit.notes,
     derivation: {
       formula: region === 'whole-body' ? 'SAR_WB ≤ limit (whole-body average)' : `SAR_${limit.averagingMassG}g ≤ limit (peak spatial average over ${limit.averagingMassG} g)`,
-      inputs: {
-        regime: q(regime, '1'),
-        tier: q(tier, '1'),
-        region: q(region, '1'),
-        ...(frequencyHz !== undefined ? { frequencyHz: q(frequencyHz, 'Hz') } : {}),
-      },
+      inputs,
       intermediate: {
         frequencyRangeMinHz: q(limit.frequencyRangeHz.min, 'Hz'),
         frequencyRangeMaxHz: q(limit.frequencyRangeHz.max, 'Hz'),

@@ -34,3 +34,5 @@ export const isNearBody = (kind: UsePositionKind) => kind !== 'far-field';
 /** SAR is the basic restriction up to 6 GHz (47 CFR §1.1310(a); RSS-102; ICNIRP 2020 Table 2); above it, power density. */
 export const SAR_MAX_FREQUENCY_HZ = 6e9;
 export const sarOrMpe = (frequencyHz: number) => (frequencyHz <= SAR_MAX_FREQUENCY_HZ ? 'evaluate-sar' : 'evaluate-mpe') as 'evaluate-sar' | 'evaluate-mpe';
+/** Where no rule applies and only MPE evaluation can follow (one function, not a closure per combination). */
+export const evaluateMpe = (): 'evaluate-mpe' => 'evaluate-mpe';

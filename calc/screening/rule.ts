@@ -39,6 +39,11 @@ export interface NotApplicable {
   result: ScreeningResult;
 }
 
+/**
+ * One rule for one combination. Regime modules build hundreds per filing, so they write the
+ * functions as methods (`threshold(f) { … }`), not arrow properties: under tsx (esbuild keepNames)
+ * every named arrow is wrapped in an Object.defineProperty call each time it is created.
+ */
 export interface ScreeningRule {
   method: Exclude<MethodId, 'no-applicable-rule' | 'fcc-1mw'>;
   /** Overrides the method's standard label (e.g. which basic restriction is used). */
@@ -115,7 +120,37 @@ export function probe(rules: readonly ScreeningRule[], ruleIndex: number, freque
   return { frequencyHz, ruleIndex, threshold: t, result: exempt ? 'exempt' : fail, marginDb: marginDb(t, rule.evaluated), reason: null };
 }
 
-const owner = (rules: readonly ScreeningRule[], frequencyHz: number) => rules.findIndex((r) => inInterval(frequencyHz, r.rangeHz));
+/** The first rule whose range holds the frequency, or -1. */
+function owner(rules: readonly ScreeningRule[], frequencyHz: number): number {
+  for (let i = 0; i < rules.length; i++) if (inInterval(frequencyHz, rules[i].rangeHz)) return i;
+  return -1;
+}
+
+const byValue = (a: number, b: number) => a - b;
+const byFrequencyThenRule = (p: Probe, r: Probe) => p.frequencyHz - r.frequencyHz || p.ruleIndex - r.ruleIndex;
+
+/**
+ * Stable insertion sort, in place, for the handful of cuts and probes of a band: the same order as
+ * Array#sort (also stable), without the merge state V8 allocates for every sort call.
+ */
+function sortSmall<T>(xs: T[], compare: (a: T, b: T) => number): void {
+  for (let i = 1; i < xs.length; i++) {
+    const x = xs[i];
+    let j = i - 1;
+    while (j >= 0 && compare(xs[j], x) > 0) {
+      xs[j + 1] = xs[j];
+      j--;
+    }
+    xs[j + 1] = x;
+  }
+}
+
+/** Adds the probe of a rule at a frequency unless it is there already. */
+function addProbe(probes: Probe[], rules: readonly ScreeningRule[], ruleIndex: number, f: number, uncovered: Uncovered): void {
+  // A handful of candidates per band: a linear scan beats hashing string keys.
+  for (const p of probes) if (p.ruleIndex === ruleIndex && p.frequencyHz === f) return;
+  probes.push(probe(rules, ruleIndex, f, uncovered));
+}
 
 /**
  * Evaluates a band [minHz, maxHz] under the rules: every candidate probe, ascending in frequency,
@@ -127,15 +162,10 @@ export function screenBand(minHz: number, maxHz: number, rules: readonly Screeni
     if (r.rangeHz.min > minHz && r.rangeHz.min < maxHz) cuts.push(r.rangeHz.min);
     if (r.rangeHz.max > minHz && r.rangeHz.max < maxHz) cuts.push(r.rangeHz.max);
   }
-  cuts.sort((a, b) => a - b);
+  sortSmall(cuts, byValue);
   const probes: Probe[] = [];
-  const add = (ruleIndex: number, f: number) => {
-    // A handful of candidates per band: a linear scan beats hashing string keys.
-    for (const p of probes) if (p.ruleIndex === ruleIndex && p.frequencyHz === f) return;
-    probes.push(probe(rules, ruleIndex, f, uncovered));
-  };
   if (minHz === maxHz) {
-    add(owner(rules, minHz), minHz);
+    addProbe(probes, rules, owner(rules, minHz), minHz, uncovered);
   } else {
     for (let i = 0; i < cuts.length - 1; i++) {
       const a = cuts[i];
@@ -143,12 +173,16 @@ export function screenBand(minHz: number, maxHz: number, rules: readonly Screeni
       if (a === b) continue;
       // The piece (a, b) has one owner; its closed edges are evaluated with that owner's formula.
       const ruleIndex = owner(rules, (a + b) / 2);
-      add(ruleIndex, a);
-      if (ruleIndex >= 0) for (const f of rules[ruleIndex].breakpointsHz) if (f > a && f < b) add(ruleIndex, f);
-      add(ruleIndex, b);
+      addProbe(probes, rules, ruleIndex, a, uncovered);
+      if (ruleIndex >= 0) {
+        // Indexed: breakpoint lists come in several array kinds (literal, computed, frozen), and for…of over them allocates iterators.
+        const breakpoints = rules[ruleIndex].breakpointsHz;
+        for (let k = 0; k < breakpoints.length; k++) if (breakpoints[k] > a && breakpoints[k] < b) addProbe(probes, rules, ruleIndex, breakpoints[k], uncovered);
+      }
+      addProbe(probes, rules, ruleIndex, b, uncovered);
     }
   }
-  probes.sort((p, r) => p.frequencyHz - r.frequencyHz || p.ruleIndex - r.ruleIndex);
+  sortSmall(probes, byFrequencyThenRule);
   let worst = probes[0];
   for (const p of probes) if (isWorse(p, worst)) worst = p;
   return { probes, worst };

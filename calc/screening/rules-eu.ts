@@ -9,8 +9,8 @@
  *   formula) against the whole-body reference level — 1999/519/EC Annex III (= ICNIRP 1998
  *   Table 7; occupational: ICNIRP 1998 Table 6) or ICNIRP 2020 Table 5.
  */
-import { computeExposureLimit, exposureLimit, exposureLimitBreakpointsHz, exposureLimitRangeHz } from '../limits/exposure-limits';
-import { computeEuLowPowerExclusion, en62479RangeHz, euLowPowerExclusion } from '../limits/eu-low-power';
+import { computeExposureLimit, exposureLimitBreakpointsHz, exposureLimitPowerDensityWPerM2, exposureLimitRangeHz } from '../limits/exposure-limits';
+import { computeEuLowPowerExclusion, en62479RangeHz, euLowPowerPMaxMw } from '../limits/eu-low-power';
 import { computeFarFieldPowerDensity, farFieldPowerDensityWPerM2 } from '../limits/far-field';
 import { formatHz, formatM } from './format';
 import { sarLimit } from '../limits/sar-limits';
@@ -18,9 +18,13 @@ import { SPEED_OF_LIGHT_M_PER_S } from '../em/constants';
 import type { Derivation } from '../types';
 import type { ScreeningRegime } from './input';
 import type { ScreeningRule } from './rule';
-import { isNearBody, type RuleContext, type RuleSet } from './rule-set';
+import { evaluateMpe, isNearBody, type RuleContext, type RuleSet } from './rule-set';
 
 type EuLikeRegime = Extract<ScreeningRegime, 'eu' | 'icnirp-2020'>;
+
+const BODY_REGION_LIMBS = 'Body region: limbs (extremity position), 4 W/kg general / 20 W/kg occupational over 10 g.';
+const BODY_REGION_HEAD_TRUNK = 'Body region: head and trunk, 2 W/kg general / 10 W/kg occupational over 10 g.';
+const COMPARED_AVAILABLE_POWER = 'Compared: available antenna power = time-averaged conducted power (the antenna gain does not enter EN 62479’s P_max).';
 
 function lowPowerRuleSet(regime: EuLikeRegime, ctx: RuleContext): RuleSet {
   const { tier, kind, powers } = ctx;
@@ -37,24 +41,30 @@ function lowPowerRuleSet(regime: EuLikeRegime, ctx: RuleContext): RuleSet {
     kind: 'power-mw',
     evaluated: powerMw,
     evaluatedLabel: 'available antenna power (time-averaged conducted power)',
-    failResult: (f) => (f <= sarMaxHz ? 'evaluate-sar' : 'evaluate-mpe'),
-    threshold: (f) => euLowPowerExclusion(f, regime, tier, region).pMaxMw,
-    explain: (f) => computeEuLowPowerExclusion({ frequencyHz: f, regime, tier, region, powerMw }).derivation,
+    failResult(f) {
+      return f <= sarMaxHz ? 'evaluate-sar' : 'evaluate-mpe';
+    },
+    threshold(f) {
+      return euLowPowerPMaxMw(f, regime, tier, region);
+    },
+    explain(f) {
+      return computeEuLowPowerExclusion({ frequencyHz: f, regime, tier, region, powerMw }).derivation;
+    },
   };
-  const notes = [
-    `Body region: ${region === 'limbs' ? 'limbs (extremity position), 4 W/kg general / 20 W/kg occupational over 10 g' : 'head and trunk, 2 W/kg general / 10 W/kg occupational over 10 g'}.`,
-    'Compared: available antenna power = time-averaged conducted power (the antenna gain does not enter EN 62479’s P_max).',
-  ];
+  const notes = [region === 'limbs' ? BODY_REGION_LIMBS : BODY_REGION_HEAD_TRUNK, COMPARED_AVAILABLE_POWER];
   if (regime === 'icnirp-2020') notes.push('EN 62479 principle applied with the ICNIRP 2020 basic restrictions (Table 2 values from memory, ICNIRP 2020 Table 2, from memory).');
   return {
     rules: [rule],
     notes,
     uncovered: {
-      result: (f) => (f < en62479RangeHz.min ? 'evaluate-sar' : 'evaluate-mpe'),
-      reason: (f) =>
-        f < en62479RangeHz.min
+      result(f) {
+        return f < en62479RangeHz.min ? 'evaluate-sar' : 'evaluate-mpe';
+      },
+      reason(f) {
+        return f < en62479RangeHz.min
           ? `EN 62479 covers 10 MHz–300 GHz (${formatHz(f)} is below)`
-          : `above ${formatHz(sarMaxHz)} ICNIRP 2020 restricts absorbed power density; no low-power exclusion is tabulated for it here`,
+          : `above ${formatHz(sarMaxHz)} ICNIRP 2020 restricts absorbed power density; no low-power exclusion is tabulated for it here`;
+      },
     },
   };
 }
@@ -84,7 +94,7 @@ function referenceLevelRuleSet(regime: EuLikeRegime, ctx: RuleContext): RuleSet 
           result: 'evaluate-mpe',
         };
       }
-      const s = exposureLimit(f, limitRegime, tier).powerDensityWPerM2;
+      const s = exposureLimitPowerDensityWPerM2(f, limitRegime, tier);
       if (s === null) return { notApplicable: `no power-density reference level at ${formatHz(f)}: E and H must be assessed`, result: 'evaluate-mpe' };
       return s;
     },
@@ -110,7 +120,12 @@ function referenceLevelRuleSet(regime: EuLikeRegime, ctx: RuleContext): RuleSet 
   return {
     rules: [rule],
     notes,
-    uncovered: { result: () => 'evaluate-mpe', reason: (f) => `${formatHz(f)} is outside the reference-level table (${formatHz(range.minHz)}–${formatHz(range.maxHz)})` },
+    uncovered: {
+      result: evaluateMpe,
+      reason(f) {
+        return `${formatHz(f)} is outside the reference-level table (${formatHz(range.minHz)}–${formatHz(range.maxHz)})`;
+      },
+    },
   };
 }
 

@@ -29,6 +29,7 @@ import {
   kdbCriticalFrequenciesHz,
   kdbEstimatedSarWPerKg,
   kdbExclusionThreshold,
+  kdbExclusionThresholdMwOrNull,
   kdbRangeHz,
   kdbSeparationMm,
   kdbTestExclusion,
@@ -38,7 +39,7 @@ import { inInterval } from '../limits/range';
 import { formatHz, formatM } from './format';
 import { CalcRangeError } from '../types';
 import type { ScreeningResult, ScreeningRule, Uncovered } from './rule';
-import { isNearBody, sarOrMpe, type RuleContext, type RuleSet } from './rule-set';
+import { evaluateMpe, isNearBody, sarOrMpe, type RuleContext, type RuleSet } from './rule-set';
 
 /** §1.1307(b)(3)(i)(C) ERP rule at R = separation; closer than λ/2π it does not apply. */
 function mpeRule(ctx: RuleContext, whenNotApplicable: (f: number) => ScreeningResult): ScreeningRule {
@@ -62,14 +63,21 @@ function mpeRule(ctx: RuleContext, whenNotApplicable: (f: number) => ScreeningRe
       }
       return fccMpeThresholdErpW(f, separationM);
     },
-    explain: (f) => computeFccMpeExemption({ frequencyHz: f, distanceM: separationM, erpW }).derivation,
+    explain(f) {
+      return computeFccMpeExemption({ frequencyHz: f, distanceM: separationM, erpW }).derivation;
+    },
   };
 }
 
 const outsideMpeTable: (result: (f: number) => ScreeningResult) => Uncovered = (result) => ({
   result,
-  reason: (f) => `${formatHz(f)} is outside Table 1 to §1.1307(b)(3)(i)(C) (0.3 MHz–100 GHz) and outside the SAR-based formula (0.3–6 GHz): no §1.1307(b)(3)(i) exemption applies`,
+  reason(f) {
+    return `${formatHz(f)} is outside Table 1 to §1.1307(b)(3)(i)(C) (0.3 MHz–100 GHz) and outside the SAR-based formula (0.3–6 GHz): no §1.1307(b)(3)(i) exemption applies`;
+  },
 });
+
+const COMPARED_ERP = 'greater of time-averaged power and ERP (ERP)';
+const COMPARED_AVERAGE = 'greater of time-averaged power and ERP (time-averaged power)';
 
 /** (B) SAR-based rule for near-body positions within 0.5–40 cm, (C) elsewhere in frequency or distance. */
 function exemptionRules(ctx: RuleContext): RuleSet {
@@ -81,17 +89,21 @@ function exemptionRules(ctx: RuleContext): RuleSet {
   if (tooClose || inInterval(separationM, fccSarSeparationRangeM)) {
     // Below 0.5 cm (B) still owns 0.3–6 GHz — there (C) could not apply either (λ/2π ≥ 7.95 mm) —
     // but gives no threshold: the row names (B) and says why it is not exempt.
-    const tooCloseReason = `separation ${formatM(separationM)} is below the 0.5 cm covered by §1.1307(b)(3)(i)(B)`;
+    const tooCloseReason = tooClose ? `separation ${formatM(separationM)} is below the 0.5 cm covered by §1.1307(b)(3)(i)(B)` : '';
     rules.push({
       method: 'fcc-sar-exemption',
       rangeHz: fccSarRangeHz,
       breakpointsHz: fccSarBreakpointsHz,
       kind: 'power-mw',
       evaluated: evaluatedMw,
-      evaluatedLabel: `greater of time-averaged power and ERP (${powers.erpMw > powers.timeAveragedPowerMw ? 'ERP' : 'time-averaged power'})`,
+      evaluatedLabel: powers.erpMw > powers.timeAveragedPowerMw ? COMPARED_ERP : COMPARED_AVERAGE,
       failResult: 'evaluate-sar',
-      threshold: (f) => (tooClose ? { notApplicable: tooCloseReason, result: 'evaluate-sar' } : fccSarThresholdMw(f, separationM)),
-      explain: (f) => computeFccSarExemption({ frequencyHz: f, separationM, powerMw: evaluatedMw }).derivation,
+      threshold(f) {
+        return tooClose ? { notApplicable: tooCloseReason, result: 'evaluate-sar' } : fccSarThresholdMw(f, separationM);
+      },
+      explain(f) {
+        return computeFccSarExemption({ frequencyHz: f, separationM, powerMw: evaluatedMw }).derivation;
+      },
     });
   }
   if (tooClose) {
@@ -131,6 +143,9 @@ function kdbRules(ctx: RuleContext): RuleSet {
       evaluatedLabel: 'maximum time-averaged power incl. tune-up',
       failResult: 'evaluate-sar',
       threshold(f) {
+        const thresholdMw = kdbExclusionThresholdMwOrNull(f, separationM, extremity);
+        if (thresholdMw !== null) return thresholdMw;
+        // Outside what §4.3.1 covers here: the full function says why (and throws).
         try {
           return kdbExclusionThreshold(f, separationM, extremity).thresholdMw;
         } catch (err) {
@@ -143,18 +158,25 @@ function kdbRules(ctx: RuleContext): RuleSet {
         return { exempt: d.excluded, marginDb: d.marginDb };
       },
       comparisonRule: KDB_COMPARISON_RULE,
-      explain: (f) => computeKdbSarTestExclusion({ frequencyHz: f, separationM, extremity, powerMw }).derivation,
-      estimatedSarWPerKg: (f) => kdbEstimatedSarWPerKg(powerMw, f, separationM, extremity),
+      explain(f) {
+        return computeKdbSarTestExclusion({ frequencyHz: f, separationM, extremity, powerMw }).derivation;
+      },
+      estimatedSarWPerKg(f) {
+        return kdbEstimatedSarWPerKg(powerMw, f, separationM, extremity);
+      },
     });
   } else {
     notes.push(`Separation ${formatM(separationM)} is beyond the 200 mm evaluated by KDB 447498 §4.3.1: not a portable exposure condition; MPE evaluation is needed.`);
   }
   const uncovered: Uncovered = {
-    result: (f) => (inRange ? sarOrMpe(f) : 'evaluate-mpe'),
-    reason: (f) =>
-      !inRange
+    result(f) {
+      return inRange ? sarOrMpe(f) : 'evaluate-mpe';
+    },
+    reason(f) {
+      return !inRange
         ? `KDB 447498 §4.3.1 is evaluated up to 200 mm (here ${dMm} mm)`
-        : `${formatHz(f)} is outside KDB 447498 §4.3.1 (100 kHz–6 GHz here)${f > 6e9 ? '; above 6 GHz exposure is assessed as power density' : ''}`,
+        : `${formatHz(f)} is outside KDB 447498 §4.3.1 (100 kHz–6 GHz here)${f > 6e9 ? '; above 6 GHz exposure is assessed as power density' : ''}`;
+    },
   };
   return { rules, uncovered, notes };
 }
@@ -166,8 +188,8 @@ export function fccRuleSet(ctx: RuleContext): RuleSet {
   const set: RuleSet = nearBody
     ? exemptionRules(ctx)
     : {
-        rules: [mpeRule(ctx, () => 'evaluate-mpe')],
-        uncovered: outsideMpeTable(() => 'evaluate-mpe'),
+        rules: [mpeRule(ctx, evaluateMpe)],
+        uncovered: outsideMpeTable(evaluateMpe),
         notes: [
           `Far-field position: Table 1 to §1.1307(b)(3)(i)(C) with R = ${formatM(ctx.separationM)}, ERP compared.` +
             (ctx.fccSarScreening === 'kdb-test-exclusion' ? ' (The KDB 447498 choice concerns SAR test exclusion at near-body positions only.)' : ''),

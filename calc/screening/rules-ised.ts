@@ -19,13 +19,17 @@ import {
 } from '../limits/ised-exemptions';
 import { formatHz, formatM } from './format';
 import { ISED_RULE_EDITION, RULE_SET_VERSION } from '../versions';
-import { sarOrMpe, type RuleContext, type RuleSet } from './rule-set';
+import { evaluateMpe, sarOrMpe, type RuleContext, type RuleSet } from './rule-set';
 
 const TABLE_1_MAX_SEPARATION_M = 0.2;
+// Texts that do not depend on the combination, built once (a filing has hundreds of ISED rows).
+const RESTS_ON = `Rests on ${ISED_RULE_EDITION}: Issue 6 (15 Dec 2023) superseded it and revised the exemption limits, which are not in this rule set (${RULE_SET_VERSION}).`;
+const COMPARED_EIRP = 'higher of time-averaged conducted power and e.i.r.p. (e.i.r.p.)';
+const COMPARED_CONDUCTED = 'higher of time-averaged conducted power and e.i.r.p. (conducted power)';
 
 export function isedRuleSet(ctx: RuleContext): RuleSet {
   const { separationM, powers, kind, tier } = ctx;
-  const notes: string[] = [`Rests on ${ISED_RULE_EDITION}: Issue 6 (15 Dec 2023) superseded it and revised the exemption limits, which are not in this rule set (${RULE_SET_VERSION}).`];
+  const notes: string[] = [RESTS_ON];
   if (tier === 'occupational') notes.push('The RSS-102 exemption limits are set for the general public; applying them to a controlled environment is conservative.');
   if (separationM <= TABLE_1_MAX_SEPARATION_M) {
     const limbWorn = kind === 'extremity';
@@ -41,16 +45,23 @@ export function isedRuleSet(ctx: RuleContext): RuleSet {
           breakpointsHz: isedSarTableFrequenciesHz,
           kind: 'power-mw',
           evaluated: powerMw,
-          evaluatedLabel: `higher of time-averaged conducted power and e.i.r.p. (${powers.eirpMw > powers.timeAveragedPowerMw ? 'e.i.r.p.' : 'conducted power'})`,
+          evaluatedLabel: powers.eirpMw > powers.timeAveragedPowerMw ? COMPARED_EIRP : COMPARED_CONDUCTED,
           failResult: 'evaluate-sar',
-          threshold: (f) => isedSarExemptionMw(f, separationM, limbWorn),
-          explain: (f) => computeIsedSarExemption({ frequencyHz: f, separationM, limbWorn, powerMw }).derivation,
+          threshold(f) {
+            return isedSarExemptionMw(f, separationM, limbWorn);
+          },
+          explain(f) {
+            return computeIsedSarExemption({ frequencyHz: f, separationM, limbWorn, powerMw }).derivation;
+          },
         },
       ],
       uncovered: {
         result: sarOrMpe,
-        reason: (f) =>
-          f <= 6e9 ? `RSS-102 Table 1 has no row above 5800 MHz (${formatHz(f)}): SAR evaluation` : `above 6 GHz RSS-102 assesses power density, and §2.5.2 applies only beyond 20 cm (${formatHz(f)})`,
+        reason(f) {
+          return f <= 6e9
+            ? `RSS-102 Table 1 has no row above 5800 MHz (${formatHz(f)}): SAR evaluation`
+            : `above 6 GHz RSS-102 assesses power density, and §2.5.2 applies only beyond 20 cm (${formatHz(f)})`;
+        },
       },
     };
   }
@@ -67,10 +78,19 @@ export function isedRuleSet(ctx: RuleContext): RuleSet {
         evaluated: eirpW,
         evaluatedLabel: 'e.i.r.p. (time-averaged)',
         failResult: 'evaluate-mpe',
-        threshold: (f) => isedRfExemptionEirpW(f, separationM),
-        explain: (f) => computeIsedRfExemption({ frequencyHz: f, separationM, eirpW }).derivation,
+        threshold(f) {
+          return isedRfExemptionEirpW(f, separationM);
+        },
+        explain(f) {
+          return computeIsedRfExemption({ frequencyHz: f, separationM, eirpW }).derivation;
+        },
       },
     ],
-    uncovered: { result: () => 'evaluate-mpe', reason: (f) => `${formatHz(f)} is outside RSS-102 (3 kHz–300 GHz)` },
+    uncovered: {
+      result: evaluateMpe,
+      reason(f) {
+        return `${formatHz(f)} is outside RSS-102 (3 kHz–300 GHz)`;
+      },
+    },
   };
 }

@@ -155,18 +155,20 @@ export function summarizeScreening(rows: readonly Pick<ScreeningRow, 'regime' | 
   for (const r of regimes) byRegime[r] = emptyCounts();
   const total = emptyCounts();
   for (const row of rows) {
-    const c = (byRegime[row.regime] ??= emptyCounts());
-    for (const counts of [c, total]) {
-      counts.combinations++;
-      if (row.result === 'exempt') counts.exempt++;
-      else {
-        counts.needsEvaluation++;
-        if (row.result === 'evaluate-sar') counts.evaluateSar++;
-        else counts.evaluateMpe++;
-      }
-    }
+    count(total, row.result);
+    count((byRegime[row.regime] ??= emptyCounts()), row.result);
   }
   return { byRegime, total, gaps: gaps.length };
+}
+
+function count(counts: ScreeningCounts, result: ScreeningResult): void {
+  counts.combinations++;
+  if (result === 'exempt') counts.exempt++;
+  else {
+    counts.needsEvaluation++;
+    if (result === 'evaluate-sar') counts.evaluateSar++;
+    else counts.evaluateMpe++;
+  }
 }
 
 const THRESHOLD_FIELD: Record<ThresholdKind, 'thresholdMw' | 'thresholdErpW' | 'thresholdEirpW' | 'thresholdPowerDensityWPerM2'> = {
@@ -183,6 +185,20 @@ function evaluatedMw(rule: ScreeningRule, powers: EvaluatedPowers): number {
   return powers.eirpMw;
 }
 
+/**
+ * Derivation inputs that many rows of one screening show (a transmitter's band, a market's regime):
+ * built once per screening and shared between its rows, as the powers' quantities already are.
+ */
+interface SharedInputs {
+  antennaId: Quantity;
+  frequencyMinHz: Quantity;
+  frequencyMaxHz: Quantity;
+  separationM: Quantity;
+  usePositionKind: Quantity;
+  regime: Quantity;
+  tier: Quantity;
+}
+
 interface Combination {
   tx: ScreeningTransmitter;
   position: ScreeningUsePosition;
@@ -192,30 +208,29 @@ interface Combination {
   separationM: number;
   powers: EvaluatedPowers;
   powerMode: ScreeningPowerModeName;
+  shared: SharedInputs;
+  /** The transmitter's band note by reported frequency (the same text for each of its positions and markets). */
+  bandNotes: Map<number, string>;
 }
 
 function rowInputs(c: Combination): Record<string, Quantity> {
   const p = c.powers.inputs;
-  return {
-    maxTuneUpPowerDbm: p.maxTuneUpPowerDbm,
-    dutyCycle: p.dutyCycle,
-    ...(p.reducedTuneUpPowerDbm ? { reducedTuneUpPowerDbm: p.reducedTuneUpPowerDbm, powerMode: p.powerMode } : {}),
-    antennaGainDbi: p.antennaGainDbi,
-    antennaId: q(c.antennaId, 'text'),
-    ...(p.mimoStreams ? { mimoStreams: p.mimoStreams } : {}),
-    frequencyMinHz: q(c.tx.frequencyMinHz, 'Hz'),
-    frequencyMaxHz: q(c.tx.frequencyMaxHz, 'Hz'),
-    separationM: q(c.separationM, 'm'),
-    usePositionKind: q(c.position.kind, 'text'),
-    regime: q(c.market.regime, 'text'),
-    tier: q(c.market.tier, 'text'),
-  };
-}
-
-/** Copies entries onto target (spreading into a literal that then grows is slow in V8). */
-function assignAll(target: Record<string, Quantity>, ...sources: Record<string, Quantity>[]): Record<string, Quantity> {
-  for (const src of sources) for (const key in src) target[key] = src[key];
-  return target;
+  const s = c.shared;
+  const inputs: Record<string, Quantity> = { maxTuneUpPowerDbm: p.maxTuneUpPowerDbm, dutyCycle: p.dutyCycle };
+  if (p.reducedTuneUpPowerDbm) {
+    inputs.reducedTuneUpPowerDbm = p.reducedTuneUpPowerDbm;
+    inputs.powerMode = p.powerMode;
+  }
+  inputs.antennaGainDbi = p.antennaGainDbi;
+  inputs.antennaId = s.antennaId;
+  if (p.mimoStreams) inputs.mimoStreams = p.mimoStreams;
+  inputs.frequencyMinHz = s.frequencyMinHz;
+  inputs.frequencyMaxHz = s.frequencyMaxHz;
+  inputs.separationM = s.separationM;
+  inputs.usePositionKind = s.usePositionKind;
+  inputs.regime = s.regime;
+  inputs.tier = s.tier;
+  return inputs;
 }
 
 type RowVerdict = Pick<ScreeningRow, 'method' | 'methodLabel' | 'frequencyHz' | 'evaluatedPowerMw' | 'evaluatedQuantity' | 'result' | 'marginDb' | 'candidates'>;
@@ -256,7 +271,7 @@ function newRow(c: Combination, v: RowVerdict): ScreeningRow {
 
 const EMPTY_DERIVATION: Derivation = { formula: '', inputs: {}, intermediate: {}, result: {}, source: '', notes: [] };
 
-function blanketRow(c: Combination, set: RuleSet): ScreeningRow {
+function blanketRow(c: Combination, set: RuleSet): PendingRow {
   const b = set.blanket!;
   const marginDb = 10 * Math.log10(b.thresholdMw / b.evaluatedPowerMw);
   const d = b.derivation;
@@ -274,15 +289,22 @@ function blanketRow(c: Combination, set: RuleSet): ScreeningRow {
   row.derivation = {
     formula: `${c.powers.formula}; ${d.formula}`,
     inputs: rowInputs(c),
-    intermediate: assignAll({}, c.powers.intermediate, d.intermediate),
+    intermediate: Object.assign({}, c.powers.intermediate, d.intermediate),
     result: { result: q('exempt', 'text'), thresholdMw: q(b.thresholdMw, 'mW'), marginDb: q(marginDb, 'dB') },
     source: d.source,
     notes: [...c.powers.notes, '§1.1307(b)(3)(i)(A) does not depend on frequency or separation: the band is not searched (frequencyHz reports its lower edge).', ...d.notes],
   };
-  return row;
+  return { row, band: null };
 }
 
-function bandRow(c: Combination, set: RuleSet): ScreeningRow {
+/** A row whose derivation is not built yet: only the reported antenna's is (finishRow). */
+interface PendingRow {
+  row: ScreeningRow;
+  /** What bandDerivation needs; null for a row whose derivation is already there (the 1 mW exemption). */
+  band: { c: Combination; set: RuleSet; worst: Probe; probes: Probe[] } | null;
+}
+
+function bandRow(c: Combination, set: RuleSet): PendingRow {
   const { rules, uncovered } = set;
   const { probes, worst } = screenBand(c.tx.frequencyMinHz, c.tx.frequencyMaxHz, rules, uncovered);
   const rule = worst.ruleIndex >= 0 ? rules[worst.ruleIndex] : null;
@@ -324,31 +346,46 @@ function bandRow(c: Combination, set: RuleSet): ScreeningRow {
     row.provisional = true;
     row.provisionalReason = ISED_PROVISIONAL_REASON;
   }
-  // The engine's own derivation of the threshold, merged into the row's.
-  const ruleDerivation = rule && worst.threshold !== null ? rule.explain(worst.frequencyHz) : null;
-  row.derivation = bandDerivation(c, set, row, worst, probes, ruleDerivation);
-  return row;
+  return { row, band: { c, set, worst, probes } };
 }
 
-function bandDerivation(c: Combination, set: RuleSet, row: ScreeningRow, worst: Probe, probes: Probe[], rd: Derivation | null): Derivation {
+/** How the band was searched and which frequency is reported. */
+function bandNote(c: Combination, frequencyHz: number): string {
+  let note = c.bandNotes.get(frequencyHz);
+  if (note === undefined) {
+    note =
+      c.tx.frequencyMinHz === c.tx.frequencyMaxHz
+        ? `Single frequency ${formatHz(frequencyHz)}.`
+        : `Band ${formatHz(c.tx.frequencyMinHz)}–${formatHz(c.tx.frequencyMaxHz)} evaluated at both edges and every breakpoint of the rule inside it; reported: ${formatHz(frequencyHz)}, the most restrictive (worst result, then smallest margin).`;
+    c.bandNotes.set(frequencyHz, note);
+  }
+  return note;
+}
+
+/** How the verdict compares, by kind of rule (the texts do not depend on the row). */
+const VERDICT_UNROUNDED = `exempt if evaluated ≤ threshold, ${UNROUNDED_COMPARISON}; margin = 10·log10(threshold / evaluated) dB`;
+const VERDICT_UNROUNDED_DENSITY = `exempt if S ≤ S_RL, ${UNROUNDED_COMPARISON}; margin = 10·log10(threshold / evaluated) dB`;
+const VERDICT_NO_FORMULA = 'no exemption formula applies: not exempt';
+
+function bandDerivation(c: Combination, set: RuleSet, row: ScreeningRow, worst: Probe, probes: Probe[]): Derivation {
   const rule = worst.ruleIndex >= 0 ? set.rules[worst.ruleIndex] : null;
+  // The engine's own derivation of the threshold, merged into the row's.
+  const rd = rule && worst.threshold !== null ? rule.explain(worst.frequencyHz) : null;
   const unit = rule ? UNIT[rule.kind] : null;
   const notes = [...c.powers.notes, ...set.notes];
-  notes.push(
-    c.tx.frequencyMinHz === c.tx.frequencyMaxHz
-      ? `Single frequency ${formatHz(row.frequencyHz)}.`
-      : `Band ${formatHz(c.tx.frequencyMinHz)}–${formatHz(c.tx.frequencyMaxHz)} evaluated at both edges and every breakpoint of the rule inside it; reported: ${formatHz(row.frequencyHz)}, the most restrictive (worst result, then smallest margin).`,
-  );
-  const others = new Set(probes.filter((p) => p.result !== worst.result).map((p) => p.result));
-  if (others.size) notes.push(`Other parts of the band give: ${[...others].join(', ')} (see candidates).`);
+  notes.push(bandNote(c, row.frequencyHz));
+  // The other results in the band, each once, in the order first met.
+  const others: ScreeningResult[] = [];
+  for (const p of probes) if (p.result !== worst.result && !others.includes(p.result)) others.push(p.result);
+  if (others.length) notes.push(`Other parts of the band give: ${others.join(', ')} (see candidates).`);
   if (worst.reason) notes.push(`Not exempt: ${worst.reason}.`);
   if (row.provisionalReason) notes.push(row.provisionalReason);
   // Parts of the band under another rule (or none) that did not apply: say why, once per rule.
-  const told = new Set([worst.ruleIndex]);
+  const told = [worst.ruleIndex];
   for (const p of probes) {
-    if (!p.reason || told.has(p.ruleIndex)) continue;
+    if (!p.reason || told.includes(p.ruleIndex)) continue;
     notes.push(`Elsewhere in the band: ${p.reason}.`);
-    told.add(p.ruleIndex);
+    told.push(p.ruleIndex);
   }
   if (row.estimatedSarWPerKg !== null) notes.push(`Estimated SAR for simultaneous-transmission sums (KDB 447498 §4.3.2, from memory M): ${fmt(row.estimatedSarWPerKg)} W/kg.`);
   if (rd) notes.push(...rd.notes);
@@ -360,14 +397,16 @@ function bandDerivation(c: Combination, set: RuleSet, row: ScreeningRow, worst: 
       );
     }
   }
-  const intermediate = assignAll({}, c.powers.intermediate);
+  const intermediate = Object.assign({}, c.powers.intermediate);
   intermediate.evaluatedQuantity = q(row.evaluatedQuantity, 'text');
   if (rule) intermediate.evaluatedValue = q(rule.evaluated, unit as string);
   intermediate.mostRestrictiveFrequencyHz = q(row.frequencyHz, 'Hz');
   // Each candidate's threshold, margin and result are in row.candidates.
-  intermediate.candidateFrequenciesHz = q(probes.map((p) => p.frequencyHz).join(', '), 'Hz');
-  if (rd) assignAll(intermediate, rd.inputs, rd.intermediate);
-  const result = rd ? assignAll({}, rd.result) : {};
+  let frequencies = `${probes[0].frequencyHz}`;
+  for (let i = 1; i < probes.length; i++) frequencies += `, ${probes[i].frequencyHz}`;
+  intermediate.candidateFrequenciesHz = q(frequencies, 'Hz');
+  if (rd) Object.assign(intermediate, rd.inputs, rd.intermediate);
+  const result = rd ? Object.assign({}, rd.result) : {};
   result.result = q(row.result, 'text');
   if (worst.threshold !== null && rule) result.threshold = q(worst.threshold, unit as string);
   result.marginDb = q(row.marginDb, 'dB');
@@ -376,8 +415,10 @@ function bandDerivation(c: Combination, set: RuleSet, row: ScreeningRow, worst: 
     rule && worst.threshold !== null
       ? rule.comparisonRule
         ? `exempt by the ${rule.comparisonRule}; margin at that precision, dB`
-        : `exempt if ${rule.kind === 'power-density' ? 'S ≤ S_RL' : 'evaluated ≤ threshold'}, ${UNROUNDED_COMPARISON}; margin = 10·log10(threshold / evaluated) dB`
-      : 'no exemption formula applies: not exempt';
+        : rule.kind === 'power-density'
+          ? VERDICT_UNROUNDED_DENSITY
+          : VERDICT_UNROUNDED
+      : VERDICT_NO_FORMULA;
   return {
     formula: `${c.powers.formula}; ${rd ? rd.formula : row.methodLabel}; ${verdict}`,
     inputs: rowInputs(c),
@@ -413,11 +454,18 @@ export function screenParsed(input: ScreeningInput): ScreeningOutput {
   const gainById = new Map(input.antennas.map((a) => [a.id, a.gainDbi]));
   const rows: ScreeningRow[] = [];
   const gaps: ScreeningGap[] = [];
+  const marketInputs = input.markets.map((m) => ({ regime: q(m.regime, 'text'), tier: q(m.tier, 'text') }));
+  const kindInputs = input.usePositions.map((p) => q(p.kind, 'text'));
   for (const tx of input.transmitters) {
     const antennas = antennasOf(tx);
     const streams = streamsOf(tx);
     const fullPowers = antennas.map((a) => evaluatedPowers(tx.maxTuneUpPowerDbm, tx.dutyCycle, gainById.get(a) as number, streams));
-    for (const position of input.usePositions) {
+    const antennaInputs = antennas.map((a) => q(a, 'text'));
+    const frequencyMinHz = q(tx.frequencyMinHz, 'Hz');
+    const frequencyMaxHz = q(tx.frequencyMaxHz, 'Hz');
+    const bandNotes = new Map<number, string>();
+    for (let positionIndex = 0; positionIndex < input.usePositions.length; positionIndex++) {
+      const position = input.usePositions[positionIndex];
       const mode = powerModeOf(position, tx.id);
       const powersOf = mode
         ? antennas.map((a) => withPowerMode(evaluatedPowers(mode.reducedTuneUpPowerDbm, tx.dutyCycle, gainById.get(a) as number, streams), tx.maxTuneUpPowerDbm, mode))
@@ -429,13 +477,25 @@ export function screenParsed(input: ScreeningInput): ScreeningOutput {
         gaps.push({ transmitterId: tx.id, usePositionId: position.id, message: gapMessage(tx, position, missing) });
         continue;
       }
-      for (const market of input.markets) {
-        let worst: ScreeningRow | null = null;
+      const separationInputs = seps.map((s) => q(s!.separationM, 'm'));
+      for (let marketIndex = 0; marketIndex < input.markets.length; marketIndex++) {
+        const market = input.markets[marketIndex];
+        const { regime, tier } = marketInputs[marketIndex];
+        let worst: PendingRow | null = null;
         const each: ScreeningRow[] = [];
-        antennas.forEach((antennaId, k) => {
+        for (let k = 0; k < antennas.length; k++) {
           const separationM = seps[k]!.separationM;
           const powers = powersOf[k];
-          const c: Combination = { tx, position, market, antennaId, antennaCount: antennas.length, separationM, powers, powerMode };
+          const shared: SharedInputs = {
+            antennaId: antennaInputs[k],
+            frequencyMinHz,
+            frequencyMaxHz,
+            separationM: separationInputs[k],
+            usePositionKind: kindInputs[positionIndex],
+            regime,
+            tier,
+          };
+          const c: Combination = { tx, position, market, antennaId: antennas[k], antennaCount: antennas.length, separationM, powers, powerMode, shared, bandNotes };
           const set = ruleSetFor(market, {
             powers,
             separationM,
@@ -443,11 +503,14 @@ export function screenParsed(input: ScreeningInput): ScreeningOutput {
             tier: market.tier,
             fccSarScreening: market.fccSarScreening ?? 'exemption',
           });
-          const row = set.blanket ? blanketRow(c, set) : bandRow(c, set);
-          each.push(row);
-          if (!worst || antennaWorse(row, worst)) worst = row;
-        });
-        const reported = worst as unknown as ScreeningRow;
+          const pending = set.blanket ? blanketRow(c, set) : bandRow(c, set);
+          each.push(pending.row);
+          if (!worst || antennaWorse(pending.row, worst.row)) worst = pending;
+        }
+        // Only the reported antenna's derivation is built: the others are named in its notes.
+        const reported = worst!.row;
+        const band = worst!.band;
+        if (band) reported.derivation = bandDerivation(band.c, band.set, reported, band.worst, band.probes);
         if (antennas.length > 1) {
           reported.derivation.notes.push(
             `${antennas.length} antennas (${streams > 1 ? `MIMO: ${streams} streams at once, powers added` : 'switched: one at a time'}), each evaluated with its own gain and separation; reported: the least favourable, ${reported.antennaId}. Each antenna — ${each.map(marginWords).join('; ')}.`,

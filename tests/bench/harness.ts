@@ -79,3 +79,55 @@ export function formatResult(r: BenchResult): string {
     `(${under(r.p95Ms!)}); target < ${+r.targetMs.toFixed(3)} ms ${r.judgeBy === 'mean' ? 'mean' : 'at p95'}, ${r.iterations} runs; CPU ${r.cpuMs!.toFixed(3)} ms per run`
   );
 }
+
+export interface SteadyState {
+  runs: number;
+  meanMs: number;
+  medianMs: number;
+  /** Process CPU time per run (all threads, JIT and GC helpers included), ms. */
+  cpuMs: number;
+  /** Garbage-collection pauses during the runs, per run: count and ms. */
+  gcPerRun: number;
+  gcMsPerRun: number;
+}
+
+/**
+ * A synchronous function's figures once the JIT has settled (after `warmup` calls), with the
+ * garbage-collection pauses V8 reports during the runs: on a shared machine p95 is mostly GC and
+ * scheduling, so these say what the code itself costs.
+ */
+export async function steadyState(fn: () => unknown, runs = 300, warmup = 300): Promise<SteadyState> {
+  const { PerformanceObserver } = await import('node:perf_hooks');
+  for (let i = 0; i < warmup; i++) fn();
+  const gcMs: number[] = [];
+  const observer = new PerformanceObserver((list) => {
+    for (const e of list.getEntries()) gcMs.push(e.duration);
+  });
+  observer.observe({ entryTypes: ['gc'] });
+  const samples = new Array<number>(runs);
+  const cpu0 = process.cpuUsage();
+  for (let i = 0; i < runs; i++) {
+    const t0 = process.hrtime.bigint();
+    fn();
+    samples[i] = Number(process.hrtime.bigint() - t0) / 1e6;
+  }
+  const cpu = process.cpuUsage(cpu0);
+  await new Promise((resolve) => setTimeout(resolve, 20)); // GC entries arrive on the event loop, after a timer turn
+  observer.disconnect();
+  samples.sort((a, b) => a - b);
+  return {
+    runs,
+    meanMs: samples.reduce((s, x) => s + x, 0) / runs,
+    medianMs: samples[Math.floor(runs / 2)],
+    cpuMs: (cpu.user + cpu.system) / 1000 / runs,
+    gcPerRun: gcMs.length / runs,
+    gcMsPerRun: gcMs.reduce((s, x) => s + x, 0) / runs,
+  };
+}
+
+export function formatSteadyState(s: SteadyState): string {
+  return (
+    `steady state (${s.runs} runs after the JIT settled): mean ${s.meanMs.toFixed(3)} ms, median ${s.medianMs.toFixed(3)} ms, CPU ${s.cpuMs.toFixed(3)} ms per run; ` +
+    `GC pauses ${s.gcMsPerRun.toFixed(3)} ms per run (${(s.gcPerRun * 100).toFixed(0)} per 100 runs)`
+  );
+}
