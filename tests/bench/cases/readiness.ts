@@ -107,7 +107,7 @@ export const readinessCase: BenchCase = {
 // ---------------------------------------------------------------------------------------------
 // The comparison, from the database.
 
-interface CompareFixture {
+export interface CompareFixture {
   handle: DbHandle;
   dir: string;
   actor: FilingActor;
@@ -132,7 +132,7 @@ function actorFor(handle: DbHandle, email: string): FilingActor {
 }
 
 /** One filing, version 1 signed and version 2 changed. */
-async function compareFixture(): Promise<CompareFixture> {
+export async function compareFixture(): Promise<CompareFixture> {
   {
     const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'fieldfile-bench-'));
     const handle = openDatabase(path.join(dir, 'fieldfile.db'));
