@@ -121,6 +121,8 @@ export interface FeedContext {
   lab(): VersionLabResults | null;
   /** The version's read-back (computed once per context, after the lab results it compares with). */
   readBack(): VersionReadBack;
+  /** The version's evidence list (read once per context: the evidence and read-back feeds both need it). */
+  evidence(): ReturnType<typeof listEvidence>;
 }
 
 /** Which lab checks feed which rules; the rest (power, limit, coverage, uncertainty, co-transmission) have rules of their own. */
@@ -206,7 +208,7 @@ function evidenceFeed(ctx: FeedContext): ReadinessInput['evidence'] {
     screening: ctx.screening && !ctx.data.unsavedSteps.length ? ctx.screening.summary.total : null,
     labResults: { sar: ctx.lab()?.stored ?? 0, mpe: 0 },
   };
-  const required = requiredEvidence(facts, currentEvidence(ctx.db, ctx.versionId), writtenByFieldfile);
+  const required = requiredEvidence(facts, currentEvidence(ctx.db, ctx.versionId, ctx.evidence()), writtenByFieldfile);
   return { required: required.map((r) => ({ category: r.category, label: CATEGORY_BY_ID[r.category].label, present: r.present })) };
 }
 
@@ -278,17 +280,19 @@ export function labDeviceDataOf(v: VersionData): LabDeviceData {
 export function feedContext(db: Db, versionId: number, v: VersionData, screening: VersionScreening | null): FeedContext {
   let lab: VersionLabResults | null | undefined;
   let readBack: VersionReadBack | undefined;
+  let evidence: ReturnType<typeof listEvidence> | undefined;
   const ctx: FeedContext = {
     db,
     versionId,
     data: v,
     screening,
     lab: () => (lab === undefined ? (lab = versionLabResults(db, versionId, labDeviceDataOf(v), { screening, screeningKey: screeningKeyOf(v) })) : lab),
+    evidence: () => (evidence ??= listEvidence(db, versionId)),
     readBack: () => {
       if (readBack) return readBack;
       const { data } = v;
       const numbers = filingNumbersOf(data.device.model, data.radios.transmitters, data['use-positions'].usePositions, ctx.lab()?.results?.highest ?? []);
-      const documents = listEvidence(db, versionId).map((r) => r.row);
+      const documents = ctx.evidence().map((r) => r.row);
       return (readBack = versionReadBack(
         db,
         versionId,
