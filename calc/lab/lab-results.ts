@@ -193,7 +193,24 @@ export const labResultsInput = z.object({
 export type LabResultsInput = z.output<typeof labResultsInput>;
 
 /** The fields of the screening rows that lab results use, picked from the screening output. */
-export function labScreeningRows(rows: readonly ScreeningRow[]): LabResultsInputRaw['screening'] {
+export function labScreeningRows(
+  rows: readonly Pick<
+    ScreeningRow,
+    | 'transmitterId'
+    | 'usePositionId'
+    | 'regime'
+    | 'result'
+    | 'frequencyHz'
+    | 'separationM'
+    | 'powers'
+    | 'evaluatedPowerMw'
+    | 'thresholdMw'
+    | 'thresholdErpW'
+    | 'thresholdEirpW'
+    | 'evaluatedPowerDensityWPerM2'
+    | 'thresholdPowerDensityWPerM2'
+  >[],
+): LabResultsInputRaw['screening'] {
   return rows.map((s) => ({
     transmitterId: s.transmitterId,
     usePositionId: s.usePositionId,

@@ -24,6 +24,7 @@ import { useFilingId } from '../filings/use-filing-id';
 import { Icon } from '../icons';
 import { LoadFailed, Loading } from '../layout/query-states';
 import { Screen } from '../layout/screen';
+import { PackageCard } from '../packages/package-card';
 import { CommentThreads } from '../review/comment-threads';
 import { ReadinessChecklistView, ReadinessCounts } from '../review/readiness-checklist';
 import { RequestReviewAction, ReturnAction, SignAction, StartNextVersionAction } from '../review/review-actions';
@@ -128,6 +129,8 @@ export function FilingReviewScreen() {
         </Text>
         <StepsToRead filing={f} review={rv} />
       </Card>
+      {/* The exhibit as it would go out: a DRAFT preview until the version is signed. */}
+      <PackageCard filingId={id} versionNumber={rv.version.number} />
       <Card
         title="Checklist"
         aside={

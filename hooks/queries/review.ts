@@ -12,6 +12,7 @@ import type { VersionState } from '../../constants/schemas/filings';
 import type { NewThreadInput, ReturnInput, ReviewDto, ReviewThreadDto, SignInput, TimelineEntryDto, VerifyDto } from '../../constants/schemas/review';
 import { apiOrThrow } from '../api-client';
 import { filingKeys } from './filings';
+import { packageKeys } from './packages';
 
 export const reviewKeys = {
   readiness: (id: number) => [...filingKeys.all, 'readiness', id] as const,
@@ -91,11 +92,15 @@ export function useCompareQuery(id: number, from: number, to: number) {
   });
 }
 
-/** After any review action: the filing, its checklist, review and timeline are read again. */
+/**
+ * After any review action: the filing, its checklist, review and timeline are read again, and so
+ * is its package's status (signing turns a DRAFT preview into the signed package).
+ */
 function useInvalidateFiling(id: number) {
   const queryClient = useQueryClient();
   return () => {
     void queryClient.invalidateQueries({ queryKey: filingKeys.all });
+    void queryClient.invalidateQueries({ queryKey: [...packageKeys.all, 'status', id] });
   };
 }
 

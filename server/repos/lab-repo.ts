@@ -14,34 +14,31 @@ export function countMeasurements(db: Db, versionId: number): number {
   return db.select({ n: count() }).from(labMeasurements).where(eq(labMeasurements.versionId, versionId)).get()?.n ?? 0;
 }
 
+/** The columns of a measurement under the row schema's names (one object per row, no second mapping). */
+const MEASUREMENT_COLUMNS = {
+  id: labMeasurements.key,
+  transmitterId: labMeasurements.transmitterKey,
+  usePositionId: labMeasurements.usePositionKey,
+  testPosition: labMeasurements.testPosition,
+  channel: labMeasurements.channel,
+  frequencyHz: labMeasurements.frequencyHz,
+  testSeparationM: labMeasurements.testSeparationM,
+  measuredPowerDbm: labMeasurements.measuredPowerDbm,
+  tuneUpPowerDbm: labMeasurements.tuneUpPowerDbm,
+  testDutyCycle: labMeasurements.testDutyCycle,
+  sar1gWPerKg: labMeasurements.sar1gWPerKg,
+  sar10gWPerKg: labMeasurements.sar10gWPerKg,
+  repeatSarWPerKg: labMeasurements.repeatSarWPerKg,
+  driftDb: labMeasurements.driftDb,
+  testDate: labMeasurements.testDate,
+  peakXMm: labMeasurements.peakXMm,
+  peakYMm: labMeasurements.peakYMm,
+  liquidCheckId: labMeasurements.liquidCheckKey,
+  systemCheckId: labMeasurements.systemCheckKey,
+};
+
 export function readMeasurements(db: Db, versionId: number): Measurement[] {
-  return db
-    .select()
-    .from(labMeasurements)
-    .where(eq(labMeasurements.versionId, versionId))
-    .orderBy(asc(labMeasurements.sortOrder))
-    .all()
-    .map((m) => ({
-      id: m.key,
-      transmitterId: m.transmitterKey,
-      usePositionId: m.usePositionKey,
-      testPosition: m.testPosition,
-      channel: m.channel,
-      frequencyHz: m.frequencyHz,
-      testSeparationM: m.testSeparationM,
-      measuredPowerDbm: m.measuredPowerDbm,
-      tuneUpPowerDbm: m.tuneUpPowerDbm,
-      testDutyCycle: m.testDutyCycle,
-      sar1gWPerKg: m.sar1gWPerKg,
-      sar10gWPerKg: m.sar10gWPerKg,
-      repeatSarWPerKg: m.repeatSarWPerKg,
-      driftDb: m.driftDb,
-      testDate: m.testDate,
-      peakXMm: m.peakXMm,
-      peakYMm: m.peakYMm,
-      liquidCheckId: m.liquidCheckKey,
-      systemCheckId: m.systemCheckKey,
-    }));
+  return db.select(MEASUREMENT_COLUMNS).from(labMeasurements).where(eq(labMeasurements.versionId, versionId)).orderBy(asc(labMeasurements.sortOrder)).all();
 }
 
 export function writeMeasurements(db: Db, versionId: number, rows: Measurement[]) {

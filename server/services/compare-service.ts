@@ -7,7 +7,8 @@ import type { Db } from '../../db/client';
 import type { VersionState } from '../../constants/schemas/filings';
 import type { ComparisonDto, FieldChange, LabMove, MarketMove, ScreeningMove } from '../../constants/schemas/compare';
 import type { ReadinessChecklist, ReadinessInput } from '../../calc/readiness';
-import { summarizeScreening, type ScreeningOutput } from '../../calc/screening/screen';
+import { summarizeScreening } from '../../calc/screening/screen';
+import type { VersionScreening } from './version-screening';
 import { notFound } from '../http-error';
 import * as filingsRepo from '../repos/filings-repo';
 import * as repo from '../repos/review-repo';
@@ -19,7 +20,7 @@ export interface VersionSnapshot {
   number: number;
   state: VersionState;
   data: VersionData;
-  screening: ScreeningOutput | null;
+  screening: VersionScreening | null;
   checklist: ReadinessChecklist;
   lab: ReadinessInput['lab'];
 }
@@ -114,12 +115,12 @@ function fieldChanges(a: VersionData, b: VersionData): FieldChange[] {
   return out;
 }
 
-function screeningMoves(a: ScreeningOutput | null, b: ScreeningOutput | null): ScreeningMove[] {
+function screeningMoves(a: VersionScreening | null, b: VersionScreening | null): ScreeningMove[] {
   const key = (r: { transmitterId: string; usePositionId: string; regime: string }) => `${r.transmitterId}|${r.usePositionId}|${r.regime}`;
   const ra = new Map((a?.rows ?? []).map((r) => [key(r), r]));
   const rb = new Map((b?.rows ?? []).map((r) => [key(r), r]));
   const out: ScreeningMove[] = [];
-  const pick = (r: ScreeningOutput['rows'][number] | undefined) => (r ? { result: r.result, marginDb: r.marginDb } : null);
+  const pick = (r: VersionScreening['rows'][number] | undefined) => (r ? { result: r.result, marginDb: r.marginDb } : null);
   for (const k of new Set([...ra.keys(), ...rb.keys()])) {
     const x = ra.get(k);
     const y = rb.get(k);
@@ -132,7 +133,7 @@ function screeningMoves(a: ScreeningOutput | null, b: ScreeningOutput | null): S
   return out;
 }
 
-function marketMoves(a: ScreeningOutput | null, b: ScreeningOutput | null): MarketMove[] {
+function marketMoves(a: VersionScreening | null, b: VersionScreening | null): MarketMove[] {
   const sa = summarizeScreening(a?.rows ?? []).byRegime;
   const sb = summarizeScreening(b?.rows ?? []).byRegime;
   const zero = { combinations: 0, exempt: 0, needsEvaluation: 0 };

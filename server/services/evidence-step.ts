@@ -41,10 +41,9 @@ export function evidenceFactsOf(f: FilingData, labSar = 0): EvidenceFacts {
 }
 
 /** The version's current (not replaced) evidence, by category. */
-export function currentEvidence(db: Db, versionId: number) {
-  return listEvidence(db, versionId)
-    .filter((r) => r.row.replacedById === null)
-    .map((r) => ({ id: r.row.id, category: r.row.category }));
+/** The version's current (not replaced) evidence; `rows`: its evidence list when the caller has read it already. */
+export function currentEvidence(db: Db, versionId: number, rows: ReturnType<typeof listEvidence> = listEvidence(db, versionId)) {
+  return rows.filter((r) => r.row.replacedById === null).map((r) => ({ id: r.row.id, category: r.row.category }));
 }
 
 export const writtenByFieldfile = (c: keyof typeof CATEGORY_BY_ID) => !!CATEGORY_BY_ID[c].writtenByFieldfile;

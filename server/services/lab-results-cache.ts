@@ -4,20 +4,49 @@
  * versions all ask for the same results on every read, and a 500-measurement filing takes tens
  * of milliseconds to compute. The key is the SHA-256 of the engine's parsed input with the engine
  * and rule-set versions, so a cached result is exactly what a fresh computation would return.
+ * What is kept leaves out the derivations (the Lab results step and the exhibit read the stored
+ * results, derivations included): none of these readers shows one, and the derivations are most of
+ * a result's memory, which otherwise outlives the request in the cache and is copied by every
+ * young-generation collection until promoted.
  */
 import { createHash } from 'node:crypto';
 import type { Db } from '../../db/client';
 import type { LabData } from '../../constants/schemas/lab';
 import { CalcRangeError } from '../../calc/types';
 import { ENGINE_VERSION, RULE_SET_VERSION } from '../../calc/versions';
-import { computeLabResults, labResultsInput, labScreeningRows, type LabResults, type LabResultsInputRaw } from '../../calc/lab/lab-results';
-import type { ScreeningOutput } from '../../calc/screening/screen';
+import {
+  computeLabResults,
+  labResultsInput,
+  labScreeningRows,
+  type CoTransmissionResult,
+  type LabResults,
+  type LabResultsInputRaw,
+  type LabRow,
+  type UncertaintySummary,
+} from '../../calc/lab/lab-results';
+import type { VersionScreening } from './version-screening';
 import * as labRepo from '../repos/lab-repo';
 import { ByteLru } from './result-cache';
 
 /** How many distinct inputs are kept (a few filings' versions being read and compared); each counts as one. */
 const CACHE_ENTRIES = 24;
-const cache = new ByteLru<LabResults | { error: string }>(CACHE_ENTRIES, () => 1);
+const cache = new ByteLru<VersionLabResultsData | { error: string }>(CACHE_ENTRIES, () => 1);
+
+/** The lab results without their derivations: every figure, check and verdict, none of the working. */
+export interface VersionLabResultsData extends Omit<LabResults, 'rows' | 'coTransmission' | 'uncertainty'> {
+  rows: Omit<LabRow, 'derivation'>[];
+  coTransmission: Omit<CoTransmissionResult, 'derivation'>[];
+  uncertainty: Omit<UncertaintySummary, 'derivation'>;
+}
+
+function withoutDerivations({ rows, coTransmission, uncertainty: { derivation: _u, ...uncertainty }, ...rest }: LabResults): VersionLabResultsData {
+  return {
+    ...rest,
+    rows: rows.map(({ derivation: _d, ...row }) => row),
+    coTransmission: coTransmission.map(({ derivation: _d, ...c }) => c),
+    uncertainty,
+  };
+}
 
 /** The parts of a version's device data the lab results read. */
 export interface LabDeviceData {
@@ -38,7 +67,7 @@ export interface OrphanMeasurement {
 
 export interface VersionLabResults {
   /** Null when the engine refused the data (a value out of its range); `error` says why. */
-  results: LabResults | null;
+  results: VersionLabResultsData | null;
   error?: string;
   /** Measurements left out because they name ids the device data does not have. */
   orphans: OrphanMeasurement[];
@@ -64,7 +93,7 @@ export function versionLabResults(
   versionId: number,
   device: LabDeviceData,
   /** The version's screening and the key of its input (the same input gives the same rows). */
-  { screening, screeningKey }: { screening: ScreeningOutput | null; screeningKey: string },
+  { screening, screeningKey }: { screening: VersionScreening | null; screeningKey: string },
   lab: LabData = labRepo.readLabData(db, versionId),
 ): VersionLabResults | null {
   if (!screening && !hasLabData(lab)) return null;
@@ -94,7 +123,7 @@ export function versionLabResults(
   // input (hashed instead of the 480 rows), and validating 500 rows is most of a hit's cost.
   const key = createHash('sha256').update(`${ENGINE_VERSION}\u0000${RULE_SET_VERSION}\u0000${screeningKey}\u0000`).update(JSON.stringify(raw)).digest('hex');
   const results = cache.get(key) ?? cache.set(key, compute());
-  function compute(): LabResults | { error: string } {
+  function compute(): VersionLabResultsData | { error: string } {
     const parsed = labResultsInput.safeParse({ ...raw, screening: screening ? labScreeningRows(screening.rows) : [] });
     if (!parsed.success) {
       const first = parsed.error.issues[0];
@@ -102,7 +131,7 @@ export function versionLabResults(
     }
     try {
       const { derivation: _d, ...out } = computeLabResults(parsed.data);
-      return out;
+      return withoutDerivations(out);
     } catch (err) {
       if (!(err instanceof CalcRangeError)) throw err;
       return { error: err.message };

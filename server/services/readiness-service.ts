@@ -19,7 +19,7 @@ import {
 import type { CoTransmissionResult, LabCheck } from '../../calc/lab/lab-results';
 import { CATEGORY_BY_ID } from '../../constants/schemas/evidence';
 import { screeningInput, type ScreeningInput } from '../../calc/screening/input';
-import { screenParsed, type ScreeningOutput } from '../../calc/screening/screen';
+import { screenParsed } from '../../calc/screening/screen';
 import { ENGINE_VERSION, RULE_SET_VERSION } from '../../calc/versions';
 import * as filingsRepo from '../repos/filings-repo';
 import * as reviewRepo from '../repos/review-repo';
@@ -28,6 +28,7 @@ import { deviceStepOf } from './filings-service';
 import { requiredEvidence, type EvidenceFacts } from './evidence-required';
 import { currentEvidence, writtenByFieldfile } from './evidence-step';
 import { ByteLru } from './result-cache';
+import { versionScreeningOf, type VersionScreening } from './version-screening';
 import { clearLabResultsCache, versionLabResults, type LabDeviceData, type VersionLabResults } from './lab-results-cache';
 import { filingNumbersOf, versionReadBack, type VersionReadBack } from './version-readback';
 
@@ -67,22 +68,27 @@ export function screeningInputOf(v: VersionData): ScreeningInput | null {
 }
 
 /** Screenings of recent inputs: the same input always screens the same (key: its hash and the engine's versions). */
-const screeningCache = new ByteLru<ScreeningOutput>(24, () => 1);
-const screeningKeys = new WeakMap<VersionData, string>();
+const screeningCache = new ByteLru<VersionScreening>(24, () => 1);
+/** A version's parsed screening input and its key, worked out once per read of the version. */
+const screeningInputs = new WeakMap<VersionData, { input: ScreeningInput | null; key: string }>();
 
-/** The hash of a version's screening input ("none" when it cannot be screened). */
-export function screeningKeyOf(v: VersionData): string {
-  let key = screeningKeys.get(v);
-  if (key === undefined) {
+function screeningInputAndKey(v: VersionData): { input: ScreeningInput | null; key: string } {
+  let entry = screeningInputs.get(v);
+  if (!entry) {
     const input = screeningInputOf(v);
-    key = input
+    const key = input
       ? createHash('sha256')
           .update(`${ENGINE_VERSION}\u0000${RULE_SET_VERSION}\u0000${JSON.stringify(input)}`)
           .digest('hex')
       : 'none';
-    screeningKeys.set(v, key);
+    screeningInputs.set(v, (entry = { input, key }));
   }
-  return key;
+  return entry;
+}
+
+/** The hash of a version's screening input ("none" when it cannot be screened). */
+export function screeningKeyOf(v: VersionData): string {
+  return screeningInputAndKey(v).key;
 }
 
 /** Forgets the cached screenings and lab results (benchmarks time a cold read with it). */
@@ -91,12 +97,11 @@ export function clearReadinessCaches(): void {
   clearLabResultsCache();
 }
 
-/** The screening of a version's data (pure; the same engine the Screening step uses). */
-export function screenVersion(v: VersionData): ScreeningOutput | null {
-  const input = screeningInputOf(v);
+/** The screening of a version's data, without the working (the same engine the Screening step uses). */
+export function screenVersion(v: VersionData): VersionScreening | null {
+  const { input, key } = screeningInputAndKey(v);
   if (!input) return null;
-  const key = screeningKeyOf(v);
-  return screeningCache.get(key) ?? screeningCache.set(key, screenParsed(input));
+  return screeningCache.get(key) ?? screeningCache.set(key, versionScreeningOf(screenParsed(input)));
 }
 
 /**
@@ -114,11 +119,13 @@ export interface FeedContext {
   db: Db;
   versionId: number;
   data: VersionData;
-  screening: ScreeningOutput | null;
+  screening: VersionScreening | null;
   /** The version's lab results (computed once per context). */
   lab(): VersionLabResults | null;
   /** The version's read-back (computed once per context, after the lab results it compares with). */
   readBack(): VersionReadBack;
+  /** The version's evidence list (read once per context: the evidence and read-back feeds both need it). */
+  evidence(): ReturnType<typeof listEvidence>;
 }
 
 /** Which lab checks feed which rules; the rest (power, limit, coverage, uncertainty, co-transmission) have rules of their own. */
@@ -204,7 +211,7 @@ function evidenceFeed(ctx: FeedContext): ReadinessInput['evidence'] {
     screening: ctx.screening && !ctx.data.unsavedSteps.length ? ctx.screening.summary.total : null,
     labResults: { sar: ctx.lab()?.stored ?? 0, mpe: 0 },
   };
-  const required = requiredEvidence(facts, currentEvidence(ctx.db, ctx.versionId), writtenByFieldfile);
+  const required = requiredEvidence(facts, currentEvidence(ctx.db, ctx.versionId, ctx.evidence()), writtenByFieldfile);
   return { required: required.map((r) => ({ category: r.category, label: CATEGORY_BY_ID[r.category].label, present: r.present })) };
 }
 
@@ -274,20 +281,22 @@ export function labDeviceDataOf(v: VersionData): LabDeviceData {
   };
 }
 
-export function feedContext(db: Db, versionId: number, v: VersionData, screening: ScreeningOutput | null): FeedContext {
+export function feedContext(db: Db, versionId: number, v: VersionData, screening: VersionScreening | null): FeedContext {
   let lab: VersionLabResults | null | undefined;
   let readBack: VersionReadBack | undefined;
+  let evidence: ReturnType<typeof listEvidence> | undefined;
   const ctx: FeedContext = {
     db,
     versionId,
     data: v,
     screening,
     lab: () => (lab === undefined ? (lab = versionLabResults(db, versionId, labDeviceDataOf(v), { screening, screeningKey: screeningKeyOf(v) })) : lab),
+    evidence: () => (evidence ??= listEvidence(db, versionId)),
     readBack: () => {
       if (readBack) return readBack;
       const { data } = v;
       const numbers = filingNumbersOf(data.device.model, data.radios.transmitters, data['use-positions'].usePositions, ctx.lab()?.results?.highest ?? []);
-      const documents = listEvidence(db, versionId).map((r) => r.row);
+      const documents = ctx.evidence().map((r) => r.row);
       return (readBack = versionReadBack(
         db,
         versionId,
@@ -300,7 +309,7 @@ export function feedContext(db: Db, versionId: number, v: VersionData, screening
   return ctx;
 }
 
-export function readinessInput(db: Db, versionId: number, v: VersionData, screening: ScreeningOutput | null): ReadinessInput {
+export function readinessInput(db: Db, versionId: number, v: VersionData, screening: VersionScreening | null): ReadinessInput {
   const { data } = v;
   const ctx = feedContext(db, versionId, v, screening);
   return {
@@ -327,7 +336,7 @@ export function readinessInput(db: Db, versionId: number, v: VersionData, screen
 
 export interface VersionReadiness {
   checklist: ReadinessChecklist;
-  screening: ScreeningOutput | null;
+  screening: VersionScreening | null;
   input: ReadinessInput;
 }
 

@@ -96,6 +96,8 @@ describe.each([
       await screenshot(page, `review-comment-${size}`);
       await page.goto(`${server.baseUrl}/filings/${id}/review`);
       await page.getByTestId('return-form').waitFor();
+      // The exhibit as it would go out, a DRAFT preview while the version is unsigned.
+      await expect(page.getByTestId('package-card').textContent()).resolves.toContain('DRAFT preview');
       // Every step to read in place, read-only, with its comments.
       await page.getByTestId('read-step-radios-toggle').click();
       await page.getByTestId('read-step-radios').getByTestId('step-read-only').waitFor();
@@ -146,6 +148,10 @@ describe.each([
       expect(await text(page, 'signature-hash-v1')).toMatch(/SHA-256 [0-9a-f]{64}/);
       await page.getByTestId('signature-v1').scrollIntoViewIfNeeded();
       await screenshot(page, `review-signed-${size}`);
+      // The package on the review page now builds the signed exhibit, without DRAFT.
+      await page.getByTestId('package-card').filter({ hasText: 'Signed version' }).waitFor();
+      await page.getByTestId('package-card').scrollIntoViewIfNeeded();
+      await screenshot(page, `review-signed-package-${size}`);
 
       // Editing the signed filing starts version 2; the changed power shows in the comparison.
       await switchTo(page, 'specialist@fieldfile.test');

@@ -4,9 +4,10 @@
  * schema, so a new table with a `version_id` (or one hanging off such a table) fails here until
  * it gets its triggers (DEVELOPERS.md, "Signed versions are frozen") and its place in the hash.
  */
-import { afterAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { openDatabase } from '../../db/client';
 import { applyMigrations } from '../../db/migrate';
+import { seedDemo } from '../../seeds';
 import { VERSION_CONTENT_TABLES, VERSION_DERIVED_TABLES, VERSION_REVIEW_TABLES } from '../../server/repos/review-repo';
 
 // Opened while the tests are collected: the table list decides which tests exist.
@@ -62,6 +63,50 @@ describe('signed versions are frozen in every table that belongs to a version', 
         .join('\n');
       expect(sqls).toMatch(/BEFORE UPDATE/);
       expect(sqls).toMatch(/BEFORE DELETE/);
+    }
+  });
+});
+
+/**
+ * The triggers at work, not only their text: a signed version with rows in the wizard's, the
+ * lab's and the review's tables (the demo tracker, whose lab data is seeded), each of its rows
+ * touched with raw SQL, as someone with the database file would.
+ */
+describe('raw SQL against a signed version’s rows is refused, table by table', () => {
+  const s = { handle: openDatabase(':memory:'), versionId: 0 };
+  beforeAll(async () => {
+    applyMigrations(s.handle.db);
+    await seedDemo(s.handle.db, 'frozen-tables-password-1');
+    s.versionId = (s.handle.sqlite.prepare('select min(id) as id from filing_versions').get() as { id: number }).id;
+    s.handle.sqlite.prepare("update filing_versions set state = 'signed' where id = ?").run(s.versionId);
+  });
+  afterAll(() => s.handle.sqlite.close());
+
+  /** The rows of the signed version in a table: by its own version_id, or through the version table its foreign key names. */
+  function scope(table: string): string | null {
+    if (columns(table).includes('version_id')) return `version_id = ${s.versionId}`;
+    const fk = (t.handle.sqlite.prepare('select "table", "from" from pragma_foreign_key_list(?)').all(table) as { table: string; from: string }[]).find((f) => columns(f.table).includes('version_id'));
+    return fk ? `"${fk.from}" in (select id from "${fk.table}" where version_id = ${s.versionId})` : null;
+  }
+  const withRows = () =>
+    versionTables().filter((table) => {
+      const where = scope(table);
+      return where !== null && (s.handle.sqlite.prepare(`select count(*) as n from "${table}" where ${where}`).get() as { n: number }).n > 0;
+    });
+  const count = (table: string) => (s.handle.sqlite.prepare(`select count(*) as n from "${table}" where ${scope(table)}`).get() as { n: number }).n;
+
+  it('the signed version has rows in the wizard’s and the lab’s tables', () => {
+    expect(withRows()).toEqual(expect.arrayContaining(['antennas', 'transmitters', 'use_positions', 'use_position_separations', 'lab_measurements', 'lab_liquid_checks', 'lab_instruments']));
+  });
+
+  it('UPDATE (even to the same value) and DELETE are refused in every one of them, and no row changes', () => {
+    const tables = withRows();
+    for (const table of tables) {
+      const column = columns(table).find((c) => c !== 'id' && c !== 'version_id')!;
+      const before = count(table);
+      expect(() => s.handle.sqlite.prepare(`update "${table}" set "${column}" = "${column}" where ${scope(table)}`).run(), `${table}: UPDATE`).toThrow(/signed version is frozen/);
+      expect(() => s.handle.sqlite.prepare(`delete from "${table}" where ${scope(table)}`).run(), `${table}: DELETE`).toThrow(/signed version is frozen/);
+      expect(count(table), table).toBe(before);
     }
   });
 });

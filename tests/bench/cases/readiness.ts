@@ -30,7 +30,9 @@ import { seedDemo } from '../../../seeds';
 import { compareVersions } from '../../../server/services/compare-service';
 import { importDeviceFile, saveStep, type FilingActor } from '../../../server/services/filings-service';
 import { replaceLabSet } from '../../../server/services/lab-service';
-import { clearReadinessCaches, labFeed } from '../../../server/services/readiness-service';
+import { clearReadinessCaches, labDeviceDataOf, labFeed, readVersionData, screeningInputOf } from '../../../server/services/readiness-service';
+import { findVersion } from '../../../server/repos/review-repo';
+import { readLabData } from '../../../server/repos/lab-repo';
 import { startNextVersion } from '../../../server/services/review-service';
 import type { BenchCase } from '../harness';
 import { benchMeasurements } from './lab';
@@ -107,7 +109,7 @@ export const readinessCase: BenchCase = {
 // ---------------------------------------------------------------------------------------------
 // The comparison, from the database.
 
-interface CompareFixture {
+export interface CompareFixture {
   handle: DbHandle;
   dir: string;
   actor: FilingActor;
@@ -132,7 +134,7 @@ function actorFor(handle: DbHandle, email: string): FilingActor {
 }
 
 /** One filing, version 1 signed and version 2 changed. */
-async function compareFixture(): Promise<CompareFixture> {
+export async function compareFixture(): Promise<CompareFixture> {
   {
     const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'fieldfile-bench-'));
     const handle = openDatabase(path.join(dir, 'fieldfile.db'));
@@ -166,6 +168,45 @@ async function compareFixture(): Promise<CompareFixture> {
 
 const compareSummary: string[] = [];
 
+/** CPU ms per call (user + system) after a few untimed calls, so the JIT has compiled it. */
+const cpuMsOf = (fn: () => unknown, n: number) => {
+  for (let i = 0; i < 3; i++) fn();
+  const cpu0 = process.cpuUsage();
+  for (let i = 0; i < n; i++) fn();
+  const cpu = process.cpuUsage(cpu0);
+  return (cpu.user + cpu.system) / 1000 / n;
+};
+
+/**
+ * The engine's share of a cold comparison: both versions' screening and lab results computed
+ * alone from the same (already validated) inputs, CPU ms per comparison. What the comparison
+ * spends beyond it is the services' part: reads, validation, hashing, the checklist feeds and
+ * rules, the diff, and the collections of what they allocate.
+ */
+function engineShare(f: CompareFixture, n: number): { screeningMs: number; labMs: number } {
+  const inputs = [1, 2].map((number) => {
+    const version = findVersion(f.handle.db, f.filingId, number)!;
+    const data = readVersionData(f.handle.db, version, 0);
+    const screening = screeningInputOf(data)!;
+    const device = labDeviceDataOf(data);
+    const lab = readLabData(f.handle.db, version.id);
+    const labInput = labResultsInput.parse({
+      ...device,
+      screening: labScreeningRows(screenParsed(screening).rows),
+      measurements: lab.measurements,
+      liquidChecks: lab.liquidChecks,
+      systemChecks: lab.systemChecks,
+      instruments: lab.instruments,
+      uncertainty: lab.components,
+    });
+    return { screening, labInput };
+  });
+  return {
+    screeningMs: cpuMsOf(() => inputs.forEach((i) => screenParsed(i.screening)), n),
+    labMs: cpuMsOf(() => inputs.forEach((i) => computeLabResults(i.labInput)), n),
+  };
+}
+
 function compareCase(cold: boolean): BenchCase {
   let release: (() => void) | undefined;
   let cpuNote = '';
@@ -193,10 +234,14 @@ function compareCase(cold: boolean): BenchCase {
       }
       // CPU time per call (user + system), which a busy machine inflates less than the wall clock.
       const n = cold ? 10 : 30;
-      const cpu0 = process.cpuUsage();
-      for (let i = 0; i < n; i++) run();
-      const cpu = process.cpuUsage(cpu0);
-      cpuNote = `CPU time per call: ${((cpu.user + cpu.system) / 1000 / n).toFixed(1)} ms (mean of ${n})`;
+      const perCallMs = cpuMsOf(run, n);
+      cpuNote = `CPU time per call: ${perCallMs.toFixed(1)} ms (mean of ${n})`;
+      if (cold) {
+        const { screeningMs, labMs } = engineShare(f, n);
+        cpuNote += `; of it the engine alone (both versions, same inputs): screening ${screeningMs.toFixed(1)} ms + lab results ${labMs.toFixed(1)} ms = ${(screeningMs + labMs).toFixed(
+          1,
+        )} ms, services ${(perCallMs - screeningMs - labMs).toFixed(1)} ms (reads, validation, hashes, checklist, diff, collections)`;
+      }
       return run;
     },
     teardown: () => release?.(),
