@@ -13,6 +13,12 @@ import { pipeline } from 'node:stream/promises';
 import { HEAD_BYTES, ObjectNotFoundError, ObjectTooLargeError, isSha256, type ByteStorage, type PutOptions, type StoredObject, type SweepReport } from './byte-storage';
 
 const TMP = '.tmp';
+/**
+ * What a put may hold ahead of the disk. With the stream default (16 KB) the source paused after
+ * every chunk until its write was done, so hashing and producing the next chunk never overlapped
+ * a write; 4 MB keeps a write in flight while they run (a package of a gigabyte is mostly writes).
+ */
+const WRITE_BUFFER_BYTES = 4 << 20;
 
 /** Hashes, counts and keeps the head of what passes through; errors past maxBytes. */
 class Meter extends Transform {
@@ -59,7 +65,7 @@ export function createLocalDiskStorage(root: string): ByteStorage {
       const tmp = path.join(tmpDir, `${Date.now()}-${randomBytes(8).toString('hex')}`);
       const meter = new Meter(options.maxBytes ?? Number.POSITIVE_INFINITY);
       try {
-        const out = fs.createWriteStream(tmp, { flags: 'wx', mode: 0o640 });
+        const out = fs.createWriteStream(tmp, { flags: 'wx', mode: 0o640, highWaterMark: WRITE_BUFFER_BYTES });
         // A source that closes without ending (a dropped connection) must fail the put, not hang.
         await pipeline(source, meter, out);
         const handle = await fsp.open(tmp, 'r');
@@ -86,11 +92,11 @@ export function createLocalDiskStorage(root: string): ByteStorage {
       }
     },
 
-    async get(sha256) {
+    async get(sha256, options = {}) {
       const file = objectPath(sha256);
       try {
         const handle = await fsp.open(file, 'r');
-        return handle.createReadStream();
+        return handle.createReadStream(options.chunkBytes ? { highWaterMark: options.chunkBytes } : {});
       } catch {
         throw new ObjectNotFoundError(sha256);
       }

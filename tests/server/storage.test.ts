@@ -60,6 +60,18 @@ describe('local-disk byte storage', () => {
     expect(stored.head).toHaveLength(4100);
   });
 
+  it('reads in the chunk size asked for (the package build reads evidence in large chunks)', async () => {
+    const bytes = Buffer.alloc(1 << 20, 7);
+    const { sha256 } = await storage.put(Readable.from([bytes]));
+    const sizes = async (stream: Readable) => {
+      const out: number[] = [];
+      for await (const chunk of stream) out.push((chunk as Buffer).length);
+      return out;
+    };
+    expect(await sizes(await storage.get(sha256, { chunkBytes: 256 << 10 }))).toEqual([262144, 262144, 262144, 262144]);
+    expect(Math.max(...(await sizes(await storage.get(sha256))))).toBe(64 << 10);
+  });
+
   it('keeps nothing when the stream is longer than maxBytes', async () => {
     await expect(storage.put(Readable.from([Buffer.alloc(600), Buffer.alloc(600)]), { maxBytes: 1000 })).rejects.toBeInstanceOf(ObjectTooLargeError);
     expect(filesUnder(root)).toEqual([]);
