@@ -3,7 +3,7 @@
  * package build). Every read buffer is memory outside the JS heap that V8 frees only when a
  * collection runs; with large buffers and few JS objects, that is when tens of megabytes of dead
  * buffers have piled up (V8 waits for its external-memory limit), and the process keeps the pages.
- * A gigabyte's package build peaked about 20 MB lower with a scavenge every 8 MB streamed, which
+ * A gigabyte's package build peaked about 20 MB lower with a scavenge every 4 MB streamed, which
  * costs well under a millisecond each when almost nothing in the young generation is alive
  * (`npm run bench -- "package build"`).
  *

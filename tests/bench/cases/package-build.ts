@@ -70,7 +70,7 @@ type ChildResult = {
   maxRssMb: number;
   rssBeforeMb: number;
   renderMaxRssMb: number;
-  renders: Record<'pdf' | 'docx', { ms: number; endMs: number; cpuMs?: number }>;
+  renders: Record<'pdf' | 'docx', { ms: number; endMs: number; cpuMs?: number; maxRssMb?: number }>;
   evidenceMs: number;
   apart: { readMs: number; crcMs: number; deflateMs: number; sha256Ms: number; writeMs: number; fsyncMs: number };
 };
@@ -174,10 +174,10 @@ export const packageBuildCase: BenchCase = {
         `build (exhibit PDF + DOCX + CSV + zip into byte storage, hashed and fsynced): ${results.map((x) => s1(x.ms)).join(', ')} s; zip -0 -r on the same files: ${zips.map((z) => s1(z.ms)).join(', ')} s (alternating, zip first and last)`,
         `${ratio <= RATIO_TARGET ? 'OK  ' : 'SLOW'}  ratio build / zip -0 -r = ${ratio.toFixed(2)} (medians; target ≤ ${RATIO_TARGET})`,
         `CPU time: build process ${results.map((x) => s1(x.cpuMs)).join(', ')} s + render processes ${results.map((x) => s1(renderCpuMs(x))).join(', ')} s; zip ${zips.map((z) => s1(z.cpuMs)).join(', ')} s`,
-        `the zip had taken the last evidence file at ${s1(r.evidenceMs)} s; the exhibit rendered meanwhile in child processes: PDF ${s1(r.renders.pdf.ms)} s, then DOCX ${s1(r.renders.docx.ms)} s (done at ${s1(r.renders.docx.endMs)} s)`,
+        `the zip had taken the last evidence file at ${s1(r.evidenceMs)} s; the exhibit rendered meanwhile, in two child processes at once: PDF ${s1(r.renders.pdf.ms)} s, DOCX ${s1(r.renders.docx.ms)} s (both done at ${s1(Math.max(r.renders.pdf.endMs, r.renders.docx.endMs))} s)`,
         `the build's steps on the same bytes, each alone: read evidence ${s1(a.readMs)} s, CRC-32 ${s1(a.crcMs)} s, deflate of the text files ${s1(a.deflateMs)} s, SHA-256 of the zip ${s1(a.sha256Ms)} s, write the zip ${s1(a.writeMs)} s, fsync ${s1(a.fsyncMs)} s`,
         `${maxRssMb < RSS_TARGET_MB ? 'OK  ' : 'OVER'}  peak RSS of the build process: ${maxRssMb.toFixed(0)} MB (target < ${RSS_TARGET_MB} MB; the larger of ${builds} builds); up to ${rssBeforeMb.toFixed(0)} MB of it before the build began (Node, tsx and the app's modules)`,
-        `${renderMaxRssMb < RSS_TARGET_MB ? 'OK  ' : 'OVER'}  peak RSS of the exhibit render processes (PDF, then DOCX; separate from the server): ${renderMaxRssMb.toFixed(0)} MB`,
+        `${renderMaxRssMb < RSS_TARGET_MB ? 'OK  ' : 'OVER'}  peak RSS of the exhibit render processes (separate from the server, running at the same time): PDF ${(r.renders.pdf.maxRssMb ?? 0).toFixed(0)} MB, DOCX ${(r.renders.docx.maxRssMb ?? 0).toFixed(0)} MB; the larger over all builds ${renderMaxRssMb.toFixed(0)} MB`,
       ];
     };
   },
