@@ -34,8 +34,8 @@ export interface ByteStorage {
   put(source: Readable, options?: PutOptions): Promise<StoredObject>;
   /**
    * A stream of the stored bytes; rejects with ObjectNotFoundError when there is none.
-   * `chunkBytes` is the size of each read (the package build streams a gigabyte through in
-   * 1 MB reads; the default suits downloads and sniffing).
+   * `chunkBytes` is the size of each read (the package build streams up to gigabytes through in
+   * larger reads; the default suits downloads and sniffing).
    */
   get(sha256: string, options?: { chunkBytes?: number }): Promise<Readable>;
   exists(sha256: string): Promise<boolean>;

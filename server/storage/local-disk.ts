@@ -14,10 +14,10 @@ import { HEAD_BYTES, ObjectNotFoundError, ObjectTooLargeError, isSha256, type By
 
 const TMP = '.tmp';
 /**
- * What a put may hold ahead of the disk. With the stream default (16 KB) the source paused after
- * every chunk until its write was done, so hashing and producing the next chunk never overlapped
- * a write; 2 MB keeps a write in flight while they run (a package of a gigabyte is mostly
- * writes). 4 MB was no faster and held more memory.
+ * What a put may hold ahead of the disk. With the stream default (16 KB) the source pauses after
+ * every chunk until its write is done, so hashing and producing the next chunk cannot overlap a
+ * write; 2 MB lets them run while a write is in flight (a package of a gigabyte is mostly
+ * writes). 4 MB held more memory for no gain the shared machine could measure.
  */
 const WRITE_BUFFER_BYTES = 2 << 20;
 
