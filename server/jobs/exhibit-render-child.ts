@@ -19,7 +19,10 @@ process.once('message', (req: RenderRequest) => {
   };
   const reply = (r: RenderReply, code: number) => process.send!(r, () => process.exit(code));
   render().then(
-    (bytes) => reply({ ok: true, bytes, maxRssMb: process.resourceUsage().maxRSS / 1024 }, 0),
+    (bytes) => {
+      const usage = process.resourceUsage();
+      reply({ ok: true, bytes, maxRssMb: usage.maxRSS / 1024, cpuMs: (usage.userCPUTime + usage.systemCPUTime) / 1000 }, 0);
+    },
     (err: unknown) => reply({ ok: false, error: err instanceof Error ? (err.stack ?? err.message) : String(err) }, 1),
   );
 });

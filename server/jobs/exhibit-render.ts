@@ -18,12 +18,14 @@ export interface RenderRequest {
   producer: string;
 }
 
-export type RenderReply = { ok: true; bytes: Uint8Array; maxRssMb: number } | { ok: false; error: string };
+export type RenderReply = { ok: true; bytes: Uint8Array; maxRssMb: number; cpuMs: number } | { ok: false; error: string };
 
 export interface Rendered {
   bytes: Buffer;
   /** The child's peak resident memory (for the bench). */
   maxRssMb: number;
+  /** The child's CPU time, user + system, start-up included (for the bench). */
+  cpuMs: number;
 }
 
 const ext = path.extname(__filename);
@@ -51,7 +53,7 @@ export function renderInChild(document: ExhibitDocument, model: ExhibitModel, pr
     child.on('message', (reply: RenderReply) =>
       settle(() =>
         reply.ok
-          ? resolve({ bytes: Buffer.from(reply.bytes.buffer, reply.bytes.byteOffset, reply.bytes.byteLength), maxRssMb: reply.maxRssMb })
+          ? resolve({ bytes: Buffer.from(reply.bytes.buffer, reply.bytes.byteOffset, reply.bytes.byteLength), maxRssMb: reply.maxRssMb, cpuMs: reply.cpuMs })
           : reject(new Error(`Rendering the exhibit ${document.toUpperCase()} failed: ${reply.error}`)),
       ),
     );

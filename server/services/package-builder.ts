@@ -8,11 +8,13 @@
  */
 import { createHash } from 'node:crypto';
 import fs from 'node:fs';
+import { performance } from 'node:perf_hooks';
 import { Readable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
 import { ZipArchive } from 'archiver';
 import { renderInChild, type ExhibitDocument } from '../jobs/exhibit-render';
 import { useNativeCrc32 } from './zip-crc32';
+import { youngCollectionEvery } from './young-generation';
 import { labCsv, screeningCsv } from '../../templates/exhibit/csv';
 import type { AssembledExhibit } from './exhibit-service';
 
@@ -20,6 +22,14 @@ useNativeCrc32();
 
 export const PACKAGE_FORMAT = 'fieldfile.package/1';
 const FILE_MODE = 0o644;
+/**
+ * zlib's fastest level for the text entries. Evidence text (measurement CSVs, S-parameter files)
+ * can run to many megabytes, and level 6 spent about 4.5 times the CPU of level 1 to make it
+ * about 15 % smaller (20 MB of CSV: 0.75 s against 0.17 s, 7.2 MB against 8.5 MB).
+ */
+const DEFLATE_LEVEL = 1;
+/** A scavenge each time this much evidence has streamed, so dead read buffers go (young-generation.ts). */
+const COLLECT_EVERY_BYTES = 4 << 20;
 
 /** Types that are already compressed (stored as they are); everything else is deflated. */
 const STORED_EXTENSIONS = new Set(['pdf', 'png', 'jpg', 'jpeg', 'gif', 'webp', 'heic', 'tif', 'tiff', 'zip', 'docx', 'xlsx', 'pptx', 'gz', 'bz2', 'xz', '7z', 'mp4', 'mov', 'bin', 'dat']);
@@ -65,6 +75,13 @@ export interface BuildResult {
   manifest: Manifest;
   /** The larger peak resident memory of the two render processes (0 when rendered in process). */
   renderMaxRssMb: number;
+  /**
+   * Where the time went: each document's render (wall time, while the evidence streamed; when it
+   * ended from the build's start; its process's CPU time and peak RSS, when known) and when the
+   * zip had taken the last evidence file.
+   */
+  renders: Record<ExhibitDocument, { ms: number; endMs: number; cpuMs?: number; maxRssMb?: number }>;
+  evidenceMs: number;
 }
 
 export type Progress = (stage: string, percent: number) => void;
@@ -120,7 +137,7 @@ export function fileSink(file: string): ZipSink {
 }
 
 /** Renders one exhibit document; the server renders in a child process (server/jobs/exhibit-render.ts). */
-export type ExhibitRenderer = (document: ExhibitDocument, model: AssembledExhibit['model'], producer: string, signal: AbortSignal) => Promise<{ bytes: Buffer; maxRssMb?: number }>;
+export type ExhibitRenderer = (document: ExhibitDocument, model: AssembledExhibit['model'], producer: string, signal: AbortSignal) => Promise<{ bytes: Buffer; maxRssMb?: number; cpuMs?: number }>;
 
 export interface BuildOptions {
   producer: string;
@@ -146,13 +163,19 @@ export async function buildPackage(a: AssembledExhibit, sink: ZipSink, opts: Bui
   const date = new Date(m.documentDate);
   const entry = (name: string) => ({ name, date, mode: FILE_MODE, store: storeUncompressed(name) });
 
-  const zip = new ZipArchive({ zlib: { level: 6 }, forceLocalTime: false });
+  const zip = new ZipArchive({ zlib: { level: DEFLATE_LEVEL }, forceLocalTime: false });
   zip.on('warning', (e) => zip.destroy(e));
+  // The sink sees the zip's errors through its pipeline; this keeps one raised before the sink has
+  // attached (a renderer failing at once, while the store still makes its temporary folder) from
+  // being an uncaught 'error' event that ends the process.
+  zip.on('error', () => undefined);
   // With evidence the stage is "evidence" until its last byte, by bytes read (the exhibit is
   // rendered meanwhile); without, the stages are the two documents.
   const evidenceBytes = a.evidence.reduce((s, e) => s + e.sizeBytes, 0);
   let read = 0;
+  const collect = youngCollectionEvery(COLLECT_EVERY_BYTES);
   const onBytes = (n: number) => {
+    collect(n);
     const before = Math.floor((80 * read) / evidenceBytes);
     read += n;
     const after = Math.floor((80 * read) / evidenceBytes);
@@ -166,23 +189,43 @@ export async function buildPackage(a: AssembledExhibit, sink: ZipSink, opts: Bui
   // One evidence file at a time: archiver starts reading a stream as soon as it is appended, so
   // the next file is appended only when the zip has taken the one before.
   const pending = [...a.evidence];
+  const started = performance.now();
+  let evidenceMs = 0;
   const evidenceQueued = new Promise<void>((resolve) => {
     const next = () => {
       const e = pending.shift();
-      if (!e) return resolve();
+      if (!e) {
+        evidenceMs = performance.now() - started;
+        return resolve();
+      }
       zip.append(evidenceStream(e, onBytes), entry(e.path));
       zip.once('entry', next);
     };
     next();
   });
 
+  const renders = {} as BuildResult['renders'];
+  const timed = async (document: ExhibitDocument) => {
+    const t0 = performance.now();
+    const r = await render(document, m, opts.producer, abort.signal);
+    renders[document] = { ms: performance.now() - t0, endMs: performance.now() - started, cpuMs: r.cpuMs, maxRssMb: r.maxRssMb };
+    return r;
+  };
   let pdf: { bytes: Buffer; maxRssMb?: number };
   let docx: { bytes: Buffer; maxRssMb?: number };
   try {
-    pdf = await render('pdf', m, opts.producer, abort.signal);
-    if (!evidenceBytes) progress('exhibit-docx', 45);
-    docx = await render('docx', m, opts.producer, abort.signal);
+    // Both at once, each in its own process: rendered one after the other they took longer than
+    // the gigabyte of evidence and so set the build's time; together they fit beside it.
+    [pdf, docx] = await Promise.all([
+      timed('pdf').then((r) => {
+        if (!evidenceBytes) progress('exhibit-docx', 45);
+        return r;
+      }),
+      timed('docx'),
+    ]);
   } catch (err) {
+    // The other renderer goes too.
+    abort.abort(err);
     zip.destroy(err as Error);
     await written.catch(() => undefined);
     throw err;
@@ -230,5 +273,7 @@ export async function buildPackage(a: AssembledExhibit, sink: ZipSink, opts: Bui
     manifestSha256: sha256(manifestJson),
     manifest,
     renderMaxRssMb: Math.max(pdf.maxRssMb ?? 0, docx.maxRssMb ?? 0),
+    renders,
+    evidenceMs,
   };
 }

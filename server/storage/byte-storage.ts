@@ -32,8 +32,12 @@ export interface PutOptions {
 export interface ByteStorage {
   /** Streams `source` into storage while hashing it; resolves once it is durably in place. */
   put(source: Readable, options?: PutOptions): Promise<StoredObject>;
-  /** A stream of the stored bytes; rejects with ObjectNotFoundError when there is none. */
-  get(sha256: string): Promise<Readable>;
+  /**
+   * A stream of the stored bytes; rejects with ObjectNotFoundError when there is none.
+   * `chunkBytes` is the size of each read (the package build streams up to gigabytes through in
+   * larger reads; the default suits downloads and sniffing). A hint: a bucket streams what the network delivers.
+   */
+  get(sha256: string, options?: { chunkBytes?: number }): Promise<Readable>;
   exists(sha256: string): Promise<boolean>;
   /** Size in bytes, or undefined when absent. */
   size(sha256: string): Promise<number | undefined>;

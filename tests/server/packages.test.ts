@@ -21,7 +21,8 @@ import type { HighestReported, LabRow } from '../../calc/lab/lab-results';
 import { fixed } from '../../templates/exhibit/layout';
 import { LAB_CSV_HEADER } from '../../templates/exhibit/csv';
 import { assembleExhibit } from '../../server/services/exhibit-service';
-import { buildPackage, fileSink } from '../../server/services/package-builder';
+import { buildPackage, fileSink, type ExhibitRenderer } from '../../server/services/package-builder';
+import { createLocalDiskStorage } from '../../server/storage';
 
 type Agent = Awaited<ReturnType<typeof signIn>>;
 // Builds render a 50-page PDF on a shared two-core machine: generous limits, no timing asserted.
@@ -460,6 +461,37 @@ describe('the builder on its own', () => {
       expect(sha256(fs.readFileSync(path.join(dir, 'one.zip')))).toBe(one.sha256);
       expect(fs.readFileSync(path.join(dir, 'two.zip')).equals(fs.readFileSync(path.join(dir, 'one.zip')))).toBe(true);
       fs.rmSync(dir, { recursive: true, force: true });
+    } finally {
+      await t.close();
+    }
+  });
+
+  it('stops the other renderer and keeps nothing when one of the two renders fails', async () => {
+    const t = await createTestApp();
+    try {
+      const seeded = await seedUsers(t);
+      const a = assembleExhibit(t.handle.db, seeded.organisationId, 1, 1, { evidence: () => [] })!;
+      const root = fs.mkdtempSync(path.join(os.tmpdir(), 'fieldfile-build-'));
+      const storage = createLocalDiskStorage(root);
+      let pdfStopped: unknown;
+      // The PDF renders until it is told to stop; the DOCX fails once the PDF has started.
+      let pdfStarted: () => void = () => {};
+      const started = new Promise<void>((resolve) => (pdfStarted = resolve));
+      const render: ExhibitRenderer = (document, _model, _producer, signal) =>
+        document === 'pdf'
+          ? new Promise((_resolve, reject) => {
+              pdfStarted();
+              signal.addEventListener('abort', () => {
+                pdfStopped = signal.reason;
+                reject(signal.reason);
+              });
+            })
+          : started.then(() => Promise.reject(new Error('DOCX renderer broke')));
+      await expect(buildPackage(a, (zip) => storage.put(zip), { producer: 'Fieldfile test', render })).rejects.toThrow('DOCX renderer broke');
+      expect(String(pdfStopped)).toContain('DOCX renderer broke');
+      const files = (fs.readdirSync(root, { recursive: true, withFileTypes: true }) as fs.Dirent[]).filter((d) => d.isFile());
+      expect(files).toEqual([]);
+      fs.rmSync(root, { recursive: true, force: true });
     } finally {
       await t.close();
     }
