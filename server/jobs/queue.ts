@@ -79,8 +79,16 @@ export function createInProcessQueue(db: Db): JobQueue {
     if (running) return;
     const id = pending.shift();
     if (id === undefined) return;
+    let row: ReturnType<typeof repo.findJob>;
+    try {
+      row = repo.findJob(db, id);
+    } catch {
+      // The database is closed (the app is shutting down): the next start marks what was queued failed.
+      pending.length = 0;
+      return;
+    }
+    if (!row) return;
     running = true;
-    const row = repo.findJob(db, id)!;
     const handler = handlers.get(row.kind);
     try {
       if (!handler) throw new Error(`No handler for jobs of kind ${row.kind}.`);
