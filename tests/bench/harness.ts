@@ -10,6 +10,8 @@ export interface BenchCase {
   targetMs: number;
   /** Which figure the target applies to: p95 (latency targets, the default) or the mean (throughput targets). */
   judgeBy?: 'p95' | 'mean';
+  /** A second target for the mean, ms, where a case has both (the engine: ≤ 5 ms mean and ≤ 8 ms p95). */
+  meanTargetMs?: number;
   /**
    * Builds the function to time, or returns a string saying why the case is skipped. The
    * function may return a promise (an HTTP round trip, say); it is awaited inside the timing.
@@ -33,6 +35,7 @@ export interface BenchResult {
   cpuMs?: number;
   targetMs: number;
   judgeBy?: 'p95' | 'mean';
+  meanTargetMs?: number;
   underTarget?: boolean;
 }
 
@@ -67,16 +70,18 @@ export async function runCase(c: BenchCase): Promise<BenchResult> {
   const p95Ms = percentile(samplesMs, 95);
   const cpuMs = (cpu.user + cpu.system) / 1000 / iterations;
   const judgeBy = c.judgeBy ?? 'p95';
-  return { name: c.name, iterations, meanMs, p95Ms, cpuMs, targetMs: c.targetMs, judgeBy, underTarget: (judgeBy === 'mean' ? meanMs : p95Ms) < c.targetMs };
+  const underTarget = (judgeBy === 'mean' ? meanMs : p95Ms) < c.targetMs && (c.meanTargetMs === undefined || meanMs <= c.meanTargetMs);
+  return { name: c.name, iterations, meanMs, p95Ms, cpuMs, targetMs: c.targetMs, judgeBy, meanTargetMs: c.meanTargetMs, underTarget };
 }
 
 export function formatResult(r: BenchResult): string {
   if (r.skipped) return `SKIP  ${r.name}: ${r.skipped}`;
   const verdict = r.underTarget ? 'OK  ' : 'SLOW';
   const under = (ms: number) => (ms < r.targetMs ? 'under' : 'over');
+  const meanTarget = r.meanTargetMs === undefined ? '' : ` and ≤ ${r.meanTargetMs} ms mean (${r.meanMs! <= r.meanTargetMs ? 'met' : 'over'})`;
   return (
     `${verdict}  ${r.name}: mean ${r.meanMs!.toFixed(3)} ms (${under(r.meanMs!)}), p95 ${r.p95Ms!.toFixed(3)} ms ` +
-    `(${under(r.p95Ms!)}); target < ${+r.targetMs.toFixed(3)} ms ${r.judgeBy === 'mean' ? 'mean' : 'at p95'}, ${r.iterations} runs; CPU ${r.cpuMs!.toFixed(3)} ms per run`
+    `(${under(r.p95Ms!)}); target < ${+r.targetMs.toFixed(3)} ms ${r.judgeBy === 'mean' ? 'mean' : 'at p95'}${meanTarget}, ${r.iterations} runs; CPU ${r.cpuMs!.toFixed(3)} ms per run`
   );
 }
 

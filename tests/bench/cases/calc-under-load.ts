@@ -6,6 +6,7 @@
  * Over real HTTP on loopback against the real app, its worker pool and a SQLite file.
  */
 import { spawn } from 'node:child_process';
+import os from 'node:os';
 import path from 'node:path';
 import type { BenchCase } from '../harness';
 import { startBenchServer, type BenchServer } from '../bench-server';
@@ -24,6 +25,9 @@ function keepCalculating(server: BenchServer) {
     env: { ...process.env, FIELDFILE_BENCH_BASE: server.base, FIELDFILE_BENCH_COOKIE: server.cookie, FIELDFILE_BENCH_BODY: JSON.stringify(heaviestScreening) },
     stdio: ['ignore', 'pipe', 'inherit'],
   });
+  // The load stands for other people's browsers, which run on their own machines: on this one it
+  // yields the CPU to the server and the timed reads, so what is measured is the server's share.
+  if (child.pid) os.setPriority(child.pid, os.constants.priority.PRIORITY_LOW);
   let out = '';
   child.stdout.on('data', (d) => (out += d));
   return {
@@ -79,7 +83,7 @@ export const readsUnderCalcCase: BenchCase = {
   targetMs: 0,
   judgeBy: 'mean',
   warmupIterations: 5,
-  iterations: 200,
+  iterations: 1000,
   async prepare() {
     server = await startBenchServer();
     const { base, cookie } = server;
@@ -89,20 +93,20 @@ export const readsUnderCalcCase: BenchCase = {
       await res.json();
     };
     await meanMs(read, 20);
-    const idleMean = await meanMs(read, 200);
+    const idleMean = await meanMs(read, 1000);
     readsUnderCalcCase.targetMs = idleMean / 0.8;
     readNotes.length = 0;
     readNotes.push(`idle: mean ${idleMean.toFixed(2)} ms per read (${(1000 / idleMean).toFixed(0)} reads/s); target is mean ÷ 0.8`);
     load = keepCalculating(server);
     await new Promise((r) => setTimeout(r, 1500));
-    const loadedMean = await meanMs(read, 200);
+    const loadedMean = await meanMs(read, 1000);
     readNotes.push(
       `under load: mean ${loadedMean.toFixed(2)} ms per read (${(1000 / loadedMean).toFixed(0)} reads/s) = ${((100 * idleMean) / loadedMean).toFixed(0)} % of idle throughput (target ≥ 80 %)`,
     );
     return read;
   },
   async teardown() {
-    await load?.stop();
+    readNotes.push(`heavy calculations finished meanwhile (from another process, at nice 19 like other people's browsers): ${(await load?.stop()) ?? 0}`);
     await server?.close();
   },
   describe: () => [...readNotes],

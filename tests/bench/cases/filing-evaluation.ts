@@ -121,7 +121,9 @@ function timeShareByName(jobs: Job[], rounds = 30): string {
 
 export const filingEvaluationCase: BenchCase = {
   name: 'whole filing: 20 transmitters × 6 positions × 4 regimes',
-  targetMs: 5,
+  // Issue targets: ≤ 5 ms mean and ≤ 8 ms p95.
+  targetMs: 8,
+  meanTargetMs: 5,
   warmupIterations: 20,
   iterations: 200,
   prepare() {

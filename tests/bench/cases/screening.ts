@@ -79,7 +79,9 @@ let timed: (() => unknown) | null = null;
 
 export const screeningCase: BenchCase = {
   name: 'screening: 20 transmitters × 6 positions × 4 markets',
-  targetMs: 5,
+  // Issue targets: ≤ 5 ms mean and ≤ 8 ms p95.
+  targetMs: 8,
+  meanTargetMs: 5,
   warmupIterations: 20,
   iterations: 200,
   prepare() {
