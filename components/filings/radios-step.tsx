@@ -242,12 +242,13 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
       render: (i, h) => <FormText {...common} name={`antennas.${i}.location`} label="Where it sits" placeholder="e.g. top edge" hideLabel={h} testID={`antenna-${i}-location`} />,
     },
   ];
+  // Widths for what each column holds: ids and antenna names need the room, four-digit MHz and dBm figures less.
   const txColumns: EditColumn[] = [
-    { key: 'id', label: 'Id', flex: 1.1, render: (i, h) => <FormText {...common} note={noteFor(i, 'id')} name={`transmitters.${i}.id`} label="Transmitter id" hideLabel={h} testID={`tx-${i}-id`} /> },
+    { key: 'id', label: 'Id', flex: 1.45, render: (i, h) => <FormText {...common} note={noteFor(i, 'id')} name={`transmitters.${i}.id`} label="Transmitter id" hideLabel={h} testID={`tx-${i}-id`} /> },
     {
       key: 'technology',
       label: 'Technology',
-      flex: 1.5,
+      flex: 1.3,
       half: true,
       render: (i, h) => (
         <FormText {...common} note={noteFor(i, 'technology')} name={`transmitters.${i}.technology`} label="Technology" placeholder="e.g. LTE" hideLabel={h} testID={`tx-${i}-technology`} />
@@ -256,14 +257,14 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
     {
       key: 'band',
       label: 'Band',
-      flex: 1.4,
+      flex: 1.0,
       half: true,
       render: (i, h) => <FormText {...common} note={noteFor(i, 'band')} name={`transmitters.${i}.band`} label="Band" placeholder="e.g. Band 12" hideLabel={h} testID={`tx-${i}-band`} />,
     },
     {
       key: 'frequencyMinHz',
       label: 'Lowest (MHz)',
-      flex: 1.1,
+      flex: 0.95,
       half: true,
       render: (i, h) => (
         <FormNumber {...common} note={noteFor(i, 'frequencyMinHz')} name={`transmitters.${i}.frequencyMinHz`} label="Lowest frequency" unit="MHz" scale={1e6} hideLabel={h} testID={`tx-${i}-fmin`} />
@@ -272,7 +273,7 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
     {
       key: 'frequencyMaxHz',
       label: 'Highest (MHz)',
-      flex: 1.1,
+      flex: 0.95,
       half: true,
       render: (i, h) => (
         <FormNumber {...common} note={noteFor(i, 'frequencyMaxHz')} name={`transmitters.${i}.frequencyMaxHz`} label="Highest frequency" unit="MHz" scale={1e6} hideLabel={h} testID={`tx-${i}-fmax`} />
@@ -281,7 +282,7 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
     {
       key: 'maxTuneUpPowerDbm',
       label: 'Max tune-up (dBm)',
-      flex: 0.9,
+      flex: 0.85,
       half: true,
       // With a target and tolerance the maximum is their sum, shown and kept in step with them.
       render: (i, h) => (
@@ -300,7 +301,7 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
     {
       key: 'dutyCycle',
       label: 'Duty (%)',
-      flex: 0.8,
+      flex: 0.7,
       half: true,
       render: (i, h) => (
         <FormNumber
@@ -322,7 +323,7 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
     {
       key: 'antennaId',
       label: 'Antenna',
-      flex: 1.1,
+      flex: 1.45,
       render: (i, h) => (
         <FormSelect
           {...common}
