@@ -124,7 +124,8 @@ export function EditRows({
                 </Text>
               </View>
             ))}
-            {editable ? <View style={styles.removeCol} role="columnheader" accessibilityLabel="Remove" /> : null}
+            {/* The remove buttons' column has no heading text (each button names its row), so it is a plain cell, not an empty header. */}
+            {editable ? <View style={styles.removeCol} role="cell" /> : null}
           </View>
           {rows.map((i) => (
             <View key={keyOf(i)} style={details ? styles.rowGroup : undefined} role="rowgroup">

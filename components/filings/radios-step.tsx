@@ -244,11 +244,11 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
   ];
   // Widths for what each column holds: ids and antenna names need the room, four-digit MHz and dBm figures less.
   const txColumns: EditColumn[] = [
-    { key: 'id', label: 'Id', flex: 1.45, render: (i, h) => <FormText {...common} note={noteFor(i, 'id')} name={`transmitters.${i}.id`} label="Transmitter id" hideLabel={h} testID={`tx-${i}-id`} /> },
+    { key: 'id', label: 'Id', flex: 1.35, render: (i, h) => <FormText {...common} note={noteFor(i, 'id')} name={`transmitters.${i}.id`} label="Transmitter id" hideLabel={h} testID={`tx-${i}-id`} /> },
     {
       key: 'technology',
       label: 'Technology',
-      flex: 1.3,
+      flex: 1.35,
       half: true,
       render: (i, h) => (
         <FormText {...common} note={noteFor(i, 'technology')} name={`transmitters.${i}.technology`} label="Technology" placeholder="e.g. LTE" hideLabel={h} testID={`tx-${i}-technology`} />
@@ -257,7 +257,7 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
     {
       key: 'band',
       label: 'Band',
-      flex: 1.0,
+      flex: 1.45,
       half: true,
       render: (i, h) => <FormText {...common} note={noteFor(i, 'band')} name={`transmitters.${i}.band`} label="Band" placeholder="e.g. Band 12" hideLabel={h} testID={`tx-${i}-band`} />,
     },
@@ -301,7 +301,7 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
     {
       key: 'dutyCycle',
       label: 'Duty (%)',
-      flex: 0.7,
+      flex: 0.65,
       half: true,
       render: (i, h) => (
         <FormNumber
@@ -323,7 +323,7 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
     {
       key: 'antennaId',
       label: 'Antenna',
-      flex: 1.45,
+      flex: 1.35,
       render: (i, h) => (
         <FormSelect
           {...common}

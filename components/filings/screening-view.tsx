@@ -17,6 +17,7 @@ import { useIsWide } from '../../hooks/use-is-wide';
 import { formatDateTime } from '../format';
 import { Icon } from '../icons';
 import { LoadFailed, Loading } from '../layout/query-states';
+import { SkipLink } from '../layout/skip-link';
 import { Button } from '../ui/button';
 import { Card } from '../ui/card';
 import { ChoiceChips } from '../ui/choice-chips';
@@ -47,8 +48,11 @@ export function ScreeningView({ filing }: { filing: FilingDetail }) {
     setFilter((f) => ({ ...f, ...next }));
     setShown(ROWS_PAGE);
   };
-  if (screening.isPending) return <Loading label="Screening every combination…" />;
-  if (screening.isError) return <LoadFailed what="the screening" error={screening.error} onRetry={() => void screening.refetch()} />;
+  // A failed refetch (a 401 while the sign-in sheet is up) keeps the table that was shown.
+  if (!screening.data) {
+    if (screening.isError) return <LoadFailed what="the screening" error={screening.error} onRetry={() => void screening.refetch()} />;
+    return <Loading label="Screening every combination…" />;
+  }
   const s = screening.data;
   const regimes = Object.keys(s.summary.byRegime);
   const rows = filterRows(s.rows, filter);
@@ -151,6 +155,8 @@ export function ScreeningView({ filing }: { filing: FilingDetail }) {
             ) : null}
           </View>
         </View>
+        {/* Keyboard users need not tab through every figure of a long table to reach what follows it. */}
+        {rows.length > 1 ? <SkipLink targetId="after-screening-table" label="Skip past the table" testID="skip-screening-table" /> : null}
         {s.rows.length === 0 ? (
           <Text tone="muted">Nothing to screen yet: add transmitters, use positions with separations, and at least one market.</Text>
         ) : rows.length === 0 ? (
@@ -300,14 +306,20 @@ function Count({
 const COLUMNS: { key: FigureKey | 'tx' | 'pos' | 'market'; label: string; flex: number; numeric?: boolean }[] = [
   { key: 'tx', label: 'Transmitter', flex: 1.2 },
   { key: 'pos', label: 'Use position', flex: 1.1 },
-  { key: 'market', label: 'Market', flex: 0.7 },
-  { key: 'method', label: 'Method', flex: 1.4 },
+  { key: 'market', label: 'Market', flex: 0.85 },
+  { key: 'method', label: 'Method', flex: 1.3 },
   { key: 'frequency', label: 'Frequency', flex: 1.05, numeric: true },
   { key: 'evaluated', label: 'Evaluated', flex: 1.05, numeric: true },
   { key: 'threshold', label: 'Threshold', flex: 1.1, numeric: true },
   { key: 'result', label: 'Result', flex: 1.55 },
   { key: 'margin', label: 'Margin', flex: 1.05, numeric: true },
 ];
+
+const COUNT_WORDS: Record<ScreeningRowDto['result'], (n: number) => string> = {
+  'evaluate-sar': (n) => (n === 1 ? 'needs SAR' : 'need SAR'),
+  'evaluate-mpe': (n) => (n === 1 ? 'needs MPE' : 'need MPE'),
+  exempt: () => 'exempt',
+};
 
 /** One collapsed card per transmitter: its worst result and counts; opened, its rows (position × market). */
 function TransmitterGroups({ groups, onOpen }: { groups: TransmitterGroup[]; onOpen: (row: ScreeningRowDto, figure: FigureKey) => void }) {
@@ -325,7 +337,7 @@ function TransmitterGroups({ groups, onOpen }: { groups: TransmitterGroup[]; onO
         const isOpen = openIds.has(g.transmitterId);
         const counts = (['evaluate-sar', 'evaluate-mpe', 'exempt'] as const)
           .filter((r) => g.counts[r])
-          .map((r) => `${g.counts[r]} ${RESULT_LOOK[r].label.toLowerCase()}`)
+          .map((r) => `${g.counts[r]} ${COUNT_WORDS[r](g.counts[r])}`)
           .join(' · ');
         const w = g.worst;
         return (
@@ -407,7 +419,7 @@ function ScreeningRows({ rows, onOpen, idPrefix = '' }: { rows: ScreeningRowDto[
               {regimeShort(row.regime)}
             </Text>
           </View>
-          <Figure flex={1.4} label={methodShort(row.method)} onPress={() => onOpen(row, 'method')} testID={`${idPrefix}cell-${i}-method`} />
+          <Figure flex={1.3} label={methodShort(row.method)} onPress={() => onOpen(row, 'method')} testID={`${idPrefix}cell-${i}-method`} />
           <Figure flex={1.05} numeric label={formatMhz(row.frequencyHz)} onPress={() => onOpen(row, 'frequency')} testID={`${idPrefix}cell-${i}-frequency`} />
           <Figure flex={1.05} numeric label={evaluatedText(row)} onPress={() => onOpen(row, 'evaluated')} testID={`${idPrefix}cell-${i}-evaluated`} />
           <Figure flex={1.1} numeric label={thresholdText(row)} onPress={() => onOpen(row, 'threshold')} testID={`${idPrefix}cell-${i}-threshold`} />
