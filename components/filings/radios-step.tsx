@@ -4,6 +4,7 @@
  * transmitter's details: tune-up target ± tolerance (their sum is the maximum screening uses),
  * mode, modulation and bandwidth, a duty-factor preset with its source, and its certified module.
  */
+import { sourceWords } from '../source-words';
 import { useEffect, useRef, useState } from 'react';
 import { Controller, useFieldArray, useWatch } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
@@ -407,7 +408,7 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
             {more.length ? (
               <Text variant="small" tone="muted">
                 {(t?.antennaUse ?? 'mimo') === 'mimo'
-                  ? `MIMO: the maximum tune-up power is per stream; screening adds the ${more.length + 1} streams’ powers and evaluates the sum at each antenna (KDB 662911, from memory).`
+                  ? `MIMO: the maximum tune-up power is per stream; screening adds the ${more.length + 1} streams’ powers and evaluates the sum at each antenna (FCC KDB 662911 D01; check against the current edition).`
                   : 'Switched: one antenna at a time; screening evaluates each antenna at the tune-up power and reports the least favourable.'}
               </Text>
             ) : null}
@@ -466,7 +467,7 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
             />
             {preset ? (
               <Text variant="small" tone="muted" testID={`tx-${i}-duty-source`}>
-                {`${preset.basis} Source: ${preset.source}.`}
+                {`${preset.basis} Source: ${sourceWords(preset.source)}.`}
               </Text>
             ) : null}
           </View>

@@ -6,6 +6,7 @@
  * with one tap), rows drawn a page at a time so the first ones appear at once, or one collapsed
  * card per transmitter with its worst result, and the table (as filtered) downloads as CSV.
  */
+import { sourceWords } from '../source-words';
 import { useState } from 'react';
 import { Platform, Pressable, StyleSheet, View } from 'react-native';
 import type { ScreeningCounts } from '../../calc/screening/screen';
@@ -86,7 +87,7 @@ export function ScreeningView({ filing }: { filing: FilingDetail }) {
                 {c.message}
               </Text>
             ))}
-            <Text variant="small" tone="muted">{`Source: ${s.conditions[0].source}.`}</Text>
+            <Text variant="small" tone="muted">{`Source: ${sourceWords(s.conditions[0].source)}.`}</Text>
           </View>
         </Notice>
       ) : null}
@@ -184,7 +185,7 @@ export function ScreeningView({ filing }: { filing: FilingDetail }) {
         <View style={{ gap: space.xxs }}>
           {s.cautions.map((c) => (
             <Text key={c} variant="small">
-              {c}
+              {sourceWords(c)}
             </Text>
           ))}
         </View>
