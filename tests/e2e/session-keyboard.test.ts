@@ -78,6 +78,9 @@ describe.each([
       expect(new URL(page.url()).pathname).not.toMatch(/^\/login/);
       expect(await page.getByTestId('device-hardwareVersion').inputValue()).toBe(typed);
       expect((await filingData(page, id)).status).toBe(401);
+      // The picture after the sheet's slide-in has finished (the checks above do not wait for it).
+      await sheet.getByTestId('sign-in-password').waitFor();
+      await page.waitForTimeout(500);
       await screenshot(page, `session-sheet-${size}`);
 
       const email = sheet.getByTestId('sign-in-email');
