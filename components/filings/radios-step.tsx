@@ -245,11 +245,11 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
   ];
   // Widths for what each column holds: ids and antenna names need the room, four-digit MHz and dBm figures less.
   const txColumns: EditColumn[] = [
-    { key: 'id', label: 'Id', flex: 1.35, render: (i, h) => <FormText {...common} note={noteFor(i, 'id')} name={`transmitters.${i}.id`} label="Transmitter id" hideLabel={h} testID={`tx-${i}-id`} /> },
+    { key: 'id', label: 'Id', flex: 1.3, render: (i, h) => <FormText {...common} note={noteFor(i, 'id')} name={`transmitters.${i}.id`} label="Transmitter id" hideLabel={h} testID={`tx-${i}-id`} /> },
     {
       key: 'technology',
       label: 'Technology',
-      flex: 1.35,
+      flex: 1.15,
       half: true,
       render: (i, h) => (
         <FormText {...common} note={noteFor(i, 'technology')} name={`transmitters.${i}.technology`} label="Technology" placeholder="e.g. LTE" hideLabel={h} testID={`tx-${i}-technology`} />
@@ -258,14 +258,14 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
     {
       key: 'band',
       label: 'Band',
-      flex: 1.45,
+      flex: 1.35,
       half: true,
       render: (i, h) => <FormText {...common} note={noteFor(i, 'band')} name={`transmitters.${i}.band`} label="Band" placeholder="e.g. Band 12" hideLabel={h} testID={`tx-${i}-band`} />,
     },
     {
       key: 'frequencyMinHz',
       label: 'Lowest (MHz)',
-      flex: 0.95,
+      flex: 1.0,
       half: true,
       render: (i, h) => (
         <FormNumber {...common} note={noteFor(i, 'frequencyMinHz')} name={`transmitters.${i}.frequencyMinHz`} label="Lowest frequency" unit="MHz" scale={1e6} hideLabel={h} testID={`tx-${i}-fmin`} />
@@ -274,7 +274,7 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
     {
       key: 'frequencyMaxHz',
       label: 'Highest (MHz)',
-      flex: 0.95,
+      flex: 1.0,
       half: true,
       render: (i, h) => (
         <FormNumber {...common} note={noteFor(i, 'frequencyMaxHz')} name={`transmitters.${i}.frequencyMaxHz`} label="Highest frequency" unit="MHz" scale={1e6} hideLabel={h} testID={`tx-${i}-fmax`} />
@@ -302,7 +302,7 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
     {
       key: 'dutyCycle',
       label: 'Duty (%)',
-      flex: 0.65,
+      flex: 0.8,
       half: true,
       render: (i, h) => (
         <FormNumber
