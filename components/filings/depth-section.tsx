@@ -4,6 +4,7 @@
  * near field; closer, the profile's shape relative to the surface. Always labelled a screening
  * estimate that explains a margin, never a measured SAR.
  */
+import { sourceWords } from '../source-words';
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import type { FilingDetail } from '../../constants/schemas/filings';
@@ -79,7 +80,7 @@ export function DepthSection({ filing, initial }: { filing: FilingDetail; initia
             {`Model: ${p.stackTitle} — flat layers, plane wave at normal incidence.`}
           </Text>
           <Text variant="small" testID="depth-scale-reason">
-            {p.scaleReason}
+            {sourceWords(p.scaleReason)}
           </Text>
           <ChoiceChips
             label="Depth shown"

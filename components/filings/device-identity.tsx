@@ -4,6 +4,7 @@
  * whether the product is a host, a module, or a host with a certified module inside (with each
  * module's grant and conditions). Codes are typed in either case and stored as capitals.
  */
+import { sourceWords } from '../source-words';
 import { Controller, useFieldArray, useWatch, type Control, type UseFormReturn } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 import { INTEGRATIONS, INTEGRATION_LABELS } from '../../constants/schemas/device-file';
@@ -50,7 +51,7 @@ export function DeviceIdentity({ form, filing, editable }: { form: UseFormReturn
             </Cell>
           </Pair>
           <Text variant="small" tone="muted" testID="device-fcc-id">
-            {`${fccId ? `FCC ID ${fccId}.` : 'FCC ID: grantee code (3 characters from a letter, or 5 from a digit 2–9) and product code (up to 14).'} Format: ${FCC_ID_SOURCE}.`}
+            {`${fccId ? `FCC ID ${fccId}.` : 'FCC ID: grantee code (3 characters from a letter, or 5 from a digit 2–9) and product code (up to 14).'} Format: ${sourceWords(FCC_ID_SOURCE)}.`}
           </Text>
           <Pair>
             <Cell>
@@ -61,7 +62,7 @@ export function DeviceIdentity({ form, filing, editable }: { form: UseFormReturn
             </Cell>
           </Pair>
           <Text variant="small" tone="muted" testID="device-ic-number">
-            {`${icNumber ? `IC: ${icNumber}.` : 'ISED certification number: company number (up to 6) and UPN (up to 11).'} Format: ${ISED_NUMBER_SOURCE}.`}
+            {`${icNumber ? `IC: ${icNumber}.` : 'ISED certification number: company number (up to 6) and UPN (up to 11).'} Format: ${sourceWords(ISED_NUMBER_SOURCE)}.`}
           </Text>
           <Pair>
             <Cell>

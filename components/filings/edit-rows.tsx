@@ -122,12 +122,16 @@ export function EditRows({
       ) : wide ? (
         <View style={styles.table} role="table">
           <View style={[styles.tr, styles.th]} role="row">
+            {/* A View per heading, like the cells below it: a Text with flex sizes from its content and drifts off its column. */}
             {columns.map((c) => (
-              <Text key={c.key} variant="smallStrong" tone="soft" role="columnheader" style={[styles.cell, { flex: c.flex }]}>
-                {c.label}
-              </Text>
+              <View key={c.key} role="columnheader" style={[styles.cell, { flex: c.flex }]}>
+                <Text variant="smallStrong" tone="soft">
+                  {c.label}
+                </Text>
+              </View>
             ))}
-            {editable ? <View style={styles.removeCol} role="columnheader" accessibilityLabel="Remove" /> : null}
+            {/* The remove buttons' column has no heading text (each button names its row), so it is a plain cell, not an empty header. */}
+            {editable ? <View style={styles.removeCol} role="cell" /> : null}
           </View>
           {rows.map((i) => (
             <View key={keyOf(i)} style={details ? styles.rowGroup : undefined} role="rowgroup">

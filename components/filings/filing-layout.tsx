@@ -42,7 +42,8 @@ export function FilingLayout() {
       </Screen>
     );
   }
-  if (filing.isPending || filing.isError) {
+  // A refetch that fails (a session ending mid-edit answers 401) keeps the filing on screen, and with it the form and what was typed.
+  if (!filing.data) {
     return (
       <Screen title="Filing" eyebrow="Filings">
         {filing.isPending ? <Loading label="Loading the filing…" /> : <LoadFailed what="this filing" error={filing.error} onRetry={() => void filing.refetch()} />}

@@ -4,6 +4,7 @@
  * every input with its symbol, unit and where it came from, the steps between, the result, the
  * source with its edition, the notes, and every frequency of the band that was checked.
  */
+import { sourceWords } from '../source-words';
 import { StyleSheet, View } from 'react-native';
 import type { Derivation, Quantity } from '../../calc/types';
 import { USE_POSITION_LABELS } from '../../constants/schemas/device-file';
@@ -52,7 +53,7 @@ export function HowComputed({ row, figure }: { row: ScreeningRow; figure: Figure
         ) : null}
         {row.provisionalReason ? (
           <Text variant="small" tone="soft" testID="how-computed-provisional">
-            {row.provisionalReason}
+            {sourceWords(row.provisionalReason)}
           </Text>
         ) : null}
         <View style={styles.badgeRow}>
@@ -146,7 +147,7 @@ export function DerivationBlock({ d, compact, testID }: { d: Derivation; compact
           Source
         </Text>
         <Text variant="bodyStrong" testID={testID ? `${testID}-source` : undefined}>
-          {d.source}
+          {sourceWords(d.source)}
         </Text>
       </View>
       {d.notes.length && !compact ? (
@@ -156,7 +157,7 @@ export function DerivationBlock({ d, compact, testID }: { d: Derivation; compact
           </Text>
           {d.notes.map((n, i) => (
             <Text key={i} variant="small" tone="soft">
-              • {n}
+              • {sourceWords(n)}
             </Text>
           ))}
         </View>

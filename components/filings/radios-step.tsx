@@ -4,6 +4,7 @@
  * transmitter's details: tune-up target ± tolerance (their sum is the maximum screening uses),
  * mode, modulation and bandwidth, a duty-factor preset with its source, and its certified module.
  */
+import { sourceWords } from '../source-words';
 import { useEffect, useRef, useState } from 'react';
 import { Controller, useFieldArray, useWatch } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
@@ -242,12 +243,13 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
       render: (i, h) => <FormText {...common} name={`antennas.${i}.location`} label="Where it sits" placeholder="e.g. top edge" hideLabel={h} testID={`antenna-${i}-location`} />,
     },
   ];
+  // Widths for what each column holds: ids and antenna names need the room, four-digit MHz and dBm figures less.
   const txColumns: EditColumn[] = [
-    { key: 'id', label: 'Id', flex: 1.1, render: (i, h) => <FormText {...common} note={noteFor(i, 'id')} name={`transmitters.${i}.id`} label="Transmitter id" hideLabel={h} testID={`tx-${i}-id`} /> },
+    { key: 'id', label: 'Id', flex: 1.3, render: (i, h) => <FormText {...common} note={noteFor(i, 'id')} name={`transmitters.${i}.id`} label="Transmitter id" hideLabel={h} testID={`tx-${i}-id`} /> },
     {
       key: 'technology',
       label: 'Technology',
-      flex: 1.5,
+      flex: 1.15,
       half: true,
       render: (i, h) => (
         <FormText {...common} note={noteFor(i, 'technology')} name={`transmitters.${i}.technology`} label="Technology" placeholder="e.g. LTE" hideLabel={h} testID={`tx-${i}-technology`} />
@@ -256,14 +258,14 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
     {
       key: 'band',
       label: 'Band',
-      flex: 1.4,
+      flex: 1.35,
       half: true,
       render: (i, h) => <FormText {...common} note={noteFor(i, 'band')} name={`transmitters.${i}.band`} label="Band" placeholder="e.g. Band 12" hideLabel={h} testID={`tx-${i}-band`} />,
     },
     {
       key: 'frequencyMinHz',
       label: 'Lowest (MHz)',
-      flex: 1.1,
+      flex: 1.0,
       half: true,
       render: (i, h) => (
         <FormNumber {...common} note={noteFor(i, 'frequencyMinHz')} name={`transmitters.${i}.frequencyMinHz`} label="Lowest frequency" unit="MHz" scale={1e6} hideLabel={h} testID={`tx-${i}-fmin`} />
@@ -272,7 +274,7 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
     {
       key: 'frequencyMaxHz',
       label: 'Highest (MHz)',
-      flex: 1.1,
+      flex: 1.0,
       half: true,
       render: (i, h) => (
         <FormNumber {...common} note={noteFor(i, 'frequencyMaxHz')} name={`transmitters.${i}.frequencyMaxHz`} label="Highest frequency" unit="MHz" scale={1e6} hideLabel={h} testID={`tx-${i}-fmax`} />
@@ -281,7 +283,7 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
     {
       key: 'maxTuneUpPowerDbm',
       label: 'Max tune-up (dBm)',
-      flex: 0.9,
+      flex: 0.85,
       half: true,
       // With a target and tolerance the maximum is their sum, shown and kept in step with them.
       render: (i, h) => (
@@ -322,7 +324,7 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
     {
       key: 'antennaId',
       label: 'Antenna',
-      flex: 1.1,
+      flex: 1.35,
       render: (i, h) => (
         <FormSelect
           {...common}
@@ -406,7 +408,7 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
             {more.length ? (
               <Text variant="small" tone="muted">
                 {(t?.antennaUse ?? 'mimo') === 'mimo'
-                  ? `MIMO: the maximum tune-up power is per stream; screening adds the ${more.length + 1} streams’ powers and evaluates the sum at each antenna (KDB 662911, from memory).`
+                  ? `MIMO: the maximum tune-up power is per stream; screening adds the ${more.length + 1} streams’ powers and evaluates the sum at each antenna (FCC KDB 662911 D01; check against the current edition).`
                   : 'Switched: one antenna at a time; screening evaluates each antenna at the tune-up power and reports the least favourable.'}
               </Text>
             ) : null}
@@ -465,7 +467,7 @@ export function RadiosStep({ filing }: { filing: FilingDetail }) {
             />
             {preset ? (
               <Text variant="small" tone="muted" testID={`tx-${i}-duty-source`}>
-                {`${preset.basis} Source: ${preset.source}.`}
+                {`${preset.basis} Source: ${sourceWords(preset.source)}.`}
               </Text>
             ) : null}
           </View>

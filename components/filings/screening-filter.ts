@@ -79,3 +79,47 @@ export function screeningCsv(rows: readonly ScreeningRowDto[]): string {
   );
   return [head.join(','), ...lines].join('\r\n') + '\r\n';
 }
+
+/** One transmitter's rows, with the row that decides its standing (see `worstRow`) and counts per result. */
+export interface TransmitterGroup {
+  transmitterId: string;
+  rows: ScreeningRowDto[];
+  worst: ScreeningRowDto;
+  counts: Record<ScreeningResult, number>;
+}
+
+// Needing SAR asks most of the lab (a measurement), MPE less (a calculation), an exemption nothing.
+const RESULT_WEIGHT: Record<ScreeningResult, number> = { 'evaluate-sar': 3, 'evaluate-mpe': 2, exempt: 1 };
+
+/**
+ * The row that decides a transmitter's standing: the heaviest result, then a provisional
+ * exemption before a firm one, then the smallest margin (a row without one ranks after any known margin).
+ */
+export function worstRow(rows: readonly ScreeningRowDto[]): ScreeningRowDto {
+  const score = (r: ScreeningRowDto) => [RESULT_WEIGHT[r.result], r.provisional ? 1 : 0, -(r.marginDb ?? Number.POSITIVE_INFINITY)] as const;
+  return rows.reduce((worst, r) => {
+    const [a, b] = [score(r), score(worst)];
+    for (let i = 0; i < a.length; i += 1) if (a[i] !== b[i]) return a[i]! > b[i]! ? r : worst;
+    return worst;
+  });
+}
+
+/** The rows grouped by transmitter, in the order the transmitters first appear. */
+export function groupByTransmitter(rows: readonly ScreeningRowDto[]): TransmitterGroup[] {
+  const byId = new Map<string, ScreeningRowDto[]>();
+  for (const r of rows) {
+    const list = byId.get(r.transmitterId);
+    if (list) list.push(r);
+    else byId.set(r.transmitterId, [r]);
+  }
+  return [...byId].map(([transmitterId, list]) => ({
+    transmitterId,
+    rows: list,
+    worst: worstRow(list),
+    counts: {
+      exempt: list.filter((r) => r.result === 'exempt').length,
+      'evaluate-sar': list.filter((r) => r.result === 'evaluate-sar').length,
+      'evaluate-mpe': list.filter((r) => r.result === 'evaluate-mpe').length,
+    },
+  }));
+}

@@ -3,9 +3,10 @@
  * the table of every transmitter × use position × market (a card list on a phone) where every
  * figure opens its "how computed" panel, the SAR-against-depth estimate, and the cautions.
  * At scale: filters by result, market, transmitter and use position (a summary count sets them
- * with one tap), rows drawn a page at a time so the first ones appear at once, and the table
- * (as filtered) downloads as CSV.
+ * with one tap), rows drawn a page at a time so the first ones appear at once, or one collapsed
+ * card per transmitter with its worst result, and the table (as filtered) downloads as CSV.
  */
+import { sourceWords } from '../source-words';
 import { useState } from 'react';
 import { Platform, Pressable, StyleSheet, View } from 'react-native';
 import type { ScreeningCounts } from '../../calc/screening/screen';
@@ -17,6 +18,7 @@ import { useIsWide } from '../../hooks/use-is-wide';
 import { formatDateTime } from '../format';
 import { Icon } from '../icons';
 import { LoadFailed, Loading } from '../layout/query-states';
+import { SkipLink } from '../layout/skip-link';
 import { Button } from '../ui/button';
 import { Card } from '../ui/card';
 import { ChoiceChips } from '../ui/choice-chips';
@@ -29,24 +31,29 @@ import { formatDb, formatMhz, formatMm } from './format';
 import { HowComputedSheet } from './how-computed';
 import { methodShort, powerModeText, regimeShort, RESULT_LOOK } from './labels';
 import { evaluatedText, thresholdText, type FigureKey } from './screening-figures';
-import { ALL, filterRows, isFiltered, NO_FILTER, screeningCsv, type ScreeningFilter } from './screening-filter';
+import { ALL, filterRows, groupByTransmitter, isFiltered, NO_FILTER, screeningCsv, type ScreeningFilter, type TransmitterGroup } from './screening-filter';
 
 /** Rows drawn at first and with each "show more": enough to fill a wide screen, few enough to appear at once on a phone. */
 export const ROWS_PAGE = 40;
 
 type Opened = { row: ScreeningRowDto; figure: FigureKey } | null;
+type Layout = 'rows' | 'transmitters';
 
 export function ScreeningView({ filing }: { filing: FilingDetail }) {
   const screening = useScreeningQuery(filing.id);
   const [filter, setFilter] = useState<ScreeningFilter>(NO_FILTER);
   const [shown, setShown] = useState(ROWS_PAGE);
   const [opened, setOpened] = useState<Opened>(null);
+  const [layoutBy, setLayoutBy] = useState<Layout>('rows');
   const refine = (next: Partial<ScreeningFilter>) => {
     setFilter((f) => ({ ...f, ...next }));
     setShown(ROWS_PAGE);
   };
-  if (screening.isPending) return <Loading label="Screening every combination…" />;
-  if (screening.isError) return <LoadFailed what="the screening" error={screening.error} onRetry={() => void screening.refetch()} />;
+  // A failed refetch (a 401 while the sign-in sheet is up) keeps the table that was shown.
+  if (!screening.data) {
+    if (screening.isError) return <LoadFailed what="the screening" error={screening.error} onRetry={() => void screening.refetch()} />;
+    return <Loading label="Screening every combination…" />;
+  }
   const s = screening.data;
   const regimes = Object.keys(s.summary.byRegime);
   const rows = filterRows(s.rows, filter);
@@ -80,7 +87,7 @@ export function ScreeningView({ filing }: { filing: FilingDetail }) {
                 {c.message}
               </Text>
             ))}
-            <Text variant="small" tone="muted">{`Source: ${s.conditions[0].source}.`}</Text>
+            <Text variant="small" tone="muted">{`Source: ${sourceWords(s.conditions[0].source)}.`}</Text>
           </View>
         </Notice>
       ) : null}
@@ -129,6 +136,16 @@ export function ScreeningView({ filing }: { filing: FilingDetail }) {
               />
             </View>
           </View>
+          <ChoiceChips
+            label="Show"
+            choices={[
+              { value: 'rows', label: 'Every combination' },
+              { value: 'transmitters', label: 'By transmitter' },
+            ]}
+            value={layoutBy}
+            onChange={(v) => setLayoutBy(v as Layout)}
+            testID="screening-layout"
+          />
           <View style={styles.filterBar}>
             <Text variant="small" tone="soft" testID="screening-shown" accessibilityLiveRegion="polite">
               {isFiltered(filter) ? `${rows.length} of ${s.rows.length} combinations match` : `${s.rows.length} combinations`}
@@ -139,10 +156,14 @@ export function ScreeningView({ filing }: { filing: FilingDetail }) {
             ) : null}
           </View>
         </View>
+        {/* Keyboard users need not tab through every figure of a long table to reach what follows it. */}
+        {rows.length > 1 ? <SkipLink targetId="after-screening-table" label="Skip past the table" testID="skip-screening-table" /> : null}
         {s.rows.length === 0 ? (
           <Text tone="muted">Nothing to screen yet: add transmitters, use positions with separations, and at least one market.</Text>
         ) : rows.length === 0 ? (
           <Text tone="muted">No combination matches these filters.</Text>
+        ) : layoutBy === 'transmitters' ? (
+          <TransmitterGroups groups={groupByTransmitter(rows)} onOpen={open} />
         ) : (
           <>
             <ScreeningRows rows={rows.slice(0, shown)} onOpen={open} />
@@ -164,7 +185,7 @@ export function ScreeningView({ filing }: { filing: FilingDetail }) {
         <View style={{ gap: space.xxs }}>
           {s.cautions.map((c) => (
             <Text key={c} variant="small">
-              {c}
+              {sourceWords(c)}
             </Text>
           ))}
         </View>
@@ -286,8 +307,8 @@ function Count({
 const COLUMNS: { key: FigureKey | 'tx' | 'pos' | 'market'; label: string; flex: number; numeric?: boolean }[] = [
   { key: 'tx', label: 'Transmitter', flex: 1.2 },
   { key: 'pos', label: 'Use position', flex: 1.1 },
-  { key: 'market', label: 'Market', flex: 0.7 },
-  { key: 'method', label: 'Method', flex: 1.4 },
+  { key: 'market', label: 'Market', flex: 0.85 },
+  { key: 'method', label: 'Method', flex: 1.3 },
   { key: 'frequency', label: 'Frequency', flex: 1.05, numeric: true },
   { key: 'evaluated', label: 'Evaluated', flex: 1.05, numeric: true },
   { key: 'threshold', label: 'Threshold', flex: 1.1, numeric: true },
@@ -295,62 +316,126 @@ const COLUMNS: { key: FigureKey | 'tx' | 'pos' | 'market'; label: string; flex: 
   { key: 'margin', label: 'Margin', flex: 1.05, numeric: true },
 ];
 
-function ScreeningRows({ rows, onOpen }: { rows: ScreeningRowDto[]; onOpen: (row: ScreeningRowDto, figure: FigureKey) => void }) {
+const COUNT_WORDS: Record<ScreeningRowDto['result'], (n: number) => string> = {
+  'evaluate-sar': (n) => (n === 1 ? 'needs SAR' : 'need SAR'),
+  'evaluate-mpe': (n) => (n === 1 ? 'needs MPE' : 'need MPE'),
+  exempt: () => 'exempt',
+};
+
+/** One collapsed card per transmitter: its worst result and counts; opened, its rows (position × market). */
+function TransmitterGroups({ groups, onOpen }: { groups: TransmitterGroup[]; onOpen: (row: ScreeningRowDto, figure: FigureKey) => void }) {
+  const [openIds, setOpenIds] = useState<ReadonlySet<string>>(new Set());
+  const toggle = (id: string) =>
+    setOpenIds((prev) => {
+      const next = new Set(prev);
+      if (next.has(id)) next.delete(id);
+      else next.add(id);
+      return next;
+    });
+  return (
+    <View style={styles.cards} role="list" testID="screening-groups">
+      {groups.map((g, gi) => {
+        const isOpen = openIds.has(g.transmitterId);
+        const counts = (['evaluate-sar', 'evaluate-mpe', 'exempt'] as const)
+          .filter((r) => g.counts[r])
+          .map((r) => `${g.counts[r]} ${COUNT_WORDS[r](g.counts[r])}`)
+          .join(' · ');
+        const w = g.worst;
+        return (
+          <View key={g.transmitterId} style={styles.group} role="listitem" testID={`screening-group-${gi}`}>
+            <Pressable
+              onPress={() => toggle(g.transmitterId)}
+              accessibilityRole="button"
+              aria-expanded={isOpen}
+              accessibilityLabel={`${g.transmitterId}: ${g.rows.length} combinations, worst ${RESULT_LOOK[w.result].label}${w.provisional ? ' (provisional)' : ''} at ${w.usePositionId}, ${regimeShort(w.regime)}. ${isOpen ? 'Hide' : 'Show'} its rows`}
+              style={({ pressed }) => [styles.groupHead, pressed && styles.pressed]}
+              testID={`screening-group-${gi}-toggle`}
+            >
+              <Icon name={isOpen ? 'chevronDown' : 'chevronRight'} size={16} color={palette.inkSoft} strokeWidth={2} />
+              <View style={{ flex: 1, gap: 2, minWidth: 0 }}>
+                <Text variant="bodyStrong">{g.transmitterId}</Text>
+                <Text variant="small" tone="soft" testID={`screening-group-${gi}-counts`}>
+                  {`${g.rows.length} combination${g.rows.length === 1 ? '' : 's'} · ${counts}`}
+                </Text>
+                <Text variant="small" tone="muted" testID={`screening-group-${gi}-worst`}>
+                  {`Worst: ${w.usePositionId} · ${regimeShort(w.regime)}, margin ${formatDb(w.marginDb)}`}
+                </Text>
+              </View>
+              <ResultBadge row={w} />
+            </Pressable>
+            {isOpen ? <ScreeningRows rows={g.rows} onOpen={onOpen} idPrefix={`g${gi}-`} /> : null}
+          </View>
+        );
+      })}
+    </View>
+  );
+}
+
+function ScreeningRows({ rows, onOpen, idPrefix = '' }: { rows: ScreeningRowDto[]; onOpen: (row: ScreeningRowDto, figure: FigureKey) => void; idPrefix?: string }) {
   const wide = useIsWide();
   if (!wide) {
     return (
-      <View style={styles.cards} role="list" testID="screening-cards">
+      <View style={styles.cards} role="list" testID={`${idPrefix}screening-cards`}>
         {rows.map((row, i) => (
-          <RowCard key={i} row={row} index={i} onOpen={onOpen} />
+          <RowCard key={i} row={row} index={i} onOpen={onOpen} idPrefix={idPrefix} />
         ))}
       </View>
     );
   }
   return (
-    <View style={styles.table} role="table" testID="screening-table">
+    <View style={styles.table} role="table" testID={`${idPrefix}screening-table`}>
       <View style={[styles.tr, styles.th]} role="row">
+        {/* Every cell, heading or figure, is a View with the column's flex: a Text with flex sizes from its content, which set headings up to 14 px off their columns. */}
         {COLUMNS.map((c) => (
-          <Text key={c.key} variant="smallStrong" tone="soft" role="columnheader" style={[styles.td, styles.thCell, { flex: c.flex }, c.numeric && styles.right]}>
-            {c.label}
-          </Text>
+          <View key={c.key} role="columnheader" style={[styles.td, { flex: c.flex }]}>
+            <Text variant="smallStrong" tone="soft" style={[styles.thCell, c.numeric && styles.right]}>
+              {c.label}
+            </Text>
+          </View>
         ))}
       </View>
       {rows.map((row, i) => (
-        <View key={i} style={[styles.tr, i % 2 === 1 && styles.zebra]} role="row" testID={`screening-row-${i}`}>
-          <Text variant="smallStrong" style={[styles.td, styles.cellPad, { flex: COLUMNS[0]!.flex }]} role="cell">
-            {row.transmitterId}
-            {reduced(row) ? (
-              <Text variant="small" tone="muted" testID={`cell-${i}-power-mode`}>
-                {`\n${powerModeText(row.powerMode)}`}
-              </Text>
-            ) : null}
-          </Text>
-          <Text variant="small" style={[styles.td, styles.cellPad, { flex: COLUMNS[1]!.flex }]} role="cell">
-            {row.usePositionId}
-            {'\n'}
-            <Text variant="small" tone="muted">
-              {antennaText(row)}
+        <View key={i} style={[styles.tr, i % 2 === 1 && styles.zebra]} role="row" testID={`${idPrefix}screening-row-${i}`}>
+          <View role="cell" style={[styles.td, { flex: COLUMNS[0]!.flex }]}>
+            <Text variant="smallStrong" style={styles.cellPad}>
+              {row.transmitterId}
+              {reduced(row) ? (
+                <Text variant="small" tone="muted" testID={`${idPrefix}cell-${i}-power-mode`}>
+                  {`\n${powerModeText(row.powerMode)}`}
+                </Text>
+              ) : null}
             </Text>
-          </Text>
-          <Text variant="small" style={[styles.td, styles.cellPad, { flex: COLUMNS[2]!.flex }]} role="cell">
-            {regimeShort(row.regime)}
-          </Text>
-          <Figure flex={1.4} label={methodShort(row.method)} onPress={() => onOpen(row, 'method')} testID={`cell-${i}-method`} />
-          <Figure flex={1.05} numeric label={formatMhz(row.frequencyHz)} onPress={() => onOpen(row, 'frequency')} testID={`cell-${i}-frequency`} />
-          <Figure flex={1.05} numeric label={evaluatedText(row)} onPress={() => onOpen(row, 'evaluated')} testID={`cell-${i}-evaluated`} />
-          <Figure flex={1.1} numeric label={thresholdText(row)} onPress={() => onOpen(row, 'threshold')} testID={`cell-${i}-threshold`} />
+          </View>
+          <View role="cell" style={[styles.td, { flex: COLUMNS[1]!.flex }]}>
+            <Text variant="small" style={styles.cellPad}>
+              {row.usePositionId}
+              {'\n'}
+              <Text variant="small" tone="muted">
+                {antennaText(row)}
+              </Text>
+            </Text>
+          </View>
+          <View role="cell" style={[styles.td, { flex: COLUMNS[2]!.flex }]}>
+            <Text variant="small" style={styles.cellPad}>
+              {regimeShort(row.regime)}
+            </Text>
+          </View>
+          <Figure flex={1.3} label={methodShort(row.method)} onPress={() => onOpen(row, 'method')} testID={`${idPrefix}cell-${i}-method`} />
+          <Figure flex={1.05} numeric label={formatMhz(row.frequencyHz)} onPress={() => onOpen(row, 'frequency')} testID={`${idPrefix}cell-${i}-frequency`} />
+          <Figure flex={1.05} numeric label={evaluatedText(row)} onPress={() => onOpen(row, 'evaluated')} testID={`${idPrefix}cell-${i}-evaluated`} />
+          <Figure flex={1.1} numeric label={thresholdText(row)} onPress={() => onOpen(row, 'threshold')} testID={`${idPrefix}cell-${i}-threshold`} />
           <View role="cell" style={[styles.td, { flex: 1.55 }]}>
             <Pressable
               style={({ pressed }) => [styles.cellPress, { flex: 1 }, pressed && styles.pressed]}
               onPress={() => onOpen(row, 'result')}
               accessibilityRole="button"
               accessibilityLabel={`How computed: result ${RESULT_LOOK[row.result].label}`}
-              testID={`cell-${i}-result`}
+              testID={`${idPrefix}cell-${i}-result`}
             >
               <ResultBadge row={row} />
             </Pressable>
           </View>
-          <Figure flex={1.05} numeric label={formatDb(row.marginDb)} onPress={() => onOpen(row, 'margin')} testID={`cell-${i}-margin`} />
+          <Figure flex={1.05} numeric label={formatDb(row.marginDb)} onPress={() => onOpen(row, 'margin')} testID={`${idPrefix}cell-${i}-margin`} />
         </View>
       ))}
     </View>
@@ -393,7 +478,7 @@ function Figure({ label, onPress, flex, numeric, testID }: { label: string; onPr
   );
 }
 
-function RowCard({ row, index, onOpen }: { row: ScreeningRowDto; index: number; onOpen: (row: ScreeningRowDto, figure: FigureKey) => void }) {
+function RowCard({ row, index, onOpen, idPrefix }: { row: ScreeningRowDto; index: number; onOpen: (row: ScreeningRowDto, figure: FigureKey) => void; idPrefix: string }) {
   const items: { key: FigureKey; label: string; value: string }[] = [
     { key: 'frequency', label: 'Frequency', value: formatMhz(row.frequencyHz) },
     { key: 'evaluated', label: 'Evaluated', value: evaluatedText(row) },
@@ -401,7 +486,7 @@ function RowCard({ row, index, onOpen }: { row: ScreeningRowDto; index: number; 
     { key: 'margin', label: 'Margin', value: formatDb(row.marginDb) },
   ];
   return (
-    <View style={styles.card} role="listitem" testID={`screening-row-${index}`}>
+    <View style={styles.card} role="listitem" testID={`${idPrefix}screening-row-${index}`}>
       <View style={styles.cardHead}>
         <View style={{ flex: 1, gap: 2 }}>
           <Text variant="bodyStrong">
@@ -411,7 +496,7 @@ function RowCard({ row, index, onOpen }: { row: ScreeningRowDto; index: number; 
             {row.usePositionId} — {USE_POSITION_LABELS[row.usePositionKind].toLowerCase()}, {antennaText(row)}
           </Text>
           {reduced(row) ? (
-            <Text variant="small" tone="soft" testID={`cell-${index}-power-mode`}>
+            <Text variant="small" tone="soft" testID={`${idPrefix}cell-${index}-power-mode`}>
               {powerModeText(row.powerMode)}
             </Text>
           ) : null}
@@ -423,7 +508,7 @@ function RowCard({ row, index, onOpen }: { row: ScreeningRowDto; index: number; 
         style={({ pressed }) => [styles.methodRow, pressed && styles.pressed]}
         accessibilityRole="button"
         accessibilityLabel={`How computed: method ${row.methodLabel}`}
-        testID={`cell-${index}-method`}
+        testID={`${idPrefix}cell-${index}-method`}
       >
         <Text variant="small" tone="soft" style={{ flex: 1 }}>
           {row.methodLabel}
@@ -437,7 +522,7 @@ function RowCard({ row, index, onOpen }: { row: ScreeningRowDto; index: number; 
             style={({ pressed }) => [styles.cardFigure, pressed && styles.pressed]}
             accessibilityRole="button"
             accessibilityLabel={`How computed: ${it.label} ${it.value}`}
-            testID={`cell-${index}-${it.key}`}
+            testID={`${idPrefix}cell-${index}-${it.key}`}
           >
             <Text variant="small" tone="muted">
               {it.label}
@@ -448,7 +533,7 @@ function RowCard({ row, index, onOpen }: { row: ScreeningRowDto; index: number; 
           </Pressable>
         ))}
       </View>
-      <Button label="How computed" variant="quiet" compact icon="info" onPress={() => onOpen(row, 'result')} testID={`how-${index}`} style={{ alignSelf: 'flex-start' }} />
+      <Button label="How computed" variant="quiet" compact icon="info" onPress={() => onOpen(row, 'result')} testID={`${idPrefix}how-${index}`} style={{ alignSelf: 'flex-start' }} />
     </View>
   );
 }
@@ -492,6 +577,8 @@ const styles = StyleSheet.create({
   figure: { fontSize: 13, textAlign: 'right', textDecorationLine: 'underline', textDecorationStyle: 'dotted', textDecorationColor: palette.inkFaint } as object,
   link: { textDecorationLine: 'underline', textDecorationStyle: 'dotted', textDecorationColor: palette.inkFaint } as object,
   cards: { gap: space.md },
+  group: { borderWidth: 1, borderColor: palette.line, borderRadius: radii.lg, backgroundColor: palette.surface, padding: space.xs, gap: space.sm },
+  groupHead: { flexDirection: 'row', alignItems: 'center', gap: space.sm, minHeight: layout.touchMinPx, padding: space.sm, borderRadius: radii.md },
   card: { borderWidth: 1, borderColor: palette.line, borderRadius: radii.lg, padding: space.md, gap: space.sm, backgroundColor: palette.surface },
   cardHead: { flexDirection: 'row', gap: space.sm, alignItems: 'flex-start' },
   methodRow: { minHeight: 32, justifyContent: 'center', borderRadius: radii.sm },

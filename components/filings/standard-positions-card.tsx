@@ -3,6 +3,7 @@
  * (the device's product type picks it first; a module picks its host's), see what each position
  * is, its averaging mass, test separation and source, and add those not yet in the list.
  */
+import { sourceWords } from '../source-words';
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import {
@@ -50,7 +51,7 @@ export function StandardPositionsCard({ productType, existingIds, onAdd }: { pro
               <View style={styles.list} testID="standard-positions-list">
                 {toAdd.map((p) => (
                   <Text key={p.id} variant="small" testID={`standard-${p.id}`}>
-                    {`${p.id} — ${p.surface}: ${USE_POSITION_LABELS[p.kind].toLowerCase()}, ${p.averagingMassG} g, ${mm(p.separationM)}. Source: ${p.source}.`}
+                    {`${p.id} — ${p.surface}: ${USE_POSITION_LABELS[p.kind].toLowerCase()}, ${p.averagingMassG} g, ${mm(p.separationM)}. Source: ${sourceWords(p.source)}.`}
                   </Text>
                 ))}
               </View>

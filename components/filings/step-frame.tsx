@@ -1,4 +1,5 @@
 /** The top of a data step: the autosave status, and why the form is read-only or started from a draft. */
+import { sourceWords } from '../source-words';
 import { useEffect, useRef } from 'react';
 import { Platform, StyleSheet, View } from 'react-native';
 import { palette, radii, space } from '../../constants/theme';
@@ -57,7 +58,7 @@ function ConflictNotice({ changed, onChoose }: { changed: string[]; onChoose: (c
         <Text variant="small">Your latest changes are not saved. {changed.length ? 'Where the two differ:' : 'Their version holds the same values as yours.'}</Text>
         {shown.map((c) => (
           <Text key={c} variant="small">
-            {`• ${c}`}
+            {`• ${sourceWords(c)}`}
           </Text>
         ))}
         {changed.length > shown.length ? <Text variant="small" tone="soft">{`…and ${changed.length - shown.length} more`}</Text> : null}

@@ -22,7 +22,9 @@ export function AppShell({ children }: { children: React.ReactNode }) {
   const wide = useIsWide();
   return wide ? (
     <View style={styles.wide}>
-      <SkipLink />
+      <View role="navigation" aria-label="Skip link">
+        <SkipLink />
+      </View>
       <Sidebar />
       <View style={styles.main} role="main" nativeID="main-content">
         {children}
@@ -31,7 +33,9 @@ export function AppShell({ children }: { children: React.ReactNode }) {
     </View>
   ) : (
     <View style={styles.narrow}>
-      <SkipLink />
+      <View role="navigation" aria-label="Skip link">
+        <SkipLink />
+      </View>
       <TopBar />
       <View style={styles.main} role="main" nativeID="main-content">
         {children}
@@ -97,7 +101,7 @@ function TopBar() {
   const user = useCurrentUser();
   const insets = useSafeAreaInsets();
   return (
-    <View style={[styles.topBar, { paddingTop: insets.top + space.sm }]}>
+    <View style={[styles.topBar, { paddingTop: insets.top + space.sm }]} role="banner">
       <Wordmark size={24} />
       <Text variant="small" tone="muted" numberOfLines={1} style={styles.topOrg}>
         {user.organisation.name}

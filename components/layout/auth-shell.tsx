@@ -12,7 +12,7 @@ export function AuthShell({ title, intro, children }: { title: string; intro?: R
   usePageTitle(title);
   return (
     <ScrollView style={styles.page} contentContainerStyle={[styles.content, wide && styles.contentWide]}>
-      <View style={styles.column}>
+      <View style={styles.column} role="main">
         <View style={styles.brand}>
           <Wordmark size={wide ? 40 : 34} />
           <Text tone="soft" style={styles.tagline}>

@@ -3,6 +3,7 @@
  * the element with `targetId` (the screen's main area, or what follows a long table).
  */
 import { Platform, Pressable } from 'react-native';
+import { keyProps } from '../ui/keyboard';
 import { Text } from '../ui/text';
 
 export function focusById(id: string): void {
@@ -16,7 +17,18 @@ export function focusById(id: string): void {
 export function SkipLink({ targetId = 'main-content', label = 'Skip to content', testID = 'skip-link' }: { targetId?: string; label?: string; testID?: string }) {
   if (Platform.OS !== 'web') return null;
   return (
-    <Pressable accessibilityRole="link" onPress={() => focusById(targetId)} testID={testID} {...({ dataSet: { skiplink: 'true' } } as object)}>
+    <Pressable
+      accessibilityRole="link"
+      onPress={() => focusById(targetId)}
+      // react-native-web fires onPress from the keyboard only for buttons: a link takes Enter here.
+      {...keyProps((e) => {
+        if (e.key !== 'Enter') return;
+        e.preventDefault();
+        focusById(targetId);
+      })}
+      testID={testID}
+      {...({ dataSet: { skiplink: 'true' } } as object)}
+    >
       <Text variant="bodyStrong" tone="onInk">
         {label}
       </Text>

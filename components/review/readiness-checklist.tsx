@@ -2,6 +2,7 @@
  * The readiness checklist: a count per severity, then every item with an icon and a word (never
  * colour alone), what fails, how to fix it, the step that fixes it and its source.
  */
+import { sourceWords } from '../source-words';
 import { Link } from 'expo-router';
 import { Pressable, StyleSheet, View } from 'react-native';
 import type { ReadinessItem } from '../../calc/readiness';
@@ -67,18 +68,18 @@ function ChecklistRow({ item, filingId }: { item: ReadinessItem; filingId: numbe
             <View key={n} style={styles.finding}>
               <Icon name="chevronRight" size={14} color={palette.inkMuted} />
               <Text variant="small" style={{ flex: 1 }}>
-                {f.text}
+                {sourceWords(f.text)}
               </Text>
             </View>
           ))}
           <Text variant="small" tone="soft">
-            {item.fix}
+            {sourceWords(item.fix)}
           </Text>
           <StepLink filingId={filingId} step={item.step} />
         </View>
       ) : null}
       <Text variant="small" tone="muted">
-        Source: {item.source}
+        Source: {sourceWords(item.source)}
       </Text>
     </View>
   );

@@ -7,7 +7,7 @@ import { useLocalSearchParams, useRouter } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
 import { AUDIT_KIND_LABELS, AUDIT_KINDS, AUDIT_LIST_LIMIT, type AuditKind } from '../../constants/schemas/audit';
 import { palette, space } from '../../constants/theme';
-import { useAuditQuery, type AuditEntry, type AuditFilters } from '../../hooks/queries/audit';
+import { useAuditQuery, type AuditFilters } from '../../hooks/queries/audit';
 import { useFilingsQuery } from '../../hooks/queries/filings';
 import { useCurrentUser } from '../../hooks/queries/session';
 import { useUsersQuery } from '../../hooks/queries/users';
@@ -20,61 +20,7 @@ import { Button } from '../ui/button';
 import { Card } from '../ui/card';
 import { SelectField } from '../ui/select-field';
 import { Text } from '../ui/text';
-
-const ACTION_LABELS: Record<string, string> = {
-  'auth.sign-in': 'Signed in',
-  'auth.sign-in-failed': 'Failed sign-in',
-  'auth.sign-out': 'Signed out',
-  'auth.password-set': 'Set a password',
-  'auth.set-password': 'Set a password',
-  'auth.sign-in-blocked': 'Sign-in paused after wrong passwords',
-  'auth.password-reset-requested': 'Asked for a password-reset link',
-  'auth.password-reset': 'Chose a new password from a reset link',
-  'auth.password-change': 'Changed the password',
-  'user.invite': 'Invited a user',
-  'user.invite-resend': 'Sent an invitation again',
-  'user.join': 'Joined the organisation',
-  'user.update': 'Changed a user',
-  'user.deactivate': 'Deactivated a user',
-  'user.reactivate': 'Reactivated a user',
-  'filing.create': 'Started a filing',
-  'filing.import': 'Imported a device file',
-  'filing.archive': 'Archived a filing',
-  'filing.restore': 'Restored a filing',
-  'filing.step-save': 'Saved a step',
-  'evidence.upload': 'Filed evidence',
-  'evidence.replace': 'Replaced evidence',
-  'evidence.delete': 'Removed evidence',
-  'version.review-requested': 'Asked for review',
-  'version.returned': 'Returned for changes',
-  'version.started': 'Started a new version',
-  'version.signed': 'Signed a version',
-  'version.sign-refused': 'Signing refused',
-  'version.verified': 'Verified a signature',
-  'review.comment': 'Commented',
-  'review.reply': 'Answered a comment',
-  'review.resolve': 'Resolved a comment',
-  'review.reopen': 'Reopened a comment',
-};
-
-/** Actions without a label of their own ("filing.create") read as "Filing: create". */
-function actionLabel(action: string): string {
-  if (ACTION_LABELS[action]) return ACTION_LABELS[action];
-  const [noun = action, ...rest] = action.split('.');
-  const what = rest.join(' ').replace(/[-_]/g, ' ');
-  return `${noun.charAt(0).toUpperCase()}${noun.slice(1)}${what ? `: ${what}` : ''}`;
-}
-
-function describe(entry: AuditEntry): string {
-  const d = (entry.details ?? {}) as Record<string, unknown>;
-  const parts: string[] = [];
-  if (typeof d.name === 'string') parts.push(d.name);
-  if (typeof d.email === 'string') parts.push(d.email);
-  if (Array.isArray(d.roles)) parts.push(`roles: ${d.roles.join(', ')}`);
-  if (typeof d.active === 'boolean') parts.push(d.active ? 'active' : 'inactive');
-  if (!parts.length && entry.targetType && !entry.filingId) parts.push(`${entry.targetType} #${entry.targetId}`);
-  return parts.join(' · ');
-}
+import { actionLabel, describeEntry } from '../users/activity-words';
 
 export function ActivityScreen() {
   return (
@@ -171,11 +117,11 @@ function ActivityList() {
                 </Text>
                 <View style={{ flex: 1, gap: 1 }}>
                   <Text variant="bodyStrong" tone={e.action.endsWith('failed') || e.action.endsWith('refused') ? 'fail' : 'ink'}>
-                    {actionLabel(e.action)}
+                    {actionLabel(e.action, e.details)}
                     <Text tone="soft">{` — ${e.actorName ?? 'unknown user'}`}</Text>
                   </Text>
                   <Text variant="small" tone="soft" testID="activity-entry-about">
-                    {[e.kind ? AUDIT_KIND_LABELS[e.kind] : null, e.filingId ? (filingName.get(e.filingId) ?? `filing #${e.filingId}`) : null, describe(e) || null].filter(Boolean).join(' · ')}
+                    {[e.kind ? AUDIT_KIND_LABELS[e.kind] : null, e.filingId ? (filingName.get(e.filingId) ?? `filing #${e.filingId}`) : null, describeEntry(e) || null].filter(Boolean).join(' · ')}
                   </Text>
                 </View>
               </View>

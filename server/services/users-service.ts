@@ -216,7 +216,14 @@ export async function resendInvitation(db: Db, mailer: Mailer, publicUrl: string
     repo.retirePasswordTokens(tx, userId, 'invitation', actor.organisationId);
     const { token, expiresAt } = issueToken(tx, userId, 'invitation', actor.organisationId);
     const roles = repo.listRoles(tx, membership.id);
-    recordAudit(tx, { organisationId: actor.organisationId, actorUserId: actor.id, action: 'user.invite-resend', targetType: 'user', targetId: userId });
+    recordAudit(tx, {
+      organisationId: actor.organisationId,
+      actorUserId: actor.id,
+      action: 'user.invite-resend',
+      targetType: 'user',
+      targetId: userId,
+      details: { email: user.email, targetName: membership.name },
+    });
     const org = repo.findOrganisation(tx, actor.organisationId)!;
     return { dto: toDto(user, membership, roles), token, expiresAt, organisationName: org.name, existingAccount: user.passwordHash !== null, email: user.email, roles };
   });
@@ -231,6 +238,7 @@ export function updateUser(db: Db, actor: Actor, userId: number, changes: { name
     if (userId === actor.id && (changes.active === false || (changes.roles && !changes.roles.includes('admin')))) {
       throw forbidden('You cannot deactivate yourself or remove your own admin role; ask another admin.');
     }
+    const rolesBefore = repo.listRoles(tx, membership.id);
     // Only this organisation's membership changes: the account and other memberships are untouched.
     repo.updateMembership(tx, membership.id, { name: changes.name, active: changes.active });
     if (changes.roles) repo.replaceRoles(tx, membership.id, changes.roles);
@@ -240,10 +248,20 @@ export function updateUser(db: Db, actor: Actor, userId: number, changes: { name
       action: changes.active === false ? 'user.deactivate' : changes.active === true ? 'user.reactivate' : 'user.update',
       targetType: 'user',
       targetId: userId,
-      details: changes,
+      // Who was changed and what changed, before → after, so the trail reads without a lookup.
+      details: { ...changes, ...changeDetails(user.email, membership, rolesBefore, changes) },
     });
     return toDto(user, repo.findMembership(tx, userId, actor.organisationId)!, repo.listRoles(tx, membership.id));
   });
+}
+
+/** The audit details of a change to a member: the person (e-mail, name as it was) and each changed field's before → after. */
+function changeDetails(email: string, before: { name: string; active: boolean }, rolesBefore: Role[], changes: { name?: string; roles?: Role[]; active?: boolean }) {
+  const details: Record<string, unknown> = { email, targetName: before.name };
+  if (changes.roles) details.rolesBefore = rolesBefore;
+  if (changes.name !== undefined && changes.name !== before.name) details.nameBefore = before.name;
+  if (changes.active !== undefined) details.activeBefore = before.active;
+  return details;
 }
 
 function findLiveToken(db: Db, token: string) {
@@ -343,7 +361,7 @@ export async function acceptInvitation(db: Db, token: string, password: string):
     if (!findLiveToken(tx, token)) throw deadLink();
     repo.markPasswordTokenUsed(tx, row.id);
     repo.acceptPendingMemberships(tx, user.id, row.organisationId);
-    recordAudit(tx, { organisationId: row.organisationId, actorUserId: user.id, action: 'user.join', targetType: 'user', targetId: user.id });
+    recordAudit(tx, { organisationId: row.organisationId, actorUserId: user.id, action: 'user.join', targetType: 'user', targetId: user.id, details: { email: user.email, via: 'invitation' } });
     return { email: user.email };
   });
 }

@@ -1,11 +1,12 @@
 /**
  * Screening at scale: the filters (result, market, transmitter, use position) on real engine rows,
- * a tapped summary count filtering the table, the page-at-a-time table, and the CSV export.
+ * a tapped summary count filtering the table, the page-at-a-time table, the grouping by transmitter
+ * with its worst result, and the CSV export.
  */
 import { fireEvent, screen } from '@testing-library/react-native';
 import { screeningInput } from '../../calc/screening/input';
 import { SCREENING_CAUTIONS, screenParsed } from '../../calc/screening/screen';
-import { filterRows, NO_FILTER, screeningCsv } from '../../components/filings/screening-filter';
+import { filterRows, groupByTransmitter, NO_FILTER, screeningCsv, worstRow } from '../../components/filings/screening-filter';
 import { ROWS_PAGE, ScreeningView } from '../../components/filings/screening-view';
 import type { FilingDetail } from '../../constants/schemas/filings';
 import { installFetchMock } from './support/fetch-mock';
@@ -95,5 +96,47 @@ describe('screening filters', () => {
     expect(screen.getByTestId('screening-shown')).toHaveTextContent(`${fccExempt} of 48 combinations match`);
     fireEvent.press(screen.getByTestId('screening-clear'));
     expect(screen.getByTestId('screening-shown')).toHaveTextContent('48 combinations');
+  });
+
+  it('groups by transmitter with the worst result: SAR over MPE over exempt, then the smallest margin', () => {
+    const groups = groupByTransmitter(output.rows);
+    expect(groups.map((g) => g.transmitterId)).toEqual(transmitters.map((t) => t.id));
+    for (const g of groups) {
+      expect(g.rows).toHaveLength(4);
+      expect(g.counts.exempt + g.counts['evaluate-sar'] + g.counts['evaluate-mpe']).toBe(4);
+      // No row of the group is worse than the one named.
+      const weight = { 'evaluate-sar': 3, 'evaluate-mpe': 2, exempt: 1 } as const;
+      for (const r of g.rows) expect(weight[r.result]).toBeLessThanOrEqual(weight[g.worst.result]);
+    }
+    const base = output.rows[0]!;
+    const row = (result: typeof base.result, marginDb: number | null, provisional = false) => ({ ...base, result, marginDb, provisional });
+    expect(worstRow([row('exempt', 1), row('evaluate-mpe', 5), row('exempt', -1)]).result).toBe('evaluate-mpe');
+    expect(worstRow([row('evaluate-mpe', 5), row('evaluate-sar', 9)]).result).toBe('evaluate-sar');
+    expect(worstRow([row('exempt', 1), row('exempt', 0.5)]).marginDb).toBe(0.5);
+    expect(worstRow([row('exempt', 0.5), row('exempt', 6, true)]).provisional).toBe(true);
+    // A known margin says more than none.
+    expect(worstRow([row('evaluate-sar', null), row('evaluate-sar', -3)]).marginDb).toBe(-3);
+  });
+
+  it('shows one collapsed card per transmitter that opens to its rows, and follows the filters', async () => {
+    installFetchMock({ 'GET /api/filings/9/screening': { status: 200, body: SCREENING } });
+    renderWithClient(<ScreeningView filing={FILING} />);
+    await screen.findByTestId('screening-shown');
+    fireEvent.press(screen.getByRole('radio', { name: 'By transmitter' }));
+    expect(screen.getByTestId('screening-group-11')).toBeTruthy();
+    expect(screen.queryByTestId('screening-row-0')).toBeNull();
+    const last = groupByTransmitter(output.rows)[11]!;
+    expect(screen.getByTestId('screening-group-11-worst')).toHaveTextContent(new RegExp(`^Worst: ${last.worst.usePositionId} · `));
+    expect(screen.getByTestId('screening-group-0-counts')).toHaveTextContent(/^4 combinations · ((\d+ needs? (SAR|MPE)|\d+ exempt)( · |$))+$/);
+    fireEvent.press(screen.getByTestId('screening-group-2-toggle'));
+    expect(screen.getByTestId('g2-screening-row-3')).toBeTruthy();
+    expect(screen.queryByTestId('g2-screening-row-4')).toBeNull();
+    expect(screen.queryByTestId('g1-screening-row-0')).toBeNull();
+    // A tapped count narrows the groups to the transmitters that have such a row.
+    fireEvent.press(screen.getByTestId('summary-eu-evaluate-sar'));
+    const sarTx = new Set(output.rows.filter((r) => r.regime === 'eu' && r.result === 'evaluate-sar').map((r) => r.transmitterId));
+    expect(sarTx.size).toBeGreaterThan(0);
+    expect(screen.queryByTestId(`screening-group-${sarTx.size}`)).toBeNull();
+    expect(screen.getByTestId(`screening-group-${sarTx.size - 1}`)).toBeTruthy();
   });
 });

@@ -100,7 +100,7 @@ describe('UsePositionsStep: standard test positions', () => {
     const handset = STANDARD_POSITION_SETS.handset.positions;
     // hotspot-back is already there: the rest are offered.
     expect(screen.getByTestId('standard-positions-add')).toHaveTextContent(`Add ${handset.length - 1} standard positions`);
-    expect(screen.getByTestId('standard-left-cheek')).toHaveTextContent(/against the head, 1 g, 0 mm\. Source: FCC KDB 648474 D04.*from memory/);
+    expect(screen.getByTestId('standard-left-cheek')).toHaveTextContent(/against the head, 1 g, 0 mm\. Source: FCC KDB 648474 D04.*; check against the current edition\.$/);
     expect(screen.getByTestId('standard-hotspot-top')).toHaveTextContent(/hotspot \(near the body\), 1 g, 10 mm\. Source: FCC KDB 941225 D06/);
     expect(screen.queryByTestId('standard-hotspot-back')).toBeNull();
     fireEvent.press(screen.getByTestId('standard-positions-add'));

@@ -118,6 +118,20 @@ describe('audit trail', () => {
     expect(res.body.entries[0].id).toBeGreaterThan(res.body.entries.at(-1).id);
   });
 
+  it('says who was changed and what changed, before → after; an accepted invitation is there', async () => {
+    const entries = (await admin.get('/api/audit')).body.entries as { action: string; details: Record<string, unknown> }[];
+    const roleChanges = entries.filter((e) => e.action === 'user.update' && e.details.email === 'engineer@fieldfile.test');
+    // Newest first: engineer+admin → engineer, then engineer → engineer+admin.
+    expect(roleChanges.map((e) => [e.details.rolesBefore, e.details.roles])).toEqual([
+      [['admin', 'engineer'], ['engineer']],
+      [['engineer'], ['engineer', 'admin']],
+    ]);
+    expect(roleChanges[0].details.targetName).toEqual(expect.any(String));
+    const deactivated = entries.find((e) => e.action === 'user.deactivate')!;
+    expect(deactivated.details).toMatchObject({ email: 'approver@fieldfile.test', active: false, activeBefore: true });
+    expect(entries.find((e) => e.action === 'auth.set-password' && e.details.purpose === 'invitation')).toBeDefined();
+  });
+
   it('is append-only in the database itself', () => {
     expect(() => t.handle.sqlite.exec("update audit_log set action = 'x'")).toThrow(/append-only/);
     expect(() => t.handle.sqlite.exec('delete from audit_log')).toThrow(/append-only/);
