@@ -15,6 +15,7 @@ import { LoadFailed, Loading } from '../layout/query-states';
 import { Button } from '../ui/button';
 import { Card } from '../ui/card';
 import { ChoiceChips } from '../ui/choice-chips';
+import { sourceWords } from '../source-words';
 import { Notice } from '../ui/notice';
 import { Sheet } from '../ui/sheet';
 import { StatusBadge, type BadgeTone } from '../ui/status-badge';
@@ -104,7 +105,7 @@ export function CoTransmissionView({ filing }: { filing: FilingDetail }) {
         <View style={{ gap: space.xxs }}>
           {lab.data.cautions.map((c) => (
             <Text key={c} variant="small">
-              {c}
+              {sourceWords(c)}
             </Text>
           ))}
         </View>

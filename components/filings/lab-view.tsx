@@ -29,6 +29,7 @@ import { DerivationBlock } from './how-computed';
 import { regimeShort } from './labels';
 import { MeasurementImport } from './measurement-import';
 import { LabDataEditor } from './lab-data-editor';
+import { sourceWords } from '../source-words';
 import {
   ALL,
   DEFAULT_LAB_SORT,
@@ -117,7 +118,7 @@ export function LabView({ filing }: { filing: FilingDetail }) {
         <View style={{ gap: space.xxs }}>
           {r.cautions.map((c) => (
             <Text key={c} variant="small">
-              {c}
+              {sourceWords(c)}
             </Text>
           ))}
         </View>
@@ -488,7 +489,7 @@ function FlagLine({ check }: { check: LabCheck }) {
         {check.message}{' '}
         {check.howToFix ? (
           <Text variant="small" tone="soft">
-            How to fix: {check.howToFix}
+            How to fix: {sourceWords(check.howToFix)}
           </Text>
         ) : null}
       </Text>
@@ -539,7 +540,7 @@ function CheckItem({ check }: { check: LabCheck }) {
         </Text>
         <StatusBadge tone={l.tone} icon={l.icon} label={checkLabel(check)} />
       </View>
-      <Text variant="small">{check.message}</Text>
+      <Text variant="small">{sourceWords(check.message)}</Text>
       {check.value ? (
         <Text variant="small" tone="soft">
           Value: {check.value}
@@ -547,16 +548,16 @@ function CheckItem({ check }: { check: LabCheck }) {
       ) : null}
       {check.tolerance ? (
         <Text variant="small" tone="soft">
-          Tolerance: {check.tolerance}
+          Tolerance: {sourceWords(check.tolerance)}
         </Text>
       ) : null}
       {check.howToFix ? (
         <Text variant="small" style={{ color: palette.fail }}>
-          How to fix: {check.howToFix}
+          How to fix: {sourceWords(check.howToFix)}
         </Text>
       ) : null}
       <Text variant="small" tone="muted">
-        Source: {check.source}
+        Source: {sourceWords(check.source)}
       </Text>
     </View>
   );
@@ -606,16 +607,16 @@ function Checks({ r, onOpen }: { r: FilingLabResults; onOpen: (c: LabCheck) => v
               >
                 <StatusBadge tone={CHECK_LOOK[c.status].tone} icon={CHECK_LOOK[c.status].icon} label={checkLabel(c)} />
                 <View style={{ flex: 1, minWidth: 200, gap: 2 }}>
-                  <Text variant="small">{c.message}</Text>
+                  <Text variant="small">{sourceWords(c.message)}</Text>
                   {c.value ? (
                     <Text variant="small" tone="muted">
                       {c.value}
-                      {c.tolerance ? ` · tolerance ${c.tolerance}` : ''}
+                      {c.tolerance ? ` · tolerance ${sourceWords(c.tolerance)}` : ''}
                     </Text>
                   ) : null}
                   {c.howToFix ? (
                     <Text variant="small" tone="soft">
-                      How to fix: {c.howToFix}
+                      How to fix: {sourceWords(c.howToFix)}
                     </Text>
                   ) : null}
                 </View>
