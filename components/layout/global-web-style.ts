@@ -9,8 +9,8 @@ const CSS = `
 :focus-visible { outline: ${focusRing.width}px solid ${focusRing.color} !important; outline-offset: ${focusRing.offset}px !important; border-radius: 4px; }
 input:focus-visible, textarea:focus-visible, select:focus-visible { outline-offset: 1px !important; }
 input, textarea { font-variant-numeric: tabular-nums; }
-[data-skiplink] { position: absolute !important; left: 8px; top: -200px; z-index: 1000; padding: 10px 16px; background: ${palette.accent}; border-radius: 8px; }
-[data-skiplink]:focus, [data-skiplink]:focus-visible { top: 8px; }
+[data-skiplink] { position: absolute !important; left: 8px; top: 8px; z-index: 1000; padding: 10px 16px; background: ${palette.accent}; border-radius: 8px; }
+[data-skiplink]:not(:focus) { clip-path: inset(50%); width: 1px; height: 1px; overflow: hidden; white-space: nowrap; padding: 0; }
 ::selection { background: ${palette.accentSoft}; }
 `;
 
