@@ -368,14 +368,32 @@ function crossReferenceIssues(value: unknown, ctx: z.RefinementCtx) {
       seen.add(ref);
     });
   });
-  (Array.isArray(value.simultaneous) ? value.simultaneous : []).forEach((combo: unknown, i: number) => {
-    if (!Array.isArray(combo)) return;
+  const positionIds = new Set(usePositions.map((p) => str(p.id)));
+  (Array.isArray(value.simultaneous) ? value.simultaneous : []).forEach((entry: unknown, i: number) => {
+    // A bare list holds in every use position; an object may name the one position it holds in.
+    const combo = Array.isArray(entry) ? entry : isRecord(entry) && Array.isArray(entry.transmitterIds) ? entry.transmitterIds : undefined;
+    const at = Array.isArray(entry) ? ['simultaneous', i] : ['simultaneous', i, 'transmitterIds'];
+    if (isRecord(entry)) {
+      const pos = str(entry.usePositionId);
+      if (pos !== undefined && !positionIds.has(pos)) ctx.addIssue({ code: 'custom', path: ['simultaneous', i, 'usePositionId'], message: `Unknown use position id "${pos}".` });
+    }
+    if (!combo) return;
     combo.forEach((id: unknown, j: number) => {
-      if (typeof id === 'string' && !txIds.has(id)) ctx.addIssue({ code: 'custom', path: ['simultaneous', i, j], message: `Unknown transmitter id "${id}".` });
+      if (typeof id === 'string' && !txIds.has(id)) ctx.addIssue({ code: 'custom', path: [...at, j], message: `Unknown transmitter id "${id}".` });
     });
-    if (new Set(combo).size !== combo.length) ctx.addIssue({ code: 'custom', path: ['simultaneous', i], message: 'A combination names each transmitter once.' });
+    if (new Set(combo).size !== combo.length) ctx.addIssue({ code: 'custom', path: at, message: 'A combination names each transmitter once.' });
   });
 }
+
+const zCombination = z.array(zItemId).min(2, 'A combination names at least two transmitters.').describe('Transmitter ids that may transmit at the same time, in every use position.');
+/** Written only for a combination limited to one use position, so files without any stay as they were. */
+const zPositionCombination = z
+  .strictObject({
+    transmitterIds: zCombination.describe('Transmitter ids that may transmit at the same time.'),
+    usePositionId: zItemId.optional().describe('The id of the one use position (usePositions[].id) this combination holds in; absent means every use position.'),
+  })
+  .describe('A combination with the use position it holds in.');
+export type DeviceFileCombination = z.output<typeof zPositionCombination> | string[];
 
 /** The whole file, with the cross-references checked; every problem carries its JSON path. */
 export const zDeviceFile = z
@@ -386,7 +404,7 @@ export const zDeviceFile = z
     antennas: z.array(zAntenna).max(MAX_ANTENNAS).default([]),
     transmitters: z.array(zTransmitter).max(MAX_TRANSMITTERS).default([]),
     usePositions: z.array(zUsePosition).max(MAX_USE_POSITIONS).default([]),
-    simultaneous: z.array(z.array(zItemId).min(2, 'A combination names at least two transmitters.')).default([]),
+    simultaneous: z.array(z.union([zCombination, zPositionCombination])).default([]),
   })
   // Runs even when other fields already failed, so one answer lists every problem in the file;
   // hence the defensive reads (a part that failed its own schema may still be raw input).

@@ -248,7 +248,11 @@ export function importDeviceFile(db: Db, actor: FilingActor, file: DeviceFile, {
     repo.writeRadios(tx, version.id, { antennas: file.antennas, transmitters: file.transmitters });
     repo.writeUsePositions(tx, version.id, { usePositions: file.usePositions }, repo.antennaIdsByKey(tx, version.id));
     repo.writeMarkets(tx, version.id, { markets: file.markets });
-    repo.writeSimultaneous(tx, version.id, file.simultaneous);
+    repo.writeCoTransmissionGroups(
+      tx,
+      version.id,
+      file.simultaneous.map((g) => (Array.isArray(g) ? { usePositionId: null, transmitterIds: g } : { usePositionId: g.usePositionId ?? null, transmitterIds: g.transmitterIds })),
+    );
     addVersionEditor(tx, version.id, actor.id);
     recordAudit(tx, {
       organisationId: actor.organisationId,
@@ -276,7 +280,8 @@ export function exportDeviceFile(db: Db, actor: FilingActor, filingId: number): 
     antennas: data.radios.antennas.map(withoutRowId),
     transmitters: data.radios.transmitters.map(withoutRowId),
     usePositions: data['use-positions'].usePositions.map(withoutRowId),
-    simultaneous: repo.readSimultaneous(db, row.version.id),
+    // Every-position groups stay bare lists (the format files were written in before positions).
+    simultaneous: repo.readCoTransmissionGroups(db, row.version.id).map((g) => (g.usePositionId === null ? g.transmitterIds : { transmitterIds: g.transmitterIds, usePositionId: g.usePositionId })),
   };
 }
 

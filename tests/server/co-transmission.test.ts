@@ -128,8 +128,8 @@ describe('saving', () => {
     const combos = lab.body.coTransmission.map((c: { id: string; transmitterIds: string[]; usePositionId: string }) => `${c.id}:${c.transmitterIds.join('+')}`);
     // G1 (every position) in both positions; G2 (hotspot only) in P-HS and nowhere else.
     expect(combos).toEqual(['G1@P-HEAD@fcc:WWAN+WLAN', 'G1@P-HS@fcc:WWAN+WLAN', 'G2@P-HS@fcc:WLAN+BT']);
-    // The device file keeps the list that holds everywhere.
-    expect((await specialist.get(`/api/filings/${id}/device.json`)).body.simultaneous).toEqual([['WWAN', 'WLAN']]);
+    // The device file keeps both: the every-position group as a bare list, the other with its position.
+    expect((await specialist.get(`/api/filings/${id}/device.json`)).body.simultaneous).toEqual([['WWAN', 'WLAN'], { transmitterIds: ['WLAN', 'BT'], usePositionId: 'P-HS' }]);
     // The audit trail names the save.
     const audit = await admin.get('/api/audit').query({ filing: String(id), person: '', kind: 'filing-data' });
     expect(JSON.stringify(audit.body)).toContain('co-transmission');
@@ -169,5 +169,36 @@ describe('lab tables and If-Match', () => {
     expect((await engineer.put(`/api/filings/${id}/instruments`).set('If-Match', `"${first.body.revision}"`).send(mine)).status).toBe(200);
     const fresh = await engineer.get(`/api/filings/${id}/instruments`);
     expect((await engineer.put(`/api/filings/${id}/instruments`).set('If-Match', `"${fresh.body.revision}"`).send(theirs)).status).toBe(200);
+  });
+});
+
+describe('the device file', () => {
+  it('an exported filing with a group of one use position imports with that group in its position, and exports the same', async () => {
+    const source = (await specialist.post('/api/filings/import').send(deviceFile)).body.filing.id as number;
+    const { revision } = (await specialist.get(`/api/filings/${source}/co-transmission`)).body;
+    const groups = [
+      { usePositionId: null, transmitterIds: ['WWAN', 'WLAN'] },
+      { usePositionId: 'P-HS', transmitterIds: ['WLAN', 'BT'] },
+    ];
+    expect((await specialist.put(`/api/filings/${source}/co-transmission`).set('If-Match', `"${revision}"`).send({ groups })).status).toBe(200);
+    const exported = await specialist.get(`/api/filings/${source}/device.json`);
+    expect(JSON.parse(exported.text).simultaneous).toEqual([['WWAN', 'WLAN'], { transmitterIds: ['WLAN', 'BT'], usePositionId: 'P-HS' }]);
+    const copy = await specialist.post('/api/filings/import').send(JSON.parse(exported.text));
+    expect(copy.status).toBe(201);
+    expect((await specialist.get(`/api/filings/${copy.body.filing.id}/co-transmission`)).body.groups).toEqual(groups);
+    expect((await specialist.get(`/api/filings/${copy.body.filing.id}/device.json`)).text).toBe(exported.text);
+  });
+
+  it('a group naming an unknown use position is refused at its JSON path; nothing is created', async () => {
+    const count = (await specialist.get('/api/filings')).body.filings.length;
+    const res = await specialist.post('/api/filings/import').send({ ...deviceFile, simultaneous: [['WWAN', 'WLAN'], { transmitterIds: ['WLAN', 'BT'], usePositionId: 'P-NOPE' }] });
+    expect(res.status).toBe(422);
+    expect(res.body.error.fields['simultaneous.1.usePositionId']).toMatch(/Unknown use position id "P-NOPE"/);
+    expect((await specialist.get('/api/filings')).body.filings.length).toBe(count);
+  });
+
+  it('the JSON Schema says a group without a use position holds in every one', async () => {
+    const schema = (await specialist.get('/api/schema/device.json')).body;
+    expect(JSON.stringify(schema.properties.simultaneous)).toMatch(/absent means every use position/);
   });
 });
