@@ -6,6 +6,18 @@ import { Icon } from '../icons';
 import { Button } from '../ui/button';
 import { Text } from '../ui/text';
 
+/** The spinner and "Saving…" that every save in the wizard shows while its request is out. */
+export function SavingNote() {
+  return (
+    <>
+      <ActivityIndicator size="small" color={palette.accent} accessibilityLabel="Saving" />
+      <Text variant="small" tone="soft">
+        Saving…
+      </Text>
+    </>
+  );
+}
+
 const time = (d: Date) => d.toLocaleTimeString('en-GB', { hour: '2-digit', minute: '2-digit' });
 
 export function SaveIndicator({ status, onRetry, readOnly }: { status: AutosaveStatus; onRetry: () => void; readOnly?: boolean }) {
@@ -33,14 +45,7 @@ export function SaveIndicator({ status, onRetry, readOnly }: { status: AutosaveS
       break;
     case 'pending':
     case 'saving':
-      body = (
-        <>
-          <ActivityIndicator size="small" color={palette.accent} accessibilityLabel="Saving" />
-          <Text variant="small" tone="soft">
-            Saving…
-          </Text>
-        </>
-      );
+      body = <SavingNote />;
       break;
     case 'saved':
       body = (

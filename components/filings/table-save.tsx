@@ -7,12 +7,13 @@
  */
 import { useCallback, useEffect, useRef, useState } from 'react';
 import type { FieldPath, FieldValues, UseFormReturn } from 'react-hook-form';
-import { ActivityIndicator, StyleSheet, View } from 'react-native';
+import { StyleSheet, View } from 'react-native';
 import { palette, radii, space } from '../../constants/theme';
 import { asProblem } from '../../hooks/api-client';
 import { Icon } from '../icons';
 import { Button } from '../ui/button';
 import { Text } from '../ui/text';
+import { SavingNote } from './save-indicator';
 
 export type TableSaveStatus =
   { kind: 'idle' } | { kind: 'saving' } | { kind: 'saved'; at: Date } | { kind: 'invalid'; problems: number; message: string } | { kind: 'failed'; message: string } | { kind: 'conflict'; at: Date };
@@ -146,14 +147,7 @@ export function TableSaveBar({
   let body: React.ReactNode = null;
   let bad = false;
   if (status.kind === 'saving') {
-    body = (
-      <>
-        <ActivityIndicator size="small" color={palette.accent} accessibilityLabel="Saving" />
-        <Text variant="small" tone="soft">
-          Saving…
-        </Text>
-      </>
-    );
+    body = <SavingNote />;
   } else if (status.kind === 'invalid' || status.kind === 'failed') {
     bad = true;
     body = (
